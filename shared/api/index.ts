@@ -1,0 +1,4 @@
+export * from './auth';
+export * from './errors';
+export * from './roles';
+export * from './users';
