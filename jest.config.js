@@ -1,18 +1,17 @@
 // One jest run, four projects: the pure engine and API types (shared), the Express API against a
 // real PostgreSQL (server), the Angular components under jsdom (client), and one real-browser
-// end-to-end test (e2e). The global set-up starts one throwaway PostgreSQL cluster for all of them.
+// end-to-end test (e2e). The projects that need a database share one throwaway PostgreSQL cluster,
+// started by their global set-up (reference-counted, so it starts once per jest run).
 const nodeTransform = {
   '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', moduleResolution: 'node', isolatedModules: true }, isolatedModules: true }],
 };
 
 module.exports = {
-  globalSetup: '<rootDir>/tests/support/global-setup.ts',
-  globalTeardown: '<rootDir>/tests/support/global-teardown.ts',
   projects: [
     {
       displayName: 'shared',
       testEnvironment: 'node',
-      roots: ['<rootDir>/shared', '<rootDir>/fixtures'],
+      roots: ['<rootDir>/shared', '<rootDir>/fixtures', '<rootDir>/tests/cli'],
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
     },
@@ -22,6 +21,8 @@ module.exports = {
       roots: ['<rootDir>/server', '<rootDir>/tests/api'],
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
+      globalSetup: '<rootDir>/tests/support/database-setup.ts',
+      globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
     },
     {
       displayName: 'client',
@@ -41,6 +42,8 @@ module.exports = {
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
+      globalSetup: '<rootDir>/tests/support/database-setup.ts',
+      globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
     },
   ],
 };
