@@ -1,0 +1,56 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { authRoutes } from './auth/auth.routes';
+import { createGuards } from './auth/passport';
+import type { Config } from './config/config';
+import type { Database } from './database/sequelize';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import type { WelcomeMail } from './mail/welcome-mail';
+import { usersRoutes } from './users/users.routes';
+import { createUsersService } from './users/users.service';
+
+export interface AppDependencies {
+  config: Config;
+  database: Database;
+  jwtSecret: string;
+  welcomeMail: WelcomeMail;
+}
+
+/**
+ * Builds the Express app: configuration, middleware, one router per resource, the built Angular
+ * app, and the one error handler last. It does not listen: start.ts does, tests use supertest.
+ */
+export function createApp({ config, database, jwtSecret, welcomeMail }: AppDependencies): Express {
+  const app = express();
+  const users = createUsersService(database.models.User, config.bcryptRounds);
+  const guards = createGuards(jwtSecret, users);
+
+  app.disable('x-powered-by');
+  // One proxy hop (a lab's reverse proxy) may set the client address used by the rate limit.
+  app.set('trust proxy', 'loopback');
+  app.use(helmet());
+  app.use('/api', express.json({ limit: '100kb' }));
+
+  app.get('/api/health', (_request, response) => {
+    response.json({ status: 'ok' });
+  });
+  app.use('/api/auth', authRoutes(config, jwtSecret, users, guards));
+  app.use('/api/users', usersRoutes(users, guards, welcomeMail));
+  app.use('/api', apiNotFound);
+
+  serveBuiltApp(app, config.appDir);
+  app.use(errorHandler);
+  return app;
+}
+
+/** The built Angular app, with every other path answered by index.html (client-side routes). */
+function serveBuiltApp(app: Express, appDir: string): void {
+  const indexFile = path.join(appDir, 'index.html');
+  app.use(express.static(appDir, { index: false, maxAge: '1h' }));
+  app.get('/{*path}', (_request, response, next) => {
+    if (!fs.existsSync(indexFile)) return next();
+    response.sendFile(indexFile, { maxAge: 0 });
+  });
+}

@@ -1,0 +1,27 @@
+import type { Config } from '../config/config';
+import { createUsersService } from '../users/users.service';
+import { migrate, seedDemo } from './migrate';
+import type { Database } from './sequelize';
+
+export interface BootstrapReport {
+  migrations: string[];
+  seeders: string[];
+  createdAdmin?: string;
+}
+
+/**
+ * Brings a database up to date on start: migrations, the demo lab when asked for, and a first
+ * admin when there is none (from BELLKEEP_ADMIN_*, or else the demo lab's admin).
+ */
+export async function bootstrapDatabase(database: Database, config: Config): Promise<BootstrapReport> {
+  const migrations = await migrate(database.sequelize);
+  const users = createUsersService(database.models.User, config.bcryptRounds);
+  let createdAdmin: string | undefined;
+  if ((await users.countActiveAdmins()) === 0 && config.bootstrapAdmin) {
+    const admin = await users.create({ ...config.bootstrapAdmin, roles: ['admin'] });
+    createdAdmin = admin.email;
+  }
+  const needsDemoAdmin = (await users.countActiveAdmins()) === 0;
+  const seeders = config.demo || needsDemoAdmin ? await seedDemo(database.sequelize) : [];
+  return { migrations, seeders, createdAdmin };
+}

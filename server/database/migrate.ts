@@ -1,0 +1,52 @@
+import path from 'node:path';
+import type { QueryInterface, Sequelize, Transaction } from 'sequelize';
+import { SequelizeStorage, Umzug } from 'umzug';
+import { PROJECT_ROOT } from '../config/config';
+
+/** What each migration and seeder receives: pass `transaction` to every query it makes. */
+export interface MigrationContext {
+  queryInterface: QueryInterface;
+  transaction: Transaction;
+}
+
+interface MigrationModule {
+  up(context: MigrationContext): Promise<void>;
+  down?(context: MigrationContext): Promise<void>;
+}
+
+/**
+ * Schema changes happen only here: the migrations in migrations/, applied in file-name order, each
+ * in its own transaction (PostgreSQL DDL is transactional, so a failed one leaves nothing behind),
+ * recorded in `SequelizeMeta`, the table name sequelize-cli uses too.
+ */
+export async function migrate(sequelize: Sequelize): Promise<string[]> {
+  return applyFolder(sequelize, 'migrations', 'SequelizeMeta');
+}
+
+/** Demo data: the seeders in seeders/, each applied once, recorded in `SequelizeData`. */
+export async function seedDemo(sequelize: Sequelize): Promise<string[]> {
+  return applyFolder(sequelize, 'seeders', 'SequelizeData');
+}
+
+async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string): Promise<string[]> {
+  const umzug = new Umzug({
+    migrations: {
+      glob: [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],
+      resolve: ({ name, path: file }) => {
+        // eslint-disable-next-line @typescript-eslint/no-require-imports
+        const migration = require(file!) as MigrationModule;
+        const inTransaction = (step: (context: MigrationContext) => Promise<void>) => () =>
+          sequelize.transaction((transaction) => step({ queryInterface: sequelize.getQueryInterface(), transaction }));
+        return {
+          name,
+          up: inTransaction((context) => migration.up(context)),
+          down: migration.down ? inTransaction((context) => migration.down!(context)) : undefined,
+        };
+      },
+    },
+    storage: new SequelizeStorage({ sequelize, modelName: storageTable }),
+    logger: undefined,
+  });
+  const applied = await umzug.up();
+  return applied.map((migration) => path.basename(migration.name));
+}

@@ -1,0 +1,30 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ApiErrorBody } from '../../shared/api';
+import { HttpError } from './http-error';
+
+/** Unknown API routes answer in the same JSON shape as every other error. */
+export const apiNotFound: RequestHandler = (request, _response, next) => {
+  next(HttpError.notFound(`No API route ${request.method} ${request.originalUrl}.`));
+};
+
+/** The one error handler: the last middleware of the app. */
+export const errorHandler: ErrorRequestHandler = (error, _request, response, _next) => {
+  const httpError = toHttpError(error);
+  if (httpError.status >= 500) console.error(error);
+  const body: ApiErrorBody = {
+    error: { code: httpError.code, message: httpError.message, ...(httpError.field ? { field: httpError.field } : {}) },
+  };
+  response.status(httpError.status).json(body);
+};
+
+function toHttpError(error: unknown): HttpError {
+  if (error instanceof HttpError) return error;
+  // body-parser's errors carry a status and a type: malformed JSON, a body too large.
+  const status = (error as { status?: number }).status;
+  if (status && status >= 400 && status < 500) {
+    const type = (error as { type?: string }).type;
+    const message = type === 'entity.parse.failed' ? 'The request body is not valid JSON.' : (error as Error).message;
+    return new HttpError(status, 'validation', message);
+  }
+  return new HttpError(500, 'internal', 'Something went wrong on the server; it has been logged.');
+}

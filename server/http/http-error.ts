@@ -1,0 +1,34 @@
+import type { ApiErrorCode } from '../../shared/api';
+
+/** The one error type of the server: the error handler turns it into an `ApiErrorBody`. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ApiErrorCode,
+    message: string,
+    readonly field?: string,
+  ) {
+    super(message);
+    this.name = 'HttpError';
+  }
+
+  static badRequest(message: string, field?: string): HttpError {
+    return new HttpError(400, 'validation', message, field);
+  }
+
+  static unauthorized(message = 'Sign in first: this needs a valid, unexpired token.'): HttpError {
+    return new HttpError(401, 'unauthorized', message);
+  }
+
+  static forbidden(message: string): HttpError {
+    return new HttpError(403, 'forbidden', message);
+  }
+
+  static notFound(message: string): HttpError {
+    return new HttpError(404, 'not-found', message);
+  }
+
+  static conflict(message: string, field?: string): HttpError {
+    return new HttpError(409, 'conflict', message, field);
+  }
+}

@@ -1,0 +1,44 @@
+import request from 'supertest';
+import { ROLES, type Role } from '../../shared/api';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+/**
+ * Every protected route and the roles that may use it. A route whose server-side check were
+ * removed or widened would fail here: each role not listed must get 403, no token must get 401.
+ */
+const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch'; path: string; roles: Role[] | 'any' }> = [
+  { method: 'get', path: '/api/auth/me', roles: 'any' },
+  { method: 'get', path: '/api/users', roles: ['admin'] },
+  { method: 'post', path: '/api/users', roles: ['admin'] },
+  { method: 'patch', path: '/api/users/1', roles: ['admin'] },
+];
+
+/** One demo person holding exactly this single role. */
+function personWithOnly(role: Role) {
+  return DEMO_PEOPLE.find((person) => person.roles.length === 1 && person.roles[0] === role)!;
+}
+
+describe('role checks on the server', () => {
+  let testApp: TestApp;
+  const tokens = new Map<Role, string>();
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    for (const role of ROLES) tokens.set(role, await testApp.signIn(personWithOnly(role).email, DEMO_PASSWORD));
+  });
+  afterAll(() => testApp.close());
+
+  describe.each(PROTECTED_ROUTES)('$method $path', ({ method, path, roles }) => {
+    it('answers 401 without a token', async () => {
+      await request(testApp.app)[method](path).expect(401);
+    });
+
+    it.each(ROLES)('as %s', async (role) => {
+      const response = await request(testApp.app)[method](path).set('Authorization', `Bearer ${tokens.get(role)}`).send({});
+      const allowed = roles === 'any' || roles.includes(role);
+      if (allowed) expect([200, 201, 400]).toContain(response.status);
+      else expect(response.status).toBe(403);
+    });
+  });
+});

@@ -1,0 +1,5 @@
+import { releaseTestCluster } from './database-setup';
+
+export default function tearDownTestCluster(): void {
+  releaseTestCluster();
+}
