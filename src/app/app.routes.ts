@@ -1,0 +1,41 @@
+import { Routes } from '@angular/router';
+
+import { requireRoles, requireSignIn } from './auth/role-guard';
+import { navItem } from './shell/navigation';
+
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Bellkeep',
+    loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: '',
+    canActivate: [requireSignIn],
+    loadComponent: () => import('./shell/shell').then((m) => m.Shell),
+    children: [
+      {
+        path: '',
+        pathMatch: 'full',
+        title: 'Overview · Bellkeep',
+        loadComponent: () => import('./overview/overview').then((m) => m.Overview),
+      },
+      {
+        path: 'users',
+        title: 'Users · Bellkeep',
+        canActivate: [requireRoles(navItem('users').roles)],
+        loadChildren: () => import('./users/users.routes').then((m) => m.usersRoutes),
+      },
+      {
+        path: 'forbidden',
+        title: 'Not allowed · Bellkeep',
+        loadComponent: () => import('./status-pages/forbidden').then((m) => m.Forbidden),
+      },
+      {
+        path: '**',
+        title: 'Page not found · Bellkeep',
+        loadComponent: () => import('./status-pages/not-found').then((m) => m.NotFound),
+      },
+    ],
+  },
+];

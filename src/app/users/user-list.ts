@@ -1,0 +1,157 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  effect,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { DatePipe } from '@angular/common';
+import { MatButtonModule } from '@angular/material/button';
+import { MatChipsModule } from '@angular/material/chips';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableDataSource, MatTableModule } from '@angular/material/table';
+import { filter, switchMap } from 'rxjs';
+
+import { ROLE_LABELS, type Role, type UserDto } from '../../../shared/api';
+import { apiErrorMessage } from '../api/api-error-message';
+import { Session } from '../auth/session';
+import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';
+import { NewUserDialog } from './new-user-dialog';
+import { UserRolesDialog } from './user-roles-dialog';
+import { UsersApi } from './users-api';
+
+/** How far the list has got. */
+type LoadState = 'loading' | 'ready' | 'failed';
+
+/** The admin's list of users: add people, change their roles, deactivate and reactivate them. */
+@Component({
+  selector: 'bk-user-list',
+  imports: [
+    DatePipe,
+    MatButtonModule,
+    MatChipsModule,
+    MatIconModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSortModule,
+    MatTableModule,
+  ],
+  templateUrl: './user-list.html',
+  styleUrl: './user-list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class UserList {
+  private readonly usersApi = inject(UsersApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly sort = viewChild(MatSort);
+  private readonly paginator = viewChild(MatPaginator);
+
+  protected readonly columns = ['name', 'email', 'roles', 'active', 'createdAt', 'actions'];
+  protected readonly currentUserId = inject(Session).user()?.id;
+  protected readonly users = signal<UserDto[]>([]);
+  protected readonly loadState = signal<LoadState>('loading');
+  protected readonly loadFailure = signal('');
+  protected readonly dataSource = new MatTableDataSource<UserDto>([]);
+
+  constructor() {
+    this.dataSource.sortingDataAccessor = (user, column) =>
+      column === 'roles' ? user.roles.join(',') : String(user[column as keyof UserDto]);
+    // The table's data source is not a signal: keep it in step with the list, sort and paginator.
+    effect(() => {
+      this.dataSource.data = this.users();
+      this.dataSource.sort = this.sort() ?? null;
+      this.dataSource.paginator = this.paginator() ?? null;
+    });
+    this.loadUsers();
+  }
+
+  protected loadUsers(): void {
+    this.loadState.set('loading');
+    this.usersApi
+      .list()
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (users) => {
+          this.users.set(users);
+          this.loadState.set('ready');
+        },
+        error: (error: unknown) => {
+          this.loadFailure.set(apiErrorMessage(error));
+          this.loadState.set('failed');
+        },
+      });
+  }
+
+  protected openNewUser(): void {
+    this.dialog
+      .open<NewUserDialog, void, UserDto>(NewUserDialog)
+      .afterClosed()
+      .pipe(filter((user) => user !== undefined))
+      .subscribe((user) => {
+        this.users.update((users) => [...users, user]);
+        this.snackBar.open(`${user.name} can now sign in.`, undefined, { duration: 4000 });
+      });
+  }
+
+  protected openRoles(user: UserDto): void {
+    this.dialog
+      .open<UserRolesDialog, UserDto, UserDto>(UserRolesDialog, { data: user })
+      .afterClosed()
+      .pipe(filter((updated) => updated !== undefined))
+      .subscribe((updated) => {
+        this.replaceUser(updated);
+        this.snackBar.open(`Roles of ${updated.name} saved.`, undefined, { duration: 4000 });
+      });
+  }
+
+  protected confirmActiveChange(user: UserDto): void {
+    const active = !user.active;
+    const question: ConfirmQuestion = active
+      ? {
+          title: `Reactivate ${user.name}?`,
+          message: `${user.name} will be able to sign in again with their roles as they were.`,
+          confirmLabel: 'Reactivate',
+        }
+      : {
+          title: `Deactivate ${user.name}?`,
+          message: `${user.name} will be signed out at once and cannot sign in until reactivated. Their work stays in Bellkeep.`,
+          confirmLabel: 'Deactivate',
+        };
+    this.dialog
+      .open<ConfirmDialog, ConfirmQuestion, boolean>(ConfirmDialog, { data: question })
+      .afterClosed()
+      .pipe(
+        filter((confirmed) => confirmed === true),
+        switchMap(() => this.usersApi.update(user.id, { active })),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: (updated) => {
+          this.replaceUser(updated);
+          const outcome = updated.active ? 'is active again' : 'is deactivated';
+          this.snackBar.open(`${updated.name} ${outcome}.`, undefined, { duration: 4000 });
+        },
+        error: (error: unknown) => this.snackBar.open(apiErrorMessage(error), 'Dismiss'),
+      });
+  }
+
+  protected roleLabel(role: Role): string {
+    return ROLE_LABELS[role];
+  }
+
+  private replaceUser(updated: UserDto): void {
+    this.users.update((users) => users.map((user) => (user.id === updated.id ? updated : user)));
+  }
+}
