@@ -3,7 +3,7 @@
 // end-to-end test (e2e). The projects that need a database share one throwaway PostgreSQL cluster,
 // started by their global set-up (reference-counted, so it starts once per jest run).
 const nodeTransform = {
-  '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', moduleResolution: 'node', isolatedModules: true }, isolatedModules: true }],
+  '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', moduleResolution: 'node', isolatedModules: true } }],
 };
 
 module.exports = {
