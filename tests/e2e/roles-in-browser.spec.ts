@@ -1,0 +1,80 @@
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import type { Browser, Page } from 'playwright-core';
+import { loadConfig } from '../../server/config/config';
+import { buildAppIfStale } from '../../server/system/angular-build';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { launchChromium } from '../support/chromium';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+/**
+ * A real headless Chromium on the production build served by the real API: two demo people of
+ * different roles sign in, each sees the navigation their roles allow, and the experimentalist is
+ * refused the admin's page.
+ */
+describe('sign-in and roles in a real browser', () => {
+  let testApp: TestApp;
+  let server: Server;
+  let browser: Browser;
+  let baseUrl: string;
+
+  beforeAll(async () => {
+    // The first run on a machine may build the app and install Chromium: minutes, not seconds.
+    await buildAppIfStale(loadConfig().appDir);
+    testApp = await createTestApp();
+    server = testApp.app.listen(0, '127.0.0.1');
+    await new Promise((resolve) => server.once('listening', resolve));
+    baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    browser = await launchChromium();
+  }, 600_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await new Promise((resolve) => server?.close(resolve));
+    await testApp?.close();
+  });
+
+  async function signIn(page: Page, email: string): Promise<void> {
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByTestId('user-menu').waitFor();
+  }
+
+  /** The pages the side navigation offers, by their link's test id (`nav-<page>`). */
+  const navPages = (page: Page) =>
+    page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link')
+      .evaluateAll((links) => links.map((link) => link.getAttribute('data-testid')?.replace(/^nav-/, '')));
+
+  it('the admin sees Users and opens the user list', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await signIn(page, 'maren.holt@kestrelfen.example');
+    expect(await navPages(page)).toEqual(['overview', 'users']);
+
+    await page.getByTestId('nav-users').click();
+    await page.waitForURL(`${baseUrl}/users`);
+    await page.getByRole('cell', { name: 'sami.virtanen@kestrelfen.example' }).waitFor();
+    await page.close();
+  }, 60_000);
+
+  it('the experimentalist sees no Users link and is refused the page; signing out ends the session', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await signIn(page, 'dev.okafor@kestrelfen.example');
+    expect(await navPages(page)).toEqual(['overview']);
+
+    await page.goto(`${baseUrl}/users`);
+    await page.getByRole('heading', { name: 'Not allowed' }).waitFor();
+    expect(await page.getByRole('main').innerText()).toContain('Admin');
+    await expect(page.getByRole('cell', { name: 'maren.holt@kestrelfen.example' }).count()).resolves.toBe(0);
+
+    await page.getByTestId('user-menu').click();
+    await page.getByTestId('sign-out').click();
+    await page.waitForURL(/\/sign-in/);
+    await page.goto(`${baseUrl}/`);
+    await page.waitForURL(/\/sign-in/);
+    await page.close();
+  }, 60_000);
+});

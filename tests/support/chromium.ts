@@ -1,0 +1,17 @@
+import fs from 'node:fs';
+import { chromium, type Browser } from 'playwright-core';
+import { installDebianPackage } from '../../server/system/debian-package';
+
+const CHROMIUM = '/usr/bin/chromium';
+
+/** Flags that keep headless Chromium quiet on a machine with no network but loopback. */
+const CHROMIUM_FLAGS = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+];
+
+/** Debian's Chromium driven by playwright-core (which downloads no browser of its own). */
+export async function launchChromium(): Promise<Browser> {
+  if (!fs.existsSync(CHROMIUM)) installDebianPackage('chromium', 'the end-to-end test');
+  return chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_FLAGS });
+}
