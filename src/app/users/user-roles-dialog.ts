@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 
@@ -23,9 +23,11 @@ export class UserRolesDialog {
   private readonly destroyRef = inject(DestroyRef);
 
   protected readonly user = inject<UserDto>(MAT_DIALOG_DATA);
-  protected readonly roles = new FormControl<Role[]>([...this.user.roles], {
-    nonNullable: true,
-    validators: Validators.required,
+  protected readonly form = new FormGroup({
+    roles: new FormControl<Role[]>([...this.user.roles], {
+      nonNullable: true,
+      validators: Validators.required,
+    }),
   });
 
   /** Whether the request is on its way. */
@@ -35,14 +37,14 @@ export class UserRolesDialog {
   protected readonly failure = signal<string | null>(null);
 
   protected saveRoles(): void {
-    if (this.roles.invalid) {
-      this.roles.markAsTouched();
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
       return;
     }
     this.saving.set(true);
     this.failure.set(null);
     this.usersApi
-      .update(this.user.id, { roles: this.roles.value })
+      .update(this.user.id, this.form.getRawValue())
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
         next: (user) => this.dialogRef.close(user),

@@ -1,0 +1,63 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { provideRouter, Router } from '@angular/router';
+
+import type { Role } from '../../../shared/api';
+import { Session } from '../auth/session';
+import { Shell } from './shell';
+
+describe('Shell', () => {
+  async function renderFor(roles: Role[]): Promise<ComponentFixture<Shell>> {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
+    });
+    TestBed.inject(Session).signIn({ email: 'noor.achterberg@kestrelfen.example', password: 'x' }).subscribe();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/auth/login')
+      .flush({
+        token: 'token-noor',
+        expiresAt: '2027-01-01T00:00:00Z',
+        user: { id: 5, email: 'noor.achterberg@kestrelfen.example', name: 'Noor Achterberg', roles, active: true, createdAt: '2026-08-20T00:00:00Z' },
+      });
+    const fixture = TestBed.createComponent(Shell);
+    await fixture.whenStable();
+    return fixture;
+  }
+
+  function navLabels(fixture: ComponentFixture<Shell>): string[] {
+    const links = (fixture.nativeElement as HTMLElement).querySelectorAll('nav a');
+    return Array.from(links, (link) => `${link.getAttribute('data-testid')}: ${link.querySelector('.mat-mdc-list-item-title')?.textContent?.trim()}`);
+  }
+
+  beforeEach(() => localStorage.clear());
+
+  it('shows an admin the users page', async () => {
+    const fixture = await renderFor(['admin']);
+    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-users: Users']);
+  });
+
+  it('hides the users page from a shift lead', async () => {
+    const fixture = await renderFor(['shift-lead']);
+    expect(navLabels(fixture)).toEqual(['nav-overview: Overview']);
+  });
+
+  it('signs out from the user menu', async () => {
+    const fixture = await renderFor(['auditor']);
+    const navigateByUrl = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
+    const page = fixture.nativeElement as HTMLElement;
+    page.querySelector<HTMLButtonElement>('[data-testid="user-menu"]')!.click();
+    await fixture.whenStable();
+    document.querySelector<HTMLButtonElement>('[data-testid="sign-out"]')!.click();
+
+    expect(TestBed.inject(Session).user()).toBeNull();
+    expect(localStorage.getItem('bellkeep.token')).toBeNull();
+    expect(navigateByUrl).toHaveBeenCalledWith('/sign-in');
+  });
+});
