@@ -8,9 +8,9 @@ import { ChangeDetectionStrategy, Component } from '@angular/core';
   selector: 'bk-product-mark',
   template: `
     <svg class="bk-product-mark-symbol" viewBox="0 0 40 24" aria-hidden="true" focusable="false">
-      <path d="M6 18 A 14 13 0 0 1 34 18" fill="none" stroke="currentColor" stroke-width="2.25" stroke-linecap="round" />
-      <circle cx="6" cy="18" r="4.25" fill="currentColor" />
-      <circle cx="34" cy="18" r="4.25" fill="currentColor" />
+      <path d="M6 17 A 16 16 0 0 1 34 17" fill="none" stroke="currentColor" stroke-width="2.25" stroke-linecap="round" />
+      <circle cx="6" cy="17" r="4.5" fill="currentColor" />
+      <circle cx="34" cy="17" r="4.5" fill="currentColor" />
     </svg>
     <span class="bk-product-mark-word">Bellkeep</span>
   `,
