@@ -49,14 +49,23 @@ describe('sign-in and roles in a real browser', () => {
       .getByRole('link')
       .evaluateAll((links) => links.map((link) => link.getAttribute('data-testid')?.replace(/^nav-/, '')));
 
-  it('the admin sees Users and opens the user list', async () => {
+  it('the admin sees Users and opens the user list; the page loads nothing from elsewhere and its fonts are its own', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    const requested: string[] = [];
+    page.on('request', (pageRequest) => requested.push(pageRequest.url()));
     await signIn(page, 'maren.holt@kestrelfen.example');
     expect(await navPages(page)).toEqual(['overview', 'users']);
 
     await page.getByTestId('nav-users').click();
     await page.waitForURL(`${baseUrl}/users`);
     await page.getByRole('cell', { name: 'sami.virtanen@kestrelfen.example' }).waitFor();
+
+    // The full stylesheet applies (helmet's policy allows how it is linked) and the shipped fonts load.
+    await page.evaluate(() => document.fonts.ready);
+    expect(await page.evaluate(() => getComputedStyle(document.body).fontFamily)).toMatch(/^Roboto/);
+    const loadedFonts = await page.evaluate(() => [...document.fonts].filter((face) => face.status === 'loaded').map((face) => face.family.replace(/"/g, '')));
+    expect(loadedFonts).toEqual(expect.arrayContaining(['Roboto', 'Material Symbols Outlined']));
+    expect(requested.filter((url) => !url.startsWith(baseUrl) && !url.startsWith('data:'))).toEqual([]);
     await page.close();
   }, 60_000);
 
