@@ -1,0 +1,68 @@
+import { readFile } from 'node:fs/promises';
+import { AnalysisResult } from '../../shared/analysis';
+import { analyseLog, AnalysisProgress, AnalysisRequestError } from '../../shared/analysis/node';
+import { parseAnalyseArguments, USAGE, UsageError } from './analyse-arguments';
+
+/** Exit codes of the contract: the verdict, or 2 for a usage or I/O error. */
+const EXIT_CODE: Record<AnalysisResult['verdict'], number> = { ACCEPT: 0, ABORT: 1, INVALID: 3 };
+const USAGE_OR_IO_ERROR = 2;
+
+/** Reads a JSON file named on the command line. */
+async function readJson(path: string, what: string): Promise<unknown> {
+  let text: string;
+  try {
+    text = await readFile(path, 'utf8');
+  } catch (error) {
+    throw new AnalysisRequestError(`cannot read the ${what} ${path}: ${(error as Error).message}`, 'io');
+  }
+  try {
+    return JSON.parse(text) as unknown;
+  } catch (error) {
+    throw new AnalysisRequestError(`the ${what} ${path} is not valid JSON: ${(error as Error).message}`, what === 'profile' ? 'profile' : 'mapping');
+  }
+}
+
+/** Progress on stderr, at most once per percent. */
+function progressPrinter(): (progress: AnalysisProgress) => void {
+  let lastShown = '';
+  return ({ phase, bytesRead, totalBytes }) => {
+    const shown = totalBytes ? `${phase} ${Math.floor((100 * bytesRead) / totalBytes)}%` : `${phase} ${bytesRead} bytes`;
+    if (shown !== lastShown) {
+      process.stderr.write(`${shown}\n`);
+      lastShown = shown;
+    }
+  };
+}
+
+async function main(): Promise<number> {
+  const args = parseAnalyseArguments(process.argv.slice(2));
+  const result = await analyseLog(
+    { path: args.log },
+    {
+      profile: args.profile === undefined ? undefined : await readJson(args.profile, 'profile'),
+      mapping: args.mapping === undefined ? undefined : await readJson(args.mapping, 'mapping'),
+      seed: args.seed,
+      threads: args.threads,
+      onProgress: progressPrinter(),
+    },
+  );
+  process.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
+  process.stderr.write(`verdict: ${result.verdict}\n`);
+  return EXIT_CODE[result.verdict];
+}
+
+main().then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (error: unknown) => {
+    if (error instanceof UsageError) {
+      process.stderr.write(`analyse: ${error.message}\n${USAGE}\n`);
+    } else if (error instanceof AnalysisRequestError) {
+      process.stderr.write(`analyse: ${error.message}\n`);
+    } else {
+      process.stderr.write(`analyse: internal error: ${(error as Error).stack ?? String(error)}\n`);
+    }
+    process.exitCode = USAGE_OR_IO_ERROR;
+  },
+);

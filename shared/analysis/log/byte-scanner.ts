@@ -1,0 +1,211 @@
+import { splitCsvLine } from './csv-line';
+import { HeaderLayout } from './header-layout';
+import { parseIntegerField } from './integer-field';
+import { RangeAnalysis } from './range-analysis';
+import { ROUND_FIELDS } from './round-fields';
+
+const LF = 10;
+const CR = 13;
+const COMMA = 44;
+const QUOTE = 34;
+const DIGIT_0 = 48;
+const MINUS = 45;
+const PLUS = 43;
+
+/** Longest line accepted; a longer one is no round record (and would hold memory without bound). */
+export const MAX_LINE_BYTES = 1 << 20;
+
+/**
+ * The fast reader: walks the bytes of a stretch once, splitting lines at LF (a CR before it is
+ * dropped), fields at commas, and reading integers digit by digit without making strings. A line
+ * that contains a quote is handed to the RFC 4180 line splitter instead, so quoting follows the same
+ * rules as the reference reader (csv-parse). Chunks may cut lines anywhere: the cut line is carried
+ * to the next chunk. Blank lines are skipped, like csv-parse's `skip_empty_lines`.
+ */
+export class ByteScanner {
+  private readonly values = new Float64Array(ROUND_FIELDS.length);
+  private readonly decoder = new TextDecoder();
+  private readonly fieldOfColumn: Int8Array;
+  private carry: Uint8Array | null = null;
+  private skippingLongLine = false;
+  private line: number;
+  private lineBytes: Uint8Array = new Uint8Array(0);
+  private lineStart = 0;
+  private lineEnd = 0;
+  private readonly rawFields = (): string[] => {
+    const split = splitCsvLine(this.decoder.decode(this.lineBytes.subarray(this.lineStart, this.lineEnd)));
+    return 'fields' in split ? split.fields : [];
+  };
+
+  constructor(
+    private readonly layout: HeaderLayout,
+    private readonly analysis: RangeAnalysis,
+    firstLine: number,
+  ) {
+    this.fieldOfColumn = Int8Array.from(layout.fieldOfColumn);
+    this.line = firstLine;
+  }
+
+  /** Reads the complete lines of `chunk` (after any line carried from the previous chunk). */
+  push(chunk: Uint8Array): void {
+    let from = 0;
+    if (this.skippingLongLine) {
+      const newline = chunk.indexOf(LF);
+      if (newline < 0) {
+        return;
+      }
+      this.skippingLongLine = false;
+      from = newline + 1;
+    } else if (this.carry !== null) {
+      const newline = chunk.indexOf(LF);
+      if (newline < 0) {
+        this.extendCarry(chunk);
+        return;
+      }
+      const joined = new Uint8Array(this.carry.length + newline + 1);
+      joined.set(this.carry);
+      joined.set(chunk.subarray(0, newline + 1), this.carry.length);
+      this.carry = null;
+      this.scan(joined, 0, false);
+      from = newline + 1;
+    }
+    if (from >= chunk.length) {
+      return;
+    }
+    const rest = this.scan(chunk, from, false);
+    if (rest < chunk.length) {
+      this.extendCarry(chunk.subarray(rest));
+    }
+  }
+
+  /** Reads the last line, which may lack a line break. */
+  finish(): void {
+    if (this.carry !== null) {
+      const last = this.carry;
+      this.carry = null;
+      this.scan(last, 0, true);
+    }
+  }
+
+  private extendCarry(bytes: Uint8Array): void {
+    const previous = this.carry ?? new Uint8Array(0);
+    if (previous.length + bytes.length > MAX_LINE_BYTES) {
+      const preview = this.decoder.decode(previous.subarray(0, 40));
+      this.analysis.malformed(this.line++, `${preview}…`, `the line is longer than ${MAX_LINE_BYTES} bytes: not a round record`);
+      this.carry = null;
+      this.skippingLongLine = true;
+      return;
+    }
+    const joined = new Uint8Array(previous.length + bytes.length);
+    joined.set(previous);
+    joined.set(bytes, previous.length);
+    this.carry = joined;
+  }
+
+  /**
+   * Reads lines of `bytes` from `from`; returns where the first incomplete line starts (bytes.length
+   * when none). With `atEnd`, the rest is the last line of the stretch.
+   */
+  private scan(bytes: Uint8Array, from: number, atEnd: boolean): number {
+    const length = bytes.length;
+    const fieldOfColumn = this.fieldOfColumn;
+    const columns = fieldOfColumn.length;
+    const values = this.values;
+    let i = from;
+    while (i < length) {
+      const start = i;
+      let field = 0;
+      let value = 0;
+      let digits = 0;
+      let negative = false;
+      let signed = false;
+      let bad = false;
+      let quoted = false;
+      let end = -1;
+      while (i < length) {
+        const c = bytes[i++];
+        const digit = c - DIGIT_0;
+        if (digit >= 0 && digit <= 9) {
+          value = value * 10 + digit;
+          digits++;
+          continue;
+        }
+        if (c === COMMA || c === LF || (c === CR && i < length && bytes[i] === LF)) {
+          if (field < columns) {
+            const target = fieldOfColumn[field];
+            if (target >= 0) {
+              values[target] = bad || digits === 0 ? NaN : negative ? -value : value;
+            }
+          }
+          field++;
+          if (c === COMMA) {
+            value = 0;
+            digits = 0;
+            negative = false;
+            signed = false;
+            bad = false;
+            continue;
+          }
+          end = i - 1;
+          i = c === CR ? i + 1 : i;
+          break;
+        }
+        if (c === CR && i >= length && !atEnd) {
+          return start;
+        }
+        if ((c === MINUS || c === PLUS) && digits === 0 && !signed) {
+          negative = c === MINUS;
+          signed = true;
+          continue;
+        }
+        if (c === QUOTE) {
+          quoted = true;
+        }
+        bad = true;
+      }
+      if (end < 0) {
+        if (!atEnd) {
+          return start;
+        }
+        end = length;
+        if (field < columns) {
+          const target = fieldOfColumn[field];
+          if (target >= 0) {
+            values[target] = bad || digits === 0 ? NaN : negative ? -value : value;
+          }
+        }
+        field++;
+      }
+      this.readLine(bytes, start, end, field, quoted);
+    }
+    return length;
+  }
+
+  private readLine(bytes: Uint8Array, start: number, end: number, fieldCount: number, quoted: boolean): void {
+    const line = this.line++;
+    if (end === start) {
+      return;
+    }
+    this.lineBytes = bytes;
+    this.lineStart = start;
+    this.lineEnd = end;
+    if (!quoted) {
+      this.analysis.accept(line, this.values, fieldCount, this.rawFields);
+      return;
+    }
+    const text = this.decoder.decode(bytes.subarray(start, end));
+    const split = splitCsvLine(text);
+    if ('error' in split) {
+      this.analysis.malformed(line, text, `the row's quoting is broken: ${split.error}`);
+      return;
+    }
+    this.values.fill(NaN);
+    split.fields.forEach((field, column) => {
+      const target = column < this.fieldOfColumn.length ? this.fieldOfColumn[column] : -1;
+      if (target >= 0) {
+        this.values[target] = parseIntegerField(field);
+      }
+    });
+    this.analysis.accept(line, this.values, split.fields.length, this.rawFields);
+  }
+}

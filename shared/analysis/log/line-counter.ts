@@ -1,0 +1,56 @@
+const LF = 10;
+const CR = 13;
+
+/** What the counting pass learns about a stretch of log. */
+export interface LineCount {
+  /** Lines started in the stretch (a last line without a line break counts). */
+  lines: number;
+  /** Non-blank lines: the records, each one round. */
+  records: number;
+}
+
+/**
+ * The counting pass: counts lines and records (non-blank lines; a line holding only the CR of a CRLF
+ * is blank) with the same rules as the byte scanner, across chunk cuts.
+ */
+export class LineCounter {
+  private lines = 0;
+  private records = 0;
+  /** Bytes of the current, unfinished line seen so far. */
+  private pending = 0;
+  /** Whether that unfinished line is exactly one CR. */
+  private pendingIsCr = false;
+
+  /** Counts the lines of one chunk. */
+  push(chunk: Uint8Array): void {
+    let from = 0;
+    for (;;) {
+      const newline = chunk.indexOf(LF, from);
+      if (newline < 0) {
+        const tail = chunk.length - from;
+        if (tail > 0) {
+          this.pendingIsCr = this.pending === 0 && tail === 1 && chunk[from] === CR;
+          this.pending += tail;
+        }
+        return;
+      }
+      const length = this.pending + newline - from;
+      const blank = length === 0 || (length === 1 && (this.pending === 1 ? this.pendingIsCr : chunk[from] === CR));
+      this.lines++;
+      this.records += blank ? 0 : 1;
+      this.pending = 0;
+      this.pendingIsCr = false;
+      from = newline + 1;
+    }
+  }
+
+  /** The totals, counting a last line that lacks a line break. */
+  finish(): LineCount {
+    if (this.pending > 0) {
+      this.lines++;
+      this.records++;
+      this.pending = 0;
+    }
+    return { lines: this.lines, records: this.records };
+  }
+}

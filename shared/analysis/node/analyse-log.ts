@@ -1,0 +1,86 @@
+import { open } from 'node:fs/promises';
+import { HEAD_BYTES } from '../log/log-head';
+import { assembleResult, invalidResult, RunContext } from '../report/assemble-result';
+import { AnalysisResult } from '../result';
+import { AnalysisCancelledError, AnalysisRequestError } from './analysis-errors';
+import { ProgressListener } from './analysis-progress';
+import { resolveRequest } from './analysis-request';
+import { sealResult } from './fingerprint';
+import { LogSource, sourceBytes } from './log-source';
+import { readByRanges, threadsFor } from './ranged-reading';
+import { ReadOutcome } from './read-outcome';
+import { readAsStream } from './streamed-reading';
+
+/** Options of one analysis; everything may be left out. */
+export interface AnalyseOptions {
+  /** The profile as written (validated here; defaults filled in). */
+  profile?: unknown;
+  /** The column mapping as written. */
+  mapping?: unknown;
+  /** Selection seed, 64 hex digits; drawn from the OS CSPRNG when left out. */
+  seed?: string;
+  /** Threads for a plain file; default both cores for files of 16 MiB and more, else one. */
+  threads?: number;
+  /** Hears of progress, bytes read of total, per pass. */
+  onProgress?: ProgressListener;
+  /** Cancels the analysis; the promise then rejects with `AnalysisCancelledError`. */
+  signal?: AbortSignal;
+}
+
+const GZIP_MAGIC = [0x1f, 0x8b];
+
+/**
+ * Analyses a round log: a counting pass, then one analysis pass, memory independent of the number
+ * of rounds. Resolves to the sealed result (ACCEPT, ABORT or INVALID); rejects only with
+ * `AnalysisRequestError` (bad profile, mapping or seed; unreadable file) or `AnalysisCancelledError`.
+ */
+export async function analyseLog(source: LogSource, options: AnalyseOptions = {}): Promise<AnalysisResult> {
+  const request = resolveRequest(options.profile, options.mapping, options.seed);
+  const cancelled = () => options.signal?.aborted === true;
+  const totalBytes = await sourceBytes(source);
+  const outcome = await withIoErrors(source, async (): Promise<ReadOutcome> => {
+    const head = 'path' in source && totalBytes !== null ? await readHead(source.path) : null;
+    if (head !== null && totalBytes !== null && 'path' in source && !GZIP_MAGIC.every((byte, i) => head[i] === byte)) {
+      return readByRanges(source.path, totalBytes, head, request, threadsFor(totalBytes, options.threads), options.onProgress, options.signal);
+    }
+    return readAsStream(source, totalBytes, request, options.onProgress, cancelled);
+  });
+  if (cancelled()) {
+    throw new AnalysisCancelledError();
+  }
+  const context: RunContext = { input: { ...outcome.input, mapping: request.mapping }, profile: request.profile, seed: request.seed };
+  if (outcome.kind === 'unreadable') {
+    return sealResult(invalidResult(outcome.problems, outcome.problemCount, context));
+  }
+  const { summary } = outcome;
+  return sealResult(summary.problemCount > 0 ? invalidResult(summary.problems, summary.problemCount, context) : assembleResult(summary, context));
+}
+
+/** The first bytes of a file. */
+async function readHead(path: string): Promise<Uint8Array> {
+  const file = await open(path, 'r');
+  try {
+    const buffer = Buffer.alloc(HEAD_BYTES);
+    const { bytesRead } = await file.read(buffer, 0, HEAD_BYTES, 0);
+    return buffer.subarray(0, bytesRead);
+  } finally {
+    await file.close();
+  }
+}
+
+/** Runs the reading, turning file-system errors into request errors with the path named. */
+async function withIoErrors(source: LogSource, read: () => Promise<ReadOutcome>): Promise<ReadOutcome> {
+  try {
+    return await read();
+  } catch (error) {
+    if (error instanceof AnalysisCancelledError || error instanceof AnalysisRequestError) {
+      throw error;
+    }
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code !== undefined) {
+      const name = 'path' in source ? source.path : 'the log stream';
+      throw new AnalysisRequestError(`cannot read ${name}: ${(error as Error).message}`, 'io');
+    }
+    throw error;
+  }
+}

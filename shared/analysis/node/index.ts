@@ -1,0 +1,5 @@
+export { analyseLog } from './analyse-log';
+export type { AnalyseOptions } from './analyse-log';
+export { AnalysisCancelledError, AnalysisRequestError } from './analysis-errors';
+export type { AnalysisProgress, ProgressListener } from './analysis-progress';
+export type { LogSource } from './log-source';

@@ -1,0 +1,90 @@
+import { z } from 'zod';
+
+/** The check families a profile can make blocking. */
+export const CHECK_FAMILIES = ['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling', 'stationarity'] as const;
+
+/** A family of checks (`setting-uniformity` covers the x, y and joint tests, and so on). */
+export type CheckFamily = (typeof CHECK_FAMILIES)[number];
+
+/** A number strictly between 0 and 1 (probabilities, fractions, ε's). */
+const openUnitInterval = (what: string) =>
+  z.number({ error: `${what} must be a number` }).gt(0, { error: `${what} must be above 0` }).lt(1, { error: `${what} must be below 1` });
+
+const testSelectionSchema = z.discriminatedUnion(
+  'mode',
+  [
+    z.strictObject({
+      mode: z.literal('fixed-fraction'),
+      /** Share of the rounds tested: exactly ⌊fraction·N⌋ of them. Default 0.5. */
+      fraction: openUnitInterval('the test fraction').default(0.5),
+    }),
+    z.strictObject({
+      mode: z.literal('bernoulli'),
+      /** Probability γ that each round is tested, independently. Default 0.5. */
+      probability: openUnitInterval('the test probability').default(0.5),
+    }),
+    z.strictObject({
+      /** The lab's own marking: the log's `test` column. */
+      mode: z.literal('from-log'),
+    }),
+  ],
+  { error: 'mode must be one of fixed-fraction, bernoulli, from-log' },
+);
+
+/** The schema of an analysis profile; every field has a default, so `{}` is a complete profile. */
+export const profileSchema = z.strictObject({
+  /** How test rounds are chosen. Default: fixed-fraction, half the rounds. */
+  testSelection: testSelectionSchema.prefault({ mode: 'fixed-fraction' }),
+  /** Accept when the CHSH win fraction reaches ω_Q − chshTolerance. Default 0.03 (common practice 0.01–0.05). */
+  chshTolerance: z.number({ error: 'must be a number' }).gt(0, { error: 'must be above 0' }).max(0.25, { error: 'must be at most 0.25 (ω_Q − 0.25 is below the local bound)' }).default(0.03),
+  /** Accept when the error rate on the key setting is at most qberTolerance. Default 0.05 (common practice 2–8%). */
+  qberTolerance: z.number({ error: 'must be a number' }).gt(0, { error: 'must be above 0' }).max(0.5, { error: 'must be at most 0.5' }).default(0.05),
+  /** Failure probability of every confidence bound (Hoeffding, sampling). Default 1e-9 (common practice 1e-6–1e-12). */
+  epsilon: openUnitInterval('epsilon').default(1e-9),
+  /** `observed`: the observed values against the thresholds; `certified`: the confidence-corrected ones. Default observed. */
+  criterion: z.enum(['observed', 'certified'], { error: 'must be observed or certified' }).default('observed'),
+  /** Fewest CHSH test rounds and fewest key-setting test rounds accepted. Default 1000 (common practice, no source). */
+  minTestRounds: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).default(1000),
+  /** Error-correction efficiency f ≥ 1. Default 1.15 (common practice 1.1–1.2, no source). */
+  reconciliationEfficiency: z.number({ error: 'must be a number' }).min(1, { error: 'must be at least 1' }).max(2, { error: 'must be at most 2' }).default(1.15),
+  /** Failure probability of error correction, ε_EC. Default 1e-10. */
+  epsilonEC: openUnitInterval('epsilonEC').default(1e-10),
+  /** Failure probability of privacy amplification, ε_PA. Default 1e-10. */
+  epsilonPA: openUnitInterval('epsilonPA').default(1e-10),
+  /** A statistical check fails when its p-value falls below this. Default 0.001 (common practice, no source). */
+  significance: openUnitInterval('significance').default(0.001),
+  /** Number of consecutive blocks for the stationarity check. Default 10. */
+  driftBlocks: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(2, { error: 'must be at least 2' }).max(1000, { error: 'must be at most 1000' }).default(10),
+  /** Whether ACCEPT also needs a positive finite key. Default false. */
+  requirePositiveKey: z.boolean({ error: 'must be true or false' }).default(false),
+  /** Check families whose failure aborts the run; the others only warn. Default: all but stationarity. */
+  blockingChecks: z
+    .array(z.enum(CHECK_FAMILIES, { error: `must be one of ${CHECK_FAMILIES.join(', ')}` }))
+    .default(['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling']),
+});
+
+/** A complete analysis profile, defaults filled in. */
+export type AnalysisProfile = z.output<typeof profileSchema>;
+
+/** A profile as written by a user: any field may be left out. */
+export type AnalysisProfileInput = z.input<typeof profileSchema>;
+
+/** How test rounds are chosen. */
+export type TestSelection = AnalysisProfile['testSelection'];
+
+/** Either a complete profile or the first problem, naming the field. */
+export type ProfileParse = { ok: true; profile: AnalysisProfile } | { ok: false; field: string; message: string };
+
+/** Validates a profile and fills in the defaults; a bad profile gets a message naming the field. */
+export function parseProfile(input: unknown): ProfileParse {
+  const parsed = profileSchema.safeParse(input ?? {});
+  if (parsed.success) {
+    return { ok: true, profile: parsed.data };
+  }
+  const issue = parsed.error.issues[0];
+  const keys = issue.code === 'unrecognized_keys' ? issue.keys : [];
+  const path = [...issue.path, ...keys.slice(0, 1)].map(String);
+  const field = path.length > 0 ? path.join('.') : '(profile)';
+  const message = issue.code === 'unrecognized_keys' ? `unknown field (the profile has no field ${field})` : issue.message;
+  return { ok: false, field, message: `profile field ${field}: ${message}` };
+}
