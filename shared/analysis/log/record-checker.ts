@@ -81,7 +81,7 @@ export class RecordChecker {
     if (ALLOWED[name].includes(decoded)) {
       return null;
     }
-    return plusMinus ? `the ${FIELD_MEANING[name]} must be +1 or -1` : `the ${FIELD_MEANING[name]} must be ${ALLOWED[name].join(' or ')}`;
+    return plusMinus ? `the ${FIELD_MEANING[name]} must be +1 or -1` : `the ${FIELD_MEANING[name]} must be ${allowedText(ALLOWED[name])}`;
   }
 
   /** Checks the round index against the previous valid one; returns false on a repeat or a step back. */
@@ -111,4 +111,9 @@ export function recordOrder(previous: RoundMark, next: RoundMark, problems: Prob
   }
   onGap(next.round - previous.round - 1);
   return true;
+}
+
+/** "0 or 1", "0, 1 or 2". */
+function allowedText(values: readonly number[]): string {
+  return `${values.slice(0, -1).join(', ')} or ${values[values.length - 1]}`;
 }
