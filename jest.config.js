@@ -2,6 +2,12 @@
 // real PostgreSQL (server), the Angular components under jsdom (client), and one real-browser
 // end-to-end test (e2e). The projects that need a database share one throwaway PostgreSQL cluster,
 // started by their global set-up (reference-counted, so it starts once per jest run).
+const fs = require('node:fs');
+const path = require('node:path');
+
+/** Jest refuses a root that does not exist; a folder without tracked files is not in a clone. */
+const existing = (...folders) => folders.filter((folder) => fs.existsSync(path.join(__dirname, folder))).map((folder) => `<rootDir>/${folder}`);
+
 const nodeTransform = {
   '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', moduleResolution: 'node', isolatedModules: true } }],
 };
@@ -11,14 +17,14 @@ module.exports = {
     {
       displayName: 'shared',
       testEnvironment: 'node',
-      roots: ['<rootDir>/shared', '<rootDir>/fixtures', '<rootDir>/tests/cli'],
+      roots: existing('shared', 'fixtures', 'tests/cli'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
     },
     {
       displayName: 'server',
       testEnvironment: 'node',
-      roots: ['<rootDir>/server', '<rootDir>/tests/api'],
+      roots: existing('server', 'tests/api'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
       globalSetup: '<rootDir>/tests/support/database-setup.ts',
