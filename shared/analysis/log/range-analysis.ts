@@ -7,6 +7,14 @@ import { LogProblem, ProblemList } from './log-problem';
 import { RecordChecker, RoundMark } from './record-checker';
 import { FIELD } from './round-fields';
 
+// Field indices as module constants for the per-record path (see record-checker.ts).
+const ROUND = FIELD.round;
+const X = FIELD.x;
+const Y = FIELD.y;
+const A = FIELD.a;
+const B = FIELD.b;
+const TEST = FIELD.test;
+
 /** Everything needed to analyse one stretch (byte range) of a log. Plain data, so it can go to a worker. */
 export interface RangePlan {
   /** Resolved header. */
@@ -68,11 +76,11 @@ export class RangeAnalysis {
   accept(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[]): void {
     const valid = this.checker.accept(line, values, fieldCount, rawFields);
     const decoded = this.checker.decoded;
-    const isTest = this.selector.next(decoded[FIELD.test]);
+    const isTest = this.selector.next(decoded[TEST]);
     if (valid) {
       this.validRecords++;
       this.testRounds += isTest ? 1 : 0;
-      this.tally.add(this.index, decoded[FIELD.round], decoded[FIELD.x], decoded[FIELD.y], decoded[FIELD.a], decoded[FIELD.b], isTest);
+      this.tally.add(this.index, decoded[ROUND], decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
     }
     this.index++;
     this.records++;

@@ -13,6 +13,16 @@ export interface RoundMark {
 /** Allowed values of each field (after outcome decoding), for the checks and messages. */
 const ALLOWED: Record<'x' | 'y' | 'a' | 'b' | 'test', readonly number[]> = { x: [0, 1], y: [0, 1, 2], a: [0, 1], b: [0, 1], test: [0, 1] };
 
+// Field indices as module constants: the per-record path reads them millions of times, and imported
+// bindings can compile to property getters.
+const ROUND = FIELD.round;
+const X = FIELD.x;
+const Y = FIELD.y;
+const A = FIELD.a;
+const B = FIELD.b;
+const TEST = FIELD.test;
+const LARGEST_ROUND = Number.MAX_SAFE_INTEGER;
+
 /**
  * Checks one record at a time against the log rules (field count, integers, ranges, round indices
  * strictly increasing) and decodes its values. Problems go to the problem list with line, column and
@@ -23,17 +33,30 @@ export class RecordChecker {
   readonly decoded = new Float64Array(ROUND_FIELDS.length);
   /** Missing round indices between consecutive valid rows. */
   gaps = 0;
-  /** The first valid round index seen. */
+  /** The first readable round index seen. */
   first: RoundMark | null = null;
-  /** The last valid round index seen. */
-  last: RoundMark | null = null;
+  private lastRound = -1;
+  private lastLine = 0;
   private readonly presentFields: number[];
+  private readonly fieldCount: number;
+  private readonly plusMinus: boolean;
+  private readonly hasTest: boolean;
+  private readonly roundColumn: string;
 
   constructor(
     private readonly layout: HeaderLayout,
     private readonly problems: ProblemList,
   ) {
     this.presentFields = ROUND_FIELDS.map((_, field) => field).filter((field) => layout.columnOfField[field] >= 0);
+    this.fieldCount = layout.fieldCount;
+    this.plusMinus = layout.outcomes === '±1';
+    this.hasTest = layout.columnOfField[TEST] >= 0;
+    this.roundColumn = layout.columnNames[layout.columnOfField[ROUND]];
+  }
+
+  /** The last readable round index seen. */
+  get last(): RoundMark | null {
+    return this.first === null ? null : { round: this.lastRound, line: this.lastLine };
   }
 
   /**
@@ -42,28 +65,56 @@ export class RecordChecker {
    * written (called only to describe a problem). Returns whether the record is valid.
    */
   accept(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[]): boolean {
-    if (fieldCount !== this.layout.fieldCount) {
-      this.problems.add(line, null, null, `the row has ${fieldCount} fields, the header has ${this.layout.fieldCount}`);
+    if (fieldCount !== this.fieldCount) {
+      this.problems.add(line, null, null, `the row has ${fieldCount} fields, the header has ${this.fieldCount}`);
       return false;
     }
-    let valid = true;
-    let roundReadable = false;
-    for (const field of this.presentFields) {
-      const message = this.fieldProblem(field, values[field]);
-      if (message === null) {
-        roundReadable ||= field === FIELD.round;
-        continue;
-      }
-      valid = false;
-      const column = this.layout.columnOfField[field];
-      this.problems.add(line, this.layout.columnNames[column], rawFields()[column] ?? null, message);
+    const round = values[ROUND];
+    const x = values[X];
+    const y = values[Y];
+    let a = values[A];
+    let b = values[B];
+    if (this.plusMinus) {
+      a = a === 1 ? 0 : a === -1 ? 1 : NaN;
+      b = b === 1 ? 0 : b === -1 ? 1 : NaN;
     }
-    return roundReadable && this.checkOrder(line) && valid;
+    const test = this.hasTest ? values[TEST] : 0;
+    const inRange =
+      round >= 0 && round <= LARGEST_ROUND && (x === 0 || x === 1) && (y === 0 || y === 1 || y === 2) && (a === 0 || a === 1) && (b === 0 || b === 1) && (test === 0 || test === 1);
+    if (!inRange) {
+      return this.describeProblems(line, values, rawFields);
+    }
+    const decoded = this.decoded;
+    decoded[ROUND] = round;
+    decoded[X] = x;
+    decoded[Y] = y;
+    decoded[A] = a;
+    decoded[B] = b;
+    decoded[TEST] = test;
+    return this.checkOrder(line, round);
   }
 
   /** Describes a record whose quoting could not be read. */
   malformed(line: number, text: string, message: string): void {
     this.problems.add(line, null, text, message);
+  }
+
+  /** The slow path for a record with a bad field: one problem per bad field, then the order check. */
+  private describeProblems(line: number, values: Float64Array, rawFields: () => string[]): false {
+    let roundReadable = false;
+    for (const field of this.presentFields) {
+      const message = this.fieldProblem(field, values[field]);
+      if (message === null) {
+        roundReadable ||= field === ROUND;
+        continue;
+      }
+      const column = this.layout.columnOfField[field];
+      this.problems.add(line, this.layout.columnNames[column], rawFields()[column] ?? null, message);
+    }
+    if (roundReadable) {
+      this.checkOrder(line, values[ROUND]);
+    }
+    return false;
   }
 
   private fieldProblem(field: number, value: number): string | null {
@@ -72,27 +123,31 @@ export class RecordChecker {
       return `the ${FIELD_MEANING[name]} is not an integer`;
     }
     if (name === 'round') {
-      this.decoded[field] = value;
-      return value >= 0 && value <= Number.MAX_SAFE_INTEGER ? null : `the round index must be a whole number from 0 to ${Number.MAX_SAFE_INTEGER}`;
+      return value >= 0 && value <= LARGEST_ROUND ? null : `the round index must be a whole number from 0 to ${LARGEST_ROUND}`;
     }
-    const plusMinus = this.layout.outcomes === '±1' && (name === 'a' || name === 'b');
+    const plusMinus = this.plusMinus && (name === 'a' || name === 'b');
     const decoded = plusMinus ? (value === 1 ? 0 : value === -1 ? 1 : NaN) : value;
-    this.decoded[field] = decoded;
     if (ALLOWED[name].includes(decoded)) {
       return null;
     }
     return plusMinus ? `the ${FIELD_MEANING[name]} must be +1 or -1` : `the ${FIELD_MEANING[name]} must be ${allowedText(ALLOWED[name])}`;
   }
 
-  /** Checks the round index against the previous valid one; returns false on a repeat or a step back. */
-  private checkOrder(line: number): boolean {
-    const previous = this.last;
-    this.last = { round: this.decoded[FIELD.round], line };
-    if (previous === null) {
-      this.first = this.last;
+  /** Checks the round index against the previous readable one; returns false on a repeat or a step back. */
+  private checkOrder(line: number, round: number): boolean {
+    const previousRound = this.lastRound;
+    const previousLine = this.lastLine;
+    this.lastRound = round;
+    this.lastLine = line;
+    if (this.first === null) {
+      this.first = { round, line };
       return true;
     }
-    return recordOrder(previous, this.last, this.problems, this.layout.columnNames[this.layout.columnOfField[FIELD.round]], (gap) => (this.gaps += gap));
+    if (round > previousRound) {
+      this.gaps += round - previousRound - 1;
+      return true;
+    }
+    return recordOrder({ round: previousRound, line: previousLine }, { round, line }, this.problems, this.roundColumn, (gap) => (this.gaps += gap));
   }
 }
 

@@ -1,10 +1,11 @@
 import { parentPort } from 'node:worker_threads';
+import { RangeSummary } from '../log/range-analysis';
 import { RangeTask, runRangeTask } from './range-task';
 
 /** Messages from a range worker to its pool. */
 export type WorkerReply =
   | { type: 'progress'; bytes: number }
-  | { type: 'done'; result: Awaited<ReturnType<typeof runRangeTask>> }
+  | { type: 'done'; result: RangeSummary }
   | { type: 'failed'; message: string };
 
 /** Progress is reported after this many bytes, to keep messages few. */

@@ -1,7 +1,8 @@
 import * as path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { AnalysisCancelledError } from './analysis-errors';
-import { RangeTask, RangeTaskResult } from './range-task';
+import { RangeSummary } from '../log/range-analysis';
+import { RangeTask } from './range-task';
 import { WorkerReply } from './range-worker';
 
 /**
@@ -10,13 +11,19 @@ import { WorkerReply } from './range-worker';
  */
 const BOOTSTRAP = `require(${JSON.stringify(require.resolve('tsx/cjs'))}); require(${JSON.stringify(path.join(__dirname, 'range-worker.ts'))});`;
 
+/**
+ * A small young generation per thread: the scanner makes little garbage, and V8's default (tens of
+ * MB per thread) would push the process past the 200 MB memory budget.
+ */
+const WORKER_LIMITS = { maxYoungGenerationSizeMb: 4 };
+
 /** A fixed set of worker threads, each running range tasks in order; kept for both passes of an analysis. */
 export class WorkerPool {
   private readonly workers: Worker[];
 
   /** Starts `size` threads; an abort of `signal` stops them, failing the running tasks with `AnalysisCancelledError`. */
   constructor(size: number, signal?: AbortSignal) {
-    this.workers = Array.from({ length: size }, () => new Worker(BOOTSTRAP, { eval: true }));
+    this.workers = Array.from({ length: size }, () => new Worker(BOOTSTRAP, { eval: true, resourceLimits: WORKER_LIMITS }));
     signal?.addEventListener('abort', () => void this.close(), { once: true });
   }
 
@@ -25,9 +32,9 @@ export class WorkerPool {
     return this.workers.length;
   }
 
-  /** Runs one task per worker (task i on worker i; no more tasks than workers) and collects the results in task order. */
-  runAll(tasks: readonly RangeTask[], onBytes: (bytes: number) => void): Promise<RangeTaskResult[]> {
-    return Promise.all(tasks.map((task, i) => this.run(this.workers[i], task, onBytes)));
+  /** Runs one task per worker (task i on worker i; no more tasks than workers) ; one promise per task, in task order. */
+  runAll(tasks: readonly RangeTask[], onBytes: (bytes: number) => void): Promise<RangeSummary>[] {
+    return tasks.map((task, i) => this.run(this.workers[i], task, onBytes));
   }
 
   /** Stops every thread. */
@@ -35,7 +42,7 @@ export class WorkerPool {
     await Promise.all(this.workers.map((worker) => worker.terminate()));
   }
 
-  private run(worker: Worker, task: RangeTask, onBytes: (bytes: number) => void): Promise<RangeTaskResult> {
+  private run(worker: Worker, task: RangeTask, onBytes: (bytes: number) => void): Promise<RangeSummary> {
     return new Promise((resolve, reject) => {
       const settle = () => {
         worker.off('message', onMessage);

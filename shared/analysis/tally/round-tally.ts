@@ -1,10 +1,10 @@
 import { blockOfRound, firstRoundOfBlock } from './block-layout';
-import { COUNT_CELLS, countCell } from './count-table';
+import { COUNT_CELLS } from './count-table';
 
-/** Per-block statistics, four numbers per block: CHSH test rounds, wins, key-setting test rounds, errors. */
+/** Per-block statistics, four numbers per block: CHSH test rounds, wins, key-setting test rounds, errors (written out as 4 in `add`). */
 export const BLOCK_STATS = 4;
 
-/** Per-block round range, two numbers per block: first and last round index (NaN when empty). */
+/** Per-block round range, two numbers per block: first and last round index, NaN when empty (written out as 2 in `add`). */
 export const BLOCK_ROUNDS = 2;
 
 /** The counts of a stretch of log, as plain numbers so they can cross threads and merge exactly. */
@@ -48,8 +48,9 @@ export class RoundTally {
       this.block++;
       this.nextBlockStart = firstRoundOfBlock(this.block + 1, this.totalRounds, this.blocks);
     }
-    (isTest ? this.test : this.generation)[countCell(x, y, a, b)]++;
-    const rounds = this.block * BLOCK_ROUNDS;
+    // countCell(x, y, a, b), written out: this runs once per round.
+    (isTest ? this.test : this.generation)[((x * 3 + y) * 2 + a) * 2 + b]++;
+    const rounds = this.block * 2;
     if (Number.isNaN(this.blockRounds[rounds])) {
       this.blockRounds[rounds] = round;
     }
@@ -57,7 +58,7 @@ export class RoundTally {
     if (!isTest) {
       return;
     }
-    const stats = this.block * BLOCK_STATS;
+    const stats = this.block * 4;
     if (y < 2) {
       this.blockStats[stats]++;
       this.blockStats[stats + 1] += (a ^ b) === (x & y) ? 1 : 0;
