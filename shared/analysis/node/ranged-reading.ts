@@ -58,6 +58,7 @@ export async function readByRanges(
     const plans = planRanges(logHead.layout, request.profile, counts, request.seed === null ? null : aesKeystream(request.seed));
     const tasks: RangeTask[] = ranges.map((range, i) => ({ path, range, plan: plans[i], seed: request.seed }));
     const onBytes = progressCounter('analysing', size, listener);
+    onBytes(logHead.dataOffset); // the header, read before this pass
     const [own, ...others] = tasks;
     const summaries = await Promise.all([runRangeTask(own, onBytes, cancelled), ...(pool?.runAll(others, onBytes) ?? [])]);
     const roundColumn = logHead.layout.columnNames[logHead.layout.columnOfField[FIELD.round]];
