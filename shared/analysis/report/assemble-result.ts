@@ -79,8 +79,3 @@ export function invalidResult(problems: readonly LogProblem[], problemCount: num
     errorCount: problemCount,
   };
 }
-
-/** Problems with the log as a whole (empty, binary, unusable header) as a list of one. */
-export function fileProblem(line: number, column: string | null, message: string): LogProblem[] {
-  return [{ line, column, value: null, message }];
-}
