@@ -8,12 +8,16 @@ import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import type { WelcomeMail } from './mail/welcome-mail';
+import { profilesRoutes } from './profiles/profiles.routes';
+import { runsRoutes } from './runs/runs.routes';
+import type { Services } from './services';
+import { setupsRoutes } from './setups/setups.routes';
 import { usersRoutes } from './users/users.routes';
-import { createUsersService } from './users/users.service';
 
 export interface AppDependencies {
   config: Config;
   database: Database;
+  services: Services;
   jwtSecret: string;
   welcomeMail: WelcomeMail;
 }
@@ -22,10 +26,9 @@ export interface AppDependencies {
  * Builds the Express app: configuration, middleware, one router per resource, the built Angular
  * app, and the one error handler last. It does not listen: start.ts does, tests use supertest.
  */
-export function createApp({ config, database, jwtSecret, welcomeMail }: AppDependencies): Express {
+export function createApp({ config, database, services, jwtSecret, welcomeMail }: AppDependencies): Express {
   const app = express();
-  const users = createUsersService(database.models.User, config.bcryptRounds);
-  const guards = createGuards(jwtSecret, users);
+  const guards = createGuards(jwtSecret, services.users);
 
   app.disable('x-powered-by');
   // One proxy hop (a lab's reverse proxy) may set the client address used by the rate limit.
@@ -36,8 +39,11 @@ export function createApp({ config, database, jwtSecret, welcomeMail }: AppDepen
   app.get('/api/health', (_request, response) => {
     response.json({ status: 'ok' });
   });
-  app.use('/api/auth', authRoutes(config, jwtSecret, users, guards));
-  app.use('/api/users', usersRoutes(users, guards, welcomeMail));
+  app.use('/api/auth', authRoutes(config, jwtSecret, services.users, guards));
+  app.use('/api/users', usersRoutes(services.users, guards, welcomeMail));
+  app.use('/api/profiles', profilesRoutes(services.profiles, guards));
+  app.use('/api/setups', setupsRoutes(services.setups, guards));
+  app.use('/api/runs', runsRoutes({ config, runs: services.runs, archive: services.archive, models: database.models, audit: services.audit, guards }));
   app.use('/api', apiNotFound);
 
   serveBuiltApp(app, config.appDir);

@@ -9,7 +9,10 @@ import { openDatabase } from './database/sequelize';
 import { startMailCatcher } from './mail/mail-catcher';
 import { createMailer } from './mail/mailer';
 import { createWelcomeMail } from './mail/welcome-mail';
+import { startAnalysisQueue } from './queue/analysis-queue';
+import { createServices } from './services';
 import { buildAppIfStale, startDevServer } from './system/angular-build';
+import { startWorkerProcess } from './worker/worker-process';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
 
 /**
@@ -57,7 +60,12 @@ async function main(): Promise<void> {
   const mailer = createMailer(smtpUrl, config.mailFrom);
   stops.push(() => mailer.close());
   const jwtSecret = resolveJwtSecret(config.jwtSecret, config.dataDir);
-  const app = createApp({ config, database, jwtSecret, welcomeMail: createWelcomeMail(mailer, config.publicUrl) });
+  const queue = await startAnalysisQueue(databaseUrl, database.sequelize, config.queue);
+  stops.push(() => queue.stop());
+  const services = createServices(config, database, queue);
+  const worker = startWorkerProcess({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl });
+  stops.push(() => worker.stop());
+  const app = createApp({ config, database, services, jwtSecret, welcomeMail: createWelcomeMail(mailer, config.publicUrl) });
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
   stops.push(() => new Promise<void>((resolve) => server.close(() => resolve())));

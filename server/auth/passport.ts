@@ -20,7 +20,7 @@ export interface Guards {
   /** 401 unless the request carries a valid token of an active user. */
   requireSignIn: RequestHandler;
   /** 401 without sign-in; 403 unless the user holds one of `roles`. */
-  requireRole(...roles: Role[]): RequestHandler[];
+  requireRole(...roles: Role[]): RequestHandler;
 }
 
 /**
@@ -55,15 +55,16 @@ export function createGuards(secret: string, users: UsersService): Guards {
     })(request, response, next);
   };
 
-  const requireRole = (...roles: Role[]): RequestHandler[] => [
-    requireSignIn,
-    (request, _response, next) => {
-      const held = request.user?.roles ?? [];
-      if (roles.some((role) => held.includes(role))) return next();
-      const allowed = roles.map((role) => ROLE_LABELS[role]).join(' or ');
-      next(HttpError.forbidden(`This needs the ${allowed} role.`));
-    },
-  ];
+  const requireRole = (...roles: Role[]): RequestHandler => {
+    const allowed = roles.map((role) => ROLE_LABELS[role]).join(' or ');
+    return (request, response, next) => {
+      requireSignIn(request, response, (error?: unknown) => {
+        if (error) return next(error);
+        if (roles.some((role) => request.user!.roles.includes(role))) return next();
+        next(HttpError.forbidden(`This needs the ${allowed} role.`));
+      });
+    };
+  };
 
   return { requireSignIn, requireRole };
 }

@@ -39,6 +39,16 @@ const environmentSchema = z.object({
   BELLKEEP_MAILCATCHER_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
   /** Web inbox port of the local mail catcher. */
   BELLKEEP_MAILCATCHER_WEB_PORT: z.coerce.number().int().min(1).max(65535).default(1080),
+  /** Largest log an upload may carry, in bytes (default 8 GiB). */
+  BELLKEEP_UPLOAD_LIMIT_BYTES: z.coerce.number().int().min(1).default(8 * 1024 ** 3),
+  /** Seconds an analysis may take before the queue takes its worker for dead and retries it. */
+  BELLKEEP_ANALYSIS_EXPIRE_SECONDS: z.coerce.number().int().min(1).default(3600),
+  /** Seconds between the queue's looks for expired jobs. */
+  BELLKEEP_QUEUE_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).default(30),
+  /** Seconds between a worker's looks for new jobs. */
+  BELLKEEP_QUEUE_POLLING_SECONDS: z.coerce.number().min(0.5).default(1),
+  /** Seconds between retries of a verdict mail the mail server refused. */
+  BELLKEEP_MAIL_RETRY_SECONDS: z.coerce.number().int().min(1).default(30),
   /** Whether to load the demo lab (people, later setups and runs) on start. */
   BELLKEEP_DEMO: z.enum(['true', 'false']).default('true'),
   /** First admin of a real deployment, created when the database has no admin. */
@@ -61,6 +71,8 @@ export interface Config {
   smtpUrl?: string;
   mailFrom: string;
   mailCatcher: { smtpPort: number; webPort: number };
+  uploadLimitBytes: number;
+  queue: { analysisExpireSeconds: number; maintenanceIntervalSeconds: number; pollingIntervalSeconds: number; mailRetryDelaySeconds: number };
   demo: boolean;
   bootstrapAdmin?: { email: string; password: string; name: string };
   /** Folder of the built Angular app the API serves. */
@@ -92,6 +104,13 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
     smtpUrl: env.BELLKEEP_SMTP_URL,
     mailFrom: env.BELLKEEP_MAIL_FROM,
     mailCatcher: { smtpPort: env.BELLKEEP_MAILCATCHER_SMTP_PORT, webPort: env.BELLKEEP_MAILCATCHER_WEB_PORT },
+    uploadLimitBytes: env.BELLKEEP_UPLOAD_LIMIT_BYTES,
+    queue: {
+      analysisExpireSeconds: env.BELLKEEP_ANALYSIS_EXPIRE_SECONDS,
+      maintenanceIntervalSeconds: env.BELLKEEP_QUEUE_MAINTENANCE_SECONDS,
+      pollingIntervalSeconds: env.BELLKEEP_QUEUE_POLLING_SECONDS,
+      mailRetryDelaySeconds: env.BELLKEEP_MAIL_RETRY_SECONDS,
+    },
     demo: env.BELLKEEP_DEMO === 'true',
     bootstrapAdmin:
       env.BELLKEEP_ADMIN_EMAIL && env.BELLKEEP_ADMIN_PASSWORD

@@ -1,4 +1,5 @@
 import type { Config } from '../config/config';
+import { createAuditTrail } from '../audit/audit-trail';
 import { createUsersService } from '../users/users.service';
 import { migrate, seedDemo } from './migrate';
 import type { Database } from './sequelize';
@@ -15,10 +16,10 @@ export interface BootstrapReport {
  */
 export async function bootstrapDatabase(database: Database, config: Config): Promise<BootstrapReport> {
   const migrations = await migrate(database.sequelize);
-  const users = createUsersService(database.models.User, config.bcryptRounds);
+  const users = createUsersService(database.models.User, config.bcryptRounds, createAuditTrail(database.models.AuditEvent));
   let createdAdmin: string | undefined;
   if ((await users.countActiveAdmins()) === 0 && config.bootstrapAdmin) {
-    const admin = await users.create({ ...config.bootstrapAdmin, roles: ['admin'] });
+    const admin = await users.create({ ...config.bootstrapAdmin, roles: ['admin'] }, null);
     createdAdmin = admin.email;
   }
   const needsDemoAdmin = (await users.countActiveAdmins()) === 0;

@@ -1,11 +1,22 @@
-import type { Sequelize } from 'sequelize';
+import type { ModelStatic, Sequelize } from 'sequelize';
+import { defineAuditEventModel, type AuditEventRecord } from '../audit/audit-event.model';
+import { defineProfileModels, type ProfileModels } from '../profiles/profile.model';
+import { defineRunModels, type RunModels } from '../runs/run.model';
+import { defineSetupModels, type SetupModels } from '../setups/setup.model';
 import { defineUserModel, type UserModelStatic } from '../users/user.model';
 
-export interface Models {
+export interface Models extends ProfileModels, SetupModels, RunModels {
   User: UserModelStatic;
+  AuditEvent: ModelStatic<AuditEventRecord>;
 }
 
 /** Every Sequelize model of the app, defined in one place. */
 export function defineModels(sequelize: Sequelize): Models {
-  return { User: defineUserModel(sequelize) };
+  return {
+    User: defineUserModel(sequelize),
+    AuditEvent: defineAuditEventModel(sequelize),
+    ...defineProfileModels(sequelize),
+    ...defineSetupModels(sequelize),
+    ...defineRunModels(sequelize),
+  };
 }

@@ -4,10 +4,14 @@ export interface OutgoingMail {
   to: string;
   subject: string;
   text: string;
+  html?: string;
+  /** A fixed Message-ID, so a mail sent twice can be told for the same one. */
+  messageId?: string;
 }
 
 export interface Mailer {
-  send(mail: OutgoingMail): Promise<void>;
+  /** Resolves to the Message-ID the server accepted. */
+  send(mail: OutgoingMail): Promise<string>;
   close(): void;
 }
 
@@ -16,7 +20,8 @@ export function createMailer(smtpUrl: string, from: string): Mailer {
   const transport = nodemailer.createTransport(smtpUrl);
   return {
     async send(mail) {
-      await transport.sendMail({ from, ...mail });
+      const info = await transport.sendMail({ from, ...mail });
+      return info.messageId;
     },
     close: () => transport.close(),
   };

@@ -10,7 +10,7 @@ export interface WelcomeMail {
 
 /** The mail a new user gets: who made the account, their roles, where to sign in. */
 export function createWelcomeMail(mailer: Mailer, publicUrl: string): WelcomeMail {
-  const pending = new Set<Promise<void>>();
+  const pending = new Set<Promise<unknown>>();
   return {
     send(user, createdBy) {
       const roles = user.roles.map((role) => ROLE_LABELS[role]).join(', ');

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { MIN_PASSWORD_LENGTH, ROLES, type CreateUserRequest, type UpdateUserRequest } from '../../shared/api';
 import type { Guards } from '../auth/passport';
-import { HttpError } from '../http/http-error';
+import { idParameter } from '../http/id-parameter';
 import { validateBody } from '../http/validate-body';
 import type { WelcomeMail } from '../mail/welcome-mail';
 import type { UsersService } from './users.service';
@@ -31,14 +31,13 @@ export function usersRoutes(users: UsersService, guards: Guards, welcomeMail: We
   });
 
   router.post('/', validateBody(createSchema), async (request, response) => {
-    const created = await users.create(request.body as CreateUserRequest);
+    const created = await users.create(request.body as CreateUserRequest, request.user!.id);
     welcomeMail.send(created, request.user!.name);
     response.status(201).json(created);
   });
 
   router.patch('/:id', validateBody(updateSchema), async (request, response) => {
-    const id = Number(request.params['id']);
-    if (!Number.isSafeInteger(id) || id < 1) throw HttpError.badRequest(`User id ${request.params['id']} is not a number.`, 'id');
+    const id = idParameter(request, 'user');
     response.json(await users.update(id, request.body as UpdateUserRequest, request.user!.id));
   });
 

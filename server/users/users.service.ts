@@ -1,6 +1,7 @@
 import bcrypt from 'bcryptjs';
 import { Op, UniqueConstraintError } from 'sequelize';
 import type { CreateUserRequest, UpdateUserRequest, UserDto } from '../../shared/api';
+import type { AuditTrail } from '../audit/audit-trail';
 import { HttpError } from '../http/http-error';
 import { toUserDto, type UserModelStatic, type UserRecord } from './user.model';
 
@@ -9,7 +10,8 @@ const DUMMY_HASH = bcrypt.hashSync('not a real password', 4);
 
 export interface UsersService {
   list(): Promise<UserDto[]>;
-  create(request: CreateUserRequest): Promise<UserDto>;
+  /** `actorId` null: made at start-up, from the configuration. */
+  create(request: CreateUserRequest, actorId: number | null): Promise<UserDto>;
   update(id: number, request: UpdateUserRequest, actingUserId: number): Promise<UserDto>;
   findActiveById(id: number): Promise<UserRecord | null>;
   /** The active user with this e-mail and password, or null. */
@@ -17,7 +19,7 @@ export interface UsersService {
   countActiveAdmins(): Promise<number>;
 }
 
-export function createUsersService(User: UserModelStatic, bcryptRounds: number): UsersService {
+export function createUsersService(User: UserModelStatic, bcryptRounds: number, audit: AuditTrail): UsersService {
   const countActiveAdmins = () => User.count({ where: { active: true, roles: { [Op.contains]: ['admin'] } } });
 
   return {
@@ -26,14 +28,16 @@ export function createUsersService(User: UserModelStatic, bcryptRounds: number):
       return users.map(toUserDto);
     },
 
-    async create(request) {
+    async create(request, actorId) {
       const passwordHash = await bcrypt.hash(request.password, bcryptRounds);
       try {
-        const user = await User.create({
-          email: request.email.trim().toLowerCase(),
-          name: request.name.trim(),
-          passwordHash,
-          roles: [...new Set(request.roles)],
+        const user = await User.sequelize!.transaction(async (transaction) => {
+          const created = await User.create(
+            { email: request.email.trim().toLowerCase(), name: request.name.trim(), passwordHash, roles: [...new Set(request.roles)] },
+            { transaction },
+          );
+          await audit.record({ actorId, action: 'user.created', targetType: 'user', targetId: created.id, details: { email: created.email, roles: created.roles } }, transaction);
+          return created;
         });
         return toUserDto(user);
       } catch (error) {
@@ -59,6 +63,7 @@ export function createUsersService(User: UserModelStatic, bcryptRounds: number):
         if (request.roles !== undefined) user.roles = [...new Set(request.roles)];
         if (request.active !== undefined) user.active = request.active;
         await user.save({ transaction });
+        await audit.record({ actorId: actingUserId, action: 'user.changed', targetType: 'user', targetId: id, details: { ...request } }, transaction);
         return toUserDto(user);
       });
     },

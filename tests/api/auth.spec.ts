@@ -2,10 +2,10 @@ import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import type { ApiErrorBody, LoginResponse, UserDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { createTestApp, TEST_JWT_SECRET, type TestApp } from '../support/test-app';
 
 const ADMIN = 'maren.holt@kestrelfen.example';
-const SECRET = 'test-secret-that-is-long-enough-for-hs256';
+const SECRET = TEST_JWT_SECRET;
 
 describe('sign-in', () => {
   let testApp: TestApp;

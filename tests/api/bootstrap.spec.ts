@@ -31,7 +31,7 @@ describe('start-up bootstrap of a database', () => {
   it('no admin and none configured: the demo lab’s people arrive, admin among them, once', async () => {
     const config = loadConfig({ BELLKEEP_DEMO: 'false', BELLKEEP_BCRYPT_ROUNDS: '4' });
     const report = await bootstrapDatabase(database, config);
-    expect(report.seeders).toEqual(['20261201000000-demo-people.ts']);
+    expect(report.seeders).toEqual(['20261201000000-demo-people.ts', '20261201010000-demo-profiles-and-setups.ts']);
     expect(await emails()).toEqual(DEMO_PEOPLE.map((person) => person.email).sort());
     expect((await bootstrapDatabase(database, config)).seeders).toEqual([]);
   });

@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import PgBoss from 'pg-boss';
 import { migrate } from '../../server/database/migrate';
 import { startPostgresCluster, type RunningCluster } from '../../server/database/postgres-cluster';
 import { openDatabase } from '../../server/database/sequelize';
@@ -34,6 +35,10 @@ export default async function setUpTestCluster(): Promise<void> {
   const template = openDatabase(cluster.url);
   try {
     await migrate(template.sequelize);
+    // The queue's own schema too, so no test file waits for pg-boss to install it.
+    const boss = new PgBoss({ connectionString: cluster.url, max: 2 });
+    await boss.start();
+    await boss.stop({ graceful: false, wait: true });
   } finally {
     await template.close();
   }

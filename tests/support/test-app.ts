@@ -10,7 +10,13 @@ import { seedDemo } from '../../server/database/migrate';
 import { startMailCatcher, type MailCatcher } from '../../server/mail/mail-catcher';
 import { createMailer, type Mailer } from '../../server/mail/mailer';
 import { createWelcomeMail, type WelcomeMail } from '../../server/mail/welcome-mail';
+import { startAnalysisQueue, type AnalysisQueue } from '../../server/queue/analysis-queue';
+import { createServices, type Services } from '../../server/services';
+import { startWorker, type RunningWorker } from '../../server/worker/worker';
 import { freePort } from './free-port';
+
+/** The token secret of test apps (tests forge tokens with it). */
+export const TEST_JWT_SECRET = 'test-secret-that-is-long-enough-for-hs256';
 import { createTestDatabase, type TestDatabase } from './test-database';
 
 export interface TestApp {
@@ -19,6 +25,13 @@ export interface TestApp {
   database: TestDatabase;
   mailCatcher: MailCatcher;
   welcomeMail: WelcomeMail;
+  queue: AnalysisQueue;
+  services: Services;
+  mailer: Mailer;
+  /** Starts the mail catcher again on the same ports, after a test stopped it. */
+  restartMailCatcher(): Promise<void>;
+  /** Starts an analysis worker in this process (tests that need verdicts call it). */
+  startWorker(): Promise<RunningWorker>;
   /** Signs in through the API and returns the bearer token. */
   signIn(email: string, password: string): Promise<string>;
   close(): Promise<void>;
@@ -30,24 +43,53 @@ export interface TestApp {
  */
 export async function createTestApp(environment: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-test-data-'));
-  const config = loadConfig({ BELLKEEP_DATA_DIR: dataDir, BELLKEEP_BCRYPT_ROUNDS: '4', BELLKEEP_LOGIN_LIMIT: '1000', ...environment });
   const database = await createTestDatabase();
+  const config = loadConfig({
+    BELLKEEP_DATA_DIR: dataDir,
+    BELLKEEP_DATABASE_URL: database.url,
+    BELLKEEP_BCRYPT_ROUNDS: '4',
+    BELLKEEP_LOGIN_LIMIT: '1000',
+    BELLKEEP_QUEUE_POLLING_SECONDS: '0.5',
+    BELLKEEP_QUEUE_MAINTENANCE_SECONDS: '1',
+    BELLKEEP_MAIL_RETRY_SECONDS: '3',
+    ...environment,
+  });
   await seedDemo(database.sequelize);
-  const mailCatcher = await startMailCatcher(await freePort(), await freePort(), path.join(dataDir, 'mail'));
+  const mailPorts = [await freePort(), await freePort()] as const;
+  const mailFolder = path.join(dataDir, 'mail');
+  let mailCatcher = await startMailCatcher(...mailPorts, mailFolder);
   const mailer: Mailer = createMailer(mailCatcher.smtpUrl, config.mailFrom);
   const welcomeMail = createWelcomeMail(mailer, config.publicUrl);
-  const app = createApp({ config, database, jwtSecret: 'test-secret-that-is-long-enough-for-hs256', welcomeMail });
+  const queue = await startAnalysisQueue(database.url, database.sequelize, config.queue);
+  const services = createServices(config, database, queue);
+  const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, welcomeMail });
+  const workers: RunningWorker[] = [];
   return {
     app,
     config,
     database,
-    mailCatcher,
+    get mailCatcher() {
+      return mailCatcher;
+    },
     welcomeMail,
+    queue,
+    services,
+    mailer,
+    async restartMailCatcher() {
+      mailCatcher = await startMailCatcher(...mailPorts, mailFolder);
+    },
+    async startWorker() {
+      const worker = await startWorker(config, database, queue, services, mailer);
+      workers.push(worker);
+      return worker;
+    },
     async signIn(email, password) {
       const response = await request(app).post('/api/auth/login').send({ email, password }).expect(200);
       return (response.body as LoginResponse).token;
     },
     async close() {
+      for (const worker of workers) await worker.stop();
+      await queue.stop();
       await welcomeMail.settled();
       mailer.close();
       await mailCatcher.stop();

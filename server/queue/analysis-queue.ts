@@ -1,0 +1,78 @@
+import PgBoss from 'pg-boss';
+import type { Sequelize, Transaction } from 'sequelize';
+
+/** Queue of analyses: one job per run, payload `{ runId }`. */
+export const ANALYSIS_QUEUE = 'run-analysis';
+/** Queue of verdict mails: one job per finished run, payload `{ runId }`. */
+export const VERDICT_MAIL_QUEUE = 'verdict-mail';
+
+export interface RunJob {
+  runId: number;
+}
+
+export interface QueueOptions {
+  /** How long an analysis may run before the queue takes it for dead and hands it out again. */
+  analysisExpireSeconds: number;
+  /** How often the queue's maintenance looks for expired jobs. */
+  maintenanceIntervalSeconds: number;
+  /** Seconds between the retries of a failed mail delivery. */
+  mailRetryDelaySeconds: number;
+}
+
+export interface AnalysisQueue {
+  readonly boss: PgBoss;
+  /** Enqueues within the caller's transaction: the job exists exactly when the change commits. */
+  enqueueAnalysis(runId: number, transaction: Transaction): Promise<void>;
+  enqueueVerdictMail(runId: number, transaction: Transaction): Promise<void>;
+  stop(): Promise<void>;
+}
+
+/**
+ * The durable job queue (pg-boss 10 in PostgreSQL): at-least-once delivery, shared by every API
+ * and worker process on the same database, on any machine.
+ */
+export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequelize, options: QueueOptions): Promise<AnalysisQueue> {
+  const boss = new PgBoss({
+    connectionString: databaseUrl,
+    max: 4,
+    application_name: 'bellkeep-queue',
+    maintenanceIntervalSeconds: options.maintenanceIntervalSeconds,
+    monitorStateIntervalSeconds: Math.max(options.maintenanceIntervalSeconds, 1),
+  });
+  boss.on('error', (error) => console.error('Job queue:', error));
+  await boss.start();
+  await boss.createQueue(ANALYSIS_QUEUE, {
+    name: ANALYSIS_QUEUE,
+    retryLimit: 5,
+    retryDelay: 2,
+    retryBackoff: true,
+    expireInSeconds: options.analysisExpireSeconds,
+  });
+  await boss.createQueue(VERDICT_MAIL_QUEUE, {
+    name: VERDICT_MAIL_QUEUE,
+    retryLimit: 50,
+    retryDelay: options.mailRetryDelaySeconds,
+    retryBackoff: false,
+    expireInSeconds: 120,
+  });
+
+  // pg-boss writes its job row through the caller's transaction. It leaves options it was not
+  // given undefined, which Sequelize refuses as a bind value; SQL wants null there.
+  const inTransaction = (transaction: Transaction) => ({
+    executeSql: async (text: string, values: unknown[]) => {
+      const [rows] = await sequelize.query(text, { bind: values.map((value) => value ?? null), transaction });
+      return { rows: rows as unknown[] };
+    },
+  });
+
+  return {
+    boss,
+    async enqueueAnalysis(runId, transaction) {
+      await boss.send(ANALYSIS_QUEUE, { runId } satisfies RunJob, { db: inTransaction(transaction) });
+    },
+    async enqueueVerdictMail(runId, transaction) {
+      await boss.send(VERDICT_MAIL_QUEUE, { runId } satisfies RunJob, { db: inTransaction(transaction) });
+    },
+    stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }),
+  };
+}

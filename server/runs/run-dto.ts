@@ -1,0 +1,64 @@
+import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
+import type { MailDeliveryDto, RunDto, RunSummaryDto, SignOffDto } from '../../shared/api';
+
+/** One row of the runs query in runs.service.ts: the run joined with the names it shows. */
+export interface RunRow {
+  id: number;
+  setup_id: number;
+  setup_name: string;
+  profile_version_id: number;
+  profile_name: string;
+  profile_version: number;
+  chsh_tolerance: number | null;
+  state: RunSummaryDto['state'];
+  progress: number;
+  verdict: RunSummaryDto['verdict'];
+  win_fraction: number | null;
+  qber: number | null;
+  uploaded_by_name: string;
+  acquired_on: string | null;
+  created_at: Date;
+  finished_at: Date | null;
+  duplicate_of: number | null;
+  signed_off: boolean;
+}
+
+export function toRunSummary(row: RunRow): RunSummaryDto {
+  return {
+    id: row.id,
+    setupId: row.setup_id,
+    setupName: row.setup_name,
+    profileVersionId: row.profile_version_id,
+    profileName: row.profile_name,
+    profileVersion: row.profile_version,
+    state: row.state,
+    progress: row.progress,
+    verdict: row.verdict,
+    winFraction: row.win_fraction === null ? null : Number(row.win_fraction),
+    // The acceptance threshold of the CHSH criterion: ω_Q − tolerance (see shared/analysis).
+    winThreshold: row.chsh_tolerance === null ? null : QUANTUM_WIN_FRACTION - Number(row.chsh_tolerance),
+    qber: row.qber === null ? null : Number(row.qber),
+    uploadedBy: row.uploaded_by_name,
+    acquiredOn: row.acquired_on,
+    createdAt: row.created_at.toISOString(),
+    finishedAt: row.finished_at?.toISOString() ?? null,
+    duplicateOf: row.duplicate_of,
+    signedOff: row.signed_off,
+  };
+}
+
+export interface RunDetails {
+  file: RunDto['file'];
+  seed: string;
+  mapping: Record<string, unknown> | null;
+  notes: string;
+  error: string | null;
+  startedAt: Date | null;
+  result: Record<string, unknown> | null;
+  signOff: SignOffDto | null;
+  deliveries: MailDeliveryDto[];
+}
+
+export function toRunDto(row: RunRow, details: RunDetails): RunDto {
+  return { ...toRunSummary(row), ...details, startedAt: details.startedAt?.toISOString() ?? null };
+}

@@ -1,0 +1,118 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
+import type { RunState, Verdict } from '../../shared/api';
+
+export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAttributes<RunRecord>> {
+  declare id: CreationOptional<number>;
+  declare setupId: number;
+  declare profileVersionId: number;
+  declare fileSha256: string;
+  declare originalName: CreationOptional<string>;
+  declare duplicateOf: number | null;
+  declare uploadedBy: number;
+  declare acquiredOn: string | null;
+  declare notes: CreationOptional<string>;
+  declare mapping: Record<string, unknown> | null;
+  declare seed: string;
+  declare state: CreationOptional<RunState>;
+  declare progress: CreationOptional<number>;
+  declare attempts: CreationOptional<number>;
+  declare verdict: CreationOptional<Verdict | null>;
+  declare result: CreationOptional<Record<string, unknown> | null>;
+  declare error: CreationOptional<string | null>;
+  declare createdAt: CreationOptional<Date>;
+  declare startedAt: CreationOptional<Date | null>;
+  declare finishedAt: CreationOptional<Date | null>;
+}
+
+export class ArchiveFileRecord extends Model<InferAttributes<ArchiveFileRecord>, InferCreationAttributes<ArchiveFileRecord>> {
+  declare sha256: string;
+  declare bytes: number;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class SignOffRecord extends Model<InferAttributes<SignOffRecord>, InferCreationAttributes<SignOffRecord>> {
+  declare runId: number;
+  declare userId: number;
+  declare comment: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class MailDeliveryRecord extends Model<InferAttributes<MailDeliveryRecord>, InferCreationAttributes<MailDeliveryRecord>> {
+  declare id: CreationOptional<number>;
+  declare runId: number;
+  declare recipients: string[];
+  declare status: 'sent' | 'failed';
+  declare messageId: string | null;
+  declare error: string | null;
+  declare attemptedAt: CreationOptional<Date>;
+}
+
+export interface RunModels {
+  Run: ModelStatic<RunRecord>;
+  ArchiveFile: ModelStatic<ArchiveFileRecord>;
+  SignOff: ModelStatic<SignOffRecord>;
+  MailDelivery: ModelStatic<MailDeliveryRecord>;
+}
+
+/** `runs`, the `archive_files` they read, their sign-offs and verdict-mail deliveries. */
+export function defineRunModels(sequelize: Sequelize): RunModels {
+  class Run extends RunRecord {}
+  Run.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      setupId: { type: DataTypes.INTEGER, allowNull: false, field: 'setup_id' },
+      profileVersionId: { type: DataTypes.INTEGER, allowNull: false, field: 'profile_version_id' },
+      fileSha256: { type: DataTypes.CHAR(64), allowNull: false, field: 'file_sha256' },
+      originalName: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '', field: 'original_name' },
+      duplicateOf: { type: DataTypes.INTEGER, field: 'duplicate_of' },
+      uploadedBy: { type: DataTypes.INTEGER, allowNull: false, field: 'uploaded_by' },
+      acquiredOn: { type: DataTypes.DATEONLY, field: 'acquired_on' },
+      notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      mapping: { type: DataTypes.JSONB },
+      seed: { type: DataTypes.CHAR(64), allowNull: false },
+      state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'queued' },
+      progress: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
+      attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      verdict: { type: DataTypes.STRING(8) },
+      result: { type: DataTypes.JSONB },
+      error: { type: DataTypes.TEXT },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+      startedAt: { type: DataTypes.DATE, field: 'started_at' },
+      finishedAt: { type: DataTypes.DATE, field: 'finished_at' },
+    },
+    { sequelize, tableName: 'runs', modelName: 'Run', updatedAt: false },
+  );
+  class ArchiveFile extends ArchiveFileRecord {}
+  ArchiveFile.init(
+    {
+      sha256: { type: DataTypes.CHAR(64), primaryKey: true },
+      bytes: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue('bytes')); } },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+    },
+    { sequelize, tableName: 'archive_files', modelName: 'ArchiveFile', updatedAt: false },
+  );
+  class SignOff extends SignOffRecord {}
+  SignOff.init(
+    {
+      runId: { type: DataTypes.INTEGER, primaryKey: true, field: 'run_id' },
+      userId: { type: DataTypes.INTEGER, allowNull: false, field: 'user_id' },
+      comment: { type: DataTypes.TEXT, allowNull: false },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+    },
+    { sequelize, tableName: 'run_sign_offs', modelName: 'SignOff', updatedAt: false },
+  );
+  class MailDelivery extends MailDeliveryRecord {}
+  MailDelivery.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      runId: { type: DataTypes.INTEGER, allowNull: false, field: 'run_id' },
+      recipients: { type: DataTypes.ARRAY(DataTypes.STRING(320)), allowNull: false },
+      status: { type: DataTypes.STRING(8), allowNull: false },
+      messageId: { type: DataTypes.STRING(255), field: 'message_id' },
+      error: { type: DataTypes.TEXT },
+      attemptedAt: { type: DataTypes.DATE, field: 'attempted_at' },
+    },
+    { sequelize, tableName: 'mail_deliveries', modelName: 'MailDelivery', createdAt: 'attemptedAt', updatedAt: false },
+  );
+  return { Run, ArchiveFile, SignOff, MailDelivery };
+}

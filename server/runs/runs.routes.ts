@@ -1,0 +1,124 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
+import { RUN_SORT_KEYS, RUN_STATES, VERDICTS } from '../../shared/api';
+import type { AuditTrail } from '../audit/audit-trail';
+import type { Guards } from '../auth/passport';
+import type { Config } from '../config/config';
+import type { Models } from '../database/models';
+import { HttpError } from '../http/http-error';
+import { idParameter } from '../http/id-parameter';
+import { validateBody } from '../http/validate-body';
+import type { LocalArchive } from '../archive/local-archive';
+import { toAuditEventDtos } from '../audit/audit-event-dto';
+import type { RunsService } from './runs.service';
+import { discardUpload, logUpload, uploadedLog } from './upload-middleware';
+
+const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
+const positiveId = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
+
+const uploadFieldsSchema = z.strictObject({
+  setupId: positiveId('a setup'),
+  profileId: positiveId('a profile').optional(),
+  profileVersionId: positiveId('a profile version').optional(),
+  mapping: z
+    .string()
+    .optional()
+    .transform((text, context) => {
+      if (text === undefined || text.trim() === '') return undefined;
+      let value: unknown;
+      try {
+        value = JSON.parse(text);
+      } catch {
+        context.addIssue({ code: 'custom', message: 'is not valid JSON' });
+        return z.NEVER;
+      }
+      const parsed = parseColumnMapping(value);
+      if (!parsed.ok) {
+        context.addIssue({ code: 'custom', message: parsed.message });
+        return z.NEVER;
+      }
+      return parsed.mapping as unknown as Record<string, unknown>;
+    }),
+  seed: z
+    .string()
+    .regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits (256 bits)')
+    .transform((seed) => seed.toLowerCase())
+    .optional(),
+  acquiredOn: isoDate.optional(),
+  notes: z.string().max(4000, 'must be at most 4000 characters').optional(),
+});
+
+const listQuerySchema = z.strictObject({
+  page: z.coerce.number().int().min(0).default(0),
+  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+  sort: z.enum(RUN_SORT_KEYS).default('createdAt'),
+  direction: z.enum(['asc', 'desc']).default('desc'),
+  setupId: positiveId('a setup').optional(),
+  state: z.enum(RUN_STATES).optional(),
+  verdict: z.enum(VERDICTS).optional(),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+  uploadedBy: positiveId('a user').optional(),
+});
+
+const signOffSchema = z.strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) });
+
+function firstIssue(error: z.ZodError): HttpError {
+  const issue = error.issues[0];
+  const field = issue.path.join('.');
+  return HttpError.badRequest(field ? `${field}: ${issue.message}` : issue.message, field || undefined);
+}
+
+/** `/api/runs`: experimentalists upload; everyone signed in reads; shift leads sign off. */
+export function runsRoutes(deps: { config: Config; runs: RunsService; archive: LocalArchive; models: Models; audit: AuditTrail; guards: Guards }): Router {
+  const { config, runs, archive, models, guards } = deps;
+  const router = Router();
+
+  router.post('/', guards.requireRole('experimentalist'), logUpload(archive.temporaryFolder, config.uploadLimitBytes), async (request, response) => {
+    const fields = uploadFieldsSchema.safeParse(request.body ?? {});
+    if (!fields.success) {
+      await discardUpload(request);
+      throw firstIssue(fields.error);
+    }
+    const file = uploadedLog(request);
+    try {
+      const run = await runs.create(
+        { ...fields.data, originalName: file.originalname, temporaryFile: file.path, sha256: file.sha256, bytes: file.size },
+        request.user!.id,
+      );
+      response.status(201).json(run);
+    } finally {
+      await discardUpload(request);
+    }
+  });
+
+  router.get('/', guards.requireSignIn, async (request, response) => {
+    const query = listQuerySchema.safeParse(request.query);
+    if (!query.success) throw firstIssue(query.error);
+    response.json(await runs.list(query.data));
+  });
+
+  router.get('/:id', guards.requireSignIn, async (request, response) => {
+    response.json(await runs.get(idParameter(request, 'run')));
+  });
+
+  router.get('/:id/blocks', guards.requireSignIn, async (request, response) => {
+    const run = await runs.get(idParameter(request, 'run'));
+    response.json((run.result?.['blocks'] as unknown[] | undefined) ?? []);
+  });
+
+  router.get('/:id/trail', guards.requireSignIn, async (request, response) => {
+    const id = idParameter(request, 'run');
+    await runs.get(id);
+    const events = await models.AuditEvent.findAll({ where: { targetType: 'run', targetId: String(id) }, order: [['id', 'ASC']] });
+    response.json(await toAuditEventDtos(events, models));
+  });
+
+  router.post('/:id/sign-off', guards.requireRole('shift-lead'), validateBody(signOffSchema), async (request, response) => {
+    const signOff = await runs.signOff(idParameter(request, 'run'), (request.body as z.infer<typeof signOffSchema>).comment, request.user!);
+    response.status(201).json(signOff);
+  });
+
+  return router;
+}

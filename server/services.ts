@@ -1,0 +1,30 @@
+import { createLocalArchive, type LocalArchive } from './archive/local-archive';
+import { createAuditTrail, type AuditTrail } from './audit/audit-trail';
+import type { Config } from './config/config';
+import type { Database } from './database/sequelize';
+import { createProfilesService, type ProfilesService } from './profiles/profiles.service';
+import type { AnalysisQueue } from './queue/analysis-queue';
+import { createRunsService, type RunsService } from './runs/runs.service';
+import { createSetupsService, type SetupsService } from './setups/setups.service';
+import { createUsersService, type UsersService } from './users/users.service';
+
+export interface Services {
+  audit: AuditTrail;
+  archive: LocalArchive;
+  users: UsersService;
+  profiles: ProfilesService;
+  setups: SetupsService;
+  runs: RunsService;
+}
+
+/** Every service of the app over one database and queue: the API and the worker share them. */
+export function createServices(config: Config, database: Database, queue: AnalysisQueue): Services {
+  const { sequelize, models } = database;
+  const audit = createAuditTrail(models.AuditEvent);
+  const archive = createLocalArchive(config.dataDir);
+  const users = createUsersService(models.User, config.bcryptRounds, audit);
+  const profiles = createProfilesService(sequelize, models, audit);
+  const setups = createSetupsService(sequelize, models, audit);
+  const runs = createRunsService({ sequelize, models, archive, queue, profiles, setups, audit });
+  return { audit, archive, users, profiles, setups, runs };
+}

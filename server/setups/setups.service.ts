@@ -1,0 +1,113 @@
+import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
+import type { SaveSetupRequest, SetupDto } from '../../shared/api';
+import type { AuditTrail } from '../audit/audit-trail';
+import type { Models } from '../database/models';
+import { HttpError } from '../http/http-error';
+
+export interface SetupsService {
+  list(): Promise<SetupDto[]>;
+  get(id: number): Promise<SetupDto>;
+  create(request: SaveSetupRequest, actorId: number): Promise<SetupDto>;
+  update(id: number, request: SaveSetupRequest, actorId: number): Promise<SetupDto>;
+  /** Addresses of the verdict mail: the active shift leads of the setup and its extra recipients. */
+  verdictRecipients(id: number): Promise<string[]>;
+  /** Whether the user is an assigned shift lead of the setup. */
+  isShiftLeadOf(setupId: number, userId: number): Promise<boolean>;
+}
+
+/** Setups (one two-station experiment each) and the shift leads assigned to them. */
+export function createSetupsService(sequelize: Sequelize, models: Models, audit: AuditTrail): SetupsService {
+  const { Setup, SetupShiftLead, User, Profile } = models;
+
+  async function list(ids?: number[]): Promise<SetupDto[]> {
+    const setups = await Setup.findAll({ where: ids ? { id: ids } : {}, order: [['name', 'ASC']] });
+    const leads = await SetupShiftLead.findAll({ where: { setupId: setups.map((setup) => setup.id) } });
+    const users = await User.findAll({ where: { id: leads.map((lead) => lead.userId) } });
+    const profiles = await Profile.findAll({ where: { id: setups.map((setup) => setup.defaultProfileId) } });
+    return setups.map((setup) => ({
+      id: setup.id,
+      name: setup.name,
+      description: setup.description,
+      stationALabel: setup.stationALabel,
+      stationBLabel: setup.stationBLabel,
+      defaultProfileId: setup.defaultProfileId,
+      defaultProfileName: profiles.find((profile) => profile.id === setup.defaultProfileId)?.name ?? '',
+      shiftLeads: leads
+        .filter((lead) => lead.setupId === setup.id)
+        .map((lead) => users.find((user) => user.id === lead.userId)!)
+        .map((user) => ({ id: user.id, name: user.name, email: user.email }))
+        .sort((a, b) => a.name.localeCompare(b.name)),
+      extraRecipients: [...setup.extraRecipients],
+      createdAt: setup.createdAt.toISOString(),
+    }));
+  }
+
+  async function get(id: number): Promise<SetupDto> {
+    const [setup] = await list([id]);
+    if (!setup) throw HttpError.notFound(`There is no setup with id ${id}.`);
+    return setup;
+  }
+
+  async function checkReferences(request: SaveSetupRequest): Promise<void> {
+    if (!(await Profile.findByPk(request.defaultProfileId))) {
+      throw HttpError.badRequest(`There is no acceptance profile with id ${request.defaultProfileId}.`, 'defaultProfileId');
+    }
+    const ids = [...new Set(request.shiftLeadIds)];
+    const leads = await User.findAll({ where: { id: ids, active: true, roles: { [Op.contains]: ['shift-lead'] } } });
+    const missing = ids.find((id) => !leads.some((lead) => lead.id === id));
+    if (missing !== undefined) {
+      throw HttpError.badRequest(`User ${missing} is not an active user with the Shift lead role.`, 'shiftLeadIds');
+    }
+  }
+
+  async function save(id: number | undefined, request: SaveSetupRequest, actorId: number): Promise<number> {
+    await checkReferences(request);
+    const fields = {
+      name: request.name.trim(),
+      description: request.description?.trim() ?? '',
+      stationALabel: request.stationALabel.trim(),
+      stationBLabel: request.stationBLabel.trim(),
+      defaultProfileId: request.defaultProfileId,
+      extraRecipients: [...new Set((request.extraRecipients ?? []).map((address) => address.trim().toLowerCase()))],
+    };
+    try {
+      return await sequelize.transaction(async (transaction) => {
+        let setupId: number;
+        if (id === undefined) {
+          setupId = (await Setup.create(fields, { transaction })).id;
+        } else {
+          const [changed] = await Setup.update(fields, { where: { id }, transaction });
+          if (changed === 0) throw HttpError.notFound(`There is no setup with id ${id}.`);
+          setupId = id;
+        }
+        await SetupShiftLead.destroy({ where: { setupId }, transaction });
+        await SetupShiftLead.bulkCreate([...new Set(request.shiftLeadIds)].map((userId) => ({ setupId, userId })), { transaction });
+        await audit.record(
+          { actorId, action: id === undefined ? 'setup.created' : 'setup.changed', targetType: 'setup', targetId: setupId, details: { ...fields, shiftLeadIds: request.shiftLeadIds } },
+          transaction,
+        );
+        return setupId;
+      });
+    } catch (error) {
+      if (error instanceof UniqueConstraintError) throw HttpError.conflict(`A setup named ${request.name} already exists.`, 'name');
+      throw error;
+    }
+  }
+
+  return {
+    list: () => list(),
+    get,
+    create: async (request, actorId) => get(await save(undefined, request, actorId)),
+    update: async (id, request, actorId) => get(await save(id, request, actorId)),
+
+    async verdictRecipients(id) {
+      const setup = await get(id);
+      const leads = await User.findAll({ where: { id: setup.shiftLeads.map((lead) => lead.id), active: true } });
+      return [...new Set([...leads.map((lead) => lead.email), ...setup.extraRecipients])];
+    },
+
+    async isShiftLeadOf(setupId, userId) {
+      return (await SetupShiftLead.count({ where: { setupId, userId } })) > 0;
+    },
+  };
+}

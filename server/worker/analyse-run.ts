@@ -1,0 +1,85 @@
+import type { Sequelize } from 'sequelize';
+import { analyseLog, AnalysisCancelledError } from '../../shared/analysis/node';
+import type { AnalysisProgress } from '../../shared/analysis/node';
+import type { RunState } from '../../shared/api';
+import type { LocalArchive } from '../archive/local-archive';
+import type { AuditTrail } from '../audit/audit-trail';
+import type { Models } from '../database/models';
+import type { AnalysisQueue } from '../queue/analysis-queue';
+
+/** Progress is written to the run when it has moved by this much (a fraction of the whole). */
+const PROGRESS_STEP = 0.03;
+
+const STATE_OF_VERDICT = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' } as const satisfies Record<string, RunState>;
+
+export interface AnalyseRunDeps {
+  sequelize: Sequelize;
+  models: Models;
+  archive: LocalArchive;
+  queue: AnalysisQueue;
+  audit: AuditTrail;
+}
+
+/**
+ * One analysis job: runs the engine on the archived file with the run's profile version, mapping
+ * and seed, writing progress as it reads, then stores the result, the state and the verdict-mail
+ * job in one transaction. Idempotent: a job delivered again for a run that has its result does
+ * nothing more, so a retried job ends with exactly one stored result.
+ */
+export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: AbortSignal): Promise<void> {
+  const { sequelize, models, archive, queue, audit } = deps;
+  const run = await models.Run.findByPk(runId);
+  if (!run || ['accepted', 'aborted', 'invalid', 'failed'].includes(run.state)) return;
+
+  const profileVersion = (await models.ProfileVersion.findByPk(run.profileVersionId))!;
+  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, startedAt: new Date(), error: null }, { where: { id: runId } });
+  await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1 } });
+
+  let written = 0;
+  let pendingWrite: Promise<unknown> = Promise.resolve();
+  const onProgress = ({ phase, bytesRead, totalBytes }: AnalysisProgress) => {
+    if (!totalBytes) return;
+    // Two passes over the file: the count fills the first half of the bar, the analysis the second.
+    const progress = Math.min(1, (phase === 'counting' ? 0 : 0.5) + (0.5 * bytesRead) / totalBytes);
+    if (progress - written < PROGRESS_STEP) return;
+    written = progress;
+    pendingWrite = pendingWrite.then(() => models.Run.update({ progress }, { where: { id: runId, state: 'analysing' } }));
+  };
+
+  let result;
+  try {
+    result = await analyseLog(
+      { path: archive.pathOf(run.fileSha256) },
+      { profile: profileVersion.parameters, mapping: run.mapping ?? undefined, seed: run.seed, onProgress, signal },
+    );
+  } catch (error) {
+    await pendingWrite;
+    // Cancelled (the worker is stopping): the job fails and the queue hands it out again.
+    if (error instanceof AnalysisCancelledError) throw error;
+    await finishAsFailed(runId, error, deps);
+    return;
+  }
+  await pendingWrite;
+
+  const state = STATE_OF_VERDICT[result.verdict];
+  await sequelize.transaction(async (transaction) => {
+    const [stored] = await models.Run.update(
+      { state, verdict: result.verdict, result: result as unknown as Record<string, unknown>, progress: 1, finishedAt: new Date() },
+      { where: { id: runId, state: 'analysing' }, transaction },
+    );
+    if (stored === 0) return;
+    await audit.record(
+      { actorId: null, action: 'run.finished', targetType: 'run', targetId: runId, details: { state, verdict: result.verdict, fingerprint: result.fingerprint, reasons: result.reasons } },
+      transaction,
+    );
+    await queue.enqueueVerdictMail(runId, transaction);
+  });
+}
+
+async function finishAsFailed(runId: number, error: unknown, { models, audit, sequelize }: AnalyseRunDeps): Promise<void> {
+  const message = error instanceof Error ? error.message : String(error);
+  await sequelize.transaction(async (transaction) => {
+    await models.Run.update({ state: 'failed', error: message, finishedAt: new Date() }, { where: { id: runId }, transaction });
+    await audit.record({ actorId: null, action: 'run.failed', targetType: 'run', targetId: runId, details: { error: message } }, transaction);
+  });
+}

@@ -1,0 +1,37 @@
+import { loadConfig } from '../config/config';
+import { openDatabase } from '../database/sequelize';
+import { createMailer } from '../mail/mailer';
+import { startAnalysisQueue } from '../queue/analysis-queue';
+import { createServices } from '../services';
+import { startWorker } from './worker';
+
+/**
+ * `npm run worker`: one analysis worker alone, for a machine that only analyses. It needs the
+ * database (BELLKEEP_DATABASE_URL), the archive (BELLKEEP_DATA_DIR) and an SMTP server
+ * (BELLKEEP_SMTP_URL); run as many as the lab needs, on as many machines.
+ */
+async function main(): Promise<void> {
+  const config = loadConfig();
+  if (!config.databaseUrl) throw new Error('Set BELLKEEP_DATABASE_URL: a worker shares the database of the API.');
+  if (!config.smtpUrl) throw new Error('Set BELLKEEP_SMTP_URL: a worker mails the verdicts.');
+  const database = openDatabase(config.databaseUrl);
+  const queue = await startAnalysisQueue(config.databaseUrl, database.sequelize, config.queue);
+  const mailer = createMailer(config.smtpUrl, config.mailFrom);
+  const worker = await startWorker(config, database, queue, createServices(config, database, queue), mailer);
+  process.stdout.write(`Worker ${process.pid} is taking analysis jobs.\n`);
+
+  const stop = async () => {
+    await worker.stop();
+    await queue.stop();
+    mailer.close();
+    await database.close();
+    process.exit(0);
+  };
+  process.once('SIGINT', stop);
+  process.once('SIGTERM', stop);
+}
+
+main().catch((error: unknown) => {
+  process.stderr.write(`The worker could not start: ${error instanceof Error ? error.message : String(error)}\n`);
+  process.exit(1);
+});

@@ -1,0 +1,47 @@
+import type { Sequelize } from 'sequelize';
+import type { AuditTrail } from '../audit/audit-trail';
+import type { Models } from '../database/models';
+import type { Mailer } from '../mail/mailer';
+import { composeVerdictMail } from '../mail/verdict-mail';
+import type { RunsService } from '../runs/runs.service';
+import type { SetupsService } from '../setups/setups.service';
+
+export interface VerdictMailDeps {
+  sequelize: Sequelize;
+  models: Models;
+  runs: RunsService;
+  setups: SetupsService;
+  mailer: Mailer;
+  audit: AuditTrail;
+  publicUrl: string;
+}
+
+/**
+ * One verdict-mail job: mails the shift leads of the run's setup and records the delivery. A
+ * failure is recorded and rethrown, so the queue retries later; a run whose mail went out is never
+ * mailed again (the run row is locked while sending, and at most one `sent` delivery may exist).
+ */
+export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Promise<void> {
+  const { sequelize, models, runs, setups, mailer, audit, publicUrl } = deps;
+  const failure = await sequelize.transaction(async (transaction) => {
+    await models.Run.findByPk(runId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (await models.MailDelivery.findOne({ where: { runId, status: 'sent' }, transaction })) return null;
+    const run = await runs.get(runId, transaction);
+    const recipients = await setups.verdictRecipients(run.setupId);
+    if (recipients.length === 0) {
+      await audit.record({ actorId: null, action: 'run.mail-skipped', targetType: 'run', targetId: runId, details: { reason: 'the setup has no shift leads or recipients' } }, transaction);
+      return null;
+    }
+    try {
+      const messageId = await mailer.send({ ...composeVerdictMail(run, publicUrl, recipients), messageId: `<run-${runId}-verdict@bellkeep>` });
+      await models.MailDelivery.create({ runId, recipients, status: 'sent', messageId, error: null }, { transaction });
+      await audit.record({ actorId: null, action: 'run.mail-sent', targetType: 'run', targetId: runId, details: { recipients, messageId } }, transaction);
+      return null;
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      await models.MailDelivery.create({ runId, recipients, status: 'failed', messageId: null, error: message }, { transaction });
+      return error;
+    }
+  });
+  if (failure) throw failure;
+}

@@ -1,0 +1,38 @@
+import type { Config } from '../config/config';
+import type { Database } from '../database/sequelize';
+import type { Mailer } from '../mail/mailer';
+import { ANALYSIS_QUEUE, VERDICT_MAIL_QUEUE, type AnalysisQueue, type RunJob } from '../queue/analysis-queue';
+import type { Services } from '../services';
+import { analyseRun } from './analyse-run';
+import { sendVerdictMail } from './send-verdict-mail';
+
+export interface RunningWorker {
+  /** Cancels the analysis in hand (its job is handed out again) and stops taking jobs. */
+  stop(): Promise<void>;
+}
+
+/**
+ * A worker: takes analysis jobs one at a time (the engine uses both cores) and verdict-mail jobs.
+ * Needs only the database (queue and results) and the archive; any number may run on any machine.
+ */
+export async function startWorker(config: Config, database: Database, queue: AnalysisQueue, services: Services, mailer: Mailer): Promise<RunningWorker> {
+  const stopping = new AbortController();
+  const { sequelize, models } = database;
+  const analysisDeps = { sequelize, models, archive: services.archive, queue, audit: services.audit };
+  const mailDeps = { sequelize, models, runs: services.runs, setups: services.setups, mailer, audit: services.audit, publicUrl: config.publicUrl };
+
+  await queue.boss.work<RunJob>(ANALYSIS_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {
+    await analyseRun(job.data.runId, analysisDeps, stopping.signal);
+  });
+  await queue.boss.work<RunJob>(VERDICT_MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {
+    await sendVerdictMail(job.data.runId, mailDeps);
+  });
+
+  return {
+    async stop() {
+      stopping.abort();
+      await queue.boss.offWork(ANALYSIS_QUEUE);
+      await queue.boss.offWork(VERDICT_MAIL_QUEUE);
+    },
+  };
+}

@@ -1,0 +1,92 @@
+/** Where a run is in its life. */
+export const RUN_STATES = ['queued', 'analysing', 'accepted', 'aborted', 'invalid', 'failed'] as const;
+export type RunState = (typeof RUN_STATES)[number];
+
+/** States after which nothing more happens to a run's result. */
+export const FINISHED_STATES: readonly RunState[] = ['accepted', 'aborted', 'invalid', 'failed'];
+
+export const VERDICTS = ['ACCEPT', 'ABORT', 'INVALID'] as const;
+export type Verdict = (typeof VERDICTS)[number];
+
+/** A shift lead's sign-off of a finished run. */
+export interface SignOffDto {
+  userId: number;
+  userName: string;
+  comment: string;
+  createdAt: string;
+}
+
+/** A run as lists show it. */
+export interface RunSummaryDto {
+  id: number;
+  setupId: number;
+  setupName: string;
+  profileVersionId: number;
+  profileName: string;
+  profileVersion: number;
+  state: RunState;
+  /** Fraction of the file read by the analysis, 0..1. */
+  progress: number;
+  verdict: Verdict | null;
+  /** CHSH win fraction and its acceptance threshold, when analysed. */
+  winFraction: number | null;
+  winThreshold: number | null;
+  qber: number | null;
+  uploadedBy: string;
+  acquiredOn: string | null;
+  createdAt: string;
+  finishedAt: string | null;
+  /** Set when the same bytes were uploaded before: the earlier run. */
+  duplicateOf: number | null;
+  signedOff: boolean;
+}
+
+/** One attempt to mail a run's verdict. */
+export interface MailDeliveryDto {
+  recipients: string[];
+  status: 'sent' | 'failed';
+  messageId: string | null;
+  error: string | null;
+  attemptedAt: string;
+}
+
+/** A run in full: `result` is the engine's JSON exactly as the `analyse` command prints it. */
+export interface RunDto extends RunSummaryDto {
+  file: { sha256: string; bytes: number; originalName: string };
+  seed: string;
+  mapping: Record<string, unknown> | null;
+  notes: string;
+  error: string | null;
+  startedAt: string | null;
+  result: Record<string, unknown> | null;
+  signOff: SignOffDto | null;
+  deliveries: MailDeliveryDto[];
+}
+
+/** A page of runs. */
+export interface RunPageDto {
+  items: RunSummaryDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+/** Sort keys of `GET /api/runs`. */
+export const RUN_SORT_KEYS = ['createdAt', 'acquiredOn', 'setup', 'state', 'verdict', 'winFraction'] as const;
+export type RunSortKey = (typeof RUN_SORT_KEYS)[number];
+
+/** Body of `POST /api/runs/:id/sign-off` (a shift lead of the run's setup). */
+export interface SignOffRequest {
+  comment: string;
+}
+
+/** One line of the audit trail. */
+export interface AuditEventDto {
+  id: number;
+  actor: string | null;
+  action: string;
+  targetType: string;
+  targetId: string;
+  details: Record<string, unknown>;
+  createdAt: string;
+}

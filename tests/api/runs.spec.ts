@@ -1,0 +1,177 @@
+import fs from 'node:fs';
+import request from 'supertest';
+import { analyseLog } from '../../shared/analysis/node';
+import type { AnalysisResult } from '../../shared/analysis/result';
+import type { ApiErrorBody, AuditEventDto, RunDto, RunPageDto } from '../../shared/api';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { createTestApp, type TestApp } from '../support/test-app';
+import { fixtureLog, inbox, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';
+
+const SEED = 'a5'.repeat(32);
+
+describe('the runs pipeline through the API', () => {
+  let testApp: TestApp;
+  const tokens: Record<string, string> = {};
+  const bearer = (who: string) => ({ Authorization: `Bearer ${tokens[who]}` });
+  let fenLink: number;
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    await testApp.startWorker();
+    for (const [who, email] of Object.entries({
+      dev: 'dev.okafor@kestrelfen.example',
+      lucia: 'lucia.brandt@kestrelfen.example',
+      sami: 'sami.virtanen@kestrelfen.example',
+      ada: 'ada.reyes@kestrelfen.example',
+    })) {
+      tokens[who] = await testApp.signIn(email, DEMO_PASSWORD);
+    }
+    fenLink = await setupId(testApp.app, tokens['dev'], 'Fen link');
+  }, 60_000);
+  afterAll(() => testApp.close());
+
+  it('upload → queued → analysed with the setup’s profile → verdict mailed to the shift leads → signed off once', async () => {
+    const created = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, seed: SEED, acquiredOn: '2026-11-30', notes: 'Night 42' }).expect(201);
+    const queued = created.body as RunDto;
+    expect(queued).toMatchObject({ state: 'queued', setupName: 'Fen link', profileName: 'Nightly standard', seed: SEED, acquiredOn: '2026-11-30', duplicateOf: null });
+    expect(queued.file.sha256).toBe(require('node:crypto').createHash('sha256').update(fs.readFileSync(fixtureLog('accepted-run.csv'))).digest('hex'));
+
+    const run = await waitForFinishedRun(testApp.app, tokens['sami'], queued.id);
+    expect(run).toMatchObject({ state: 'accepted', verdict: 'ACCEPT', progress: 1 });
+
+    // The stored result is the engine's own, exactly: the same analysis in this process agrees to the fingerprint.
+    const direct = await analyseLog({ path: fixtureLog('accepted-run.csv') }, { profile: (await testApp.services.profiles.findVersion(run.profileVersionId)).parameters, seed: SEED });
+    expect(run.result).toEqual(JSON.parse(JSON.stringify(direct)));
+    const result = run.result as unknown as AnalysisResult;
+
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ACCEPT · Fen link · run ${run.id}`);
+    expect(mail.to.map((to) => to.address).sort()).toEqual(['ada.reyes@kestrelfen.example', 'lucia.brandt@kestrelfen.example', 'night-desk@kestrelfen.example']);
+    expect(mail.text).toContain(`CHSH win fraction ${result.chsh!.winFraction!.toFixed(4)}`);
+    expect(mail.text).toContain(`S = ${result.chsh!.S!.toFixed(3)}`);
+    expect(mail.text).toContain('collective');
+    expect(mail.text).toContain(`/runs/${run.id}`);
+    expect(mail.html).toContain('<a href=');
+
+    const delivered = (await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('lucia')).expect(200)).body as RunDto;
+    expect(delivered.deliveries).toEqual([expect.objectContaining({ status: 'sent', messageId: `<run-${run.id}-verdict@bellkeep>` })]);
+
+    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('sami')).send({ comment: 'looks fine' }).expect(403);
+    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('lucia')).send({ comment: '' }).expect(400);
+    const signOff = await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('lucia')).send({ comment: 'Key kept; fibre swap tomorrow.' }).expect(201);
+    expect(signOff.body).toMatchObject({ userName: 'Lucia Brandt', comment: 'Key kept; fibre swap tomorrow.' });
+    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('ada')).send({ comment: 'again' }).expect(409);
+
+    const trail = (await request(testApp.app).get(`/api/runs/${run.id}/trail`).set(bearer('sami')).expect(200)).body as AuditEventDto[];
+    expect(trail.map((event) => event.action)).toEqual(['run.uploaded', 'run.analysis-started', 'run.finished', 'run.mail-sent', 'run.signed-off']);
+    expect(trail[0].actor).toBe('Dev Okafor');
+  }, 60_000);
+
+  it('a shift lead of another setup cannot sign off', async () => {
+    const bench = await setupId(testApp.app, tokens['dev'], 'Mill Lane bench');
+    const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: bench, profileId: 1 }).expect(201)).body as RunDto;
+    await waitForFinishedRun(testApp.app, tokens['dev'], created.id);
+    const refused = await request(testApp.app).post(`/api/runs/${created.id}/sign-off`).set(bearer('lucia')).send({ comment: 'not mine' }).expect(403);
+    expect((refused.body as ApiErrorBody).error.message).toMatch(/assigned to this run’s setup/);
+  }, 60_000);
+
+  it('a log with low CHSH is aborted, with the reason in the result and the mail', async () => {
+    const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('aborted-low-chsh.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
+    const run = await waitForFinishedRun(testApp.app, tokens['dev'], created.id);
+    expect(run).toMatchObject({ state: 'aborted', verdict: 'ABORT' });
+    const reasons = (run.result as unknown as AnalysisResult).reasons;
+    expect(reasons.length).toBeGreaterThan(0);
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ABORT · Fen link · run ${run.id}`);
+    expect(mail.text).toContain(reasons[0]);
+  }, 60_000);
+
+  it.each(['malformed-rows.csv', 'empty.csv', 'header-only.csv', 'missing-column.csv', 'binary.bin'])(
+    'the malformed fixture %s ends as an invalid run with its problems listed, not as a server error',
+    async (name) => {
+      const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog(name), { setupId: fenLink }).expect(201)).body as RunDto;
+      const run = await waitForFinishedRun(testApp.app, tokens['dev'], created.id);
+      expect(run).toMatchObject({ state: 'invalid', verdict: 'INVALID' });
+      const result = run.result as unknown as AnalysisResult;
+      expect(result.errorCount).toBeGreaterThan(0);
+      expect(result.errors[0].message.length).toBeGreaterThan(10);
+    },
+    60_000,
+  );
+
+  it('the same bytes again: a new run of the same archived file, marked as a duplicate', async () => {
+    const first = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('drifting-run.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
+    const second = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('drifting-run.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
+    expect(second.duplicateOf).toBe(first.id);
+    expect(second.file.sha256).toBe(first.file.sha256);
+    const archived = testApp.services.archive.pathOf(first.file.sha256);
+    expect(fs.statSync(archived).mode & 0o777).toBe(0o444);
+    expect(fs.readdirSync(testApp.services.archive.temporaryFolder)).toEqual([]);
+  });
+
+  it.each([
+    [{}, 'setupId'],
+    [{ setupId: 999 }, 'setupId'],
+    [{ setupId: 'abc' }, 'setupId'],
+    [{ seed: 'not-hex' }, 'seed'],
+    [{ mapping: '{"columns": {"x": ""}}' }, 'mapping'],
+    [{ mapping: '{not json' }, 'mapping'],
+    [{ acquiredOn: '2026-13-40' }, 'acquiredOn'],
+    [{ profileVersionId: 4242 }, 'profileVersionId'],
+    [{ colour: 'teal' }, ''],
+  ])('refuses the fields %j with 400 naming the field, keeping nothing', async (fields, field) => {
+    const body = { setupId: fenLink, ...fields } as Record<string, string | number>;
+    if (!('setupId' in fields) && field === 'setupId') delete body['setupId'];
+    const before = await testApp.database.models.Run.count();
+    const response = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), body).expect(400);
+    const error = (response.body as ApiErrorBody).error;
+    if (field) expect(error.field).toBe(field);
+    else expect(error.message).toMatch(/colour/);
+    expect(await testApp.database.models.Run.count()).toBe(before);
+    expect(fs.readdirSync(testApp.services.archive.temporaryFolder)).toEqual([]);
+  });
+
+  it('refuses an upload without a file', async () => {
+    const response = await request(testApp.app).post('/api/runs').set(bearer('dev')).field('setupId', String(fenLink)).expect(400);
+    expect((response.body as ApiErrorBody).error.field).toBe('log');
+  });
+
+  it('lists runs with paging, sorting and filters', async () => {
+    const page = (await request(testApp.app).get('/api/runs').query({ pageSize: 2, page: 0, sort: 'createdAt', direction: 'asc' }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    expect(page.items).toHaveLength(2);
+    expect(page.total).toBeGreaterThan(2);
+    expect(page.items[0].id).toBeLessThan(page.items[1].id);
+
+    const aborted = (await request(testApp.app).get('/api/runs').query({ verdict: 'ABORT' }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    expect(aborted.items.length).toBeGreaterThan(0);
+    expect(aborted.items.every((item) => item.verdict === 'ABORT')).toBe(true);
+
+    const accepted = (await request(testApp.app).get('/api/runs').query({ state: 'accepted', sort: 'winFraction', direction: 'desc' }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    expect(accepted.items.every((item) => item.winFraction! >= item.winThreshold!)).toBe(true);
+
+    const dated = (await request(testApp.app).get('/api/runs').query({ from: '2026-11-30', to: '2026-11-30' }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    expect(dated.items.map((item) => item.acquiredOn)).toEqual(dated.items.map(() => '2026-11-30'));
+
+    await request(testApp.app).get('/api/runs').query({ state: 'sleeping' }).set(bearer('sami')).expect(400);
+    await request(testApp.app).get('/api/runs').query({ pageSize: 5000 }).set(bearer('sami')).expect(400);
+  });
+
+  it('the mail goes out once the mail server is back, and only once', async () => {
+    const { inboxUrl } = testApp.mailCatcher;
+    await testApp.mailCatcher.stop();
+    const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('biased-setting-rng.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
+    const run = await waitForFinishedRun(testApp.app, tokens['dev'], created.id);
+    // Wait for at least one failed delivery, recorded with its error.
+    for (let attempt = 0; ; attempt++) {
+      const deliveries = ((await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('dev'))).body as RunDto).deliveries;
+      if (deliveries.some((delivery) => delivery.status === 'failed' && delivery.error)) break;
+      if (attempt > 200) throw new Error("no failed delivery recorded");
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    await testApp.restartMailCatcher();
+    const subject = `[Bellkeep] ${run.verdict} · Fen link · run ${run.id}`;
+    await waitForMail(inboxUrl, subject);
+    await new Promise((resolve) => setTimeout(resolve, 2500));
+    expect((await inbox(inboxUrl)).filter((mail) => mail.subject === subject)).toHaveLength(1);
+    const deliveries = ((await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('dev'))).body as RunDto).deliveries;
+    expect(deliveries.filter((delivery) => delivery.status === 'sent')).toHaveLength(1);
+  }, 60_000);
+});
