@@ -36,9 +36,7 @@ export default async function setUpTestCluster(): Promise<void> {
   try {
     await migrate(template.sequelize);
     // The queue's own schema too, so no test file waits for pg-boss to install it.
-    const boss = new PgBoss({ connectionString: cluster.url, max: 2 });
-    await boss.start();
-    await boss.stop({ graceful: false, wait: true });
+    await template.sequelize.query(PgBoss.getConstructionPlans());
   } finally {
     await template.close();
   }
