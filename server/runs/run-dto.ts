@@ -15,6 +15,8 @@ export interface RunRow {
   verdict: RunSummaryDto['verdict'];
   win_fraction: number | null;
   qber: number | null;
+  chsh_value: number | null;
+  finite_key_bits: number | null;
   uploaded_by_name: string;
   acquired_on: string | null;
   created_at: Date;
@@ -38,6 +40,8 @@ export function toRunSummary(row: RunRow): RunSummaryDto {
     // The acceptance threshold of the CHSH criterion: ω_Q − tolerance (see shared/analysis).
     winThreshold: row.chsh_tolerance === null ? null : QUANTUM_WIN_FRACTION - Number(row.chsh_tolerance),
     qber: row.qber === null ? null : Number(row.qber),
+    chshValue: row.chsh_value === null ? null : Number(row.chsh_value),
+    finiteKeyBits: row.finite_key_bits === null ? null : Number(row.finite_key_bits),
     uploadedBy: row.uploaded_by_name,
     acquiredOn: row.acquired_on,
     createdAt: row.created_at.toISOString(),

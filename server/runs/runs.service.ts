@@ -60,6 +60,8 @@ const RUN_SELECT = `
          r.state, r.progress, r.verdict,
          (r.result #>> '{chsh,winFraction}')::float8 AS win_fraction,
          (r.result #>> '{qber,rate}')::float8 AS qber,
+         (r.result #>> '{chsh,S}')::float8 AS chsh_value,
+         (r.result #>> '{key,finiteKeyBits}')::float8 AS finite_key_bits,
          u.name AS uploaded_by_name, to_char(r.acquired_on, 'YYYY-MM-DD') AS acquired_on,
          r.created_at, r.finished_at, r.duplicate_of,
          EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off

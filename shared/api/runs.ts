@@ -32,6 +32,9 @@ export interface RunSummaryDto {
   winFraction: number | null;
   winThreshold: number | null;
   qber: number | null;
+  /** CHSH value S and the finite key estimate (collective attacks), when analysed. */
+  chshValue: number | null;
+  finiteKeyBits: number | null;
   uploadedBy: string;
   acquiredOn: string | null;
   createdAt: string;
