@@ -83,6 +83,7 @@ export async function up({ queryInterface, transaction }: MigrationContext): Pro
         CHECK (state IN ('queued', 'analysing', 'accepted', 'aborted', 'invalid', 'failed')),
       progress double precision NOT NULL DEFAULT 0 CHECK (progress >= 0 AND progress <= 1),
       attempts integer NOT NULL DEFAULT 0,
+      analysed_by varchar(255),
       verdict varchar(8) CHECK (verdict IN ('ACCEPT', 'ABORT', 'INVALID')),
       result jsonb,
       error text,

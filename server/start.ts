@@ -12,7 +12,7 @@ import { createWelcomeMail } from './mail/welcome-mail';
 import { startAnalysisQueue } from './queue/analysis-queue';
 import { createServices } from './services';
 import { buildAppIfStale, startDevServer } from './system/angular-build';
-import { startWorkerProcess } from './worker/worker-process';
+import { spawnWorkerProcess, stopWorkerProcess } from './worker/worker-process';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
 
 /**
@@ -63,8 +63,8 @@ async function main(): Promise<void> {
   const queue = await startAnalysisQueue(databaseUrl, database.sequelize, config.queue);
   stops.push(() => queue.stop());
   const services = createServices(config, database, queue);
-  const worker = startWorkerProcess({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl });
-  stops.push(() => worker.stop());
+  const worker = spawnWorkerProcess({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl });
+  stops.push(() => stopWorkerProcess(worker));
   const app = createApp({ config, database, services, jwtSecret, welcomeMail: createWelcomeMail(mailer, config.publicUrl) });
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));

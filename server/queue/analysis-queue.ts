@@ -41,20 +41,15 @@ export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequeli
   });
   boss.on('error', (error) => console.error('Job queue:', error));
   await boss.start();
-  await boss.createQueue(ANALYSIS_QUEUE, {
-    name: ANALYSIS_QUEUE,
-    retryLimit: 5,
-    retryDelay: 2,
-    retryBackoff: true,
-    expireInSeconds: options.analysisExpireSeconds,
-  });
-  await boss.createQueue(VERDICT_MAIL_QUEUE, {
-    name: VERDICT_MAIL_QUEUE,
-    retryLimit: 50,
-    retryDelay: options.mailRetryDelaySeconds,
-    retryBackoff: false,
-    expireInSeconds: 120,
-  });
+  const queues = [
+    { name: ANALYSIS_QUEUE, retryLimit: 5, retryDelay: 2, retryBackoff: true, expireInSeconds: options.analysisExpireSeconds },
+    { name: VERDICT_MAIL_QUEUE, retryLimit: 50, retryDelay: options.mailRetryDelaySeconds, retryBackoff: false, expireInSeconds: 120 },
+  ];
+  for (const queue of queues) {
+    // Created by the first process ever; later starts apply the configuration as it is now.
+    if (await boss.getQueue(queue.name)) await boss.updateQueue(queue.name, queue);
+    else await boss.createQueue(queue.name, queue);
+  }
 
   // pg-boss writes its job row through the caller's transaction. It leaves options it was not
   // given undefined, which Sequelize refuses as a bind value; SQL wants null there.

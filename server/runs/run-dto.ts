@@ -57,6 +57,8 @@ export interface RunDetails {
   mapping: Record<string, unknown> | null;
   notes: string;
   error: string | null;
+  attempts: number;
+  analysedBy: string | null;
   startedAt: Date | null;
   result: Record<string, unknown> | null;
   signOff: SignOffDto | null;

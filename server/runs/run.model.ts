@@ -16,6 +16,8 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
   declare state: CreationOptional<RunState>;
   declare progress: CreationOptional<number>;
   declare attempts: CreationOptional<number>;
+  /** The worker of the latest attempt, `host:pid`. */
+  declare analysedBy: CreationOptional<string | null>;
   declare verdict: CreationOptional<Verdict | null>;
   declare result: CreationOptional<Record<string, unknown> | null>;
   declare error: CreationOptional<string | null>;
@@ -73,6 +75,7 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
       state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'queued' },
       progress: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
       attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      analysedBy: { type: DataTypes.STRING(255), field: 'analysed_by' },
       verdict: { type: DataTypes.STRING(8) },
       result: { type: DataTypes.JSONB },
       error: { type: DataTypes.TEXT },

@@ -97,6 +97,8 @@ export function createRunsService(deps: {
       mapping: run.mapping,
       notes: run.notes,
       error: run.error ?? null,
+      attempts: run.attempts,
+      analysedBy: run.analysedBy ?? null,
       startedAt: run.startedAt ?? null,
       result: run.result ?? null,
       signOff: signOff && signer ? { userId: signer.id, userName: signer.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,

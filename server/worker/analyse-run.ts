@@ -1,3 +1,4 @@
+import os from 'node:os';
 import type { Sequelize } from 'sequelize';
 import { analyseLog, AnalysisCancelledError } from '../../shared/analysis/node';
 import type { AnalysisProgress } from '../../shared/analysis/node';
@@ -32,8 +33,9 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
   if (!run || ['accepted', 'aborted', 'invalid', 'failed'].includes(run.state)) return;
 
   const profileVersion = (await models.ProfileVersion.findByPk(run.profileVersionId))!;
-  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, startedAt: new Date(), error: null }, { where: { id: runId } });
-  await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1 } });
+  const worker = `${os.hostname()}:${process.pid}`;
+  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt: new Date(), error: null }, { where: { id: runId } });
+  await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1, worker } });
 
   let written = 0;
   let pendingWrite: Promise<unknown> = Promise.resolve();

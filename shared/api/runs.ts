@@ -60,6 +60,10 @@ export interface RunDto extends RunSummaryDto {
   mapping: Record<string, unknown> | null;
   notes: string;
   error: string | null;
+  /** Analysis attempts so far (more than one: a worker stopped or died and the job was retried). */
+  attempts: number;
+  /** The worker of the latest attempt, `host:pid`. */
+  analysedBy: string | null;
   startedAt: string | null;
   result: Record<string, unknown> | null;
   signOff: SignOffDto | null;
