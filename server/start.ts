@@ -52,7 +52,7 @@ async function main(): Promise<void> {
 
   const database = openDatabase(databaseUrl);
   stops.push(() => database.close());
-  const report = await bootstrapDatabase(database, config);
+  const report = await bootstrapDatabase(database, config, { history: true });
   say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
   if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
 

@@ -1,7 +1,7 @@
 import type { Config } from '../config/config';
 import { createAuditTrail } from '../audit/audit-trail';
 import { createUsersService } from '../users/users.service';
-import { migrate, seedDemo } from './migrate';
+import { migrate, seedDemo, seedDemoHistory } from './migrate';
 import type { Database } from './sequelize';
 
 export interface BootstrapReport {
@@ -12,9 +12,10 @@ export interface BootstrapReport {
 
 /**
  * Brings a database up to date on start: migrations, the demo lab when asked for, and a first
- * admin when there is none (from BELLKEEP_ADMIN_*, or else the demo lab's admin).
+ * admin when there is none (from BELLKEEP_ADMIN_*, or else the demo lab's admin); with
+ * `history`, also the demo lab's analysed nightly runs.
  */
-export async function bootstrapDatabase(database: Database, config: Config): Promise<BootstrapReport> {
+export async function bootstrapDatabase(database: Database, config: Config, options: { history: boolean } = { history: false }): Promise<BootstrapReport> {
   const migrations = await migrate(database.sequelize);
   const users = createUsersService(database.models.User, config.bcryptRounds, createAuditTrail(database.models.AuditEvent));
   let createdAdmin: string | undefined;
@@ -24,5 +25,6 @@ export async function bootstrapDatabase(database: Database, config: Config): Pro
   }
   const needsDemoAdmin = (await users.countActiveAdmins()) === 0;
   const seeders = config.demo || needsDemoAdmin ? await seedDemo(database.sequelize) : [];
+  if (config.demo && options.history) seeders.push(...(await seedDemoHistory(database.sequelize, config.dataDir)));
   return { migrations, seeders, createdAdmin };
 }

@@ -9,9 +9,14 @@ export interface MigrationContext {
   transaction: Transaction;
 }
 
+/** What the demo history seeders receive besides: the data folder, whose archive they fill. */
+export interface SeederContext extends MigrationContext {
+  dataDir: string;
+}
+
 interface MigrationModule {
-  up(context: MigrationContext): Promise<void>;
-  down?(context: MigrationContext): Promise<void>;
+  up(context: SeederContext): Promise<void>;
+  down?(context: SeederContext): Promise<void>;
 }
 
 /**
@@ -23,20 +28,28 @@ export async function migrate(sequelize: Sequelize): Promise<string[]> {
   return applyFolder(sequelize, 'migrations', 'SequelizeMeta');
 }
 
-/** Demo data: the seeders in seeders/, each applied once, recorded in `SequelizeData`. */
+/** Demo people, profiles and setups: the seeders in seeders/, each applied once, recorded in `SequelizeData`. */
 export async function seedDemo(sequelize: Sequelize): Promise<string[]> {
   return applyFolder(sequelize, 'seeders', 'SequelizeData');
 }
 
-async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string): Promise<string[]> {
+/**
+ * The demo lab's history of analysed nightly runs (seeders/history/), archived under `dataDir`;
+ * `npm start` loads it, tests leave it out (it takes a few seconds).
+ */
+export async function seedDemoHistory(sequelize: Sequelize, dataDir: string): Promise<string[]> {
+  return applyFolder(sequelize, 'seeders/history', 'SequelizeDataHistory', dataDir);
+}
+
+async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string, dataDir = ''): Promise<string[]> {
   const umzug = new Umzug({
     migrations: {
       glob: [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],
       resolve: ({ name, path: file }) => {
         // eslint-disable-next-line @typescript-eslint/no-require-imports
         const migration = require(file!) as MigrationModule;
-        const inTransaction = (step: (context: MigrationContext) => Promise<void>) => () =>
-          sequelize.transaction((transaction) => step({ queryInterface: sequelize.getQueryInterface(), transaction }));
+        const inTransaction = (step: (context: SeederContext) => Promise<void>) => () =>
+          sequelize.transaction((transaction) => step({ queryInterface: sequelize.getQueryInterface(), transaction, dataDir }));
         return {
           name,
           up: inTransaction((context) => migration.up(context)),

@@ -1,4 +1,11 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { analyseLog } from '../../shared/analysis/node';
+import type { AnalysisResult } from '../../shared/analysis/result';
+import { createLocalArchive } from '../../server/archive/local-archive';
 import { loadConfig } from '../../server/config/config';
+import { DEMO_NIGHTS } from '../../seeders/data/demo-nights';
 import { bootstrapDatabase } from '../../server/database/bootstrap';
 import { DEMO_PEOPLE } from '../../seeders/data/demo-people';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
@@ -35,6 +42,33 @@ describe('start-up bootstrap of a database', () => {
     expect(await emails()).toEqual(DEMO_PEOPLE.map((person) => person.email).sort());
     expect((await bootstrapDatabase(database, config)).seeders).toEqual([]);
   });
+});
+
+describe('the demo lab’s history of nights', () => {
+  it('is analysed by the engine, archived like an upload, and reproducible from its archived file and seed', async () => {
+    const database = await createTestDatabase();
+    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-history-'));
+    try {
+      const config = loadConfig({ BELLKEEP_DATA_DIR: dataDir, BELLKEEP_BCRYPT_ROUNDS: '4' });
+      const report = await bootstrapDatabase(database, config, { history: true });
+      expect(report.seeders).toContain('20261201020000-demo-nights.ts');
+
+      const runs = await database.models.Run.findAll({ order: [['id', 'ASC']] });
+      expect(runs).toHaveLength(2 * DEMO_NIGHTS);
+      const verdicts = new Set(runs.map((run) => run.verdict));
+      expect(verdicts).toEqual(new Set(['ACCEPT', 'ABORT']));
+      expect(runs.some((run) => (run.result as unknown as AnalysisResult).key!.finiteKeyBits > 0)).toBe(true);
+
+      const sample = runs[3];
+      const stored = sample.result as unknown as AnalysisResult;
+      const again = await analyseLog({ path: createLocalArchive(dataDir).pathOf(sample.fileSha256) }, { profile: stored.profile, seed: sample.seed });
+      expect(again.fingerprint).toBe(stored.fingerprint);
+      expect(await database.models.SignOff.count()).toBe(2 * (DEMO_NIGHTS - 2));
+    } finally {
+      await database.drop();
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    }
+  }, 120_000);
 });
 
 describe('configuration', () => {
