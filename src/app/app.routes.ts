@@ -21,6 +21,25 @@ export const routes: Routes = [
         loadComponent: () => import('./overview/overview').then((m) => m.Overview),
       },
       {
+        path: 'runs',
+        loadChildren: () => import('./runs/runs.routes').then((m) => m.runsRoutes),
+      },
+      {
+        path: 'upload',
+        title: 'Upload a run · Bellkeep',
+        canActivate: [requireRoles(navItem('upload').roles)],
+        loadComponent: () => import('./upload/upload-page').then((m) => m.UploadPage),
+      },
+      {
+        path: 'setups',
+        loadChildren: () => import('./setups/setups.routes').then((m) => m.setupsRoutes),
+      },
+      {
+        path: 'profiles',
+        title: 'Acceptance profiles · Bellkeep',
+        loadComponent: () => import('./profiles/profile-list').then((m) => m.ProfileList),
+      },
+      {
         path: 'users',
         title: 'Users · Bellkeep',
         canActivate: [requireRoles(navItem('users').roles)],

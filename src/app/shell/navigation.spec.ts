@@ -1,17 +1,24 @@
 import { navItem, navItemsFor } from './navigation';
 
 describe('navItemsFor', () => {
-  it('gives an admin the overview and the users page', () => {
-    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'users']);
+  it('gives an admin the shared pages and the users page, but not the upload', () => {
+    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles', 'users']);
   });
 
-  it('keeps the users page from an experimentalist', () => {
-    expect(navItemsFor(['experimentalist']).map((item) => item.id)).toEqual(['overview']);
+  it('gives an experimentalist the upload and keeps the users page from them', () => {
+    expect(navItemsFor(['experimentalist']).map((item) => item.id)).toEqual(['overview', 'runs', 'upload', 'setups', 'profiles']);
+  });
+
+  it('gives an auditor the pages to read, without upload or users', () => {
+    expect(navItemsFor(['auditor']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles']);
   });
 
   it('shows a page once to a user who holds several of its roles', () => {
     expect(navItemsFor(['auditor', 'shift-lead', 'admin']).map((item) => item.id)).toEqual([
       'overview',
+      'runs',
+      'setups',
+      'profiles',
       'users',
     ]);
   });

@@ -17,6 +17,10 @@ export interface NavItem {
 /** The side navigation, in order. A later feature adds its page here and guards its route with its roles. */
 export const NAV_ITEMS = [
   { id: 'overview', label: 'Overview', icon: 'space_dashboard', path: '/', roles: ROLES },
+  { id: 'runs', label: 'Runs', icon: 'table_rows', path: '/runs', roles: ROLES },
+  { id: 'upload', label: 'Upload', icon: 'upload_file', path: '/upload', roles: ['experimentalist'] },
+  { id: 'setups', label: 'Setups', icon: 'settings_input_component', path: '/setups', roles: ROLES },
+  { id: 'profiles', label: 'Profiles', icon: 'tune', path: '/profiles', roles: ROLES },
   { id: 'users', label: 'Users', icon: 'group', path: '/users', roles: ['admin'] },
 ] as const satisfies readonly NavItem[];
 

@@ -40,12 +40,12 @@ describe('Shell', () => {
 
   it('shows an admin the users page', async () => {
     const fixture = await renderFor(['admin']);
-    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-users: Users']);
+    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-setups: Setups', 'nav-profiles: Profiles', 'nav-users: Users']);
   });
 
   it('hides the users page from a shift lead', async () => {
     const fixture = await renderFor(['shift-lead']);
-    expect(navLabels(fixture)).toEqual(['nav-overview: Overview']);
+    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-setups: Setups', 'nav-profiles: Profiles']);
   });
 
   it('signs out from the user menu', async () => {

@@ -1,0 +1,85 @@
+import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '../../../shared/analysis/profile';
+import { formatCount, formatScientific } from '../../../shared/format/numbers';
+
+/** A number of the profile the form edits as text (ε's in scientific notation). */
+export type NumberField = 'chshTolerance' | 'qberTolerance' | 'epsilon' | 'minTestRounds' | 'reconciliationEfficiency' | 'epsilonEC' | 'epsilonPA' | 'significance' | 'driftBlocks';
+
+/** What a profile field is called on screen and what it means, in the hint under it. */
+export interface FieldMeaning {
+  readonly label: string;
+  readonly hint: string;
+}
+
+/** The numbers of a profile, in the form's order. */
+export const NUMBER_FIELDS: readonly NumberField[] = [
+  'chshTolerance',
+  'qberTolerance',
+  'epsilon',
+  'minTestRounds',
+  'reconciliationEfficiency',
+  'epsilonEC',
+  'epsilonPA',
+  'significance',
+  'driftBlocks',
+];
+
+/** Label and meaning of every profile field. */
+export const FIELD_MEANINGS: Record<NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'requirePositiveKey' | 'blockingChecks', FieldMeaning> = {
+  mode: { label: 'Test rounds chosen', hint: 'By a fixed share drawn from the seed, by each round independently, or by the log’s own test column.' },
+  fraction: { label: 'Test fraction', hint: 'Exactly this share of all rounds is tested (between 0 and 1). Common: 0.01–0.5.' },
+  probability: { label: 'Test probability γ', hint: 'Each round is tested with this probability, independently (between 0 and 1).' },
+  chshTolerance: { label: 'CHSH tolerance η', hint: 'Accept when the win fraction reaches ω_Q − η, ω_Q ≈ 0.8536. Above 0, at most 0.25. Common: 0.01–0.05.' },
+  qberTolerance: { label: 'QBER tolerance', hint: 'Accept when the error rate on the key setting is at most this (above 0, at most 0.5). Common: 0.02–0.08.' },
+  epsilon: { label: 'Confidence ε', hint: 'Failure probability of every confidence bound, e.g. 1e-9. Common: 1e-6 to 1e-12.' },
+  criterion: { label: 'Judged on', hint: 'Observed values against the thresholds, or their confidence bounds (certified: stricter).' },
+  minTestRounds: { label: 'Minimum test rounds', hint: 'Fewest CHSH test rounds, and fewest key-setting test rounds, a run may have. A whole number ≥ 1.' },
+  reconciliationEfficiency: { label: 'Error-correction efficiency f', hint: 'Bits leaked per bit of Shannon limit, from 1 to 2. Common: 1.1–1.2.' },
+  epsilonEC: { label: 'ε of error correction', hint: 'Failure probability of error correction, e.g. 1e-10.' },
+  epsilonPA: { label: 'ε of privacy amplification', hint: 'Failure probability of privacy amplification, e.g. 1e-10.' },
+  significance: { label: 'Check significance', hint: 'A statistical check fails when its p-value is below this, e.g. 0.001.' },
+  driftBlocks: { label: 'Drift blocks', hint: 'Blocks of consecutive rounds for the stationarity check and the drift chart, 2 to 1000.' },
+  requirePositiveKey: { label: 'Require a positive finite key', hint: 'ACCEPT also needs a finite key estimate above 0 bits.' },
+  blockingChecks: { label: 'Blocking checks', hint: 'Checks whose failure aborts the run; the others only warn.' },
+};
+
+/** Words for the check families. */
+export const CHECK_FAMILY_LABELS: Record<CheckFamily, string> = {
+  'log-integrity': 'Log integrity',
+  'minimum-test-rounds': 'Minimum test rounds',
+  'setting-uniformity': 'Setting uniformity',
+  'no-signalling': 'No-signalling',
+  stationarity: 'Stationarity',
+};
+
+/** The check families in order, with their words. */
+export const CHECK_FAMILY_OPTIONS = CHECK_FAMILIES.map((family) => ({ value: family, label: CHECK_FAMILY_LABELS[family] }));
+
+/** Fields shown in scientific notation. */
+const SCIENTIFIC: readonly NumberField[] = ['epsilon', 'epsilonEC', 'epsilonPA', 'significance'];
+
+/** A profile number as the form writes it (text that reads back as the same number). */
+export function profileNumberText(field: NumberField, value: number): string {
+  return SCIENTIFIC.includes(field) ? formatScientific(value) : String(value);
+}
+
+/** A profile number as the read-only view shows it (counts with thin spaces). */
+function shownProfileNumber(field: NumberField, value: number): string {
+  return field === 'minTestRounds' || field === 'driftBlocks' ? formatCount(value) : profileNumberText(field, value);
+}
+
+/** The lines of a profile's read-only view: label, value, meaning. */
+export function describeProfile(profile: AnalysisProfile): { label: string; value: string; hint: string }[] {
+  const selection = profile.testSelection;
+  const modeWords = { 'fixed-fraction': 'Fixed share from the seed', bernoulli: 'Each round independently', 'from-log': 'The log’s test column' };
+  const lines = [{ ...FIELD_MEANINGS.mode, value: modeWords[selection.mode] }];
+  if (selection.mode === 'fixed-fraction') lines.push({ ...FIELD_MEANINGS.fraction, value: String(selection.fraction) });
+  if (selection.mode === 'bernoulli') lines.push({ ...FIELD_MEANINGS.probability, value: String(selection.probability) });
+  lines.push({ ...FIELD_MEANINGS.criterion, value: profile.criterion === 'certified' ? 'Confidence bounds (certified)' : 'Observed values' });
+  for (const field of NUMBER_FIELDS) lines.push({ ...FIELD_MEANINGS[field], value: shownProfileNumber(field, profile[field]) });
+  lines.push({ ...FIELD_MEANINGS.requirePositiveKey, value: profile.requirePositiveKey ? 'Yes' : 'No' });
+  lines.push({
+    ...FIELD_MEANINGS.blockingChecks,
+    value: profile.blockingChecks.map((family) => CHECK_FAMILY_LABELS[family]).join(', ') || 'None',
+  });
+  return lines.map(({ label, value, hint }) => ({ label, value, hint }));
+}

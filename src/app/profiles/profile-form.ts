@@ -1,0 +1,94 @@
+import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
+
+import { parseProfile, type AnalysisProfile, type CheckFamily, type TestSelection } from '../../../shared/analysis/profile';
+import { NUMBER_FIELDS, profileNumberText, type NumberField } from './profile-fields';
+
+/** The controls of a profile form: the profile's fields, numbers as text. */
+export type ProfileControls = Record<NumberField, FormControl<string>> & {
+  mode: FormControl<TestSelection['mode']>;
+  fraction: FormControl<string>;
+  probability: FormControl<string>;
+  criterion: FormControl<AnalysisProfile['criterion']>;
+  requirePositiveKey: FormControl<boolean>;
+  blockingChecks: FormControl<CheckFamily[]>;
+  note: FormControl<string>;
+};
+
+/** A number typed as text: the number it reads as, or NaN (which the engine calls "not a number"). */
+function numberOf(text: string): number {
+  return text.trim() === '' ? NaN : Number(text.trim());
+}
+
+/**
+ * A validator by the engine's own profile rules for one field: the field alone, every other field at
+ * its default, goes through `parseProfile`; its message (without the "profile field …:" prefix) is the
+ * error. `partial` builds the profile fragment from the control's value.
+ */
+function engineRule(partial: (value: never) => Record<string, unknown>): ValidatorFn {
+  return (control: AbstractControl): ValidationErrors | null => {
+    const parsed = parseProfile(partial(control.value as never));
+    return parsed.ok ? null : { profile: sentence(parsed.message.replace(/^profile field [^:]+: /, '')) };
+  };
+}
+
+function sentence(message: string): string {
+  return message.charAt(0).toUpperCase() + message.slice(1) + (message.endsWith('.') || message.endsWith(')') ? '' : '.');
+}
+
+/** A form for a complete profile, filled from `profile`; each field validated by the engine's rules. */
+export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls> {
+  const selection = profile.testSelection;
+  const numbers = Object.fromEntries(
+    NUMBER_FIELDS.map((field) => [
+      field,
+      new FormControl(profileNumberText(field, profile[field]), {
+        nonNullable: true,
+        validators: [engineRule((text: string) => ({ [field]: numberOf(text) }))],
+      }),
+    ]),
+  ) as Record<NumberField, FormControl<string>>;
+  const form = new FormGroup<ProfileControls>({
+    ...numbers,
+    mode: new FormControl(selection.mode, { nonNullable: true }),
+    fraction: new FormControl(String(selection.mode === 'fixed-fraction' ? selection.fraction : 0.5), {
+      nonNullable: true,
+      validators: [engineRule((text: string) => ({ testSelection: { mode: 'fixed-fraction', fraction: numberOf(text) } }))],
+    }),
+    probability: new FormControl(String(selection.mode === 'bernoulli' ? selection.probability : 0.5), {
+      nonNullable: true,
+      validators: [engineRule((text: string) => ({ testSelection: { mode: 'bernoulli', probability: numberOf(text) } }))],
+    }),
+    criterion: new FormControl(profile.criterion, { nonNullable: true }),
+    requirePositiveKey: new FormControl(profile.requirePositiveKey, { nonNullable: true }),
+    blockingChecks: new FormControl([...profile.blockingChecks], { nonNullable: true }),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+  });
+  // Only the share of the chosen selection mode is part of the profile.
+  const followMode = (mode: TestSelection['mode']) => {
+    if (mode === 'fixed-fraction') form.controls.fraction.enable({ emitEvent: false });
+    else form.controls.fraction.disable({ emitEvent: false });
+    if (mode === 'bernoulli') form.controls.probability.enable({ emitEvent: false });
+    else form.controls.probability.disable({ emitEvent: false });
+  };
+  followMode(selection.mode);
+  form.controls.mode.valueChanges.subscribe(followMode);
+  return form;
+}
+
+/** The engine parameters a profile form holds (the note is not one of them). */
+export function profileParameters(form: FormGroup<ProfileControls>): Record<string, unknown> {
+  const value = form.getRawValue();
+  const testSelection =
+    value.mode === 'fixed-fraction'
+      ? { mode: value.mode, fraction: numberOf(value.fraction) }
+      : value.mode === 'bernoulli'
+        ? { mode: value.mode, probability: numberOf(value.probability) }
+        : { mode: value.mode };
+  return {
+    testSelection,
+    criterion: value.criterion,
+    ...Object.fromEntries(NUMBER_FIELDS.map((field) => [field, numberOf(value[field])])),
+    requirePositiveKey: value.requirePositiveKey,
+    blockingChecks: value.blockingChecks,
+  };
+}

@@ -1,0 +1,116 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
+
+import type { AuditEventDto, RunDto, SetupDto, SignOffDto } from '../../../shared/api';
+import type { AnalysisResult } from '../../../shared/analysis/result';
+import { QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
+import { formatCount, formatFixed, formatScientific } from '../../../shared/format/numbers';
+import { loaded, type Loaded } from '../api/loaded';
+import { SetupsApi } from '../setups/setups-api';
+import { CorrelatorChart } from './correlator-chart';
+import { DriftChart } from './drift-chart';
+import { runCriteria } from './run-criteria';
+import { RunFigures } from './run-figures';
+import { RunsApi } from './runs-api';
+import { SettingsTable } from './settings-table';
+import { SignOffPanel } from './sign-off-panel';
+import { trailDetail, trailWords } from './trail-words';
+import { VerdictBanner } from './verdict-banner';
+
+/** One run: verdict and why, criteria, figures, charts, checks, provenance, sign-off and trail. */
+@Component({
+  selector: 'bk-run-page',
+  imports: [
+    CorrelatorChart,
+    DatePipe,
+    DriftChart,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    RouterLink,
+    RunFigures,
+    SettingsTable,
+    SignOffPanel,
+    VerdictBanner,
+  ],
+  templateUrl: './run-page.html',
+  styleUrl: './run-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RunPage {
+  private readonly runsApi = inject(RunsApi);
+  private readonly setupsApi = inject(SetupsApi);
+
+  /** The run's id, from the route. */
+  readonly id = input.required<string>();
+
+  private readonly reload = signal(0);
+  private readonly recordedSignOff = signal<SignOffDto | null>(null);
+
+  private readonly live = toSignal(
+    toObservable(computed(() => ({ id: Number(this.id()), attempt: this.reload() }))).pipe(
+      switchMap(({ id }) => (Number.isInteger(id) && id > 0 ? loaded(this.runsApi.watch(id)) : of<Loaded<RunDto>>({ status: 'failed', message: 'There is no run with this number.' }))),
+    ),
+    { initialValue: { status: 'loading' } as Loaded<RunDto> },
+  );
+
+  /** The run, with a sign-off made on this page. */
+  protected readonly run = computed<RunDto | null>(() => {
+    const live = this.live();
+    if (live.status !== 'ready') return null;
+    const signOff = this.recordedSignOff();
+    return signOff === null ? live.value : { ...live.value, signOff, signedOff: true };
+  });
+  protected readonly failure = computed(() => {
+    const live = this.live();
+    return live.status === 'failed' ? live.message : '';
+  });
+  protected readonly result = computed(() => (this.run()?.result ?? null) as AnalysisResult | null);
+  protected readonly analysed = computed(() => {
+    const result = this.result();
+    return result !== null && result.chsh !== null && result.qber !== null && result.key !== null && result.counts !== null ? result : null;
+  });
+  protected readonly criteria = computed(() => (this.analysed() ? runCriteria(this.analysed()!) : []));
+  protected readonly epsilon = computed(() => formatScientific(this.result()?.profile.epsilon));
+  protected readonly winThreshold = computed(() => QUANTUM_WIN_FRACTION - (this.result()?.profile.chshTolerance ?? 0));
+
+  protected readonly setup = toSignal(
+    toObservable(computed(() => this.run()?.setupId ?? null)).pipe(
+      distinctUntilChanged(),
+      filter((setupId) => setupId !== null),
+      switchMap((setupId) => this.setupsApi.get(setupId).pipe(catchError(() => of(null)))),
+    ),
+    { initialValue: null as SetupDto | null },
+  );
+
+  protected readonly trail = toSignal(
+    toObservable(computed(() => {
+      const run = this.run();
+      return run === null ? null : `${run.id}:${run.state}:${run.signedOff}:${run.deliveries.length}`;
+    })).pipe(
+      distinctUntilChanged(),
+      filter((key) => key !== null),
+      switchMap((key) => loaded(this.runsApi.trail(Number(key.split(':')[0])))),
+    ),
+    { initialValue: { status: 'loading' } as Loaded<AuditEventDto[]> },
+  );
+
+  protected readonly trailWords = trailWords;
+  protected readonly trailDetail = trailDetail;
+  protected readonly count = formatCount;
+  protected readonly fixed = formatFixed;
+
+  protected retry(): void {
+    this.reload.update((attempt) => attempt + 1);
+  }
+
+  protected keepSignOff(signOff: SignOffDto): void {
+    this.recordedSignOff.set(signOff);
+  }
+}

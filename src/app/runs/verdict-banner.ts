@@ -1,0 +1,46 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+
+import type { RunDto } from '../../../shared/api';
+import type { AnalysisResult } from '../../../shared/analysis/result';
+import { formatCount } from '../../../shared/format/numbers';
+import { lookOfState } from './verdict-look';
+
+/** The sentence under each state's word. */
+const HEADLINES: Record<RunDto['state'], string> = {
+  queued: 'The log is archived and waits for an analysis worker.',
+  analysing: 'The log is being read and the test rounds audited.',
+  accepted: 'Every acceptance criterion and blocking check holds: the raw key may be kept.',
+  aborted: 'The run failed its tests: no key is kept from it.',
+  invalid: 'The log could not be read as a round log: nothing was tested.',
+  failed: 'The analysis stopped before a verdict. The log is archived; the run can be analysed again.',
+};
+
+/** How many problems of an invalid log the banner lists. */
+const LISTED_PROBLEMS = 5;
+
+/** The verdict across the top of a run: word, icon and tone, then why; or the analysis progress. */
+@Component({
+  selector: 'bk-verdict-banner',
+  imports: [MatIconModule, MatProgressBarModule],
+  templateUrl: './verdict-banner.html',
+  styleUrl: './verdict-banner.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class VerdictBanner {
+  /** The run, as the API gives it. */
+  readonly run = input.required<RunDto>();
+
+  protected readonly look = computed(() => lookOfState(this.run().state));
+  protected readonly headline = computed(() => HEADLINES[this.run().state]);
+  protected readonly pending = computed(() => this.run().state === 'queued' || this.run().state === 'analysing');
+  protected readonly percent = computed(() => Math.round(this.run().progress * 100));
+  protected readonly result = computed(() => this.run().result as AnalysisResult | null);
+  protected readonly problems = computed(() => this.result()?.errors.slice(0, LISTED_PROBLEMS) ?? []);
+  protected readonly moreProblems = computed(() => {
+    const result = this.result();
+    const more = result === null ? 0 : result.errorCount - this.problems().length;
+    return more > 0 ? `and ${formatCount(more)} more ${more === 1 ? 'problem' : 'problems'}` : '';
+  });
+}

@@ -1,0 +1,167 @@
+import type { ColumnMapping, OutcomeEncoding } from '../../../shared/analysis/log/column-mapping';
+import { splitCsvLine } from '../../../shared/analysis/log/csv-line';
+import { parseIntegerField } from '../../../shared/analysis/log/integer-field';
+import { HEAD_BYTES, readLogHead } from '../../../shared/analysis/log/log-head';
+import { ProblemList } from '../../../shared/analysis/log/log-problem';
+import { RecordChecker } from '../../../shared/analysis/log/record-checker';
+import { ROUND_FIELDS, type RoundField } from '../../../shared/analysis/log/round-fields';
+
+/** The first bytes of a log, decompressed when it is gzip. */
+export interface LogSample {
+  /** Up to `HEAD_BYTES` of the decoded log. */
+  readonly head: Uint8Array;
+  /** Whether `head` is the whole decoded log. */
+  readonly complete: boolean;
+  readonly compressed: boolean;
+}
+
+/** One previewed row: its fields as written and the round read from them, or the problems found. */
+export interface PreviewRow {
+  readonly line: number;
+  readonly fields: string[];
+  /** The decoded round (outcomes as 0/1), or null when the row breaks a rule. */
+  readonly round: Record<RoundField, number> | null;
+  readonly problems: string[];
+}
+
+/** The preview under a mapping: the rows, or why the header cannot be used. */
+export type LogPreview = { ok: true; columns: string[]; rows: PreviewRow[] } | { ok: false; message: string };
+
+/** Rows the preview shows. */
+export const PREVIEW_ROWS = 12;
+
+const GZIP_MAGIC = [0x1f, 0x8b];
+const BOM = [0xef, 0xbb, 0xbf];
+const LF = 10;
+
+/** Reads the start of a log file, through the browser's own gzip decoder when it begins with the gzip magic bytes. */
+export async function readLogSample(file: Blob): Promise<LogSample> {
+  const start = new Uint8Array(await file.slice(0, 2).arrayBuffer());
+  const compressed = GZIP_MAGIC.every((byte, i) => start[i] === byte);
+  if (!compressed) {
+    const head = new Uint8Array(await file.slice(0, HEAD_BYTES).arrayBuffer());
+    return { head, complete: file.size <= HEAD_BYTES, compressed };
+  }
+  const reader = file.stream().pipeThrough(new DecompressionStream('gzip')).getReader();
+  const head = new Uint8Array(HEAD_BYTES);
+  let length = 0;
+  let complete = false;
+  while (length < HEAD_BYTES) {
+    const { done, value } = await reader.read();
+    if (done) {
+      complete = true;
+      break;
+    }
+    const taken = value.subarray(0, HEAD_BYTES - length);
+    head.set(taken, length);
+    length += taken.length;
+  }
+  await reader.cancel().catch(() => undefined);
+  return { head: head.subarray(0, length), complete, compressed };
+}
+
+/** The header names of a sample (line 1, after a byte-order mark), or none when line 1 cannot be split. */
+export function headerNames(sample: LogSample): string[] {
+  const { head } = sample;
+  const start = BOM.every((byte, i) => head[i] === byte) ? BOM.length : 0;
+  const newline = head.indexOf(LF, start);
+  const line = new TextDecoder().decode(head.subarray(start, newline < 0 ? head.length : newline)).replace(/\r$/, '');
+  const split = splitCsvLine(line);
+  return 'error' in split ? [] : split.fields.map((name) => name.trim()).filter((name) => name !== '');
+}
+
+/** Header words that name each field, tried in order when no column has the field's own name. */
+const FIELD_HINTS: Record<RoundField, RegExp> = {
+  round: /round|index|^n$|^i$/i,
+  test: /test|mark/i,
+  x: /set|choice|basis/i,
+  y: /set|choice|basis/i,
+  a: /out|result|click|bit/i,
+  b: /out|result|click|bit/i,
+};
+
+/**
+ * A column mapping guessed from the header: a column with a field's own name (any case) first;
+ * otherwise a name with a telling word (settings and outcomes in header order, station A first).
+ * Outcomes are `±1` when the sample's outcome columns hold a −1 or +1.
+ */
+export function guessMapping(sample: LogSample): ColumnMapping {
+  const names = headerNames(sample);
+  const taken = new Set<string>();
+  const columns: Partial<Record<RoundField, string>> = {};
+  for (const field of ROUND_FIELDS) {
+    const own = names.find((name) => name.toLowerCase() === field);
+    if (own !== undefined) {
+      columns[field] = own;
+      taken.add(own);
+    }
+  }
+  for (const field of ['round', 'test', 'x', 'y', 'a', 'b'] as const) {
+    if (columns[field] !== undefined) continue;
+    const hinted = names.find((name) => !taken.has(name) && FIELD_HINTS[field].test(name));
+    if (hinted !== undefined) {
+      columns[field] = hinted;
+      taken.add(hinted);
+    }
+  }
+  return { columns, outcomes: outcomeEncoding(sample, names, [columns.a, columns.b]) };
+}
+
+function outcomeEncoding(sample: LogSample, names: string[], outcomeColumns: (string | undefined)[]): OutcomeEncoding {
+  const indices = outcomeColumns.flatMap((name) => (name === undefined ? [] : [names.indexOf(name)]));
+  const signed = dataLines(sample, PREVIEW_ROWS).some(({ text }) => {
+    const split = splitCsvLine(text);
+    return !('error' in split) && indices.some((index) => /^[+-]1$/.test(split.fields[index]?.trim() ?? ''));
+  });
+  return signed ? '±1' : '0/1';
+}
+
+/**
+ * The first rows of the sample read under `mapping` by the engine's own rules: the header resolved as
+ * the analysis resolves it, each row checked (field count, integers, ranges, increasing rounds).
+ */
+export function previewLog(sample: LogSample, mapping: ColumnMapping, needsTestColumn: boolean, rows = PREVIEW_ROWS): LogPreview {
+  const head = readLogHead(sample.head, sample.complete, mapping, needsTestColumn);
+  if (!head.ok) {
+    return { ok: false, message: head.problem.message };
+  }
+  const { layout } = head;
+  const problems = new ProblemList();
+  const checker = new RecordChecker(layout, problems);
+  const values = new Float64Array(ROUND_FIELDS.length);
+  const previewRows = dataLines(sample, rows, head.dataOffset).map(({ line, text }): PreviewRow => {
+    const before = problems.listed.length;
+    const split = splitCsvLine(text);
+    if ('error' in split) {
+      checker.malformed(line, text, `the row's quoting is broken: ${split.error}`);
+      return { line, fields: [text], round: null, problems: problems.listed.slice(before).map((problem) => problem.message) };
+    }
+    const fields = split.fields;
+    ROUND_FIELDS.forEach((_, field) => {
+      const column = layout.columnOfField[field];
+      values[field] = column < 0 ? NaN : parseIntegerField(fields[column] ?? '');
+    });
+    const valid = checker.accept(line, values, fields.length, () => fields);
+    const round = valid ? (Object.fromEntries(ROUND_FIELDS.map((name, field) => [name, checker.decoded[field]])) as Record<RoundField, number>) : null;
+    return { line, fields, round, problems: problems.listed.slice(before).map((problem) => problem.message) };
+  });
+  return { ok: true, columns: layout.columnNames.map((name) => name.trim()), rows: previewRows };
+}
+
+/** The complete data lines of a sample after the header (a last line cut off by the sample's end is left out). */
+function dataLines(sample: LogSample, limit: number, offset = sample.head.indexOf(LF) + 1): { line: number; text: string }[] {
+  const { head } = sample;
+  const lines: { line: number; text: string }[] = [];
+  const decoder = new TextDecoder();
+  let position = offset === 0 ? head.length : offset;
+  // The header is line 1.
+  for (let line = 2; lines.length < limit && position < head.length; line++) {
+    const newline = head.indexOf(LF, position);
+    if (newline < 0 && !sample.complete) break;
+    const end = newline < 0 ? head.length : newline;
+    const text = decoder.decode(head.subarray(position, end)).replace(/\r$/, '');
+    if (text.trim() !== '') lines.push({ line, text });
+    position = end + 1;
+  }
+  return lines;
+}
