@@ -36,10 +36,10 @@ const LF = 10;
 
 /** Reads the start of a log file, through the browser's own gzip decoder when it begins with the gzip magic bytes. */
 export async function readLogSample(file: Blob): Promise<LogSample> {
-  const start = new Uint8Array(await file.slice(0, 2).arrayBuffer());
+  const start = await bytesOf(file.slice(0, 2));
   const compressed = GZIP_MAGIC.every((byte, i) => start[i] === byte);
   if (!compressed) {
-    const head = new Uint8Array(await file.slice(0, HEAD_BYTES).arrayBuffer());
+    const head = await bytesOf(file.slice(0, HEAD_BYTES));
     return { head, complete: file.size <= HEAD_BYTES, compressed };
   }
   const reader = file.stream().pipeThrough(new DecompressionStream('gzip')).getReader();
@@ -58,6 +58,16 @@ export async function readLogSample(file: Blob): Promise<LogSample> {
   }
   await reader.cancel().catch(() => undefined);
   return { head: head.subarray(0, length), complete, compressed };
+}
+
+/** The bytes of a blob, through FileReader (which every browser and the test DOM have). */
+function bytesOf(blob: Blob): Promise<Uint8Array> {
+  return new Promise((resolve, reject) => {
+    const reader = new FileReader();
+    reader.onload = () => resolve(new Uint8Array(reader.result as ArrayBuffer));
+    reader.onerror = () => reject(reader.error);
+    reader.readAsArrayBuffer(blob);
+  });
 }
 
 /** The header names of a sample (line 1, after a byte-order mark), or none when line 1 cannot be split. */

@@ -1,0 +1,125 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ApplicationRef } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
+
+import type { ProfileDto } from '../../../shared/api';
+import { parseProfile } from '../../../shared/analysis/profile';
+import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
+
+const nightly: ProfileDto = {
+  id: 1,
+  name: 'Nightly standard',
+  description: 'Fen link nights',
+  latestVersionId: 11,
+  createdAt: '2026-11-01T08:00:00Z',
+  versions: [
+    {
+      id: 11,
+      profileId: 1,
+      version: 2,
+      parameters: (parseProfile({ chshTolerance: 0.04 }) as { profile: Record<string, unknown> }).profile,
+      note: '',
+      createdBy: 'Maren Holt',
+      createdAt: '2026-11-20T08:00:00Z',
+      usedByRuns: 3,
+    },
+  ],
+};
+
+describe('ProfileDialog', () => {
+  let http: HttpTestingController;
+  const close = jest.fn();
+
+  function open(data: ProfileDialogData): HTMLElement {
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        { provide: MAT_DIALOG_DATA, useValue: data },
+        { provide: MatDialogRef, useValue: { close } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+    const fixture = TestBed.createComponent(ProfileDialog);
+    fixture.detectChanges();
+    return fixture.nativeElement as HTMLElement;
+  }
+
+  async function type(host: HTMLElement, field: string, value: string): Promise<void> {
+    const input = host.querySelector<HTMLInputElement>(`[data-testid="profile-${field}"]`)!;
+    input.value = value;
+    input.dispatchEvent(new Event('input'));
+    input.dispatchEvent(new Event('blur'));
+    await TestBed.inject(ApplicationRef).whenStable();
+  }
+
+  async function submit(host: HTMLElement): Promise<void> {
+    host.querySelector<HTMLFormElement>('form')!.dispatchEvent(new Event('submit'));
+    await TestBed.inject(ApplicationRef).whenStable();
+  }
+
+  const errors = (host: HTMLElement) => Array.from(host.querySelectorAll('mat-error'), (error) => error.textContent?.trim());
+
+  afterEach(() => {
+    http.verify();
+    close.mockReset();
+  });
+
+  it('starts from the latest version and explains each field in its hint', () => {
+    const host = open({ profile: nightly });
+    expect(host.querySelector<HTMLInputElement>('[data-testid="profile-chshTolerance"]')!.value).toBe('0.04');
+    expect(host.querySelector<HTMLInputElement>('[data-testid="profile-epsilon"]')!.value).toBe('1e-9');
+    expect(host.textContent).toContain('Accept when the win fraction reaches ω_Q − η');
+  });
+
+  it('refuses values the engine refuses, with the engine’s own sentences, and sends nothing', async () => {
+    const host = open({ profile: nightly });
+    await type(host, 'chshTolerance', '0.3');
+    await type(host, 'epsilon', '1.5');
+    await type(host, 'minTestRounds', '12.5');
+    await type(host, 'significance', 'often');
+    await submit(host);
+
+    expect(errors(host)).toEqual([
+      'Must be at most 0.25 (ω_Q − 0.25 is below the local bound)',
+      'Epsilon must be below 1.',
+      'Must be a whole number.',
+      'Significance must be a number.',
+    ]);
+    http.expectNone('/api/profiles/1/versions');
+  });
+
+  it('saves a valid form as a new version with every parameter and closes with the profile', async () => {
+    const host = open({ profile: nightly });
+    await type(host, 'qberTolerance', '0.06');
+    await submit(host);
+
+    const request = http.expectOne('/api/profiles/1/versions');
+    expect(request.request.body).toEqual({ parameters: { ...nightly.versions[0].parameters, qberTolerance: 0.06 }, note: undefined });
+    const saved = { ...nightly, latestVersionId: 12 };
+    request.flush(saved, { status: 201, statusText: 'Created' });
+    expect(close).toHaveBeenCalledWith(saved);
+  });
+
+  it('shows the server’s sentence and the field it names when it refuses the profile', async () => {
+    const host = open({ profile: nightly });
+    await submit(host);
+    http
+      .expectOne('/api/profiles/1/versions')
+      .flush({ error: { code: 'validation', message: 'parameters.epsilon: must be below 1', field: 'parameters.epsilon' } }, { status: 400, statusText: 'Bad Request' });
+    await TestBed.inject(ApplicationRef).whenStable();
+    expect(host.querySelector('[role="alert"]')?.textContent).toContain('parameters.epsilon: must be below 1 (field parameters.epsilon)');
+    expect(close).not.toHaveBeenCalled();
+  });
+
+  it('needs a name for a new profile', async () => {
+    const host = open({ profile: null });
+    await submit(host);
+    expect(errors(host)).toEqual(['Enter a name for the profile.']);
+    http.expectNone('/api/profiles');
+  });
+});
