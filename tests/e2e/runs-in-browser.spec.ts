@@ -1,0 +1,180 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Server } from 'node:http';
+import type { Browser, Page } from 'playwright-core';
+import { loadConfig } from '../../server/config/config';
+import { buildAppIfStale } from '../../server/system/angular-build';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { launchChromium } from '../support/chromium';
+import { freePort } from '../support/free-port';
+import { createTestApp, type TestApp } from '../support/test-app';
+
+const FIXTURES = path.join(__dirname, '../../fixtures/logs');
+const SCREENSHOTS = path.join(__dirname, '../../.data/e2e-screenshots');
+
+/** A mail as the catcher's REST inbox lists it. */
+interface CaughtMail {
+  subject: string;
+  text: string;
+  to: { address: string }[];
+}
+
+/**
+ * The night's work in a real headless Chromium on the production build: the experimentalist uploads
+ * an accepted and an aborted log and watches them reach their verdicts; the shift lead follows the
+ * verdict mail's link and signs the abort off; the auditor reads the run without any way to change it.
+ */
+describe('runs in a real browser', () => {
+  let testApp: TestApp;
+  let server: Server;
+  let browser: Browser;
+  let baseUrl: string;
+  let abortedRunId: number;
+
+  beforeAll(async () => {
+    await buildAppIfStale(loadConfig().appDir);
+    // Mails link to the public address: serve the app there.
+    const port = await freePort();
+    baseUrl = `http://127.0.0.1:${port}`;
+    testApp = await createTestApp({ BELLKEEP_PUBLIC_URL: baseUrl });
+    await testApp.startWorker();
+    server = testApp.app.listen(port, '127.0.0.1');
+    await new Promise((resolve) => server.once('listening', resolve));
+    browser = await launchChromium();
+    fs.mkdirSync(SCREENSHOTS, { recursive: true });
+  }, 600_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await new Promise((resolve) => server?.close(resolve));
+    await testApp?.close();
+  });
+
+  async function signIn(email: string): Promise<Page> {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByTestId('user-menu').waitFor();
+    return page;
+  }
+
+  const screenshot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+
+  const navPages = (page: Page) =>
+    page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link')
+      .evaluateAll((links) => links.map((link) => link.getAttribute('data-testid')?.replace(/^nav-/, '')));
+
+  async function uploadLog(page: Page, file: string, setup: string): Promise<{ word: string; reasons: string[]; runId: number }> {
+    await page.getByTestId('setup-select').click();
+    await page.getByRole('option', { name: setup }).click();
+    // The setup's default profile is filled in.
+    await expect(page.getByTestId('profile-select').innerText()).resolves.toContain('Nightly standard');
+    await page.getByTestId('log-input').setInputFiles(path.join(FIXTURES, file));
+    await page.getByTestId('preview-status').waitFor();
+    expect(await page.getByTestId('preview-status').innerText()).toContain('The first 12 rows read cleanly under this mapping.');
+    expect(await page.getByTestId('preview').locator('tbody tr').count()).toBe(12);
+    await screenshot(page, `upload-preview-${path.basename(file, '.csv')}`);
+
+    await page.getByTestId('upload-button').click();
+    await page.getByTestId('upload-progress').waitFor();
+    await page.getByTestId('open-run').waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId('upload-progress').getAttribute('aria-valuenow')).toBe('100');
+    await screenshot(page, `upload-verdict-${path.basename(file, '.csv')}`);
+    const word = await page.getByTestId('verdict-word').innerText();
+    const reasons = await page.getByTestId('verdict-reasons').locator('li').allInnerTexts();
+    const runId = Number((await page.getByTestId('open-run').getAttribute('href'))!.split('/').pop());
+    return { word, reasons, runId };
+  }
+
+  it('the experimentalist uploads an accepted and an aborted log and sees each reach its verdict with the reasons', async () => {
+    const page = await signIn('dev.okafor@kestrelfen.example');
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'upload', 'setups', 'profiles']);
+    await page.getByTestId('nav-upload').click();
+    await page.waitForURL(`${baseUrl}/upload`);
+
+    const accepted = await uploadLog(page, 'accepted-run.csv', 'Fen link');
+    expect(accepted.word).toBe('ACCEPT');
+    expect(accepted.reasons).toEqual([]);
+
+    await page.getByRole('button', { name: 'Upload another log' }).click();
+    const aborted = await uploadLog(page, 'aborted-low-chsh.csv', 'Fen link');
+    expect(aborted.word).toBe('ABORT');
+    expect(aborted.reasons).toEqual([expect.stringMatching(/^The CHSH win fraction 0\.7\d+ is below the threshold 0\.823553/)]);
+    abortedRunId = aborted.runId;
+
+    await page.getByTestId('open-run').click();
+    await page.waitForURL(`${baseUrl}/runs/${abortedRunId}`);
+    await page.getByTestId('criteria').waitFor();
+    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(/CHSH win fraction\s+0\.7\d+\s+≥ 0\.\d+\s+≥ 0\.8236\s+cancel\s*Fail/);
+    expect(await page.getByTestId('figure-finite-key').innerText()).toContain('Estimate against collective (i.i.d.) attacks.');
+    expect(await page.locator('canvas').count()).toBeGreaterThanOrEqual(4);
+    await screenshot(page, 'run-aborted-experimentalist');
+
+    await page.getByTestId('nav-runs').click();
+    await page.getByTestId(`run-row-${abortedRunId}`).waitFor();
+    expect(await page.getByTestId(`run-row-${abortedRunId}`).innerText()).toContain('ABORT');
+    await screenshot(page, 'runs-list');
+    await page.close();
+  }, 120_000);
+
+  it('the shift lead finds the verdict mail, follows its link and signs the run off', async () => {
+    let mail: CaughtMail | undefined;
+    for (let attempt = 0; attempt < 60 && mail === undefined; attempt++) {
+      const inbox = (await (await fetch(`${testApp.mailCatcher.inboxUrl}/api/email`)).json()) as CaughtMail[];
+      mail = inbox.find((candidate) => candidate.text.includes(`/runs/${abortedRunId}`) && candidate.to.some((to) => to.address === 'lucia.brandt@kestrelfen.example'));
+      if (mail === undefined) await new Promise((resolve) => setTimeout(resolve, 500));
+    }
+    expect(mail?.subject).toContain('ABORT');
+    const link = mail!.text.match(/https?:\/\/\S+\/runs\/\d+/)![0];
+    expect(link).toBe(`${baseUrl}/runs/${abortedRunId}`);
+
+    const page = await signIn('lucia.brandt@kestrelfen.example');
+    await page.goto(link);
+    await page.getByTestId('sign-off-form').waitFor();
+    await screenshot(page, 'run-sign-off-form');
+    await page.getByRole('button', { name: 'Sign off' }).click();
+    expect(await page.getByText('Say what you decided before signing off.').count()).toBe(1);
+    await page.getByLabel('Decision and comment').fill('Low CHSH all night: the Mill Lane detector is being realigned; no key kept.');
+    await page.getByRole('button', { name: 'Sign off' }).click();
+    await page.getByTestId('recorded-sign-off').waitFor();
+    expect(await page.getByTestId('recorded-sign-off').innerText()).toContain('Signed off by Lucia Brandt');
+    await page.getByTestId('trail').getByText('Signed off', { exact: true }).waitFor();
+    await screenshot(page, 'run-signed-off');
+    await page.close();
+  }, 60_000);
+
+  it('the auditor reads the run, its sign-off and trail, with no upload and no sign-off form', async () => {
+    const page = await signIn('sami.virtanen@kestrelfen.example');
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'setups', 'profiles']);
+    // Tablet width from here on.
+    await page.setViewportSize({ width: 800, height: 900 });
+    await page.goto(`${baseUrl}/runs/${abortedRunId}`);
+    await page.getByTestId('recorded-sign-off').waitFor();
+    expect(await page.getByTestId('verdict-word').innerText()).toBe('ABORT');
+    expect(await page.getByTestId('sign-off-form').count()).toBe(0);
+    expect(await page.getByTestId('provenance').innerText()).toMatch(/File SHA-256\s+[0-9a-f]{64}/);
+    expect(await page.getByTestId('trail').locator('li').allInnerTexts()).toEqual([
+      expect.stringContaining('Uploaded the log'),
+      expect.stringContaining('Analysis started'),
+      expect.stringContaining('Analysis finished'),
+      expect.stringContaining('Verdict mail sent'),
+      expect.stringContaining('Signed off'),
+    ]);
+    await screenshot(page, 'run-auditor-tablet');
+
+    await page.goto(`${baseUrl}/upload`);
+    await page.getByRole('heading', { name: 'Not allowed' }).waitFor();
+    await page.goto(`${baseUrl}/setups`);
+    await page.getByTestId('setup-1').locator('canvas').waitFor();
+    await screenshot(page, 'setups-auditor-tablet');
+    await page.goto(`${baseUrl}/profiles`);
+    await page.getByTestId('profile-1').waitFor();
+    expect(await page.getByRole('button', { name: 'New version' }).count()).toBe(0);
+    await screenshot(page, 'profiles-auditor-tablet');
+    await page.close();
+  }, 60_000);
+});
