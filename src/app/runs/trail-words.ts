@@ -14,12 +14,12 @@ export function trailWords(action: string): string {
   return ACTION_WORDS[action] ?? action;
 }
 
-/** The one detail of a trail event worth a line: the verdict, the recipients, the comment or the error. */
+/** The one detail of a trail event worth a line: the comment, the verdict, the recipients or the error. */
 export function trailDetail(details: Record<string, unknown>): string {
   const { verdict, recipients, comment, error, reason, originalName } = details;
+  if (typeof comment === 'string') return `“${comment}”`;
   if (typeof verdict === 'string') return `Verdict ${verdict}`;
   if (Array.isArray(recipients)) return `To ${recipients.join(', ')}`;
-  if (typeof comment === 'string') return `“${comment}”`;
   if (typeof error === 'string') return error;
   if (typeof reason === 'string') return reason;
   return typeof originalName === 'string' ? originalName : '';
