@@ -10,7 +10,7 @@ export const apiNotFound: RequestHandler = (request, _response, next) => {
 /** The one error handler: the last middleware of the app. */
 export const errorHandler: ErrorRequestHandler = (error, request, response, _next) => {
   // The client went away mid-request (an upload broken off): nobody is left to answer.
-  if (request.destroyed || response.headersSent) return;
+  if (request.socket.destroyed || response.headersSent) return;
   const httpError = toHttpError(error);
   if (httpError.status >= 500) console.error(error);
   const body: ApiErrorBody = {
