@@ -9,9 +9,9 @@ export const DEMO_PROFILES: ReadonlyArray<{ name: string; description: string; p
   },
   {
     name: 'Certified key',
-    description: 'A tenth of the rounds tested, each by chance; confidence-corrected values and a positive finite key required.',
+    description: 'A quarter of the rounds tested, each by chance; confidence-corrected values and a positive finite key required.',
     parameters: {
-      testSelection: { mode: 'bernoulli', probability: 0.1 },
+      testSelection: { mode: 'bernoulli', probability: 0.25 },
       chshTolerance: 0.04,
       qberTolerance: 0.06,
       epsilon: 1e-10,

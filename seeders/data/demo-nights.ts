@@ -5,7 +5,7 @@ import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
 export const DEMO_NIGHTS = 14;
 
 /** Rounds per demo night on each setup: enough for a positive finite key on most nights. */
-const ROUNDS_PER_NIGHT: Readonly<Record<string, number>> = { 'Fen link': 200_000, 'Mill Lane bench': 300_000 };
+const ROUNDS_PER_NIGHT: Readonly<Record<string, number>> = { 'Fen link': 200_000, 'Mill Lane bench': 1_500_000 };
 
 /**
  * The invented device model of one demo night: a steady pair whose visibility and key error
