@@ -43,7 +43,7 @@ export function createApp({ config, database, services, jwtSecret, welcomeMail }
   app.use('/api/users', usersRoutes(services.users, guards, welcomeMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));
   app.use('/api/setups', setupsRoutes(services.setups, guards));
-  app.use('/api/runs', runsRoutes({ config, runs: services.runs, archive: services.archive, models: database.models, audit: services.audit, guards }));
+  app.use('/api/runs', runsRoutes({ config, runs: services.runs, archive: services.archive, models: database.models, guards }));
   app.use('/api', apiNotFound);
 
   serveBuiltApp(app, config.appDir);

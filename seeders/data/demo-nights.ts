@@ -1,8 +1,8 @@
 import type { DeviceModel } from '../../fixtures/device-model';
 import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
 
-/** Nights of demo history per setup, ending the night before the demo was loaded. */
-export const DEMO_NIGHTS = 14;
+/** Nights of demo history per setup (three weeks), ending the night before the demo was loaded. */
+export const DEMO_NIGHTS = 21;
 
 /** Rounds per demo night on each setup: enough for a positive finite key on most nights. */
 const ROUNDS_PER_NIGHT: Readonly<Record<string, number>> = { 'Fen link': 200_000, 'Mill Lane bench': 1_500_000 };

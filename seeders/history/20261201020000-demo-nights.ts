@@ -12,7 +12,7 @@ import { DEMO_NIGHTS, demoNight } from '../data/demo-nights';
 const STATE_OF_VERDICT = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' } as const;
 
 /**
- * Two weeks of invented nightly runs on both demo setups, analysed by the engine itself and
+ * Three weeks of invented nightly runs on both demo setups, analysed by the engine itself and
  * archived like uploads, so every screen has data: uploaded by Dev Okafor, signed off by the
  * setup's first shift lead except for the last two nights.
  */

@@ -13,8 +13,13 @@ export function validateBody(schema: z.ZodType): RequestHandler {
       request.body = parsed.data;
       return next();
     }
-    const issue = parsed.error.issues[0];
-    const field = issue.path.join('.');
-    next(HttpError.badRequest(field ? `${field}: ${issue.message}` : issue.message, field || undefined));
+    next(validationError(parsed.error));
   };
+}
+
+/** A 400 naming the first bad field of a failed parse and what is wrong with it. */
+export function validationError(error: z.ZodError): HttpError {
+  const issue = error.issues[0];
+  const field = issue.path.join('.');
+  return HttpError.badRequest(field ? `${field}: ${issue.message}` : issue.message, field || undefined);
 }

@@ -2,13 +2,11 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
 import { RUN_SORT_KEYS, RUN_STATES, VERDICTS } from '../../shared/api';
-import type { AuditTrail } from '../audit/audit-trail';
 import type { Guards } from '../auth/passport';
 import type { Config } from '../config/config';
 import type { Models } from '../database/models';
-import { HttpError } from '../http/http-error';
 import { idParameter } from '../http/id-parameter';
-import { validateBody } from '../http/validate-body';
+import { validateBody, validationError } from '../http/validate-body';
 import type { LocalArchive } from '../archive/local-archive';
 import { toAuditEventDtos } from '../audit/audit-event-dto';
 import type { RunsService } from './runs.service';
@@ -64,14 +62,8 @@ const listQuerySchema = z.strictObject({
 
 const signOffSchema = z.strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) });
 
-function firstIssue(error: z.ZodError): HttpError {
-  const issue = error.issues[0];
-  const field = issue.path.join('.');
-  return HttpError.badRequest(field ? `${field}: ${issue.message}` : issue.message, field || undefined);
-}
-
 /** `/api/runs`: experimentalists upload; everyone signed in reads; shift leads sign off. */
-export function runsRoutes(deps: { config: Config; runs: RunsService; archive: LocalArchive; models: Models; audit: AuditTrail; guards: Guards }): Router {
+export function runsRoutes(deps: { config: Config; runs: RunsService; archive: LocalArchive; models: Models; guards: Guards }): Router {
   const { config, runs, archive, models, guards } = deps;
   const router = Router();
 
@@ -79,7 +71,7 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; archive: L
     const fields = uploadFieldsSchema.safeParse(request.body ?? {});
     if (!fields.success) {
       await discardUpload(request);
-      throw firstIssue(fields.error);
+      throw validationError(fields.error);
     }
     const file = uploadedLog(request);
     try {
@@ -95,7 +87,7 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; archive: L
 
   router.get('/', guards.requireSignIn, async (request, response) => {
     const query = listQuerySchema.safeParse(request.query);
-    if (!query.success) throw firstIssue(query.error);
+    if (!query.success) throw validationError(query.error);
     response.json(await runs.list(query.data));
   });
 
