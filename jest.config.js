@@ -48,7 +48,7 @@ module.exports = {
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
-      globalSetup: '<rootDir>/tests/support/database-setup.ts',
+      globalSetup: '<rootDir>/tests/support/browser-setup.ts',
       globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
     },
   ],

@@ -1,8 +1,6 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import type { Browser, Page } from 'playwright-core';
-import { loadConfig } from '../../server/config/config';
-import { buildAppIfStale } from '../../server/system/angular-build';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { launchChromium } from '../support/chromium';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -19,8 +17,6 @@ describe('sign-in and roles in a real browser', () => {
   let baseUrl: string;
 
   beforeAll(async () => {
-    // The first run on a machine may build the app and install Chromium: minutes, not seconds.
-    await buildAppIfStale(loadConfig().appDir);
     testApp = await createTestApp();
     server = testApp.app.listen(0, '127.0.0.1');
     await new Promise((resolve) => server.once('listening', resolve));

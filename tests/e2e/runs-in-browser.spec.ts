@@ -2,8 +2,6 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Server } from 'node:http';
 import type { Browser, Page } from 'playwright-core';
-import { loadConfig } from '../../server/config/config';
-import { buildAppIfStale } from '../../server/system/angular-build';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { launchChromium } from '../support/chromium';
 import { freePort } from '../support/free-port';
@@ -32,7 +30,6 @@ describe('runs in a real browser', () => {
   let abortedRunId: number;
 
   beforeAll(async () => {
-    await buildAppIfStale(loadConfig().appDir);
     // Mails link to the public address: serve the app there.
     const port = await freePort();
     baseUrl = `http://127.0.0.1:${port}`;
@@ -72,10 +69,9 @@ describe('runs in a real browser', () => {
     await page.getByTestId('setup-select').click();
     await page.getByRole('option', { name: setup }).click();
     // The setup's default profile is filled in.
-    await expect(page.getByTestId('profile-select').innerText()).resolves.toContain('Nightly standard');
+    await page.getByTestId('profile-select').filter({ hasText: 'Nightly standard' }).waitFor();
     await page.getByTestId('log-input').setInputFiles(path.join(FIXTURES, file));
-    await page.getByTestId('preview-status').waitFor();
-    expect(await page.getByTestId('preview-status').innerText()).toContain('The first 12 rows read cleanly under this mapping.');
+    await page.getByTestId('preview-status').filter({ hasText: 'The first 12 rows read cleanly under this mapping.' }).waitFor();
     expect(await page.getByTestId('preview').locator('tbody tr').count()).toBe(12);
     await screenshot(page, `upload-preview-${path.basename(file, '.csv')}`);
 
@@ -103,15 +99,15 @@ describe('runs in a real browser', () => {
     await page.getByRole('button', { name: 'Upload another log' }).click();
     const aborted = await uploadLog(page, 'aborted-low-chsh.csv', 'Fen link');
     expect(aborted.word).toBe('ABORT');
-    expect(aborted.reasons).toEqual([expect.stringMatching(/^The CHSH win fraction 0\.7\d+ is below the threshold 0\.823553/)]);
+    expect(aborted.reasons).toEqual([expect.stringMatching(/^The CHSH win fraction 0\.[78]\d+ is below the threshold 0\.823553/)]);
     abortedRunId = aborted.runId;
 
     await page.getByTestId('open-run').click();
     await page.waitForURL(`${baseUrl}/runs/${abortedRunId}`);
     await page.getByTestId('criteria').waitFor();
-    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(/CHSH win fraction\s+0\.7\d+\s+≥ 0\.\d+\s+≥ 0\.8236\s+cancel\s*Fail/);
+    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(/CHSH win fraction\s+0\.[78]\d+\s+≥ 0\.\d+\s+≥ 0\.8236\s+cancel\s*Fail/);
     expect(await page.getByTestId('figure-finite-key').innerText()).toContain('Estimate against collective (i.i.d.) attacks.');
-    expect(await page.locator('canvas').count()).toBeGreaterThanOrEqual(4);
+    await page.locator('canvas').nth(3).waitFor();
     await screenshot(page, 'run-aborted-experimentalist');
 
     await page.getByTestId('nav-runs').click();

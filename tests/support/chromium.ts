@@ -10,8 +10,13 @@ const CHROMIUM_FLAGS = [
   '--disable-background-networking', '--disable-component-update', '--disable-sync',
 ];
 
+/** Installs Debian's Chromium when it is missing (the browser tests' global set-up calls this). */
+export function ensureChromium(): void {
+  if (!fs.existsSync(CHROMIUM)) installDebianPackage('chromium', 'the end-to-end test');
+}
+
 /** Debian's Chromium driven by playwright-core (which downloads no browser of its own). */
 export async function launchChromium(): Promise<Browser> {
-  if (!fs.existsSync(CHROMIUM)) installDebianPackage('chromium', 'the end-to-end test');
+  ensureChromium();
   return chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_FLAGS });
 }
