@@ -3,13 +3,12 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import { analyseLog } from '../../shared/analysis/node';
+import { STATE_OF_VERDICT } from '../../shared/api';
 import { createLocalArchive } from '../../server/archive/local-archive';
 import type { SeederContext } from '../../server/database/migrate';
 import { writeModelLog } from '../../fixtures/model-log-file';
 import { DEMO_SETUPS } from '../data/demo-lab';
 import { DEMO_NIGHTS, demoNight } from '../data/demo-nights';
-
-const STATE_OF_VERDICT = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' } as const;
 
 /**
  * Three weeks of invented nightly runs on both demo setups, analysed by the engine itself and

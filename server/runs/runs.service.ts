@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import type { RunDto, RunPageDto, RunSortKey, RunState, SignOffDto, Verdict } from '../../shared/api';
+import { VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SignOffDto, type Verdict } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { LocalArchive } from '../archive/local-archive';
 import type { Models } from '../database/models';
@@ -193,7 +193,7 @@ export function createRunsService(deps: {
         if (!(await setups.isShiftLeadOf(run.setupId, actor.id))) {
           throw HttpError.forbidden('Only a shift lead assigned to this run’s setup can sign it off.');
         }
-        if (!['accepted', 'aborted', 'invalid'].includes(run.state)) {
+        if (!VERDICT_STATES.includes(run.state)) {
           throw HttpError.conflict(`Run ${id} is ${run.state}; a run is signed off once its verdict is in.`);
         }
         if (await models.SignOff.findByPk(id, { transaction })) throw HttpError.conflict(`Run ${id} is already signed off.`);

@@ -2,7 +2,7 @@ import os from 'node:os';
 import type { Sequelize } from 'sequelize';
 import { analyseLog, AnalysisCancelledError } from '../../shared/analysis/node';
 import type { AnalysisProgress } from '../../shared/analysis/node';
-import type { RunState } from '../../shared/api';
+import { FINISHED_STATES, STATE_OF_VERDICT } from '../../shared/api';
 import type { LocalArchive } from '../archive/local-archive';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
@@ -10,8 +10,6 @@ import type { AnalysisQueue } from '../queue/analysis-queue';
 
 /** Progress is written to the run when it has moved by this much (a fraction of the whole). */
 const PROGRESS_STEP = 0.03;
-
-const STATE_OF_VERDICT = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' } as const satisfies Record<string, RunState>;
 
 export interface AnalyseRunDeps {
   sequelize: Sequelize;
@@ -30,7 +28,7 @@ export interface AnalyseRunDeps {
 export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: AbortSignal): Promise<void> {
   const { sequelize, models, archive, queue, audit } = deps;
   const run = await models.Run.findByPk(runId);
-  if (!run || ['accepted', 'aborted', 'invalid', 'failed'].includes(run.state)) return;
+  if (!run || FINISHED_STATES.includes(run.state)) return;
 
   const profileVersion = (await models.ProfileVersion.findByPk(run.profileVersionId))!;
   const worker = `${os.hostname()}:${process.pid}`;

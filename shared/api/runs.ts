@@ -8,6 +8,12 @@ export const FINISHED_STATES: readonly RunState[] = ['accepted', 'aborted', 'inv
 export const VERDICTS = ['ACCEPT', 'ABORT', 'INVALID'] as const;
 export type Verdict = (typeof VERDICTS)[number];
 
+/** The state a run ends in for each verdict. */
+export const STATE_OF_VERDICT = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' } as const satisfies Record<Verdict, RunState>;
+
+/** States of a run whose verdict is in (and which a shift lead may sign off). */
+export const VERDICT_STATES: readonly RunState[] = Object.values(STATE_OF_VERDICT);
+
 /** A shift lead's sign-off of a finished run. */
 export interface SignOffDto {
   userId: number;
