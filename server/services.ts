@@ -2,6 +2,8 @@ import { createLocalArchive, type LocalArchive } from './archive/local-archive';
 import { createAuditTrail, type AuditTrail } from './audit/audit-trail';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
+import { resolveSigningKey } from './integrity/signing-key';
+import { createSigningKeysService, type SigningKeysService } from './integrity/signing-keys.service';
 import { createProfilesService, type ProfilesService } from './profiles/profiles.service';
 import type { AnalysisQueue } from './queue/analysis-queue';
 import { createRunsService, type RunsService } from './runs/runs.service';
@@ -15,6 +17,7 @@ export interface Services {
   profiles: ProfilesService;
   setups: SetupsService;
   runs: RunsService;
+  signingKeys: SigningKeysService;
 }
 
 /** Every service of the app over one database and queue: the API and the worker share them. */
@@ -26,5 +29,6 @@ export function createServices(config: Config, database: Database, queue: Analys
   const profiles = createProfilesService(sequelize, models, audit);
   const setups = createSetupsService(sequelize, models, audit);
   const runs = createRunsService({ sequelize, models, archive, queue, profiles, setups, audit });
-  return { audit, archive, users, profiles, setups, runs };
+  const signingKeys = createSigningKeysService(sequelize, models, audit, resolveSigningKey(config.signingKey, config.dataDir));
+  return { audit, archive, users, profiles, setups, runs, signingKeys };
 }

@@ -6,6 +6,7 @@ import { analyseLog } from '../../shared/analysis/node';
 import { STATE_OF_VERDICT } from '../../shared/api';
 import { createLocalArchive } from '../../server/archive/local-archive';
 import type { SeederContext } from '../../server/database/migrate';
+import { signStatement } from '../../server/integrity/signed-statement';
 import { writeModelLog } from '../../fixtures/model-log-file';
 import { DEMO_SETUPS } from '../data/demo-lab';
 import { DEMO_NIGHTS, demoNight } from '../data/demo-nights';
@@ -15,7 +16,8 @@ import { DEMO_NIGHTS, demoNight } from '../data/demo-nights';
  * archived like uploads, so every screen has data: uploaded by Dev Okafor, signed off by the
  * setup's first shift lead except for the last two nights.
  */
-export async function up({ queryInterface, transaction, dataDir }: SeederContext): Promise<void> {
+export async function up({ queryInterface, transaction, dataDir, signingKey }: SeederContext): Promise<void> {
+  if (!signingKey) throw new Error('The demo history is signed like any result: give the seeder the signing key.');
   const sequelize = queryInterface.sequelize;
   const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) =>
     sequelize.query<T>(sql, { transaction, replacements, type: QueryTypes.SELECT });
@@ -43,7 +45,7 @@ export async function up({ queryInterface, transaction, dataDir }: SeederContext
         transaction,
         replacements: { sha: result.input.sha256, bytes: result.input.bytes },
       });
-      const finishedAt = `${acquiredOn}T06:${String(10 + night).padStart(2, '0')}:00Z`;
+      const finishedAt = `${acquiredOn}T06:${String(10 + night).padStart(2, '0')}:00.000Z`;
       const [run] = await select<{ id: number }>(
         `INSERT INTO runs (setup_id, profile_version_id, file_sha256, original_name, uploaded_by, acquired_on, notes, seed,
                            state, progress, attempts, verdict, result, created_at, started_at, finished_at)
@@ -56,6 +58,12 @@ export async function up({ queryInterface, transaction, dataDir }: SeederContext
           verdict: result.verdict, result: JSON.stringify(result), finishedAt,
         },
       );
+      // Signed as the worker signs (the run id is in the statement, so after the insert).
+      const { keyId, signature } = signStatement({ runId: run.id, fileSha256: result.input.sha256, fingerprint: result.fingerprint, signedAt: finishedAt }, signingKey);
+      await sequelize.query('UPDATE runs SET signing_key_id = :keyId, signed_at = :finishedAt, signature = :signature WHERE id = :id', {
+        transaction,
+        replacements: { keyId, finishedAt, signature, id: run.id },
+      });
       await sequelize.query(
         `INSERT INTO audit_events (actor_id, action, target_type, target_id, details, created_at) VALUES
            (:uploader, 'run.uploaded', 'run', :id, :uploaded, :finishedAt),

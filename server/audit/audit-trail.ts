@@ -1,12 +1,13 @@
 import type { ModelStatic, Transaction } from 'sequelize';
+import type { AuditAction, AuditTargetType } from '../../shared/api';
 import type { AuditEventRecord } from './audit-event.model';
 
 export interface AuditEntry {
   /** Who did it; null for the system (the analysis worker, the mailer). */
   actorId: number | null;
-  /** What happened, as `noun.verb`: `run.uploaded`, `user.created`, `profile.version-created`... */
-  action: string;
-  targetType: 'run' | 'user' | 'profile' | 'setup';
+  /** What happened, as `noun.verb`. */
+  action: AuditAction;
+  targetType: AuditTargetType;
   targetId: number | string;
   details?: Record<string, unknown>;
 }

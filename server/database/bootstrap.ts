@@ -1,5 +1,7 @@
 import type { Config } from '../config/config';
 import { createAuditTrail } from '../audit/audit-trail';
+import { resolveSigningKey } from '../integrity/signing-key';
+import { createSigningKeysService } from '../integrity/signing-keys.service';
 import { createUsersService } from '../users/users.service';
 import { migrate, seedDemo, seedDemoHistory } from './migrate';
 import type { Database } from './sequelize';
@@ -11,13 +13,16 @@ export interface BootstrapReport {
 }
 
 /**
- * Brings a database up to date on start: migrations, the demo lab when asked for, and a first
+ * Brings a database up to date on start: migrations, this process's signing key, the demo lab when asked for, and a first
  * admin when there is none (from BELLKEEP_ADMIN_*, or else the demo lab's admin); with
  * `history`, also the demo lab's analysed nightly runs.
  */
 export async function bootstrapDatabase(database: Database, config: Config, options: { history: boolean } = { history: false }): Promise<BootstrapReport> {
   const migrations = await migrate(database.sequelize);
-  const users = createUsersService(database.models.User, config.bcryptRounds, createAuditTrail(database.models.AuditEvent));
+  const audit = createAuditTrail(database.models.AuditEvent);
+  const signingKeys = createSigningKeysService(database.sequelize, database.models, audit, resolveSigningKey(config.signingKey, config.dataDir));
+  await signingKeys.register();
+  const users = createUsersService(database.models.User, config.bcryptRounds, audit);
   let createdAdmin: string | undefined;
   if ((await users.countActiveAdmins()) === 0 && config.bootstrapAdmin) {
     const admin = await users.create({ ...config.bootstrapAdmin, roles: ['admin'] }, null);
@@ -25,6 +30,6 @@ export async function bootstrapDatabase(database: Database, config: Config, opti
   }
   const needsDemoAdmin = (await users.countActiveAdmins()) === 0;
   const seeders = config.demo || needsDemoAdmin ? await seedDemo(database.sequelize) : [];
-  if (config.demo && options.history) seeders.push(...(await seedDemoHistory(database.sequelize, config.dataDir)));
+  if (config.demo && options.history) seeders.push(...(await seedDemoHistory(database.sequelize, { dataDir: config.dataDir, signingKey: signingKeys.current })));
   return { migrations, seeders, createdAdmin };
 }

@@ -2,6 +2,7 @@ import path from 'node:path';
 import type { QueryInterface, Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import { PROJECT_ROOT } from '../config/config';
+import type { SigningKey } from '../integrity/signing-key';
 
 /** What each migration and seeder receives: pass `transaction` to every query it makes. */
 export interface MigrationContext {
@@ -9,10 +10,13 @@ export interface MigrationContext {
   transaction: Transaction;
 }
 
-/** What the demo history seeders receive besides: the data folder, whose archive they fill. */
+/** What the demo history seeders receive besides: the data folder, whose archive they fill, and the key results are signed with. */
 export interface SeederContext extends MigrationContext {
   dataDir: string;
+  signingKey?: SigningKey;
 }
+
+type SeederExtras = Pick<SeederContext, 'dataDir' | 'signingKey'>;
 
 interface MigrationModule {
   up(context: SeederContext): Promise<void>;
@@ -34,14 +38,15 @@ export async function seedDemo(sequelize: Sequelize): Promise<string[]> {
 }
 
 /**
- * The demo lab's history of analysed nightly runs (seeders/history/), archived under `dataDir`;
+ * The demo lab's history of analysed nightly runs (seeders/history/), archived under `dataDir` and
+ * signed with `signingKey`;
  * `npm start` loads it, tests leave it out (it takes a few seconds).
  */
-export async function seedDemoHistory(sequelize: Sequelize, dataDir: string): Promise<string[]> {
-  return applyFolder(sequelize, 'seeders/history', 'SequelizeDataHistory', dataDir);
+export async function seedDemoHistory(sequelize: Sequelize, extras: Required<SeederExtras>): Promise<string[]> {
+  return applyFolder(sequelize, 'seeders/history', 'SequelizeDataHistory', extras);
 }
 
-async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string, dataDir = ''): Promise<string[]> {
+async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string, extras: SeederExtras = { dataDir: '' }): Promise<string[]> {
   const umzug = new Umzug({
     migrations: {
       glob: [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],
@@ -49,7 +54,7 @@ async function applyFolder(sequelize: Sequelize, folder: string, storageTable: s
         // eslint-disable-next-line @typescript-eslint/no-require-imports
         const migration = require(file!) as MigrationModule;
         const inTransaction = (step: (context: SeederContext) => Promise<void>) => () =>
-          sequelize.transaction((transaction) => step({ queryInterface: sequelize.getQueryInterface(), transaction, dataDir }));
+          sequelize.transaction((transaction) => step({ queryInterface: sequelize.getQueryInterface(), transaction, ...extras }));
         return {
           name,
           up: inTransaction((context) => migration.up(context)),

@@ -1,11 +1,12 @@
 import type { ModelStatic, Sequelize } from 'sequelize';
 import { defineAuditEventModel, type AuditEventRecord } from '../audit/audit-event.model';
+import { defineIntegrityModels, type IntegrityModels } from '../integrity/integrity.model';
 import { defineProfileModels, type ProfileModels } from '../profiles/profile.model';
 import { defineRunModels, type RunModels } from '../runs/run.model';
 import { defineSetupModels, type SetupModels } from '../setups/setup.model';
 import { defineUserModel, type UserModelStatic } from '../users/user.model';
 
-export interface Models extends ProfileModels, SetupModels, RunModels {
+export interface Models extends ProfileModels, SetupModels, RunModels, IntegrityModels {
   User: UserModelStatic;
   AuditEvent: ModelStatic<AuditEventRecord>;
 }
@@ -18,5 +19,6 @@ export function defineModels(sequelize: Sequelize): Models {
     ...defineProfileModels(sequelize),
     ...defineSetupModels(sequelize),
     ...defineRunModels(sequelize),
+    ...defineIntegrityModels(sequelize),
   };
 }

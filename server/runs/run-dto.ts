@@ -1,5 +1,5 @@
 import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
-import type { MailDeliveryDto, RunDto, RunSummaryDto, SignOffDto } from '../../shared/api';
+import type { MailDeliveryDto, ResultSignatureDto, RunDto, RunSummaryDto, SignOffDto } from '../../shared/api';
 
 /** One row of the runs query in runs.service.ts: the run joined with the names it shows. */
 export interface RunRow {
@@ -23,6 +23,8 @@ export interface RunRow {
   finished_at: Date | null;
   duplicate_of: number | null;
   signed_off: boolean;
+  file_sha256: string;
+  fingerprint: string | null;
 }
 
 export function toRunSummary(row: RunRow): RunSummaryDto {
@@ -48,6 +50,8 @@ export function toRunSummary(row: RunRow): RunSummaryDto {
     finishedAt: row.finished_at?.toISOString() ?? null,
     duplicateOf: row.duplicate_of,
     signedOff: row.signed_off,
+    fileSha256: row.file_sha256,
+    fingerprint: row.fingerprint,
   };
 }
 
@@ -61,6 +65,7 @@ export interface RunDetails {
   analysedBy: string | null;
   startedAt: Date | null;
   result: Record<string, unknown> | null;
+  signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
   deliveries: MailDeliveryDto[];
 }

@@ -21,6 +21,10 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
   declare verdict: CreationOptional<Verdict | null>;
   declare result: CreationOptional<Record<string, unknown> | null>;
   declare error: CreationOptional<string | null>;
+  /** The Ed25519 signature over the stored result (see server/integrity), set with the result. */
+  declare signingKeyId: CreationOptional<string | null>;
+  declare signedAt: CreationOptional<Date | null>;
+  declare signature: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
@@ -79,6 +83,9 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
       verdict: { type: DataTypes.STRING(8) },
       result: { type: DataTypes.JSONB },
       error: { type: DataTypes.TEXT },
+      signingKeyId: { type: DataTypes.CHAR(16), field: 'signing_key_id' },
+      signedAt: { type: DataTypes.DATE, field: 'signed_at' },
+      signature: { type: DataTypes.TEXT },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       startedAt: { type: DataTypes.DATE, field: 'started_at' },
       finishedAt: { type: DataTypes.DATE, field: 'finished_at' },

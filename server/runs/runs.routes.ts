@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
-import { RUN_SORT_KEYS, RUN_STATES, VERDICTS } from '../../shared/api';
+import { RUN_SEARCH_MIN_PREFIX, RUN_SORT_KEYS, RUN_STATES, VERDICTS } from '../../shared/api';
 import type { Guards } from '../auth/passport';
 import type { Config } from '../config/config';
 import type { Models } from '../database/models';
@@ -14,6 +14,11 @@ import { discardUpload, logUpload, uploadedLog } from './upload-middleware';
 
 const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
 const positiveId = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
+
+const hexPrefix = z
+  .string()
+  .regex(new RegExp(`^[0-9a-fA-F]{${RUN_SEARCH_MIN_PREFIX},64}$`), `must be ${RUN_SEARCH_MIN_PREFIX} to 64 hexadecimal digits`)
+  .transform((hex) => hex.toLowerCase());
 
 const uploadFieldsSchema = z.strictObject({
   setupId: positiveId('a setup'),
@@ -58,6 +63,10 @@ const listQuerySchema = z.strictObject({
   from: isoDate.optional(),
   to: isoDate.optional(),
   uploadedBy: positiveId('a user').optional(),
+  profileVersionId: positiveId('a profile version').optional(),
+  sha256: hexPrefix.optional(),
+  fingerprint: hexPrefix.optional(),
+  finished: z.enum(['true', 'false'], { error: 'must be true or false' }).transform((flag) => flag === 'true').optional(),
 });
 
 const signOffSchema = z.strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) });

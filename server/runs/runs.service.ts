@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SignOffDto, type Verdict } from '../../shared/api';
+import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SignOffDto, type Verdict } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { LocalArchive } from '../archive/local-archive';
 import type { Models } from '../database/models';
@@ -8,6 +8,7 @@ import { HttpError } from '../http/http-error';
 import type { AnalysisQueue } from '../queue/analysis-queue';
 import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';
+import { storedSignature } from '../integrity/stored-signature';
 import { toRunDto, toRunSummary, type RunRow } from './run-dto';
 
 export interface NewRun {
@@ -32,6 +33,12 @@ export interface RunFilter {
   from?: string;
   to?: string;
   uploadedBy?: number;
+  profileVersionId?: number;
+  /** Hex prefixes of the file's SHA-256 and of the result's fingerprint. */
+  sha256?: string;
+  fingerprint?: string;
+  /** Only runs whose analysis has ended. */
+  finished?: boolean;
   sort: RunSortKey;
   direction: 'asc' | 'desc';
   page: number;
@@ -63,7 +70,7 @@ const RUN_SELECT = `
          (r.result #>> '{chsh,S}')::float8 AS chsh_value,
          (r.result #>> '{key,finiteKeyBits}')::float8 AS finite_key_bits,
          u.name AS uploaded_by_name, to_char(r.acquired_on, 'YYYY-MM-DD') AS acquired_on,
-         r.created_at, r.finished_at, r.duplicate_of,
+         r.created_at, r.finished_at, r.duplicate_of, r.file_sha256, r.result ->> 'fingerprint' AS fingerprint,
          EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off
     FROM runs r
     JOIN setups s ON s.id = r.setup_id
@@ -101,6 +108,7 @@ export function createRunsService(deps: {
       analysedBy: run.analysedBy ?? null,
       startedAt: run.startedAt ?? null,
       result: run.result ?? null,
+      signature: storedSignature(run),
       signOff: signOff && signer ? { userId: signer.id, userName: signer.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,
       deliveries: deliveries.map((delivery) => ({
         recipients: [...delivery.recipients],
@@ -173,6 +181,10 @@ export function createRunsService(deps: {
       add('r.uploaded_by = :uploadedBy', 'uploadedBy', filter.uploadedBy);
       add('coalesce(r.acquired_on, r.created_at::date) >= :from', 'from', filter.from);
       add('coalesce(r.acquired_on, r.created_at::date) <= :to', 'to', filter.to);
+      add('r.profile_version_id = :profileVersionId', 'profileVersionId', filter.profileVersionId);
+      add("r.file_sha256 LIKE :sha256 || '%'", 'sha256', filter.sha256);
+      add("r.result ->> 'fingerprint' LIKE :fingerprint || '%'", 'fingerprint', filter.fingerprint);
+      add('r.state IN (:finishedStates)', 'finishedStates', filter.finished ? FINISHED_STATES : undefined);
       const where = conditions.length > 0 ? `WHERE ${conditions.join(' AND ')}` : '';
       const order = `${SORT_COLUMNS[filter.sort]} ${filter.direction === 'asc' ? 'ASC' : 'DESC'} NULLS LAST, r.id DESC`;
       const rows = await sequelize.query<RunRow>(`${RUN_SELECT} ${where} ORDER BY ${order} LIMIT :limit OFFSET :offset`, {

@@ -6,6 +6,8 @@ import { FINISHED_STATES, STATE_OF_VERDICT } from '../../shared/api';
 import type { LocalArchive } from '../archive/local-archive';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
+import { signStatement } from '../integrity/signed-statement';
+import type { SigningKey } from '../integrity/signing-key';
 import type { AnalysisQueue } from '../queue/analysis-queue';
 
 /** Progress is written to the run when it has moved by this much (a fraction of the whole). */
@@ -17,16 +19,17 @@ export interface AnalyseRunDeps {
   archive: LocalArchive;
   queue: AnalysisQueue;
   audit: AuditTrail;
+  signingKey: SigningKey;
 }
 
 /**
  * One analysis job: runs the engine on the archived file with the run's profile version, mapping
- * and seed, writing progress as it reads, then stores the result, the state and the verdict-mail
- * job in one transaction. Idempotent: a job delivered again for a run that has its result does
+ * and seed, writing progress as it reads, then stores the result with its signature, the state and
+ * the verdict-mail job in one transaction. Idempotent: a job delivered again for a run that has its result does
  * nothing more, so a retried job ends with exactly one stored result.
  */
 export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: AbortSignal): Promise<void> {
-  const { sequelize, models, archive, queue, audit } = deps;
+  const { sequelize, models, archive, queue, audit, signingKey } = deps;
   const run = await models.Run.findByPk(runId);
   if (!run || FINISHED_STATES.includes(run.state)) return;
 
@@ -60,11 +63,17 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
     return;
   }
   await pendingWrite;
+  if (result.input.sha256 !== run.fileSha256) {
+    await finishAsFailed(runId, new Error(`The archived file's SHA-256 is ${result.input.sha256}, not the ${run.fileSha256} recorded at upload: the archive was changed.`), deps);
+    return;
+  }
 
   const state = STATE_OF_VERDICT[result.verdict];
+  const signedAt = new Date();
+  const { keyId, signature } = signStatement({ runId, fileSha256: run.fileSha256, fingerprint: result.fingerprint, signedAt: signedAt.toISOString() }, signingKey);
   await sequelize.transaction(async (transaction) => {
     const [stored] = await models.Run.update(
-      { state, verdict: result.verdict, result: result as unknown as Record<string, unknown>, progress: 1, finishedAt: new Date() },
+      { state, verdict: result.verdict, result: result as unknown as Record<string, unknown>, progress: 1, finishedAt: signedAt, signingKeyId: keyId, signedAt, signature },
       { where: { id: runId, state: 'analysing' }, transaction },
     );
     if (stored === 0) return;

@@ -18,7 +18,9 @@ export interface RunningWorker {
 export async function startWorker(config: Config, database: Database, queue: AnalysisQueue, services: Services, mailer: Mailer): Promise<RunningWorker> {
   const stopping = new AbortController();
   const { sequelize, models } = database;
-  const analysisDeps = { sequelize, models, archive: services.archive, queue, audit: services.audit };
+  // Results are signed with this process's key: it must be the one the API lists as in use.
+  await services.signingKeys.register();
+  const analysisDeps = { sequelize, models, archive: services.archive, queue, audit: services.audit, signingKey: services.signingKeys.current };
   const mailDeps = { sequelize, models, runs: services.runs, setups: services.setups, mailer, audit: services.audit, publicUrl: config.publicUrl };
 
   await queue.boss.work<RunJob>(ANALYSIS_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {

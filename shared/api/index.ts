@@ -1,5 +1,7 @@
+export * from './audit';
 export * from './auth';
 export * from './errors';
+export * from './integrity';
 export * from './profiles';
 export * from './roles';
 export * from './runs';

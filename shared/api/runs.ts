@@ -1,3 +1,5 @@
+import type { ResultSignatureDto } from './integrity';
+
 /** Where a run is in its life. */
 export const RUN_STATES = ['queued', 'analysing', 'accepted', 'aborted', 'invalid', 'failed'] as const;
 export type RunState = (typeof RUN_STATES)[number];
@@ -48,6 +50,10 @@ export interface RunSummaryDto {
   /** Set when the same bytes were uploaded before: the earlier run. */
   duplicateOf: number | null;
   signedOff: boolean;
+  /** SHA-256 of the archived log, hex. */
+  fileSha256: string;
+  /** The result's fingerprint, when analysed. */
+  fingerprint: string | null;
 }
 
 /** One attempt to mail a run's verdict. */
@@ -72,6 +78,8 @@ export interface RunDto extends RunSummaryDto {
   analysedBy: string | null;
   startedAt: string | null;
   result: Record<string, unknown> | null;
+  /** The server's signature over the stored result, when analysed. */
+  signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
   deliveries: MailDeliveryDto[];
 }
@@ -87,6 +95,12 @@ export interface RunPageDto {
 /** Sort keys of `GET /api/runs`. */
 export const RUN_SORT_KEYS = ['createdAt', 'acquiredOn', 'setup', 'state', 'verdict', 'winFraction'] as const;
 export type RunSortKey = (typeof RUN_SORT_KEYS)[number];
+
+/**
+ * Filters of `GET /api/runs` beyond setup, state, verdict, dates and uploader: `profileVersionId`,
+ * `sha256` and `fingerprint` (hex prefixes of at least 4 digits) and `finished=true`.
+ */
+export const RUN_SEARCH_MIN_PREFIX = 4;
 
 /** Body of `POST /api/runs/:id/sign-off` (a shift lead of the run's setup). */
 export interface SignOffRequest {

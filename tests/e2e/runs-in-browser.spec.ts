@@ -133,7 +133,8 @@ describe('runs in a real browser', () => {
     await page.getByTestId('sign-off-form').waitFor();
     await screenshot(page, 'run-sign-off-form');
     await page.getByRole('button', { name: 'Sign off' }).click();
-    expect(await page.getByText('Say what you decided before signing off.').count()).toBe(1);
+    // The form refuses an empty decision and says why, before anything is sent.
+    await page.getByText('Say what you decided before signing off.').waitFor();
     await page.getByLabel('Decision and comment').fill('Low CHSH all night: the Mill Lane detector is being realigned; no key kept.');
     await page.getByRole('button', { name: 'Sign off' }).click();
     await page.getByTestId('recorded-sign-off').waitFor();

@@ -8,6 +8,11 @@ import { AnalysisResult, UnsealedResult } from '../result';
  * where the same canonical text gives the same digest.
  */
 export function sealResult(result: UnsealedResult): AnalysisResult {
-  const fingerprint = createHash('sha256').update(canonicalJson(result)).digest('hex');
-  return { ...result, fingerprint };
+  return { ...result, fingerprint: resultFingerprint(result) };
+}
+
+/** The fingerprint of a result's content; a sealed result's own `fingerprint` field is left out. */
+export function resultFingerprint(result: UnsealedResult | AnalysisResult): string {
+  const { fingerprint: _sealed, ...content } = result as AnalysisResult;
+  return createHash('sha256').update(canonicalJson(content)).digest('hex');
 }

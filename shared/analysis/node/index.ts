@@ -3,3 +3,4 @@ export type { AnalyseOptions } from './analyse-log';
 export { AnalysisCancelledError, AnalysisRequestError } from './analysis-errors';
 export type { AnalysisProgress, ProgressListener } from './analysis-progress';
 export type { LogSource } from './log-source';
+export { resultFingerprint } from './fingerprint';

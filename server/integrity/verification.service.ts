@@ -1,0 +1,65 @@
+import type { AnalysisResult } from '../../shared/analysis/result';
+import { resultFingerprint } from '../../shared/analysis/node';
+import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '../../shared/api';
+import type { LocalArchive } from '../archive/local-archive';
+import type { Models } from '../database/models';
+import { HttpError } from '../http/http-error';
+import { digestFile } from './file-digest';
+import { signatureProblem } from './signed-statement';
+import type { SigningKeysService } from './signing-keys.service';
+import { storedSignature } from './stored-signature';
+
+export interface VerificationService {
+  /** Checks a finished run's stored result against its fingerprint and signature, and its archived file against its SHA-256. */
+  verify(runId: number): Promise<VerificationDto>;
+}
+
+export function createVerificationService(models: Models, archive: LocalArchive, signingKeys: SigningKeysService): VerificationService {
+  function fingerprintCheck(result: AnalysisResult): VerificationCheckDto {
+    const recomputed = resultFingerprint(result);
+    return recomputed === result.fingerprint
+      ? { check: 'result-fingerprint', passed: true, detail: `The stored result hashes to its fingerprint ${recomputed}.` }
+      : { check: 'result-fingerprint', passed: false, detail: `The stored result hashes to ${recomputed}, not to its recorded fingerprint ${result.fingerprint}: the result was changed after it was stored.` };
+  }
+
+  async function signatureCheck(run: InstanceType<Models['Run']>): Promise<VerificationCheckDto> {
+    const signature = storedSignature(run);
+    if (!signature) return { check: 'signature', passed: false, detail: 'The stored result carries no signature.' };
+    const key = await signingKeys.find(signature.keyId);
+    if (!key) return { check: 'signature', passed: false, detail: `The result is signed with key ${signature.keyId}, which this server never listed.` };
+    const problem = signatureProblem(signature, key.publicKeyPem);
+    return problem
+      ? { check: 'signature', passed: false, detail: `The Ed25519 signature by key ${signature.keyId} fails: ${problem} (run ${run.id}, file, fingerprint and time as stored now).` }
+      : { check: 'signature', passed: true, detail: `The Ed25519 signature by key ${signature.keyId} of ${signature.statement.signedAt} holds for run ${run.id}, its file and its fingerprint.` };
+  }
+
+  async function archiveCheck(sha256: string): Promise<VerificationCheckDto> {
+    const recorded = await models.ArchiveFile.findByPk(sha256);
+    let found;
+    try {
+      found = await digestFile(archive.pathOf(sha256));
+    } catch (error) {
+      const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'it is missing' : `it cannot be read (${(error as Error).message})`;
+      return { check: 'archive-file', passed: false, detail: `The archived file ${sha256} fails: ${reason}.` };
+    }
+    if (found.sha256 !== sha256) {
+      return { check: 'archive-file', passed: false, detail: `The archived file hashes to ${found.sha256}, not to the SHA-256 ${sha256} recorded at upload: its bytes were changed.` };
+    }
+    if (recorded && recorded.bytes !== found.bytes) {
+      return { check: 'archive-file', passed: false, detail: `The archived file is ${found.bytes} bytes, not the ${recorded.bytes} recorded at upload.` };
+    }
+    return { check: 'archive-file', passed: true, detail: `The archived file (${found.bytes} bytes) still hashes to its SHA-256 ${sha256}.` };
+  }
+
+  return {
+    async verify(runId) {
+      const run = await models.Run.findByPk(runId);
+      if (!run) throw HttpError.notFound(`There is no run with id ${runId}.`);
+      if (!VERDICT_STATES.includes(run.state) || !run.result) {
+        throw HttpError.conflict(`Run ${runId} is ${run.state}: only a run with a stored result can be verified.`);
+      }
+      const checks = [fingerprintCheck(run.result as unknown as AnalysisResult), await signatureCheck(run), await archiveCheck(run.fileSha256)];
+      return { runId, checkedAt: new Date().toISOString(), intact: checks.every((check) => check.passed), checks };
+    },
+  };
+}
