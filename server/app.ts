@@ -2,11 +2,14 @@ import fs from 'node:fs';
 import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import { auditRoutes } from './audit/audit.routes';
 import { authRoutes } from './auth/auth.routes';
 import { createGuards } from './auth/passport';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { runIntegrityRoutes } from './integrity/integrity.routes';
+import { signingKeysRoutes } from './integrity/signing-keys.routes';
 import type { WelcomeMail } from './mail/welcome-mail';
 import { profilesRoutes } from './profiles/profiles.routes';
 import { runsRoutes } from './runs/runs.routes';
@@ -43,6 +46,9 @@ export function createApp({ config, database, services, jwtSecret, welcomeMail }
   app.use('/api/users', usersRoutes(services.users, guards, welcomeMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));
   app.use('/api/setups', setupsRoutes(services.setups, guards));
+  app.use('/api/signing-keys', signingKeysRoutes(services.signingKeys));
+  app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
+  app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));
   app.use('/api/runs', runsRoutes({ config, runs: services.runs, archive: services.archive, models: database.models, guards }));
   app.use('/api', apiNotFound);
 

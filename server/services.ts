@@ -3,7 +3,9 @@ import { createAuditTrail, type AuditTrail } from './audit/audit-trail';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { resolveSigningKey } from './integrity/signing-key';
+import { createReverificationsService, type ReverificationsService } from './integrity/reverifications.service';
 import { createSigningKeysService, type SigningKeysService } from './integrity/signing-keys.service';
+import { createVerificationService, type VerificationService } from './integrity/verification.service';
 import { createProfilesService, type ProfilesService } from './profiles/profiles.service';
 import type { AnalysisQueue } from './queue/analysis-queue';
 import { createRunsService, type RunsService } from './runs/runs.service';
@@ -18,6 +20,8 @@ export interface Services {
   setups: SetupsService;
   runs: RunsService;
   signingKeys: SigningKeysService;
+  verification: VerificationService;
+  reverifications: ReverificationsService;
 }
 
 /** Every service of the app over one database and queue: the API and the worker share them. */
@@ -30,5 +34,7 @@ export function createServices(config: Config, database: Database, queue: Analys
   const setups = createSetupsService(sequelize, models, audit);
   const runs = createRunsService({ sequelize, models, archive, queue, profiles, setups, audit });
   const signingKeys = createSigningKeysService(sequelize, models, audit, resolveSigningKey(config.signingKey, config.dataDir));
-  return { audit, archive, users, profiles, setups, runs, signingKeys };
+  const verification = createVerificationService(models, archive, signingKeys);
+  const reverifications = createReverificationsService({ sequelize, models, queue, audit });
+  return { audit, archive, users, profiles, setups, runs, signingKeys, verification, reverifications };
 }

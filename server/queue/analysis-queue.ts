@@ -5,9 +5,15 @@ import type { Sequelize, Transaction } from 'sequelize';
 export const ANALYSIS_QUEUE = 'run-analysis';
 /** Queue of verdict mails: one job per finished run, payload `{ runId }`. */
 export const VERDICT_MAIL_QUEUE = 'verdict-mail';
+/** Queue of re-verifications: one job per request, payload `{ reverificationId }`. */
+export const REVERIFICATION_QUEUE = 'run-reverification';
 
 export interface RunJob {
   runId: number;
+}
+
+export interface ReverificationJob {
+  reverificationId: number;
 }
 
 export interface QueueOptions {
@@ -24,6 +30,7 @@ export interface AnalysisQueue {
   /** Enqueues within the caller's transaction: the job exists exactly when the change commits. */
   enqueueAnalysis(runId: number, transaction: Transaction): Promise<void>;
   enqueueVerdictMail(runId: number, transaction: Transaction): Promise<void>;
+  enqueueReverification(reverificationId: number, transaction: Transaction): Promise<void>;
   stop(): Promise<void>;
 }
 
@@ -43,6 +50,7 @@ export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequeli
   await boss.start();
   const queues = [
     { name: ANALYSIS_QUEUE, retryLimit: 5, retryDelay: 2, retryBackoff: true, expireInSeconds: options.analysisExpireSeconds },
+    { name: REVERIFICATION_QUEUE, retryLimit: 5, retryDelay: 2, retryBackoff: true, expireInSeconds: options.analysisExpireSeconds },
     { name: VERDICT_MAIL_QUEUE, retryLimit: 50, retryDelay: options.mailRetryDelaySeconds, retryBackoff: false, expireInSeconds: 120 },
   ];
   for (const queue of queues) {
@@ -67,6 +75,9 @@ export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequeli
     },
     async enqueueVerdictMail(runId, transaction) {
       await boss.send(VERDICT_MAIL_QUEUE, { runId } satisfies RunJob, { db: inTransaction(transaction) });
+    },
+    async enqueueReverification(reverificationId, transaction) {
+      await boss.send(REVERIFICATION_QUEUE, { reverificationId } satisfies ReverificationJob, { db: inTransaction(transaction) });
     },
     stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }),
   };

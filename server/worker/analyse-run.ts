@@ -1,6 +1,6 @@
 import os from 'node:os';
 import type { Sequelize } from 'sequelize';
-import { analyseLog, AnalysisCancelledError } from '../../shared/analysis/node';
+import { AnalysisCancelledError } from '../../shared/analysis/node';
 import type { AnalysisProgress } from '../../shared/analysis/node';
 import { FINISHED_STATES, STATE_OF_VERDICT } from '../../shared/api';
 import type { LocalArchive } from '../archive/local-archive';
@@ -9,6 +9,7 @@ import type { Models } from '../database/models';
 import { signStatement } from '../integrity/signed-statement';
 import type { SigningKey } from '../integrity/signing-key';
 import type { AnalysisQueue } from '../queue/analysis-queue';
+import { analyseArchivedRun } from './analyse-archived-run';
 
 /** Progress is written to the run when it has moved by this much (a fraction of the whole). */
 const PROGRESS_STEP = 0.03;
@@ -33,7 +34,6 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
   const run = await models.Run.findByPk(runId);
   if (!run || FINISHED_STATES.includes(run.state)) return;
 
-  const profileVersion = (await models.ProfileVersion.findByPk(run.profileVersionId))!;
   const worker = `${os.hostname()}:${process.pid}`;
   await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt: new Date(), error: null }, { where: { id: runId } });
   await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1, worker } });
@@ -51,10 +51,7 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
 
   let result;
   try {
-    result = await analyseLog(
-      { path: archive.pathOf(run.fileSha256) },
-      { profile: profileVersion.parameters, mapping: run.mapping ?? undefined, seed: run.seed, onProgress, signal },
-    );
+    result = await analyseArchivedRun(run, { models, archive }, { onProgress, signal });
   } catch (error) {
     await pendingWrite;
     // Cancelled (the worker is stopping): the job fails and the queue hands it out again.

@@ -1,9 +1,10 @@
 import type { Config } from '../config/config';
 import type { Database } from '../database/sequelize';
 import type { Mailer } from '../mail/mailer';
-import { ANALYSIS_QUEUE, VERDICT_MAIL_QUEUE, type AnalysisQueue, type RunJob } from '../queue/analysis-queue';
+import { ANALYSIS_QUEUE, REVERIFICATION_QUEUE, VERDICT_MAIL_QUEUE, type AnalysisQueue, type ReverificationJob, type RunJob } from '../queue/analysis-queue';
 import type { Services } from '../services';
 import { analyseRun } from './analyse-run';
+import { reverifyRun } from './reverify-run';
 import { sendVerdictMail } from './send-verdict-mail';
 
 export interface RunningWorker {
@@ -12,7 +13,8 @@ export interface RunningWorker {
 }
 
 /**
- * A worker: takes analysis jobs one at a time (the engine uses both cores) and verdict-mail jobs.
+ * A worker: takes analysis and re-verification jobs one at a time each (the engine uses both
+ * cores) and verdict-mail jobs.
  * Needs only the database (queue and results) and the archive; any number may run on any machine.
  */
 export async function startWorker(config: Config, database: Database, queue: AnalysisQueue, services: Services, mailer: Mailer): Promise<RunningWorker> {
@@ -26,6 +28,9 @@ export async function startWorker(config: Config, database: Database, queue: Ana
   await queue.boss.work<RunJob>(ANALYSIS_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {
     await analyseRun(job.data.runId, analysisDeps, stopping.signal);
   });
+  await queue.boss.work<ReverificationJob>(REVERIFICATION_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {
+    await reverifyRun(job.data.reverificationId, analysisDeps, stopping.signal);
+  });
   await queue.boss.work<RunJob>(VERDICT_MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {
     await sendVerdictMail(job.data.runId, mailDeps);
   });
@@ -34,6 +39,7 @@ export async function startWorker(config: Config, database: Database, queue: Ana
     async stop() {
       stopping.abort();
       await queue.boss.offWork(ANALYSIS_QUEUE);
+      await queue.boss.offWork(REVERIFICATION_QUEUE);
       await queue.boss.offWork(VERDICT_MAIL_QUEUE);
     },
   };

@@ -4,7 +4,11 @@ import path from 'node:path';
 import { analyseLog } from '../../shared/analysis/node';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { createLocalArchive } from '../../server/archive/local-archive';
+import { createAuditTrail } from '../../server/audit/audit-trail';
 import { loadConfig } from '../../server/config/config';
+import { resolveSigningKey } from '../../server/integrity/signing-key';
+import { createSigningKeysService } from '../../server/integrity/signing-keys.service';
+import { createVerificationService } from '../../server/integrity/verification.service';
 import { DEMO_NIGHTS } from '../../seeders/data/demo-nights';
 import { bootstrapDatabase } from '../../server/database/bootstrap';
 import { DEMO_PEOPLE } from '../../seeders/data/demo-people';
@@ -64,11 +68,17 @@ describe('the demo lab’s history of nights', () => {
       const again = await analyseLog({ path: createLocalArchive(dataDir).pathOf(sample.fileSha256) }, { profile: stored.profile, seed: sample.seed });
       expect(again.fingerprint).toBe(stored.fingerprint);
       expect(await database.models.SignOff.count()).toBe(2 * (DEMO_NIGHTS - 2));
+
+      // Signed like any stored result, with the key the bootstrap listed: every check holds.
+      const signingKeys = createSigningKeysService(database.sequelize, database.models, createAuditTrail(database.models.AuditEvent), resolveSigningKey(undefined, dataDir));
+      const checked = await createVerificationService(database.models, createLocalArchive(dataDir), signingKeys).verify(sample.id);
+      expect(checked.checks.map((check) => [check.check, check.passed])).toEqual([['result-fingerprint', true], ['signature', true], ['archive-file', true]]);
+      expect(runs.every((run) => run.signingKeyId === signingKeys.current.keyId)).toBe(true);
     } finally {
       await database.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
     }
-  }, 120_000);
+  }, 300_000);
 });
 
 describe('configuration', () => {

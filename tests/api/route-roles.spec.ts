@@ -26,6 +26,14 @@ const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: 
   { method: 'get', path: '/api/runs/1/blocks', roles: 'any' },
   { method: 'get', path: '/api/runs/1/trail', roles: 'any' },
   { method: 'post', path: '/api/runs/1/sign-off', roles: ['shift-lead'] },
+  { method: 'get', path: '/api/runs/1/verification', roles: 'any' },
+  { method: 'get', path: '/api/runs/1/reverifications', roles: 'any' },
+  { method: 'post', path: '/api/runs/1/reverifications', roles: ['auditor', 'admin'] },
+  { method: 'get', path: '/api/runs/1/export/json', roles: 'any' },
+  { method: 'get', path: '/api/runs/1/export/pdf', roles: 'any' },
+  { method: 'get', path: '/api/audit', roles: ['auditor', 'admin'] },
+  { method: 'get', path: '/api/audit/actors', roles: ['auditor', 'admin'] },
+  { method: 'get', path: '/api/audit/export.csv', roles: ['auditor', 'admin'] },
 ];
 
 /** One demo person holding exactly this single role. */
@@ -42,6 +50,11 @@ describe('role checks on the server', () => {
     for (const role of ROLES) tokens.set(role, await testApp.signIn(personWithOnly(role).email, DEMO_PASSWORD));
   });
   afterAll(() => testApp.close());
+
+  it('publishes the signing keys to anyone, signed in or not (public keys are for checking reports)', async () => {
+    const response = await request(testApp.app).get('/api/signing-keys').expect(200);
+    expect(response.body).toEqual([expect.objectContaining({ algorithm: 'Ed25519', publicKeyPem: expect.stringContaining('BEGIN PUBLIC KEY') })]);
+  });
 
   describe.each(PROTECTED_ROUTES)('$method $path', ({ method, path, roles }) => {
     it('answers 401 without a token', async () => {

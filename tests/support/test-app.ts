@@ -62,6 +62,8 @@ export async function createTestApp(environment: Record<string, string> = {}): P
   const welcomeMail = createWelcomeMail(mailer, config.publicUrl);
   const queue = await startAnalysisQueue(database.url, database.sequelize, config.queue);
   const services = createServices(config, database, queue);
+  // As `npm start` does on bootstrap: the key results are signed with is listed before any run.
+  await services.signingKeys.register();
   const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, welcomeMail });
   const workers: RunningWorker[] = [];
   return {

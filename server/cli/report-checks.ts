@@ -1,0 +1,88 @@
+import crypto from 'node:crypto';
+import { analyseLog, resultFingerprint } from '../../shared/analysis/node';
+import { RUN_REPORT_FORMAT, type RunReportDto } from '../../shared/api';
+import { resultDifferences } from '../integrity/result-differences';
+import { signatureProblem } from '../integrity/signed-statement';
+import { signingKeyId } from '../integrity/signing-key';
+
+/** One line of the offline verification. */
+export interface ReportCheck {
+  passed: boolean;
+  text: string;
+}
+
+/** Differences shown when a re-derived result disagrees. */
+const SHOWN_DIFFERENCES = 10;
+
+/** Whether a parsed JSON value is a run report this version understands; else why not. */
+export function reportProblem(value: unknown): string | null {
+  const report = value as Partial<RunReportDto> | null;
+  if (report === null || typeof report !== 'object') return 'it is not a JSON object';
+  if (report.format !== RUN_REPORT_FORMAT) return `its "format" is ${JSON.stringify(report.format)}, not "${RUN_REPORT_FORMAT}"`;
+  if (report.formatVersion !== 1) return `its "formatVersion" is ${JSON.stringify(report.formatVersion)}; this command reads version 1`;
+  if (!report.result || !report.profile || typeof report.seed !== 'string' || !report.run) return 'it lacks its "result", "profile", "seed" or "run"';
+  return null;
+}
+
+/** The report's own consistency: its result against its fingerprint, its signature against its public key (and a pinned one). */
+export function reportSignatureChecks(report: RunReportDto, pinnedPublicKeyPem?: string): ReportCheck[] {
+  const checks: ReportCheck[] = [];
+  const recomputed = resultFingerprint(report.result);
+  checks.push(
+    recomputed === report.result.fingerprint
+      ? { passed: true, text: `The report's result hashes to its fingerprint ${recomputed}.` }
+      : { passed: false, text: `The report's result hashes to ${recomputed}, not to its fingerprint ${report.result.fingerprint}: the result was changed.` },
+  );
+  const { signature, publicKey } = report;
+  if (!signature || !publicKey) {
+    checks.push({ passed: false, text: 'The report carries no signature or no public key.' });
+    return checks;
+  }
+  const statement = signature.statement;
+  const mismatches = [
+    statement.runId !== report.run.id && `run ${statement.runId} (the report is of run ${report.run.id})`,
+    statement.fingerprint !== report.result.fingerprint && `fingerprint ${statement.fingerprint}`,
+    statement.fileSha256 !== report.result.input.sha256 && `file ${statement.fileSha256}`,
+  ].filter(Boolean);
+  if (mismatches.length > 0) checks.push({ passed: false, text: `The signed statement names ${mismatches.join(', ')}, not what the report holds.` });
+  const problem = signatureProblem(signature, publicKey.publicKeyPem);
+  checks.push(
+    problem
+      ? { passed: false, text: `The Ed25519 signature fails: ${problem}.` }
+      : { passed: true, text: `The Ed25519 signature by key ${signature.keyId} of ${statement.signedAt} holds.` },
+  );
+  if (pinnedPublicKeyPem !== undefined) {
+    const pinned = signingKeyId(crypto.createPublicKey(pinnedPublicKeyPem));
+    checks.push(
+      pinned === signature.keyId
+        ? { passed: true, text: `The signing key is the pinned key ${pinned}.` }
+        : { passed: false, text: `The report is signed by key ${signature.keyId}, not by the pinned key ${pinned}.` },
+    );
+  } else {
+    checks.push({ passed: true, text: `Signing key ${signature.keyId}: compare it with the server's published keys (GET /api/signing-keys), or pin one with --public-key.` });
+  }
+  return checks;
+}
+
+/** The log against the report: same bytes, and the same result re-derived with the report's profile, mapping and seed. */
+export async function rederivationChecks(report: RunReportDto, log: string): Promise<ReportCheck[]> {
+  const recorded = report.result;
+  const result = await analyseLog({ path: log }, { profile: report.profile.parameters, mapping: report.mapping ?? undefined, seed: report.seed });
+  const checks: ReportCheck[] = [
+    result.input.sha256 === recorded.input.sha256
+      ? { passed: true, text: `The log hashes to the recorded SHA-256 ${recorded.input.sha256}.` }
+      : { passed: false, text: `The log hashes to ${result.input.sha256}, not to the recorded SHA-256 ${recorded.input.sha256}: it is not the analysed file.` },
+  ];
+  if (result.fingerprint === recorded.fingerprint) {
+    checks.push({ passed: true, text: `Re-derived from the log, the result reproduces the fingerprint ${recorded.fingerprint} (verdict ${result.verdict}).` });
+    return checks;
+  }
+  const differences = resultDifferences(recorded, result);
+  const shown = differences.slice(0, SHOWN_DIFFERENCES).map((difference) => `  ${difference.path}: recorded ${JSON.stringify(difference.stored)}, re-derived ${JSON.stringify(difference.recomputed)}`);
+  const more = differences.length > SHOWN_DIFFERENCES ? [`  ... and ${differences.length - SHOWN_DIFFERENCES} more`] : [];
+  checks.push({
+    passed: false,
+    text: [`Re-derived from the log, the result has fingerprint ${result.fingerprint}, not ${recorded.fingerprint}; ${differences.length} field(s) differ (engine ${recorded.engineVersion} then, ${result.engineVersion} now):`, ...shown, ...more].join('\n'),
+  });
+  return checks;
+}
