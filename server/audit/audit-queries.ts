@@ -1,5 +1,5 @@
 import { Op, type WhereOptions } from 'sequelize';
-import type { AuditEventDto, AuditPageDto, AuditTargetType } from '../../shared/api';
+import type { AuditActor, AuditEventDto, AuditPageDto, AuditTargetType } from '../../shared/api';
 import type { Models } from '../database/models';
 import type { AuditEventRecord } from './audit-event.model';
 import { toAuditEventDtos } from './audit-event-dto';
@@ -41,7 +41,7 @@ export function createAuditQueries(models: Models) {
       return toAuditEventDtos(await models.AuditEvent.findAll({ where: where(filter), order }), models);
     },
 
-    async actors(): Promise<{ id: number; name: string }[]> {
+    async actors(): Promise<AuditActor[]> {
       const ids = (await models.AuditEvent.findAll({ attributes: ['actorId'], group: ['actorId'], where: { actorId: { [Op.ne]: null } } })).map((event) => event.actorId!);
       const people = await models.User.findAll({ where: { id: ids }, order: [['name', 'ASC']] });
       return people.map((person) => ({ id: person.id, name: person.name }));

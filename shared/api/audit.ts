@@ -17,6 +17,12 @@ export interface AuditQuery {
 export const AUDIT_TARGET_TYPES = ['run', 'user', 'profile', 'setup', 'signing-key', 'audit'] as const;
 export type AuditTargetType = (typeof AUDIT_TARGET_TYPES)[number];
 
+/** Someone who appears in the trail, as `GET /api/audit/actors` lists them for the actor filter. */
+export interface AuditActor {
+  id: number;
+  name: string;
+}
+
 /** A page of the trail, newest first. */
 export interface AuditPageDto {
   items: AuditEventDto[];

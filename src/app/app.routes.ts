@@ -40,6 +40,12 @@ export const routes: Routes = [
         loadComponent: () => import('./profiles/profile-list').then((m) => m.ProfileList),
       },
       {
+        path: 'audit',
+        title: 'Audit · Bellkeep',
+        canActivate: [requireRoles(navItem('audit').roles)],
+        loadComponent: () => import('./audit/audit-page').then((m) => m.AuditPage),
+      },
+      {
         path: 'users',
         title: 'Users · Bellkeep',
         canActivate: [requireRoles(navItem('users').roles)],

@@ -146,7 +146,7 @@ describe('runs in a real browser', () => {
 
   it('the auditor reads the run, its sign-off and trail, with no upload and no sign-off form', async () => {
     const page = await signIn('sami.virtanen@kestrelfen.example');
-    expect(await navPages(page)).toEqual(['overview', 'runs', 'setups', 'profiles']);
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit']);
     // Tablet width from here on.
     await page.setViewportSize({ width: 800, height: 900 });
     await page.goto(`${baseUrl}/runs/${abortedRunId}`);

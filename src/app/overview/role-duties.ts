@@ -12,6 +12,7 @@ export const ROLE_DUTIES: Readonly<Record<Role, string>> = {
     'You learn each run’s verdict by morning, sign it off and decide what happens to the ' +
     'hardware next.',
   auditor:
-    'You re-open archived verdicts and re-verify them from the archived log, so every figure ' +
-    'can be reproduced exactly.',
+    'You re-open archived verdicts on the Audit page: check that a stored result and its log are ' +
+    'still what was signed, re-analyse it from the archived log so every figure can be reproduced ' +
+    'exactly, and read or export the whole trail.',
 };

@@ -16,14 +16,17 @@ import { SetupsApi } from '../setups/setups-api';
 import { CorrelatorChart } from './correlator-chart';
 import { DriftChart } from './drift-chart';
 import { runCriteria } from './run-criteria';
+import { RunExportMenu } from './run-export-menu';
 import { RunFigures } from './run-figures';
+import { RunIntegrity } from './run-integrity';
+import { RunReverifications } from './run-reverifications';
 import { RunsApi } from './runs-api';
 import { SettingsTable } from './settings-table';
 import { SignOffPanel } from './sign-off-panel';
 import { trailDetail, trailWords } from './trail-words';
 import { VerdictBanner } from './verdict-banner';
 
-/** One run: verdict and why, criteria, figures, charts, checks, provenance, sign-off and trail. */
+/** One run: verdict and why, criteria, figures, charts, checks, provenance, integrity, re-verifications, sign-off and trail. */
 @Component({
   selector: 'bk-run-page',
   imports: [
@@ -34,7 +37,10 @@ import { VerdictBanner } from './verdict-banner';
     MatIconModule,
     MatProgressBarModule,
     RouterLink,
+    RunExportMenu,
     RunFigures,
+    RunIntegrity,
+    RunReverifications,
     SettingsTable,
     SignOffPanel,
     VerdictBanner,

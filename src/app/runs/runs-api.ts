@@ -1,21 +1,35 @@
-import { HttpClient, HttpEvent, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpEvent } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable, switchMap, takeWhile, timer } from 'rxjs';
 
 import {
   FINISHED_STATES,
   type AuditEventDto,
+  type ExportFormat,
+  type ReverificationDto,
+  type ReverificationState,
   type RunDto,
   type RunPageDto,
   type RunSortKey,
   type RunState,
   type SignOffDto,
   type Verdict,
+  type VerificationDto,
 } from '../../../shared/api';
 import type { ColumnMapping } from '../../../shared/analysis/log/column-mapping';
+import { FileDownloads } from '../api/download';
+import { queryParams } from '../api/query-params';
 
 /** How often a run still being analysed is asked for again. */
 const POLL_MILLISECONDS = 1000;
+
+/** States of a re-verification that has not finished yet. */
+const RUNNING_REVERIFICATION_STATES: readonly ReverificationState[] = ['queued', 'analysing'];
+
+/** Whether a re-verification is still queued or analysing. */
+export function isReverificationRunning(reverification: ReverificationDto): boolean {
+  return RUNNING_REVERIFICATION_STATES.includes(reverification.state);
+}
 
 /** The filters, sort and page of the run list, as `GET /api/runs` takes them. */
 export interface RunQuery {
@@ -30,6 +44,12 @@ export interface RunQuery {
   from?: string | null;
   to?: string | null;
   uploadedBy?: number | null;
+  /** Only runs whose analysis has ended (with a verdict or failed). */
+  finished?: boolean | null;
+  profileVersionId?: number | null;
+  /** Hex prefixes (at least `RUN_SEARCH_MIN_PREFIX` digits) of the log's SHA-256 and of the result's fingerprint. */
+  sha256?: string | null;
+  fingerprint?: string | null;
 }
 
 /** What an experimentalist sends with a log. */
@@ -46,14 +66,11 @@ export interface UploadRequest {
 @Injectable({ providedIn: 'root' })
 export class RunsApi {
   private readonly http = inject(HttpClient);
+  private readonly downloads = inject(FileDownloads);
 
   /** One page of runs under the query's filters and sort. */
   list(query: RunQuery): Observable<RunPageDto> {
-    let params = new HttpParams();
-    for (const [key, value] of Object.entries(query)) {
-      if (value !== null && value !== undefined && value !== '') params = params.set(key, String(value));
-    }
-    return this.http.get<RunPageDto>('/api/runs', { params });
+    return this.http.get<RunPageDto>('/api/runs', { params: queryParams(query) });
   }
 
   /** One run in full. */
@@ -90,5 +107,36 @@ export class RunsApi {
   /** A shift lead's sign-off of a finished run. */
   signOff(id: number, comment: string): Observable<SignOffDto> {
     return this.http.post<SignOffDto>(`/api/runs/${id}/sign-off`, { comment });
+  }
+
+  /**
+   * Re-hashes the archived log and checks the stored result and its signature against it. Slow on
+   * a big log (seconds), so only on request.
+   */
+  verify(id: number): Observable<VerificationDto> {
+    return this.http.get<VerificationDto>(`/api/runs/${id}/verification`);
+  }
+
+  /** The run's re-verifications, newest first. */
+  reverifications(id: number): Observable<ReverificationDto[]> {
+    return this.http.get<ReverificationDto[]>(`/api/runs/${id}/reverifications`);
+  }
+
+  /** The re-verifications now and every second while one is queued or analysing (the settled list is the last value). */
+  watchReverifications(id: number): Observable<ReverificationDto[]> {
+    return timer(0, POLL_MILLISECONDS).pipe(
+      switchMap(() => this.reverifications(id)),
+      takeWhile((reverifications) => reverifications.some(isReverificationRunning), true),
+    );
+  }
+
+  /** Asks for a re-analysis of the archived log (auditor, admin); it starts queued. */
+  requestReverification(id: number): Observable<ReverificationDto> {
+    return this.http.post<ReverificationDto>(`/api/runs/${id}/reverifications`, null);
+  }
+
+  /** Downloads the run in `format` under the server's file name; emits that name. */
+  export(id: number, format: ExportFormat): Observable<string> {
+    return this.downloads.save(`/api/runs/${id}/export/${format}`, `run-${id}.${format}`);
   }
 }

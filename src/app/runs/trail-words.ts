@@ -1,5 +1,16 @@
-/** The trail's actions in words. */
-const ACTION_WORDS: Record<string, string> = {
+import { isRole, ROLE_LABELS, type AuditAction, type AuditEventDto } from '../../../shared/api';
+import { formatCount } from '../../../shared/format/numbers';
+import { EXPORT_FORMAT_LABELS, isExportFormat } from './export-formats';
+import { isReverificationState, lookOfReverification } from './reverification-look';
+
+/** The trail's actions in words: every action the server records. */
+const ACTION_WORDS: Record<AuditAction, string> = {
+  'user.created': 'User added',
+  'user.changed': 'User changed',
+  'setup.created': 'Setup added',
+  'setup.changed': 'Setup changed',
+  'profile.created': 'Profile added',
+  'profile.version-created': 'Profile version added',
   'run.uploaded': 'Uploaded the log',
   'run.analysis-started': 'Analysis started',
   'run.finished': 'Analysis finished',
@@ -7,15 +18,58 @@ const ACTION_WORDS: Record<string, string> = {
   'run.mail-sent': 'Verdict mail sent',
   'run.mail-skipped': 'Verdict mail not sent',
   'run.signed-off': 'Signed off',
+  'run.exported': 'Exported',
+  'run.reverification-requested': 'Re-verification requested',
+  'run.reverification-finished': 'Re-verification finished',
+  'signing-key.registered': 'Signing key put in use',
+  'signing-key.retired': 'Signing key retired',
+  'audit.exported': 'Trail exported',
 };
 
 /** A trail action in words; an action this client does not know yet is shown as written. */
 export function trailWords(action: string): string {
-  return ACTION_WORDS[action] ?? action;
+  return ACTION_WORDS[action as AuditAction] ?? action;
 }
 
-/** The one detail of a trail event worth a line: the comment, the verdict, the recipients or the error. */
-export function trailDetail(details: Record<string, unknown>): string {
+type Details = Record<string, unknown>;
+
+/** The detail line of the actions whose details need reading by their action. */
+const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string>> = {
+  'run.exported': ({ format }) => (isExportFormat(format) ? EXPORT_FORMAT_LABELS[format] : ''),
+  'run.reverification-requested': ({ reverificationId }) => (typeof reverificationId === 'number' ? `Re-verification ${reverificationId}` : ''),
+  'run.reverification-finished': ({ state, error, differenceCount }) => {
+    if (!isReverificationState(state)) return '';
+    const word = lookOfReverification(state).word;
+    if (typeof error === 'string') return `${word}: ${error}`;
+    return state === 'differs' && typeof differenceCount === 'number' ? `${word} in ${countOf(differenceCount, 'field')}` : word;
+  },
+  'user.created': ({ email, roles }) => [typeof email === 'string' ? email : '', roleWords(roles)].filter(Boolean).join(' · '),
+  'user.changed': ({ name, roles, active }) =>
+    [
+      typeof name === 'string' ? `Name ${name}` : '',
+      roleWords(roles),
+      active === true ? 'Reactivated' : active === false ? 'Deactivated' : '',
+    ]
+      .filter(Boolean)
+      .join(' · '),
+  'profile.created': ({ name, version }) => (typeof name !== 'string' ? '' : typeof version === 'number' ? `${name} v${version}` : name),
+  'profile.version-created': ({ version }) => (typeof version === 'number' ? `Version ${version}` : ''),
+  'setup.created': ({ name }) => (typeof name === 'string' ? name : ''),
+  'setup.changed': ({ name }) => (typeof name === 'string' ? name : ''),
+  'signing-key.retired': ({ replacedBy }) => (typeof replacedBy === 'string' ? `Replaced by key ${replacedBy}` : ''),
+  'audit.exported': ({ rows }) => (typeof rows === 'number' ? countOf(rows, 'line') : ''),
+};
+
+/**
+ * The one detail of a trail event worth a line: what was exported, how a re-verification ended,
+ * what changed about a person, setup or profile; else the comment, verdict, recipients or error.
+ */
+export function trailDetail(event: Pick<AuditEventDto, 'action' | 'details'>): string {
+  const ofAction = DETAIL_OF_ACTION[event.action as AuditAction];
+  return ofAction === undefined ? commonDetail(event.details) : ofAction(event.details);
+}
+
+function commonDetail(details: Details): string {
   const { verdict, recipients, comment, error, reason, originalName } = details;
   if (typeof comment === 'string') return `“${comment}”`;
   if (typeof verdict === 'string') return `Verdict ${verdict}`;
@@ -23,4 +77,15 @@ export function trailDetail(details: Record<string, unknown>): string {
   if (typeof error === 'string') return error;
   if (typeof reason === 'string') return reason;
   return typeof originalName === 'string' ? originalName : '';
+}
+
+/** 1 → "1 line", 1500 → "1 500 lines". */
+function countOf(count: number, noun: string): string {
+  return `${formatCount(count)} ${noun}${count === 1 ? '' : 's'}`;
+}
+
+/** `['auditor', 'admin']` → "Roles: Auditor, Admin". */
+function roleWords(roles: unknown): string {
+  if (!Array.isArray(roles)) return '';
+  return roles.length === 0 ? 'No roles' : `Roles: ${roles.map((role) => (isRole(role) ? ROLE_LABELS[role] : String(role))).join(', ')}`;
 }

@@ -2,15 +2,15 @@ import { navItem, navItemsFor } from './navigation';
 
 describe('navItemsFor', () => {
   it('gives an admin the shared pages and the users page, but not the upload', () => {
-    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles', 'users']);
+    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit', 'users']);
   });
 
   it('gives an experimentalist the upload and keeps the users page from them', () => {
     expect(navItemsFor(['experimentalist']).map((item) => item.id)).toEqual(['overview', 'runs', 'upload', 'setups', 'profiles']);
   });
 
-  it('gives an auditor the pages to read, without upload or users', () => {
-    expect(navItemsFor(['auditor']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles']);
+  it('gives an auditor the pages to read and the audit page, without upload or users', () => {
+    expect(navItemsFor(['auditor']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit']);
   });
 
   it('shows a page once to a user who holds several of its roles', () => {
@@ -19,6 +19,7 @@ describe('navItemsFor', () => {
       'runs',
       'setups',
       'profiles',
+      'audit',
       'users',
     ]);
   });

@@ -21,6 +21,7 @@ export const NAV_ITEMS = [
   { id: 'upload', label: 'Upload', icon: 'upload_file', path: '/upload', roles: ['experimentalist'] },
   { id: 'setups', label: 'Setups', icon: 'settings_input_component', path: '/setups', roles: ROLES },
   { id: 'profiles', label: 'Profiles', icon: 'tune', path: '/profiles', roles: ROLES },
+  { id: 'audit', label: 'Audit', icon: 'policy', path: '/audit', roles: ['auditor', 'admin'] },
   { id: 'users', label: 'Users', icon: 'group', path: '/users', roles: ['admin'] },
 ] as const satisfies readonly NavItem[];
 

@@ -40,7 +40,7 @@ describe('Shell', () => {
 
   it('shows an admin the users page', async () => {
     const fixture = await renderFor(['admin']);
-    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-setups: Setups', 'nav-profiles: Profiles', 'nav-users: Users']);
+    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-setups: Setups', 'nav-profiles: Profiles', 'nav-audit: Audit', 'nav-users: Users']);
   });
 
   it('hides the users page from a shift lead', async () => {

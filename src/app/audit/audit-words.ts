@@ -1,0 +1,32 @@
+import { AUDIT_ACTIONS, AUDIT_TARGET_TYPES, type AuditTargetType } from '../../../shared/api';
+import { trailWords } from '../runs/trail-words';
+
+/** What a trail line is about, in words. */
+export const TARGET_WORDS: Readonly<Record<AuditTargetType, string>> = {
+  run: 'Run',
+  user: 'User',
+  profile: 'Profile',
+  setup: 'Setup',
+  'signing-key': 'Signing key',
+  audit: 'Audit',
+};
+
+/** A group of the action filter: the whole family (`run.`) and each of its exact actions. */
+export interface ActionFamily {
+  /** The family as the API takes it: its noun and a dot. */
+  readonly value: string;
+  readonly label: string;
+  readonly actions: readonly { readonly value: string; readonly label: string }[];
+}
+
+/** An action's family is the kind of thing it happens to, so one family per target type. */
+export const ACTION_FAMILIES: readonly ActionFamily[] = AUDIT_TARGET_TYPES.map((type) => ({
+  value: `${type}.`,
+  label: `Any ${TARGET_WORDS[type].toLowerCase()} action`,
+  actions: AUDIT_ACTIONS.filter((action) => action.startsWith(`${type}.`)).map((action) => ({ value: action, label: trailWords(action) })),
+}));
+
+/** A trail line's target in words: "Run 12", "Signing key 5c1e0a9b7d2f4e38", "Audit trail". */
+export function targetWords(targetType: string, targetId: string): string {
+  return `${TARGET_WORDS[targetType as AuditTargetType] ?? targetType} ${targetId}`;
+}

@@ -1,0 +1,29 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+
+/** Hex digits shown of a hash: enough to tell runs apart at a glance and to search by. */
+const SHOWN_DIGITS = 12;
+
+/** A SHA-256 or fingerprint shortened in the mono font; the full value is in its title. */
+@Component({
+  selector: 'bk-short-hash',
+  template: `@if (value(); as value) {
+      <code class="bk-short-hash" [title]="value">{{ shortened() }}</code>
+    } @else {
+      –
+    }`,
+  styles: `
+    .bk-short-hash {
+      white-space: nowrap;
+    }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ShortHash {
+  /** The hash in hex, or null when there is none yet. */
+  readonly value = input.required<string | null>();
+
+  protected readonly shortened = computed(() => {
+    const value = this.value() ?? '';
+    return value.length > SHOWN_DIGITS ? `${value.slice(0, SHOWN_DIGITS)}…` : value;
+  });
+}
