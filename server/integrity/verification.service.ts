@@ -1,5 +1,6 @@
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { resultFingerprint } from '../../shared/analysis/node';
+import { formatCount } from '../../shared/format/numbers';
 import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '../../shared/api';
 import type { LocalArchive } from '../archive/local-archive';
 import type { Models } from '../database/models';
@@ -46,9 +47,9 @@ export function createVerificationService(models: Models, archive: LocalArchive,
       return { check: 'archive-file', passed: false, detail: `The archived file hashes to ${found.sha256}, not to the SHA-256 ${sha256} recorded at upload: its bytes were changed.` };
     }
     if (recorded && recorded.bytes !== found.bytes) {
-      return { check: 'archive-file', passed: false, detail: `The archived file is ${found.bytes} bytes, not the ${recorded.bytes} recorded at upload.` };
+      return { check: 'archive-file', passed: false, detail: `The archived file is ${formatCount(found.bytes)} bytes, not the ${formatCount(recorded.bytes)} recorded at upload.` };
     }
-    return { check: 'archive-file', passed: true, detail: `The archived file (${found.bytes} bytes) still hashes to its SHA-256 ${sha256}.` };
+    return { check: 'archive-file', passed: true, detail: `The archived file (${formatCount(found.bytes)} bytes) still hashes to its SHA-256 ${sha256}.` };
   }
 
   return {

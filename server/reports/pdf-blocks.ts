@@ -1,0 +1,144 @@
+import type { PdfFont } from './pdf-fonts';
+import { TONE, TYPE } from './pdf-style';
+
+// The building blocks every section is written with. Each starts at doc.y on the left margin,
+// moves doc.y below itself, and begins a new page first when it would not fit.
+
+/** Width of the label column of `fields`. */
+const LABEL_WIDTH = 132;
+
+/** Space between a label and its value. */
+const LABEL_GAP = 8;
+
+/** The text column: its left edge and width. */
+export function textColumn(doc: PDFKit.PDFDocument): { left: number; width: number } {
+  const { margins, width } = doc.page;
+  return { left: margins.left, width: width - margins.left - margins.right };
+}
+
+/** Starts a new page unless `height` points still fit above the bottom margin. */
+export function ensureSpace(doc: PDFKit.PDFDocument, height: number): void {
+  if (doc.y + height > doc.page.maxY()) {
+    doc.addPage();
+  }
+}
+
+/** Sets face, size and colour in one call. */
+export function useType(doc: PDFKit.PDFDocument, font: PdfFont, size: number, colour: string = TONE.text): PDFKit.PDFDocument {
+  return doc.font(font).fontSize(size).fillColor(colour);
+}
+
+/** A section title with a rule under it, kept on a page with at least `keepWith` points of what follows. */
+export function heading(doc: PDFKit.PDFDocument, title: string, keepWith = 48): void {
+  const { left, width } = textColumn(doc);
+  doc.y += 10;
+  ensureSpace(doc, 20 + keepWith);
+  useType(doc, 'bold', TYPE.heading, TONE.primary).text(title, left, doc.y, { width });
+  const rule = doc.y + 1;
+  doc.moveTo(left, rule).lineTo(left + width, rule).lineWidth(0.6).strokeColor(TONE.primary).stroke();
+  doc.y = rule + 5;
+}
+
+/** Running text across the column. */
+export function paragraph(doc: PDFKit.PDFDocument, text: string, options: { font?: PdfFont; size?: number; colour?: string } = {}): void {
+  const { left, width } = textColumn(doc);
+  useType(doc, options.font ?? 'body', options.size ?? TYPE.body, options.colour);
+  ensureSpace(doc, doc.heightOfString(text, { width }));
+  doc.text(text, left, doc.y, { width });
+  doc.y += 2;
+}
+
+/** A list, each item after a drawn bullet. */
+export function bullets(doc: PDFKit.PDFDocument, items: readonly string[], colour: string = TONE.text): void {
+  const { left, width } = textColumn(doc);
+  const indent = 10;
+  for (const item of items) {
+    useType(doc, 'body', TYPE.body, colour);
+    ensureSpace(doc, doc.heightOfString(item, { width: width - indent }));
+    const top = doc.y;
+    doc.circle(left + 3, top + TYPE.body * 0.55, 1.3).fill(colour);
+    doc.text(item, left + indent, top, { width: width - indent });
+    doc.y += 1.5;
+  }
+}
+
+/** One line of a `fields` list; `mono` for hex digits, keys and other strings read digit by digit. */
+export interface Field {
+  label: string;
+  value: string;
+  mono?: boolean;
+}
+
+/** Labels on the left, values beside them, one row each; long values wrap in their column. */
+export function fields(doc: PDFKit.PDFDocument, rows: readonly Field[]): void {
+  const { left, width } = textColumn(doc);
+  const valueLeft = left + LABEL_WIDTH + LABEL_GAP;
+  const valueWidth = width - LABEL_WIDTH - LABEL_GAP;
+  for (const row of rows) {
+    const labelHeight = useType(doc, 'body', TYPE.body).heightOfString(row.label, { width: LABEL_WIDTH });
+    useValueType(doc, row);
+    const height = Math.max(labelHeight, doc.heightOfString(row.value, { width: valueWidth }));
+    ensureSpace(doc, height);
+    const top = doc.y;
+    useType(doc, 'body', TYPE.body, TONE.muted).text(row.label, left, top, { width: LABEL_WIDTH });
+    useValueType(doc, row).text(row.value, valueLeft, top + (row.mono ? 0.8 : 0), { width: valueWidth });
+    doc.y = top + height + 2.5;
+  }
+}
+
+function useValueType(doc: PDFKit.PDFDocument, row: Field): PDFKit.PDFDocument {
+  return row.mono ? useType(doc, 'mono', TYPE.mono) : useType(doc, 'body', TYPE.body);
+}
+
+/** Monospaced text across the whole column on a light ground (a PEM, a base64 signature). */
+export function monoBlock(doc: PDFKit.PDFDocument, text: string): void {
+  const { left, width } = textColumn(doc);
+  const padding = 4;
+  useType(doc, 'mono', TYPE.mono);
+  const height = doc.heightOfString(text, { width: width - 2 * padding }) + 2 * padding;
+  ensureSpace(doc, height);
+  const top = doc.y;
+  doc.rect(left, top, width, height).fill(TONE.fill);
+  useType(doc, 'mono', TYPE.mono).text(text, left + padding, top + padding, { width: width - 2 * padding });
+  doc.y = top + height + 3;
+}
+
+/** A column of a `grid`: its header, its share of the width, how its cells align. */
+export interface GridColumn {
+  header: string;
+  width: number;
+  align?: 'left' | 'right';
+}
+
+/** A cell of a `grid`: text, or text in a face and colour of its own. */
+export type GridCell = string | { text: string; font?: PdfFont; colour?: string };
+
+/** A table with a header row and hairlines between rows; rows that do not fit go on to the next page. */
+export function grid(doc: PDFKit.PDFDocument, columns: readonly GridColumn[], rows: readonly (readonly GridCell[])[]): void {
+  const { left, width } = textColumn(doc);
+  const total = columns.reduce((sum, column) => sum + column.width, 0);
+  const widths = columns.map((column) => (column.width / total) * width);
+  const padding = 3;
+  const line = (cells: readonly GridCell[], header: boolean) => {
+    const parts = cells.map((cell) => (typeof cell === 'string' ? { text: cell } : cell));
+    const fontOf = (index: number) => (header ? 'bold' : (parts[index].font ?? 'body'));
+    const sizeOf = (index: number) => (fontOf(index) === 'mono' ? TYPE.mono : TYPE.body);
+    const height =
+      Math.max(...parts.map((part, index) => useType(doc, fontOf(index), sizeOf(index)).heightOfString(part.text, { width: widths[index] - 2 * padding }))) +
+      2 * padding;
+    ensureSpace(doc, height);
+    const top = doc.y;
+    if (header) doc.rect(left, top, width, height).fill(TONE.fill);
+    let x = left;
+    parts.forEach((part, index) => {
+      const colour = header ? TONE.muted : (part.colour ?? TONE.text);
+      useType(doc, fontOf(index), sizeOf(index), colour).text(part.text, x + padding, top + padding, { width: widths[index] - 2 * padding, align: columns[index].align ?? 'left' });
+      x += widths[index];
+    });
+    doc.moveTo(left, top + height).lineTo(left + width, top + height).lineWidth(0.4).strokeColor(TONE.rule).stroke();
+    doc.y = top + height;
+  };
+  line(columns.map((column) => column.header), true);
+  for (const row of rows) line(row, false);
+  doc.y += 4;
+}

@@ -1,0 +1,48 @@
+import { headerNameOf } from '../../shared/analysis/log/column-mapping';
+import { ROUND_FIELDS } from '../../shared/analysis/log/round-fields';
+import type { AnalysisResult } from '../../shared/analysis/result';
+import type { RunReportDto } from '../../shared/api';
+import { formatCount } from '../../shared/format/numbers';
+import { fields, type Field } from './pdf-blocks';
+import { formatInstant } from './pdf-dates';
+
+/**
+ * Everything needed to re-derive the result from the archived log: the file, how it was read, the
+ * seed and selection, the complete profile as applied, the engine and the result's fingerprint.
+ */
+export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): void {
+  const { result, run, profile } = report;
+  const { input, selection } = result;
+  fields(doc, [
+    { label: 'File', value: run.originalName },
+    { label: 'File SHA-256', value: input.sha256, mono: true },
+    { label: 'Size', value: `${formatCount(input.bytes)} bytes, ${input.compression === 'gzip' ? 'gzip-compressed' : 'not compressed'}` },
+    { label: 'Rounds read', value: formatCount(input.rounds) },
+    { label: 'Column mapping', value: `${ROUND_FIELDS.map((field) => `${field} ← “${headerNameOf(field, input.mapping)}”`).join(', ')}; outcomes written ${input.mapping.outcomes}` },
+    { label: 'Selection seed', value: report.seed, mono: true },
+    { label: 'Test-round selection', value: selectionLine(result) },
+    ...(selection === null ? [] : [{ label: 'Test and generation rounds', value: `${formatCount(selection.testRounds)} test, ${formatCount(selection.generationRounds)} generation` }]),
+    { label: 'Acceptance profile', value: `${profile.name}, version ${profile.version} (profile ${profile.profileId}, version record ${profile.versionId})` },
+    ...Object.entries(result.profile).map(([name, value]): Field => ({ label: `  ${name}`, value: describeValue(value) })),
+    { label: 'Engine version', value: result.engineVersion },
+    { label: 'Result fingerprint', value: result.fingerprint, mono: true },
+    { label: 'Uploaded', value: formatInstant(run.createdAt) },
+    { label: 'Analysis finished', value: formatInstant(run.finishedAt) },
+    ...(run.duplicateOf === null ? [] : [{ label: 'Same bytes as', value: `run ${run.duplicateOf}` }]),
+  ]);
+}
+
+/** How the test rounds were chosen, in words. */
+function selectionLine(result: AnalysisResult): string {
+  const selection = result.profile.testSelection;
+  if (selection.mode === 'from-log') return "from-log: the log's own test column marked the test rounds (the seed is not used)";
+  if (selection.mode === 'fixed-fraction') return `fixed-fraction: exactly ⌊${selection.fraction}·N⌋ rounds, drawn from the seed`;
+  return `bernoulli: each round tested with probability ${selection.probability}, drawn from the seed`;
+}
+
+/** A profile parameter as written in JSON, without the punctuation: 1e-9, true, a, b; mode: bernoulli. */
+function describeValue(value: unknown): string {
+  if (Array.isArray(value)) return value.length === 0 ? '(none)' : value.map(describeValue).join(', ');
+  if (value !== null && typeof value === 'object') return Object.entries(value).map(([key, inner]) => `${key}: ${describeValue(inner)}`).join('; ');
+  return String(value);
+}

@@ -1,0 +1,250 @@
+import crypto from 'node:crypto';
+import PDFDocument from 'pdfkit';
+import { DEMO_PROFILES, DEMO_SETUPS } from '../../seeders/data/demo-lab';
+import { analyseLog } from '../../shared/analysis/node';
+import type { AnalysisResult } from '../../shared/analysis/result';
+import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
+import { RUN_REPORT_FORMAT, type RunReportDto } from '../../shared/api';
+import { fixture, SEED } from '../../tests/cli/run-analyse';
+import { signStatement } from '../integrity/signed-statement';
+import { signingKeyFromPem } from '../integrity/signing-key';
+import { COLLECTIVE_ATTACK_CAUTION } from '../mail/verdict-mail';
+import { pdfFonts, pdfFontsEmbedded, pdfText } from '../../tests/support/pdf-text';
+import { createPdfReport } from './pdf-report';
+
+jest.setTimeout(60_000);
+
+const NIGHTLY = DEMO_PROFILES.find((profile) => profile.name === 'Nightly standard')!;
+const FEN_LINK = DEMO_SETUPS[0];
+const RUN_ID = 418;
+const SIGNED_OFF_AT = '2025-03-14T07:10:00.000Z';
+const SIGN_OFF_COMMENT = 'Steady night after the realignment; key kept for the relay test.';
+
+async function analysed(log: string): Promise<AnalysisResult> {
+  return analyseLog({ path: fixture(log) }, { profile: NIGHTLY.parameters, seed: SEED });
+}
+
+/** A report of the Fen link's night run, signed with a fresh Ed25519 key and signed off. */
+function signedReport(result: AnalysisResult): RunReportDto {
+  const key = signingKeyFromPem(crypto.generateKeyPairSync('ed25519').privateKey.export({ format: 'pem', type: 'pkcs8' }).toString());
+  const signature = signStatement({ runId: RUN_ID, fileSha256: result.input.sha256, fingerprint: result.fingerprint, signedAt: '2025-03-14T05:03:40.000Z' }, key);
+  return {
+    format: RUN_REPORT_FORMAT,
+    formatVersion: 1,
+    exportedAt: '2025-04-02T09:15:00.000Z',
+    exportedBy: 'Sami Virtanen',
+    run: {
+      id: RUN_ID,
+      setupName: FEN_LINK.name,
+      stationA: FEN_LINK.stationALabel,
+      stationB: FEN_LINK.stationBLabel,
+      originalName: 'fen-link-2025-03-13.csv',
+      uploadedBy: 'Dev Okafor',
+      acquiredOn: '2025-03-13',
+      notes: 'First night after the polariser realignment.',
+      createdAt: '2025-03-14T05:02:11.000Z',
+      finishedAt: '2025-03-14T05:03:40.000Z',
+      state: result.verdict === 'ACCEPT' ? 'accepted' : result.verdict === 'ABORT' ? 'aborted' : 'invalid',
+      verdict: result.verdict,
+      duplicateOf: null,
+    },
+    profile: { profileId: 1, versionId: 1, name: NIGHTLY.name, version: 1, parameters: { ...NIGHTLY.parameters } },
+    mapping: null,
+    seed: SEED,
+    result,
+    signature,
+    publicKey: { keyId: key.keyId, algorithm: 'Ed25519', publicKeyPem: key.publicKeyPem, createdAt: '2025-01-06T08:00:00.000Z', retiredAt: null },
+    signOff: { userId: 3, userName: 'Lucia Brandt', comment: SIGN_OFF_COMMENT, createdAt: SIGNED_OFF_AT },
+    reverifications: [],
+  };
+}
+
+async function pdfBytes(report: RunReportDto): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of createPdfReport(report)) chunks.push(chunk as Buffer);
+  return Buffer.concat(chunks);
+}
+
+/** The PDF's text as one line (see `flatten`). */
+async function flatText(pdf: Buffer): Promise<string> {
+  return flatten(await pdfText(pdf));
+}
+
+/** Text as one line: a line ending in a hyphen was wrapped there, every other run of whitespace is one space. */
+function flatten(text: string): string {
+  return text.replace(/-\n/g, '-').replace(/\s+/g, ' ');
+}
+
+describe('the PDF report of a run', () => {
+  let accepted: AnalysisResult;
+  let aborted: AnalysisResult;
+
+  beforeAll(async () => {
+    [accepted, aborted] = await Promise.all([analysed('accepted-run.csv'), analysed('aborted-low-chsh.csv')]);
+  });
+
+  describe('of an accepted, signed and signed-off run', () => {
+    let report: RunReportDto;
+    let pdf: Buffer;
+    let text: string;
+
+    beforeAll(async () => {
+      expect(accepted.verdict).toBe('ACCEPT');
+      report = signedReport(accepted);
+      pdf = await pdfBytes(report);
+      text = await flatText(pdf);
+    });
+
+    it('is a PDF whose every font is embedded DejaVu', () => {
+      expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+      expect(pdfFontsEmbedded(pdf)).toBe(true);
+      expect(pdfFonts(pdf).map((font) => font.baseFont)).toEqual(expect.arrayContaining([expect.stringMatching(/\+DejaVuSans$/), expect.stringMatching(/\+DejaVuSansMono$/)]));
+      expect(pdfFonts(pdf).every((font) => /DejaVu/.test(font.baseFont))).toBe(true);
+    });
+
+    it('draws the drift chart in vector lines, with no image', () => {
+      expect(pdf.includes('/Subtype /Image')).toBe(false);
+    });
+
+    it('names the run, its setup, stations and file', () => {
+      expect(text).toContain('Bellkeep run report');
+      expect(text).toContain(`Run ${RUN_ID}`);
+      expect(text).toContain(FEN_LINK.name);
+      expect(text).toContain(`A: ${FEN_LINK.stationALabel} · B: ${FEN_LINK.stationBLabel}`);
+      expect(text).toContain('fen-link-2025-03-13.csv');
+      expect(text).toContain('Dev Okafor');
+    });
+
+    it('gives the verdict as a word', () => {
+      expect(text).toContain('ACCEPT');
+      expect(text).not.toContain('ABORT');
+    });
+
+    it('prints the CHSH win fraction of the result to the digits it shows', () => {
+      const printed = /CHSH win fraction (\d\.(\d+))/.exec(text);
+      expect(printed).not.toBeNull();
+      const decimals = printed![2].length;
+      expect(decimals).toBeGreaterThanOrEqual(4);
+      expect(Math.abs(Number(printed![1]) - accepted.chsh!.winFraction!)).toBeLessThanOrEqual(0.5 * 10 ** -decimals);
+      const threshold = (QUANTUM_WIN_FRACTION - accepted.profile.chshTolerance).toFixed(decimals);
+      expect(text).toContain(`≥ ${threshold}`);
+    });
+
+    it('records the file hash, the fingerprint and the seed', () => {
+      expect(text).toContain(accepted.input.sha256);
+      expect(text).toContain(accepted.fingerprint);
+      expect(text).toContain(SEED);
+      expect(text).toContain(accepted.engineVersion);
+    });
+
+    it('carries the signature, its key id and the public key', () => {
+      expect(text).toContain(`Key id ${report.signature!.keyId}`);
+      expect(text).toContain(report.signature!.signature);
+      expect(text).toContain('-----BEGIN PUBLIC KEY-----');
+      expect(text).toContain(report.publicKey!.publicKeyPem.split('\n')[1]);
+    });
+
+    it('says who signed the run off, when, and with which comment', () => {
+      expect(text).toContain(`Signed off by Lucia Brandt on 2025-03-14 07:10:00 UTC: ${SIGN_OFF_COMMENT}`);
+    });
+
+    it('puts the collective-attack caution beside the key figures', () => {
+      expect(text).toContain(COLLECTIVE_ATTACK_CAUTION);
+      const caution = text.indexOf(COLLECTIVE_ATTACK_CAUTION);
+      expect(text.lastIndexOf('Finite key estimate', caution)).toBeGreaterThan(-1);
+      expect(caution - text.lastIndexOf('Finite key estimate', caution)).toBeLessThan(400);
+    });
+
+    it('lists every check by name with its sentence', () => {
+      expect(accepted.checks.length).toBeGreaterThan(0);
+      for (const check of accepted.checks) {
+        expect(text).toContain(check.id);
+        expect(text).toContain(flatten(check.message));
+      }
+    });
+
+    it('has a footer with the page count and the exporter on every page', async () => {
+      const pages = (await pdfText(pdf)).split('\f');
+      expect(pages.length).toBeGreaterThan(1);
+      pages.forEach((page, index) => {
+        expect(flatten(page)).toContain(`Bellkeep run report · run ${RUN_ID} · page ${index + 1} of ${pages.length}`);
+        expect(flatten(page)).toContain('Exported 2025-04-02 09:15:00 UTC by Sami Virtanen');
+      });
+    });
+  });
+
+  it('names the reasons of an aborted run and the criterion that failed', async () => {
+    expect(aborted.verdict).toBe('ABORT');
+    expect(aborted.reasons.length).toBeGreaterThan(0);
+    const text = await flatText(await pdfBytes(signedReport(aborted)));
+    expect(text).toContain('ABORT');
+    for (const reason of aborted.reasons) expect(text).toContain(flatten(reason));
+    expect(text).toMatch(/CHSH win fraction \d\.\d+ ≥ \d\.\d+ ≥ \d\.\d+ \(ω_Q − [\d.]+\) observed FAIL/);
+  });
+
+  it('lists the blocks of the drift chart that fall below the threshold', async () => {
+    const threshold = QUANTUM_WIN_FRACTION - aborted.profile.chshTolerance;
+    const failing = aborted.blocks.flatMap((block) => (block.chsh.fraction !== null && block.chsh.fraction < threshold ? [block.index + 1] : []));
+    expect(failing.length).toBeGreaterThan(0);
+    const text = await flatText(await pdfBytes(signedReport(aborted)));
+    expect(text).toContain(`block${failing.length === 1 ? '' : 's'} ${failing.join(', ')} on the failing side of the threshold`);
+  });
+
+  it('says plainly that a result has no signature and no sign-off', async () => {
+    const report: RunReportDto = { ...signedReport(accepted), signature: null, publicKey: null, signOff: null };
+    const text = await flatText(await pdfBytes(report));
+    expect(text).toContain('This result carries no signature.');
+    expect(text).toContain('Not signed off yet.');
+  });
+
+  it('lists a re-verification that differs, with its engine versions and fields', async () => {
+    const report: RunReportDto = {
+      ...signedReport(accepted),
+      reverifications: [
+        {
+          id: 7,
+          runId: RUN_ID,
+          requestedBy: 'Sami Virtanen',
+          state: 'differs',
+          storedFingerprint: accepted.fingerprint,
+          storedEngineVersion: accepted.engineVersion,
+          newFingerprint: 'f'.repeat(64),
+          newEngineVersion: '9.9.9',
+          differences: [{ path: 'qber.errors', stored: accepted.qber!.errors, recomputed: accepted.qber!.errors + 1 }],
+          differenceCount: 1,
+          error: null,
+          createdAt: '2025-04-01T10:00:00.000Z',
+          finishedAt: '2025-04-01T10:01:30.000Z',
+        },
+      ],
+    };
+    const text = await flatText(await pdfBytes(report));
+    expect(text).toContain('DIFFERS from the stored result');
+    expect(text).toContain(`stored ${accepted.engineVersion}, re-analysed 9.9.9`);
+    expect(text).toContain(`qber.errors: stored ${accepted.qber!.errors}, re-analysed ${accepted.qber!.errors + 1}`);
+  });
+
+  it('reports an unreadable log with its problems instead of figures', async () => {
+    const invalid = await analysed('malformed-rows.csv');
+    expect(invalid.verdict).toBe('INVALID');
+    const text = await flatText(await pdfBytes(signedReport(invalid)));
+    expect(text).toContain('INVALID');
+    expect(text).toContain(flatten(invalid.reasons[0]));
+    expect(text).toContain(`Line ${invalid.errors[0].line}`);
+    expect(text).toContain(invalid.input.sha256);
+  });
+});
+
+describe('the embedded-font check', () => {
+  it('tells a standard font, which a PDF only names, from an embedded one', async () => {
+    const chunks: Buffer[] = [];
+    const doc = new PDFDocument({ size: 'A4' });
+    doc.font('Helvetica').text('Kestrel Fen');
+    doc.end();
+    for await (const chunk of doc) chunks.push(chunk as Buffer);
+    const pdf = Buffer.concat(chunks);
+    expect(pdfFonts(pdf)).toEqual([{ baseFont: 'Helvetica', subtype: 'Type1', embedded: false }]);
+    expect(pdfFontsEmbedded(pdf)).toBe(false);
+    expect(await pdfText(pdf)).toContain('Kestrel Fen');
+  });
+});
