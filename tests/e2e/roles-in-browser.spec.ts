@@ -50,7 +50,7 @@ describe('sign-in and roles in a real browser', () => {
     const requested: string[] = [];
     page.on('request', (pageRequest) => requested.push(pageRequest.url()));
     await signIn(page, 'maren.holt@kestrelfen.example');
-    expect(await navPages(page)).toEqual(['overview', 'runs', 'setups', 'profiles', 'users']);
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit', 'users']);
 
     await page.getByTestId('nav-users').click();
     await page.waitForURL(`${baseUrl}/users`);
