@@ -2,6 +2,7 @@ export * from './audit';
 export * from './auth';
 export * from './errors';
 export * from './integrity';
+export * from './planner';
 export * from './profiles';
 export * from './roles';
 export * from './runs';

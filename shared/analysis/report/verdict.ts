@@ -19,21 +19,17 @@ export interface VerdictFinding {
  */
 export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySummary, checks: readonly CheckResult[], profile: AnalysisProfile): VerdictFinding {
   const reasons: string[] = [];
-  const certified = profile.criterion === 'certified';
-  const winThreshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
-  const win = certified ? chsh.winFractionLower : chsh.winFraction;
-  const winName = certified ? 'lower bound of the CHSH win fraction' : 'CHSH win fraction';
-  if (win === null) {
+  const winCriterion = chshCriterion(chsh, profile);
+  if (winCriterion.value === null) {
     reasons.push('There are no CHSH test rounds.');
-  } else if (win < winThreshold) {
-    reasons.push(`The ${winName} ${win.toFixed(6)} is below the threshold ${winThreshold.toFixed(6)} (ω_Q − ${profile.chshTolerance}).`);
+  } else if (!winCriterion.passes) {
+    reasons.push(`The ${winCriterion.name} ${winCriterion.value.toFixed(6)} is below the threshold ${winCriterion.threshold.toFixed(6)} (ω_Q − ${profile.chshTolerance}).`);
   }
-  const rate = certified ? qber.rateUpper : qber.rate;
-  const rateName = certified ? 'upper bound of the error rate' : 'error rate';
-  if (rate === null) {
+  const rateCriterion = qberCriterion(qber, profile);
+  if (rateCriterion.value === null) {
     reasons.push('There are no key-setting test rounds.');
-  } else if (rate > profile.qberTolerance) {
-    reasons.push(`The ${rateName} on the key setting ${rate.toFixed(6)} is above the tolerance ${profile.qberTolerance}.`);
+  } else if (!rateCriterion.passes) {
+    reasons.push(`The ${rateCriterion.name} on the key setting ${rateCriterion.value.toFixed(6)} is above the tolerance ${profile.qberTolerance}.`);
   }
   for (const check of checks.filter((c) => c.status === 'fail')) {
     reasons.push(`Check ${check.id} failed: ${check.message}`);
@@ -42,4 +38,27 @@ export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySumm
     reasons.push('The finite key length is not positive, and the profile requires a key.');
   }
   return { verdict: reasons.length === 0 ? 'ACCEPT' : 'ABORT', reasons };
+}
+
+/** A criterion as judged: the value the profile judges on, its threshold, and whether it passes. */
+export interface CriterionJudgement {
+  name: string;
+  value: number | null;
+  threshold: number;
+  passes: boolean;
+}
+
+/** The CHSH criterion: the win fraction (or its lower bound, `certified`) at least ω_Q − chshTolerance. */
+export function chshCriterion(chsh: ChshSummary, profile: AnalysisProfile): CriterionJudgement {
+  const certified = profile.criterion === 'certified';
+  const threshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
+  const value = certified ? chsh.winFractionLower : chsh.winFraction;
+  return { name: certified ? 'lower bound of the CHSH win fraction' : 'CHSH win fraction', value, threshold, passes: value !== null && value >= threshold };
+}
+
+/** The error-rate criterion: the rate (or its upper bound, `certified`) at most qberTolerance. */
+export function qberCriterion(qber: QberSummary, profile: AnalysisProfile): CriterionJudgement {
+  const certified = profile.criterion === 'certified';
+  const value = certified ? qber.rateUpper : qber.rate;
+  return { name: certified ? 'upper bound of the error rate' : 'error rate', value, threshold: profile.qberTolerance, passes: value !== null && value <= profile.qberTolerance };
 }

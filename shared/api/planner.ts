@@ -1,0 +1,102 @@
+/**
+ * The round-budget planner's answer (`GET /api/planner`, `npm run plan`, the planner screen), all
+ * computed by `planRounds` in shared/planner from the engine's own functions.
+ */
+
+/** What the planner assumes of tonight's devices. */
+export interface PlanDevice {
+  /** Expected CHSH win fraction ω (S = 8ω − 4). */
+  winFraction: number;
+  /** Expected error rate on the key setting. */
+  qber: number;
+  /** Probability that station A's setting is x = 0 (1/2 when fair); station B's y is uniform over 0, 1, 2. */
+  xZeroProbability: number;
+  /** Rounds per second the setup acquires, for the acquisition time; null when not given. */
+  trialRate: number | null;
+}
+
+/** The expected run at one round budget N. */
+export interface PlanPoint {
+  rounds: number;
+  /** Share of the rounds tested (the profile's, or the planner's own for `from-log`). */
+  testFraction: number;
+  /** Expected test rounds of each kind and raw key bits. */
+  chshTestRounds: number;
+  keyTestRounds: number;
+  rawKeyBits: number;
+  /** Probability that each criterion passes, from the binomial law of the observed counts. */
+  passProbability: {
+    chsh: number;
+    qber: number;
+    /** 1 or 0: whether the expected test rounds reach the profile's minimum. */
+    minimumTestRounds: number;
+    /** 1 or 0 when the profile requires a positive key (judged at the expected values), else 1. */
+    positiveKey: number;
+    /** The product: CHSH and QBER rest on disjoint rounds, so they are independent. */
+    all: number;
+  };
+  /** The finite key length at the expected counts (collective attacks), bits, ≥ 0. */
+  expectedFiniteKeyBits: number;
+  /** The asymptotic rate per raw bit at the expected S and QBER (collective attacks). */
+  asymptoticRate: number;
+  /** rawKeyBits × asymptoticRate: the limit the finite key approaches. */
+  asymptoticKeyBits: number;
+  /** N / trial rate, seconds; null without a trial rate. */
+  acquisitionSeconds: number | null;
+}
+
+/** The expected finite key at one test fraction, for the chosen N. */
+export interface TestFractionPoint {
+  testFraction: number;
+  expectedFiniteKeyBits: number;
+  passProbability: number;
+}
+
+/** The whole plan. */
+export interface PlanDto {
+  device: PlanDevice;
+  /** The plan at the chosen N. */
+  at: PlanPoint;
+  /** Smallest N with a positive expected finite key, or null when no N up to `searchLimit` gives one. */
+  roundsForPositiveKey: number | null;
+  /** Smallest N whose pass probability reaches 0.99, or null (for instance when ω is below the threshold). */
+  roundsForLikelyPass: number | null;
+  /** The largest N searched. */
+  searchLimit: number;
+  /** Points on a logarithmic grid of N, for the chart. */
+  curve: PlanPoint[];
+  /** The test fraction that maximises the expected finite key at the chosen N (profiles that fix the fraction ignore it). */
+  bestTestFraction: TestFractionPoint;
+  testFractionCurve: TestFractionPoint[];
+  /** What the planner does not model, in sentences. */
+  cautions: string[];
+}
+
+/** Query of `GET /api/planner`: the device as expected, a profile version, and the round budget. */
+export interface PlanQuery {
+  winFraction?: number;
+  /** Alternative to `winFraction`: the expected CHSH value S. */
+  chshValue?: number;
+  qber: number;
+  profileVersionId: number;
+  rounds: number;
+  trialRate?: number;
+  xZeroProbability?: number;
+  /** Needed when the profile takes its test rounds from the log's marking. */
+  testFraction?: number;
+}
+
+/** `GET /api/planner/prefill?setupId=`: what a setup's recent accepted runs did. */
+export interface PlanPrefillDto {
+  setupId: number;
+  /** The setup's default profile, latest version. */
+  profileVersionId: number;
+  /** Accepted runs pooled (the latest ones, at most 10), newest first. */
+  runIds: number[];
+  /** Pooled over their test rounds; null without accepted runs. */
+  winFraction: number | null;
+  qber: number | null;
+  xZeroProbability: number | null;
+  /** Their median round count. */
+  rounds: number | null;
+}
