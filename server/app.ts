@@ -11,6 +11,7 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { runIntegrityRoutes } from './integrity/integrity.routes';
 import { signingKeysRoutes } from './integrity/signing-keys.routes';
 import type { WelcomeMail } from './mail/welcome-mail';
+import { plannerRoutes } from './planner/planner.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
 import { runsRoutes } from './runs/runs.routes';
 import type { Services } from './services';
@@ -46,6 +47,7 @@ export function createApp({ config, database, services, jwtSecret, welcomeMail }
   app.use('/api/users', usersRoutes(services.users, guards, welcomeMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));
   app.use('/api/setups', setupsRoutes(services.setups, guards));
+  app.use('/api/planner', plannerRoutes({ models: database.models, setups: services.setups, profiles: services.profiles, guards }));
   app.use('/api/signing-keys', signingKeysRoutes(services.signingKeys));
   app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
   app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));

@@ -79,7 +79,8 @@ export interface PlanQuery {
   chshValue?: number;
   qber: number;
   profileVersionId: number;
-  rounds: number;
+  /** When absent, the plan is made at the smallest budget giving both a key and a likely pass. */
+  rounds?: number;
   trialRate?: number;
   xZeroProbability?: number;
   /** Needed when the profile takes its test rounds from the log's marking. */

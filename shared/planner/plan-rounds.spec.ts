@@ -91,3 +91,12 @@ describe('planRounds', () => {
     expect(() => planRounds({ device, profile: {}, rounds: 12.5 })).toThrow(expect.objectContaining({ field: 'rounds' }));
   });
 });
+
+describe('planRounds without a budget', () => {
+  it('plans at the smallest budget that gives both a positive key and a likely pass', () => {
+    const plan = planRounds({ device: { winFraction: 0.84, qber: 0.02 }, profile: {} });
+    expect(plan.at.rounds).toBe(Math.max(plan.roundsForPositiveKey!, plan.roundsForLikelyPass!));
+    expect(plan.at.expectedFiniteKeyBits).toBeGreaterThan(0);
+    expect(plan.at.passProbability.all).toBeGreaterThanOrEqual(0.99);
+  });
+});

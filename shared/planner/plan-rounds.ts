@@ -12,8 +12,8 @@ export interface PlanInput {
   device: { winFraction: number; qber: number; xZeroProbability?: number; trialRate?: number | null };
   /** A profile version's parameters (parsed here). */
   profile: unknown;
-  /** The round budget N. */
-  rounds: number;
+  /** The round budget N; when absent, the smallest that gives both a positive key and a likely pass. */
+  rounds?: number;
   /** The share of rounds tested, for a profile that takes its test rounds from the log. */
   testFraction?: number;
 }
@@ -46,7 +46,6 @@ const FRACTION_STEP = 0.02;
 export function planRounds(input: PlanInput): PlanDto {
   const { device, profile, fixedFraction } = validated(input);
   const pointAt = (rounds: number, testFraction = fixedFraction) => planPoint(device, profile, rounds, testFraction);
-  const at = pointAt(input.rounds);
 
   const budgets = logGrid(SMALLEST_PLANNED, SEARCH_LIMIT, CURVE_POINTS_PER_DECADE);
   const smallest = (holds: (point: PlanPoint) => boolean) => {
@@ -57,8 +56,13 @@ export function planRounds(input: PlanInput): PlanDto {
     return firstIndexWhere(low, Math.ceil(budgets[index]), (rounds) => holds(pointAt(rounds)));
   };
 
+  const roundsForPositiveKey = smallest((point) => point.expectedFiniteKeyBits > 0);
+  const roundsForLikelyPass = smallest((point) => point.passProbability.all >= LIKELY_PASS);
+  const rounds = input.rounds ?? recommendedRounds(roundsForPositiveKey, roundsForLikelyPass);
+  const at = pointAt(rounds);
+
   const fractionPoint = (testFraction: number): TestFractionPoint => {
-    const point = pointAt(input.rounds, testFraction);
+    const point = pointAt(rounds, testFraction);
     return { testFraction, expectedFiniteKeyBits: point.expectedFiniteKeyBits, passProbability: point.passProbability.all };
   };
   const testFractionCurve = Array.from({ length: Math.round(1 / FRACTION_STEP) - 1 }, (_, i) => fractionPoint(round6((i + 1) * FRACTION_STEP)));
@@ -66,14 +70,19 @@ export function planRounds(input: PlanInput): PlanDto {
   return {
     device,
     at,
-    roundsForPositiveKey: smallest((point) => point.expectedFiniteKeyBits > 0),
-    roundsForLikelyPass: smallest((point) => point.passProbability.all >= LIKELY_PASS),
+    roundsForPositiveKey,
+    roundsForLikelyPass,
     searchLimit: SEARCH_LIMIT,
     curve: budgets.map((rounds) => pointAt(Math.round(rounds))),
     bestTestFraction: bestFraction(testFractionCurve, fractionPoint),
     testFractionCurve,
     cautions: cautionsFor(profile),
   };
+}
+
+/** The budget planned when none is given: enough for both a key and a likely pass, else the search limit. */
+function recommendedRounds(forKey: number | null, forPass: number | null): number {
+  return forKey === null || forPass === null ? SEARCH_LIMIT : Math.max(forKey, forPass);
 }
 
 /** The expected run at one budget and test fraction. */
@@ -135,7 +144,7 @@ function validated(input: PlanInput) {
   requireRange(winFraction, 0, 1, 'winFraction', 'The expected win fraction');
   requireRange(qber, 0, 0.5, 'qber', 'The expected QBER', true);
   requireRange(xZeroProbability, 0, 1, 'xZeroProbability', 'The probability of x = 0');
-  if (!Number.isInteger(input.rounds) || input.rounds < SMALLEST_PLANNED || input.rounds > SEARCH_LIMIT) {
+  if (input.rounds !== undefined && (!Number.isInteger(input.rounds) || input.rounds < SMALLEST_PLANNED || input.rounds > SEARCH_LIMIT)) {
     throw new PlanInputError(`The round budget must be a whole number from ${SMALLEST_PLANNED} to ${SEARCH_LIMIT.toExponential()}; it is ${input.rounds}.`, 'rounds');
   }
   if (trialRate !== null && !(trialRate > 0 && Number.isFinite(trialRate))) throw new PlanInputError(`The trial rate must be a positive number of rounds per second; it is ${trialRate}.`, 'trialRate');

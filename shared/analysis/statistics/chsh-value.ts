@@ -21,3 +21,8 @@ export function chshValue(e00: number, e01: number, e10: number, e11: number): n
 export function chshValueFromWinFraction(winFraction: number): number {
   return 8 * winFraction - 4;
 }
+
+/** The inverse, ω = (S + 4)/8: the win fraction that gives CHSH value S. */
+export function winFractionFromChshValue(chshValue: number): number {
+  return (chshValue + 4) / 8;
+}

@@ -1,0 +1,75 @@
+import { readFile } from 'node:fs/promises';
+import { parseArgs } from 'node:util';
+import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
+import { formatCount, formatPercent } from '../../shared/format/numbers';
+import { planRounds, PlanInputError } from '../../shared/planner/plan-rounds';
+
+const USAGE =
+  'usage: npm run --silent plan -- (--win <ω> | --s <S>) --qber <rate> [--profile <profile.json>] [--rounds <N>] [--rate <rounds/s>] [--x0 <P(x=0)>] [--test-fraction <share>]';
+const USAGE_ERROR = 2;
+
+class UsageError extends Error {}
+
+/** A number option ("2e6" and "2000000" both read), or undefined when absent. */
+function numberOption(values: Record<string, string | undefined>, name: string): number | undefined {
+  const text = values[name];
+  if (text === undefined) return undefined;
+  const value = Number(text.replaceAll('_', ''));
+  if (text.trim() === '' || !Number.isFinite(value)) throw new UsageError(`--${name} must be a number; it is ${JSON.stringify(text)}`);
+  return value;
+}
+
+/**
+ * `plan`: the round-budget plan for tonight, as JSON on stdout (the `PlanDto` of `GET
+ * /api/planner`) and a short summary on stderr. Without --rounds it plans at the smallest budget
+ * that gives both a positive key and a 99 % chance of passing.
+ */
+async function main(): Promise<void> {
+  let values;
+  try {
+    ({ values } = parseArgs({
+      options: { win: { type: 'string' }, s: { type: 'string' }, qber: { type: 'string' }, profile: { type: 'string' }, rounds: { type: 'string' }, rate: { type: 'string' }, x0: { type: 'string' }, 'test-fraction': { type: 'string' } },
+      strict: true,
+      allowPositionals: false,
+    }));
+  } catch (error) {
+    throw new UsageError((error as Error).message);
+  }
+  const win = numberOption(values, 'win');
+  const chshValue = numberOption(values, 's');
+  const qber = numberOption(values, 'qber');
+  if ((win === undefined) === (chshValue === undefined)) throw new UsageError('give the expected win fraction (--win) or S (--s), one of them');
+  if (qber === undefined) throw new UsageError('give the expected QBER (--qber)');
+  let profile: unknown = {};
+  if (values.profile !== undefined) {
+    try {
+      profile = JSON.parse(await readFile(values.profile, 'utf8'));
+    } catch (error) {
+      throw new UsageError(`cannot read the profile ${values.profile}: ${(error as Error).message}`);
+    }
+  }
+  const plan = planRounds({
+    device: { winFraction: win ?? winFractionFromChshValue(chshValue!), qber, trialRate: numberOption(values, 'rate'), xZeroProbability: numberOption(values, 'x0') },
+    profile,
+    rounds: numberOption(values, 'rounds'),
+    testFraction: numberOption(values, 'test-fraction'),
+  });
+  process.stdout.write(`${JSON.stringify(plan, null, 2)}\n`);
+  const { at } = plan;
+  const budget = (rounds: number | null) => (rounds === null ? 'none up to the search limit' : `${formatCount(rounds)} rounds`);
+  process.stderr.write(
+    [
+      `At ${formatCount(at.rounds)} rounds: pass ${formatPercent(at.passProbability.all, 1)} (CHSH ${formatPercent(at.passProbability.chsh, 1)}, QBER ${formatPercent(at.passProbability.qber, 1)}), expected finite key ${formatCount(at.expectedFiniteKeyBits)} bits (collective attacks, an estimate).`,
+      `Positive key from ${budget(plan.roundsForPositiveKey)}; 99 % pass from ${budget(plan.roundsForLikelyPass)}.`,
+      ...(at.acquisitionSeconds === null ? [] : [`Acquisition at ${formatCount(plan.device.trialRate!)} rounds/s: ${formatCount(at.acquisitionSeconds)} s.`]),
+      '',
+    ].join('\n'),
+  );
+}
+
+main().catch((error: unknown) => {
+  if (error instanceof UsageError) process.stderr.write(`plan: ${error.message}\n${USAGE}\n`);
+  else if (error instanceof PlanInputError) process.stderr.write(`plan: ${error.message}\n`);
+  else process.stderr.write(`plan: ${error instanceof Error ? error.message : String(error)}\n`);
+  process.exitCode = USAGE_ERROR;
+});
