@@ -31,6 +31,11 @@ export const routes: Routes = [
         loadComponent: () => import('./upload/upload-page').then((m) => m.UploadPage),
       },
       {
+        path: 'planner',
+        canActivate: [requireRoles(navItem('planner').roles)],
+        loadChildren: () => import('./planner/planner.routes').then((m) => m.plannerRoutes),
+      },
+      {
         path: 'setups',
         loadChildren: () => import('./setups/setups.routes').then((m) => m.setupsRoutes),
       },

@@ -50,7 +50,7 @@ describe('sign-in and roles in a real browser', () => {
     const requested: string[] = [];
     page.on('request', (pageRequest) => requested.push(pageRequest.url()));
     await signIn(page, 'maren.holt@kestrelfen.example');
-    expect(await navPages(page)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit', 'users']);
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users']);
 
     await page.getByTestId('nav-users').click();
     await page.waitForURL(`${baseUrl}/users`);
@@ -68,7 +68,7 @@ describe('sign-in and roles in a real browser', () => {
   it('the experimentalist sees no Users link and is refused the page; signing out ends the session', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
     await signIn(page, 'dev.okafor@kestrelfen.example');
-    expect(await navPages(page)).toEqual(['overview', 'runs', 'upload', 'setups', 'profiles']);
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'upload', 'planner', 'setups', 'profiles']);
 
     await page.goto(`${baseUrl}/users`);
     await page.getByRole('heading', { name: 'Not allowed' }).waitFor();

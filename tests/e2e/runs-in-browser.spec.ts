@@ -88,7 +88,7 @@ describe('runs in a real browser', () => {
 
   it('the experimentalist uploads an accepted and an aborted log and sees each reach its verdict with the reasons', async () => {
     const page = await signIn('dev.okafor@kestrelfen.example');
-    expect(await navPages(page)).toEqual(['overview', 'runs', 'upload', 'setups', 'profiles']);
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'upload', 'planner', 'setups', 'profiles']);
     await page.getByTestId('nav-upload').click();
     await page.waitForURL(`${baseUrl}/upload`);
 

@@ -6,8 +6,9 @@ export const ROLE_DUTIES: Readonly<Record<Role, string>> = {
     'You decide who works in Bellkeep: you add people, give them their roles and deactivate ' +
     'accounts that are no longer needed.',
   experimentalist:
-    'You upload the per-round log of each night’s run. Bellkeep audits its test rounds and ' +
-    'gives the run an accept or abort verdict.',
+    'Before a night, the Planner tells you how many rounds to take and what share to test. You ' +
+    'upload the per-round log of each night’s run; Bellkeep audits its test rounds and gives the ' +
+    'run an accept or abort verdict.',
   'shift-lead':
     'You learn each run’s verdict by morning, sign it off and decide what happens to the ' +
     'hardware next.',

@@ -1,15 +1,15 @@
 import { navItem, navItemsFor } from './navigation';
 
 describe('navItemsFor', () => {
-  it('gives an admin the shared pages and the users page, but not the upload', () => {
-    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit', 'users']);
+  it('gives an admin the shared pages, the planner and the users page, but not the upload', () => {
+    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users']);
   });
 
-  it('gives an experimentalist the upload and keeps the users page from them', () => {
-    expect(navItemsFor(['experimentalist']).map((item) => item.id)).toEqual(['overview', 'runs', 'upload', 'setups', 'profiles']);
+  it('gives an experimentalist the upload and the planner after it, and keeps the users page from them', () => {
+    expect(navItemsFor(['experimentalist']).map((item) => item.id)).toEqual(['overview', 'runs', 'upload', 'planner', 'setups', 'profiles']);
   });
 
-  it('gives an auditor the pages to read and the audit page, without upload or users', () => {
+  it('gives an auditor the pages to read and the audit page, without upload, planner or users', () => {
     expect(navItemsFor(['auditor']).map((item) => item.id)).toEqual(['overview', 'runs', 'setups', 'profiles', 'audit']);
   });
 
@@ -17,6 +17,7 @@ describe('navItemsFor', () => {
     expect(navItemsFor(['auditor', 'shift-lead', 'admin']).map((item) => item.id)).toEqual([
       'overview',
       'runs',
+      'planner',
       'setups',
       'profiles',
       'audit',
@@ -32,5 +33,6 @@ describe('navItemsFor', () => {
 describe('navItem', () => {
   it('finds an entry by its name', () => {
     expect(navItem('users')).toEqual(expect.objectContaining({ path: '/users', roles: ['admin'] }));
+    expect(navItem('planner')).toEqual(expect.objectContaining({ path: '/planner', roles: ['experimentalist', 'shift-lead', 'admin'] }));
   });
 });

@@ -19,6 +19,7 @@ export const NAV_ITEMS = [
   { id: 'overview', label: 'Overview', icon: 'space_dashboard', path: '/', roles: ROLES },
   { id: 'runs', label: 'Runs', icon: 'table_rows', path: '/runs', roles: ROLES },
   { id: 'upload', label: 'Upload', icon: 'upload_file', path: '/upload', roles: ['experimentalist'] },
+  { id: 'planner', label: 'Planner', icon: 'calculate', path: '/planner', roles: ['experimentalist', 'shift-lead', 'admin'] },
   { id: 'setups', label: 'Setups', icon: 'settings_input_component', path: '/setups', roles: ROLES },
   { id: 'profiles', label: 'Profiles', icon: 'tune', path: '/profiles', roles: ROLES },
   { id: 'audit', label: 'Audit', icon: 'policy', path: '/audit', roles: ['auditor', 'admin'] },

@@ -38,14 +38,22 @@ describe('Shell', () => {
 
   beforeEach(() => localStorage.clear());
 
-  it('shows an admin the users page', async () => {
+  it('shows an admin the planner and the users page', async () => {
     const fixture = await renderFor(['admin']);
-    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-setups: Setups', 'nav-profiles: Profiles', 'nav-audit: Audit', 'nav-users: Users']);
+    expect(navLabels(fixture)).toEqual([
+      'nav-overview: Overview',
+      'nav-runs: Runs',
+      'nav-planner: Planner',
+      'nav-setups: Setups',
+      'nav-profiles: Profiles',
+      'nav-audit: Audit',
+      'nav-users: Users',
+    ]);
   });
 
-  it('hides the users page from a shift lead', async () => {
+  it('shows a shift lead the planner and hides the users page', async () => {
     const fixture = await renderFor(['shift-lead']);
-    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-setups: Setups', 'nav-profiles: Profiles']);
+    expect(navLabels(fixture)).toEqual(['nav-overview: Overview', 'nav-runs: Runs', 'nav-planner: Planner', 'nav-setups: Setups', 'nav-profiles: Profiles']);
   });
 
   it('signs out from the user menu', async () => {

@@ -1,0 +1,115 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import type { ChartData, ChartOptions } from 'chart.js';
+import { BaseChartDirective } from 'ng2-charts';
+
+import type { PlanDto } from '../../../shared/api';
+import { formatCount, formatScientific } from '../../../shared/format/numbers';
+import { chartTone } from '../charts/chart-tones';
+import { percentTick, powerOfTenTick } from './chart-ticks';
+import { formatProbability } from './pass-look';
+
+/**
+ * Expected finite key bits (left, logarithmic) and pass probability (right) against the round budget
+ * N on a logarithmic axis, the asymptotic key bits dashed as the limit, the chosen N marked.
+ */
+@Component({
+  selector: 'bk-plan-rounds-chart',
+  imports: [BaseChartDirective],
+  template: `
+    <div class="bk-plan-canvas">
+      <canvas baseChart [type]="'line'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
+    </div>
+  `,
+  styles: `.bk-plan-canvas { position: relative; height: 280px; }`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PlanRoundsChart {
+  /** The whole plan. */
+  readonly plan = input.required<PlanDto>();
+
+  protected readonly summary = computed(() => {
+    const { curve, at } = this.plan();
+    return (
+      `Expected finite key and pass probability for N from ${formatScientific(curve[0].rounds, 1)} to ${formatScientific(curve[curve.length - 1].rounds, 1)} rounds. ` +
+      `At the chosen N of ${formatCount(at.rounds)}: ${formatCount(at.expectedFiniteKeyBits)} bits, pass probability ${formatProbability(at.passProbability.all)}, ` +
+      `asymptotic limit ${formatCount(at.asymptoticKeyBits)} bits.`
+    );
+  });
+
+  protected readonly data = computed<ChartData<'line', { x: number; y: number | null }[]>>(() => {
+    const { curve, at } = this.plan();
+    const key = chartTone('primary');
+    // A logarithmic axis has no place for 0 bits: the key curves start where the key does.
+    const bits = (value: number) => (value > 0 ? value : null);
+    return {
+      datasets: [
+        {
+          label: 'Expected finite key (bits)',
+          data: curve.map((point) => ({ x: point.rounds, y: bits(point.expectedFiniteKeyBits) })),
+          yAxisID: 'bits',
+          borderColor: key,
+          backgroundColor: key,
+          borderWidth: 2,
+          pointRadius: 0,
+        },
+        {
+          label: 'Asymptotic key (limit, bits)',
+          data: curve.map((point) => ({ x: point.rounds, y: bits(point.asymptoticKeyBits) })),
+          yAxisID: 'bits',
+          borderColor: key,
+          backgroundColor: key,
+          borderDash: [6, 4],
+          borderWidth: 1.5,
+          pointRadius: 0,
+        },
+        {
+          label: 'Pass probability',
+          data: curve.map((point) => ({ x: point.rounds, y: point.passProbability.all })),
+          yAxisID: 'pass',
+          borderColor: chartTone('accept'),
+          backgroundColor: chartTone('accept'),
+          borderDash: [2, 2],
+          borderWidth: 2,
+          pointRadius: 0,
+        },
+        {
+          label: `Chosen N = ${formatCount(at.rounds)}`,
+          data: [
+            { x: at.rounds, y: 0 },
+            { x: at.rounds, y: 1 },
+          ],
+          yAxisID: 'pass',
+          borderColor: chartTone('threshold'),
+          backgroundColor: chartTone('threshold'),
+          borderWidth: 1.5,
+          pointRadius: 0,
+        },
+      ],
+    };
+  });
+
+  protected readonly options: ChartOptions<'line'> = {
+    responsive: true,
+    maintainAspectRatio: false,
+    animation: false,
+    interaction: { mode: 'nearest', intersect: false },
+    plugins: {
+      legend: { position: 'bottom', labels: { boxWidth: 24, boxHeight: 1, font: { size: 11 } } },
+      tooltip: {
+        callbacks: {
+          label: (item) => {
+            const { x, y } = item.raw as { x: number; y: number };
+            return item.dataset.yAxisID === 'pass'
+              ? `${item.dataset.label}: ${formatProbability(y)} at N = ${formatCount(x)}`
+              : `${item.dataset.label}: ${formatCount(y)} at N = ${formatCount(x)}`;
+          },
+        },
+      },
+    },
+    scales: {
+      x: { type: 'logarithmic', title: { display: true, text: 'Rounds N' }, ticks: { callback: powerOfTenTick, autoSkip: false, maxRotation: 0 } },
+      bits: { type: 'logarithmic', position: 'left', title: { display: true, text: 'Key bits' }, ticks: { callback: powerOfTenTick } },
+      pass: { type: 'linear', position: 'right', min: 0, max: 1, title: { display: true, text: 'Pass probability' }, grid: { display: false }, ticks: { callback: percentTick } },
+    },
+  };
+}
