@@ -3,21 +3,11 @@ import { parseArgs } from 'node:util';
 import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
 import { formatCount, formatPercent } from '../../shared/format/numbers';
 import { planRounds, PlanInputError } from '../../shared/planner/plan-rounds';
+import { numberOption, UsageError } from './command-options';
 
 const USAGE =
   'usage: npm run --silent plan -- (--win <ω> | --s <S>) --qber <rate> [--profile <profile.json>] [--rounds <N>] [--rate <rounds/s>] [--x0 <P(x=0)>] [--test-fraction <share>]';
 const USAGE_ERROR = 2;
-
-class UsageError extends Error {}
-
-/** A number option ("2e6" and "2000000" both read), or undefined when absent. */
-function numberOption(values: Record<string, string | undefined>, name: string): number | undefined {
-  const text = values[name];
-  if (text === undefined) return undefined;
-  const value = Number(text.replaceAll('_', ''));
-  if (text.trim() === '' || !Number.isFinite(value)) throw new UsageError(`--${name} must be a number; it is ${JSON.stringify(text)}`);
-  return value;
-}
 
 /**
  * `plan`: the round-budget plan for tonight, as JSON on stdout (the `PlanDto` of `GET
