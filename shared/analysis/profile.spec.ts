@@ -19,6 +19,7 @@ describe('parseProfile', () => {
         driftBlocks: 10,
         requirePositiveKey: false,
         blockingChecks: ['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling'],
+        securityModel: 'collective',
       },
     });
   });

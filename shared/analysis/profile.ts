@@ -31,6 +31,35 @@ const testSelectionSchema = z.discriminatedUnion(
   { error: 'mode must be one of fixed-fraction, bernoulli, from-log' },
 );
 
+/**
+ * What the general-attack key length is computed with (entropy accumulation; see
+ * shared/analysis/entropy-accumulation): the total soundness, and either the design S and QBER
+ * (from which the syndrome length and threshold follow) or the threshold and syndrome length.
+ */
+const generalAttackSchema = z
+  .strictObject({
+    /** Total soundness ε of the protocol. Default 1e-10. */
+    soundness: openUnitInterval('the soundness').default(1e-10),
+    /** Design values: m and ω_thr follow from the published design equations at the run's N. */
+    design: z
+      .strictObject({
+        chshValue: z.number({ error: 'must be a number' }).gt(2, { error: 'must be above 2 (the local bound)' }).lte(2 * Math.SQRT2, { error: 'must be at most 2√2' }),
+        qber: openUnitInterval('the design QBER').lt(0.5, { error: 'the design QBER must be below 0.5' }),
+      })
+      .optional(),
+    /** Or fixed in advance: the acceptance threshold on the CHSH win fraction and the syndrome length. */
+    omegaThreshold: z.number({ error: 'must be a number' }).gt(0.75, { error: 'must be above 3/4 (the local bound)' }).lt(1, { error: 'must be below 1' }).optional(),
+    syndromeBits: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(0, { error: 'must be at least 0' }).optional(),
+    /** The test probability γ the lab's marking uses (needed with `from-log` selection). */
+    testProbability: openUnitInterval('the test probability').optional(),
+  })
+  .refine((settings) => (settings.design !== undefined) !== (settings.omegaThreshold !== undefined || settings.syndromeBits !== undefined), {
+    error: 'give either design (chshValue, qber) or omegaThreshold with syndromeBits',
+  })
+  .refine((settings) => settings.design !== undefined || (settings.omegaThreshold !== undefined && settings.syndromeBits !== undefined), {
+    error: 'omegaThreshold and syndromeBits go together',
+  });
+
 /** The schema of an analysis profile; every field has a default, so `{}` is a complete profile. */
 export const profileSchema = z.strictObject({
   /** How test rounds are chosen. Default: fixed-fraction, half the rounds. */
@@ -61,6 +90,23 @@ export const profileSchema = z.strictObject({
   blockingChecks: z
     .array(z.enum(CHECK_FAMILIES, { error: `must be one of ${CHECK_FAMILIES.join(', ')}` }))
     .default(['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling']),
+  /**
+   * The attack model of the key figure that counts: `collective` (i.i.d. devices, the finite key
+   * estimate) or `general` (any attack: the entropy-accumulation key length). Default collective.
+   */
+  securityModel: z.enum(['collective', 'general'], { error: 'must be collective or general' }).default('collective'),
+  /** Settings of the general-attack key length; required when securityModel is general. */
+  generalAttack: generalAttackSchema.optional(),
+}).superRefine((profile, context) => {
+  if (profile.securityModel !== 'general') return;
+  if (profile.testSelection.mode === 'fixed-fraction') {
+    context.addIssue({ code: 'custom', path: ['testSelection', 'mode'], message: 'a general-attack profile needs each round tested with a fixed probability (bernoulli or from-log); a fixed-size subset is refused' });
+  }
+  if (profile.generalAttack === undefined) {
+    context.addIssue({ code: 'custom', path: ['generalAttack'], message: 'is required when securityModel is general' });
+  } else if (profile.testSelection.mode === 'from-log' && profile.generalAttack.testProbability === undefined) {
+    context.addIssue({ code: 'custom', path: ['generalAttack', 'testProbability'], message: 'is required with from-log selection: the probability with which the lab marks test rounds' });
+  }
 });
 
 /** A complete analysis profile, defaults filled in. */

@@ -30,7 +30,7 @@ export function assembleResult(log: RangeSummary, context: RunContext): Unsealed
   const all = test.map((count, cell) => count + generation[cell]);
   const chsh = summariseChsh(test, profile.epsilon);
   const qber = summariseQber(test, generation, profile.epsilon);
-  const key = summariseKey(chsh, qber, profile);
+  const key = summariseKey(chsh, qber, profile, log.validRecords);
   const blocks = blockSummaries(log.counts.blockStats, log.counts.blockRounds, profile.epsilon);
   const findings = [
     logIntegrityCheck(log.records, log.gaps, log.first?.round ?? null, log.last?.round ?? null),

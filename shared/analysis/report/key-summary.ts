@@ -4,9 +4,10 @@ import { chshValueFromWinFraction } from '../statistics/chsh-value';
 import { finiteKeyLength } from '../statistics/finite-key-length';
 import { minEntropyPerRound } from '../statistics/min-entropy';
 import { ChshSummary } from './chsh-summary';
+import { GeneralKeySummary, summariseGeneralKey } from './general-key-summary';
 import { QberSummary } from './qber-summary';
 
-/** Key figures, all against collective (i.i.d.) attacks. */
+/** Key figures: against collective (i.i.d.) attacks, and against general attacks when the profile asks. */
 export interface KeySummary {
   /** Raw key bits n: generation rounds with the key setting. */
   rawBits: number;
@@ -18,10 +19,13 @@ export interface KeySummary {
   minEntropyPerRound: number | null;
   /** Finite key length ℓ in bits, 0 when ℓ ≤ 0 (no key). */
   finiteKeyBits: number;
+  /** Key length against general attacks (entropy accumulation), when the profile gives its settings; else null. */
+  generalAttackBits: number | null;
+  generalAttack: GeneralKeySummary | null;
 }
 
-/** The key figures from the CHSH and error-rate summaries and the profile's f and ε's. */
-export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: AnalysisProfile): KeySummary {
+/** The key figures from the CHSH and error-rate summaries, the profile's f and ε's, and the run's round count. */
+export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: AnalysisProfile, rounds: number): KeySummary {
   const rawBits = qber.untestedRounds;
   const chshValueLower = chsh.winFractionLower === null ? null : chshValueFromWinFraction(chsh.winFractionLower);
   const asymptotic = chsh.S === null || qber.rate === null ? null : asymptoticRate(chsh.S, qber.rate);
@@ -42,5 +46,10 @@ export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: Anal
     chshValueLower,
     minEntropyPerRound: chshValueLower === null ? null : minEntropyPerRound(chshValueLower),
     finiteKeyBits: Math.max(0, finite),
+    ...generalFigures(summariseGeneralKey(rounds, profile)),
   };
+}
+
+function generalFigures(general: GeneralKeySummary | null): Pick<KeySummary, 'generalAttackBits' | 'generalAttack'> {
+  return { generalAttackBits: general?.bits ?? null, generalAttack: general };
 }

@@ -19,11 +19,12 @@ export interface VerdictFinding {
  */
 export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySummary, checks: readonly CheckResult[], profile: AnalysisProfile): VerdictFinding {
   const reasons: string[] = [];
-  const winCriterion = chshCriterion(chsh, profile);
+  const winCriterion = chshCriterion(chsh, profile, key.generalAttack?.omegaThreshold);
   if (winCriterion.value === null) {
     reasons.push('There are no CHSH test rounds.');
   } else if (!winCriterion.passes) {
-    reasons.push(`The ${winCriterion.name} ${winCriterion.value.toFixed(6)} is below the threshold ${winCriterion.threshold.toFixed(6)} (ω_Q − ${profile.chshTolerance}).`);
+    const source = profile.securityModel === 'general' && key.generalAttack ? 'ω_thr of the general-attack protocol' : `ω_Q − ${profile.chshTolerance}`;
+    reasons.push(`The ${winCriterion.name} ${winCriterion.value.toFixed(6)} is below the threshold ${winCriterion.threshold.toFixed(6)} (${source}).`);
   }
   const rateCriterion = qberCriterion(qber, profile);
   if (rateCriterion.value === null) {
@@ -34,7 +35,9 @@ export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySumm
   for (const check of checks.filter((c) => c.status === 'fail')) {
     reasons.push(`Check ${check.id} failed: ${check.message}`);
   }
-  if (profile.requirePositiveKey && key.finiteKeyBits <= 0) {
+  if (profile.requirePositiveKey && profile.securityModel === 'general') {
+    if (!key.generalAttackBits) reasons.push(`The key length against general attacks is not positive, and the profile requires a key.${key.generalAttack?.reason ? ` ${key.generalAttack.reason}` : ''}`);
+  } else if (profile.requirePositiveKey && key.finiteKeyBits <= 0) {
     reasons.push('The finite key length is not positive, and the profile requires a key.');
   }
   return { verdict: reasons.length === 0 ? 'ACCEPT' : 'ABORT', reasons };
@@ -48,8 +51,16 @@ export interface CriterionJudgement {
   passes: boolean;
 }
 
-/** The CHSH criterion: the win fraction (or its lower bound, `certified`) at least ω_Q − chshTolerance. */
-export function chshCriterion(chsh: ChshSummary, profile: AnalysisProfile): CriterionJudgement {
+/**
+ * The CHSH criterion: the win fraction (or its lower bound, `certified`) at least ω_Q −
+ * chshTolerance. Under the general-attack model the protocol fixes its own threshold ω_thr, and
+ * the observed win fraction of the test rounds must reach it (Nadlinger et al. 2022: the lost test
+ * rounds stay within n·γ·(1 − ω_thr)); its confidence is in the key length instead.
+ */
+export function chshCriterion(chsh: ChshSummary, profile: AnalysisProfile, generalThreshold?: number): CriterionJudgement {
+  if (profile.securityModel === 'general' && generalThreshold !== undefined) {
+    return { name: 'CHSH win fraction', value: chsh.winFraction, threshold: generalThreshold, passes: chsh.winFraction !== null && chsh.winFraction >= generalThreshold };
+  }
   const certified = profile.criterion === 'certified';
   const threshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
   const value = certified ? chsh.winFractionLower : chsh.winFraction;

@@ -24,7 +24,7 @@ export const NUMBER_FIELDS: readonly NumberField[] = [
 ];
 
 /** Label and meaning of every profile field. */
-export const FIELD_MEANINGS: Record<NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'requirePositiveKey' | 'blockingChecks', FieldMeaning> = {
+export const FIELD_MEANINGS: Record<NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks', FieldMeaning> = {
   mode: { label: 'Test rounds chosen', hint: 'By a fixed share drawn from the seed, by each round independently, or by the log’s own test column.' },
   fraction: { label: 'Test fraction', hint: 'Exactly this share of all rounds is tested (between 0 and 1). Common: 0.01–0.5.' },
   probability: { label: 'Test probability γ', hint: 'Each round is tested with this probability, independently (between 0 and 1).' },
@@ -32,6 +32,10 @@ export const FIELD_MEANINGS: Record<NumberField | 'mode' | 'fraction' | 'probabi
   qberTolerance: { label: 'QBER tolerance', hint: 'Accept when the error rate on the key setting is at most this (above 0, at most 0.5). Common: 0.02–0.08.' },
   epsilon: { label: 'Confidence ε', hint: 'Failure probability of every confidence bound, e.g. 1e-9. Common: 1e-6 to 1e-12.' },
   criterion: { label: 'Judged on', hint: 'Observed values against the thresholds, or their confidence bounds (certified: stricter).' },
+  securityModel: {
+    label: 'Attack model of the key',
+    hint: 'Collective: the finite key estimate, assuming i.i.d. devices. General: the entropy-accumulation key length, which needs round-by-round test selection and its settings (soundness, design S and QBER) given through the API.',
+  },
   minTestRounds: { label: 'Minimum test rounds', hint: 'Fewest CHSH test rounds, and fewest key-setting test rounds, a run may have. A whole number ≥ 1.' },
   reconciliationEfficiency: { label: 'Error-correction efficiency f', hint: 'Bits leaked per bit of Shannon limit, from 1 to 2. Common: 1.1–1.2.' },
   epsilonEC: { label: 'ε of error correction', hint: 'Failure probability of error correction, e.g. 1e-10.' },
@@ -76,6 +80,11 @@ export function describeProfile(profile: AnalysisProfile): { label: string; valu
   if (selection.mode === 'bernoulli') lines.push({ ...FIELD_MEANINGS.probability, value: String(selection.probability) });
   lines.push({ ...FIELD_MEANINGS.criterion, value: profile.criterion === 'certified' ? 'Confidence bounds (certified)' : 'Observed values' });
   for (const field of NUMBER_FIELDS) lines.push({ ...FIELD_MEANINGS[field], value: shownProfileNumber(field, profile[field]) });
+  const general = profile.generalAttack;
+  const generalWords = general
+    ? `General attacks (entropy accumulation), soundness ${general.soundness}, ${general.design ? `design S = ${general.design.chshValue}, QBER = ${general.design.qber}` : `ω_thr = ${general.omegaThreshold}, syndrome ${general.syndromeBits} bits`}`
+    : 'General attacks (settings missing)';
+  lines.push({ ...FIELD_MEANINGS.securityModel, value: (profile.securityModel ?? 'collective') === 'general' ? generalWords : 'Collective attacks (finite key estimate)' });
   lines.push({ ...FIELD_MEANINGS.requirePositiveKey, value: profile.requirePositiveKey ? 'Yes' : 'No' });
   lines.push({
     ...FIELD_MEANINGS.blockingChecks,

@@ -9,6 +9,9 @@ export type ProfileControls = Record<NumberField, FormControl<string>> & {
   fraction: FormControl<string>;
   probability: FormControl<string>;
   criterion: FormControl<AnalysisProfile['criterion']>;
+  securityModel: FormControl<AnalysisProfile['securityModel']>;
+  /** Carried over unchanged: the general-attack settings are edited through the API for now. */
+  generalAttack: FormControl<AnalysisProfile['generalAttack'] | null>;
   requirePositiveKey: FormControl<boolean>;
   blockingChecks: FormControl<CheckFamily[]>;
   note: FormControl<string>;
@@ -59,6 +62,8 @@ export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls
       validators: [engineRule((text: string) => ({ testSelection: { mode: 'bernoulli', probability: numberOf(text) } }))],
     }),
     criterion: new FormControl(profile.criterion, { nonNullable: true }),
+    securityModel: new FormControl(profile.securityModel ?? 'collective', { nonNullable: true }),
+    generalAttack: new FormControl(profile.generalAttack ?? null),
     requirePositiveKey: new FormControl(profile.requirePositiveKey, { nonNullable: true }),
     blockingChecks: new FormControl([...profile.blockingChecks], { nonNullable: true }),
     note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
@@ -90,5 +95,7 @@ export function profileParameters(form: FormGroup<ProfileControls>): Record<stri
     ...Object.fromEntries(NUMBER_FIELDS.map((field) => [field, numberOf(value[field])])),
     requirePositiveKey: value.requirePositiveKey,
     blockingChecks: value.blockingChecks,
+    securityModel: value.securityModel,
+    ...(value.generalAttack ? { generalAttack: value.generalAttack } : {}),
   };
 }

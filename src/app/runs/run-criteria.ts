@@ -1,4 +1,4 @@
-import { QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
+import { chshCriterion, qberCriterion } from '../../../shared/analysis/report/verdict';
 import type { AnalysisResult } from '../../../shared/analysis/result';
 import { formatCount, formatFixed, formatPercent } from '../../../shared/format/numbers';
 
@@ -25,30 +25,39 @@ export interface Criterion {
 export function runCriteria(result: AnalysisResult): Criterion[] {
   const { chsh, qber, key, profile } = result;
   if (chsh === null || qber === null || key === null) return [];
-  const certified = profile.criterion === 'certified';
-  const judgedOn = certified ? 'bound' : 'observed';
-  const winThreshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
-  const win = certified ? chsh.winFractionLower : chsh.winFraction;
-  const rate = certified ? qber.rateUpper : qber.rate;
+  // Judged by the engine's own criteria; a general-attack profile fixes its own threshold ω_thr.
+  const general = profile.securityModel === 'general' ? (key.generalAttack ?? undefined) : undefined;
+  const win = chshCriterion(chsh, profile, general?.omegaThreshold);
+  const rate = qberCriterion(qber, profile);
+  const judgedOn = profile.criterion === 'certified' && !general ? 'bound' : 'observed';
   const criteria: Criterion[] = [
     {
       name: 'CHSH win fraction',
       observed: formatFixed(chsh.winFraction),
       bound: `≥ ${formatFixed(chsh.winFractionLower)}`,
-      threshold: `≥ ${formatFixed(winThreshold)}`,
+      threshold: `≥ ${formatFixed(win.threshold)}`,
       judgedOn,
-      passes: win !== null && win >= winThreshold,
+      passes: win.passes,
     },
     {
       name: 'QBER on the key setting',
       observed: formatPercent(qber.rate),
       bound: `≤ ${formatPercent(qber.rateUpper)}`,
-      threshold: `≤ ${formatPercent(profile.qberTolerance)}`,
-      judgedOn,
-      passes: rate !== null && rate <= profile.qberTolerance,
+      threshold: `≤ ${formatPercent(rate.threshold)}`,
+      judgedOn: profile.criterion === 'certified' ? 'bound' : 'observed',
+      passes: rate.passes,
     },
   ];
-  if (profile.requirePositiveKey) {
+  if (profile.requirePositiveKey && general) {
+    criteria.push({
+      name: 'Key length against general attacks',
+      observed: `${formatCount(general.bits)} bits`,
+      bound: '–',
+      threshold: '> 0 bits',
+      judgedOn: 'observed',
+      passes: general.bits > 0,
+    });
+  } else if (profile.requirePositiveKey) {
     criteria.push({
       name: 'Finite key length',
       observed: `${formatCount(key.finiteKeyBits)} bits`,
