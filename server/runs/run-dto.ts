@@ -10,6 +10,8 @@ export interface RunRow {
   profile_name: string;
   profile_version: number;
   chsh_tolerance: number | null;
+  /** ω_thr of a general-attack profile's result, which replaces ω_Q − tolerance. */
+  general_threshold: number | null;
   state: RunSummaryDto['state'];
   progress: number;
   verdict: RunSummaryDto['verdict'];
@@ -39,8 +41,8 @@ export function toRunSummary(row: RunRow): RunSummaryDto {
     progress: row.progress,
     verdict: row.verdict,
     winFraction: row.win_fraction === null ? null : Number(row.win_fraction),
-    // The acceptance threshold of the CHSH criterion: ω_Q − tolerance (see shared/analysis).
-    winThreshold: row.chsh_tolerance === null ? null : QUANTUM_WIN_FRACTION - Number(row.chsh_tolerance),
+    // The acceptance threshold of the CHSH criterion: ω_Q − tolerance, or ω_thr under the general model (see shared/analysis).
+    winThreshold: row.general_threshold !== null ? Number(row.general_threshold) : row.chsh_tolerance === null ? null : QUANTUM_WIN_FRACTION - Number(row.chsh_tolerance),
     qber: row.qber === null ? null : Number(row.qber),
     chshValue: row.chsh_value === null ? null : Number(row.chsh_value),
     finiteKeyBits: row.finite_key_bits === null ? null : Number(row.finite_key_bits),

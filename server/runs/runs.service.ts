@@ -64,6 +64,7 @@ const SORT_COLUMNS: Record<RunSortKey, string> = {
 const RUN_SELECT = `
   SELECT r.id, r.setup_id, s.name AS setup_name, r.profile_version_id, p.name AS profile_name,
          v.version AS profile_version, (v.parameters ->> 'chshTolerance')::float8 AS chsh_tolerance,
+         CASE WHEN v.parameters ->> 'securityModel' = 'general' THEN (r.result #>> '{key,generalAttack,omegaThreshold}')::float8 END AS general_threshold,
          r.state, r.progress, r.verdict,
          (r.result #>> '{chsh,winFraction}')::float8 AS win_fraction,
          (r.result #>> '{qber,rate}')::float8 AS qber,

@@ -16,6 +16,15 @@ export interface Criterion {
   readonly passes: boolean;
 }
 
+/** The threshold the run's CHSH win fraction is judged against: ω_Q − tolerance, or ω_thr under the general-attack model. */
+export function winThresholdOf(result: AnalysisResult): number {
+  return chshCriterion(result.chsh!, result.profile, generalThresholdOf(result)).threshold;
+}
+
+function generalThresholdOf(result: AnalysisResult): number | undefined {
+  return result.profile.securityModel === 'general' ? result.key?.generalAttack?.omegaThreshold : undefined;
+}
+
 /**
  * The acceptance criteria of an analysed run, as the engine's verdict applies them: the CHSH win
  * fraction and the key-setting error rate under the profile's criterion (observed or certified),
@@ -27,7 +36,7 @@ export function runCriteria(result: AnalysisResult): Criterion[] {
   if (chsh === null || qber === null || key === null) return [];
   // Judged by the engine's own criteria; a general-attack profile fixes its own threshold ω_thr.
   const general = profile.securityModel === 'general' ? (key.generalAttack ?? undefined) : undefined;
-  const win = chshCriterion(chsh, profile, general?.omegaThreshold);
+  const win = chshCriterion(chsh, profile, generalThresholdOf(result));
   const rate = qberCriterion(qber, profile);
   const judgedOn = profile.criterion === 'certified' && !general ? 'bound' : 'observed';
   const criteria: Criterion[] = [

@@ -1,10 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
 import type { AnalysisResult } from '../../../shared/analysis/result';
-import { QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
 import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../../shared/format/numbers';
 import { ChshScaleChart } from './chsh-scale-chart';
 import { KeyCaution } from './key-caution';
+import { winThresholdOf } from './run-criteria';
 
 /** The figures of an analysed run, each with its bound and threshold; the key figures with their caution. */
 @Component({
@@ -22,7 +22,7 @@ export class RunFigures {
   protected readonly qber = computed(() => this.result().qber!);
   protected readonly key = computed(() => this.result().key!);
   protected readonly epsilon = computed(() => formatScientific(this.result().profile.epsilon));
-  protected readonly winThreshold = computed(() => formatFixed(QUANTUM_WIN_FRACTION - this.result().profile.chshTolerance));
+  protected readonly winThreshold = computed(() => formatFixed(winThresholdOf(this.result())));
   protected readonly qberTolerance = computed(() => formatPercent(this.result().profile.qberTolerance));
   protected readonly pValue = computed(() => formatLog10(this.chsh().log10PValue));
   protected readonly pValueHoeffding = computed(() => formatLog10(this.chsh().log10PValueHoeffding));

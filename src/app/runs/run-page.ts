@@ -9,13 +9,12 @@ import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
 
 import type { AuditEventDto, RunDto, SetupDto, SignOffDto } from '../../../shared/api';
 import type { AnalysisResult } from '../../../shared/analysis/result';
-import { QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
 import { formatCount, formatFixed, formatScientific } from '../../../shared/format/numbers';
 import { loaded, type Loaded } from '../api/loaded';
 import { SetupsApi } from '../setups/setups-api';
 import { CorrelatorChart } from './correlator-chart';
 import { DriftChart } from './drift-chart';
-import { runCriteria } from './run-criteria';
+import { runCriteria, winThresholdOf } from './run-criteria';
 import { RunExportMenu } from './run-export-menu';
 import { RunFigures } from './run-figures';
 import { RunIntegrity } from './run-integrity';
@@ -84,7 +83,7 @@ export class RunPage {
   });
   protected readonly criteria = computed(() => (this.analysed() ? runCriteria(this.analysed()!) : []));
   protected readonly epsilon = computed(() => formatScientific(this.result()?.profile.epsilon));
-  protected readonly winThreshold = computed(() => QUANTUM_WIN_FRACTION - (this.result()?.profile.chshTolerance ?? 0));
+  protected readonly winThreshold = computed(() => (this.analysed() ? winThresholdOf(this.analysed()!) : 0));
 
   protected readonly setup = toSignal(
     toObservable(computed(() => this.run()?.setupId ?? null)).pipe(

@@ -1,0 +1,48 @@
+import request from 'supertest';
+import type { AnalysisResult } from '../../shared/analysis/result';
+import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto } from '../../shared/api';
+import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { createTestApp, type TestApp } from '../support/test-app';
+import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
+
+/** Round-by-round testing and the design of Nadlinger et al., Nature 607, 682 (2022) (S = 2.64, Q = 1.8 %, soundness 1e-10). */
+const GENERAL = {
+  testSelection: { mode: 'bernoulli', probability: 0.5 },
+  securityModel: 'general',
+  generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } },
+};
+
+describe('a profile under the general-attack model, through the API', () => {
+  let testApp: TestApp;
+  let admin: string;
+  let dev: string;
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    await testApp.startWorker();
+    admin = await testApp.signIn('maren.holt@kestrelfen.example', DEMO_PASSWORD);
+    dev = await testApp.signIn('dev.okafor@kestrelfen.example', DEMO_PASSWORD);
+  }, 60_000);
+  afterAll(() => testApp.close());
+
+  it('refuses a fixed-size test subset, and judges a run by ω_thr with its general-attack key recorded', async () => {
+    const refused = await request(testApp.app)
+      .post('/api/profiles')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ name: 'General, fixed subset', parameters: { ...GENERAL, testSelection: { mode: 'fixed-fraction', fraction: 0.5 } } })
+      .expect(400);
+    expect((refused.body as ApiErrorBody).error).toMatchObject({ field: 'parameters.testSelection.mode', message: expect.stringContaining('a fixed-size subset is refused') });
+
+    const profile = (await request(testApp.app).post('/api/profiles').set('Authorization', `Bearer ${admin}`).send({ name: 'General trial', parameters: GENERAL }).expect(201)).body as ProfileDto;
+    const created = await uploadLog(testApp.app, dev, fixtureLog('accepted-run.csv'), { setupId: await setupId(testApp.app, dev, 'Fen link'), profileId: profile.id, seed: 'd4'.repeat(32) }).expect(201);
+    const run = await waitForFinishedRun(testApp.app, dev, (created.body as RunDto).id);
+    const result = run.result as unknown as AnalysisResult;
+    // 24 000 rounds are far too few for a key against general attacks: no key, with the reason.
+    expect(result.key!.generalAttack).toMatchObject({ rounds: 24_000, testProbability: 0.5, bits: 0, reason: expect.stringContaining('give no key') });
+    const threshold = result.key!.generalAttack!.omegaThreshold;
+    expect(run.verdict).toBe(result.chsh!.winFraction! >= threshold ? 'ACCEPT' : 'ABORT');
+
+    const list = (await request(testApp.app).get('/api/runs').set('Authorization', `Bearer ${dev}`).expect(200)).body as RunPageDto;
+    expect(list.items.find((item) => item.id === run.id)!.winThreshold).toBe(threshold);
+  }, 60_000);
+});
