@@ -1,17 +1,12 @@
 import fs from 'node:fs';
-import path from 'node:path';
-import type { Server } from 'node:http';
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import type { RunDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { launchChromium } from '../support/chromium';
-import { freePort } from '../support/free-port';
+import { startBrowserSession, type BrowserSession } from '../support/browser-session';
 import { pdfText } from '../support/pdf-text';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
-import { createTestApp, type TestApp } from '../support/test-app';
-
-const SCREENSHOTS = path.join(__dirname, '../../.data/e2e-screenshots');
+import type { TestApp } from '../support/test-app';
 
 /**
  * The auditor's work in a real headless Chromium: find a finished run by its fingerprint, check its
@@ -19,44 +14,22 @@ const SCREENSHOTS = path.join(__dirname, '../../.data/e2e-screenshots');
  * export the system trail.
  */
 describe('auditing in a real browser', () => {
+  let session: BrowserSession;
   let testApp: TestApp;
-  let server: Server;
-  let browser: Browser;
   let baseUrl: string;
   let run: RunDto;
 
   beforeAll(async () => {
-    const port = await freePort();
-    baseUrl = `http://127.0.0.1:${port}`;
-    testApp = await createTestApp({ BELLKEEP_PUBLIC_URL: baseUrl });
-    await testApp.startWorker();
-    server = testApp.app.listen(port, '127.0.0.1');
-    await new Promise((resolve) => server.once('listening', resolve));
-    browser = await launchChromium();
-    fs.mkdirSync(SCREENSHOTS, { recursive: true });
-
+    session = await startBrowserSession({ worker: true });
+    ({ testApp, baseUrl } = session);
     const token = await testApp.signIn('dev.okafor@kestrelfen.example', DEMO_PASSWORD);
     const created = await uploadLog(testApp.app, token, fixtureLog('accepted-run.csv'), { setupId: await setupId(testApp.app, token, 'Fen link'), acquiredOn: '2026-11-28' }).expect(201);
     run = await waitForFinishedRun(testApp.app, token, (created.body as RunDto).id);
   }, 600_000);
+  afterAll(() => session?.close());
 
-  afterAll(async () => {
-    await browser?.close();
-    await new Promise((resolve) => server?.close(resolve));
-    await testApp?.close();
-  });
-
-  const screenshot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
-
-  async function signIn(email: string): Promise<Page> {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByTestId('user-menu').waitFor();
-    return page;
-  }
+  const signIn = (email: string) => session.signIn(email, { acceptDownloads: true });
+  const screenshot = (page: Page, name: string) => session.screenshot(page, name);
 
   it('the auditor finds the run by fingerprint, checks it, re-verifies it and files its PDF report', async () => {
     const result = run.result as unknown as AnalysisResult;

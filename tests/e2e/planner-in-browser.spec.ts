@@ -1,45 +1,19 @@
-import fs from 'node:fs';
-import path from 'node:path';
-import type { Server } from 'node:http';
-import type { Browser } from 'playwright-core';
 import { formatCount } from '../../shared/format/numbers';
 import { planRounds } from '../../shared/planner/plan-rounds';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { launchChromium } from '../support/chromium';
-import { freePort } from '../support/free-port';
-import { createTestApp, type TestApp } from '../support/test-app';
-
-const SCREENSHOTS = path.join(__dirname, '../../.data/e2e-screenshots');
+import { startBrowserSession, type BrowserSession } from '../support/browser-session';
 
 /** The experimentalist plans tonight's budget in a real headless Chromium; the page's numbers are the shared planner's. */
 describe('the planner in a real browser', () => {
-  let testApp: TestApp;
-  let server: Server;
-  let browser: Browser;
-  let baseUrl: string;
+  let session: BrowserSession;
 
   beforeAll(async () => {
-    const port = await freePort();
-    baseUrl = `http://127.0.0.1:${port}`;
-    testApp = await createTestApp({ BELLKEEP_PUBLIC_URL: baseUrl });
-    server = testApp.app.listen(port, '127.0.0.1');
-    await new Promise((resolve) => server.once('listening', resolve));
-    browser = await launchChromium();
-    fs.mkdirSync(SCREENSHOTS, { recursive: true });
+    session = await startBrowserSession({ worker: false });
   }, 600_000);
-
-  afterAll(async () => {
-    await browser?.close();
-    await new Promise((resolve) => server?.close(resolve));
-    await testApp?.close();
-  });
+  afterAll(() => session?.close());
 
   it('computes the plan in the page from the chosen profile, with both charts', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill('dev.okafor@kestrelfen.example');
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    const { testApp } = session;
+    const page = await session.signIn('dev.okafor@kestrelfen.example');
     await page.getByTestId('nav-planner').click();
     await page.getByTestId('planner-form').waitFor();
 
@@ -58,7 +32,7 @@ describe('the planner in a real browser', () => {
     expect(await page.getByTestId('plan-rounds-for-pass').innerText()).toContain(formatCount(plan.roundsForLikelyPass!));
     await page.getByTestId('planner-chart-rounds').locator('canvas').waitFor();
     await page.getByTestId('planner-chart-fraction').locator('canvas').waitFor();
-    await page.screenshot({ path: path.join(SCREENSHOTS, 'planner.png'), fullPage: true });
+    await session.screenshot(page, 'planner');
     await page.close();
   }, 60_000);
 });

@@ -1,9 +1,5 @@
-import type { AddressInfo } from 'node:net';
-import type { Server } from 'node:http';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { launchChromium } from '../support/chromium';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { startBrowserSession, type BrowserSession } from '../support/browser-session';
 
 /**
  * A real headless Chromium on the production build served by the real API: two demo people of
@@ -11,32 +7,17 @@ import { createTestApp, type TestApp } from '../support/test-app';
  * refused the admin's page.
  */
 describe('sign-in and roles in a real browser', () => {
-  let testApp: TestApp;
-  let server: Server;
+  let session: BrowserSession;
   let browser: Browser;
   let baseUrl: string;
 
   beforeAll(async () => {
-    testApp = await createTestApp();
-    server = testApp.app.listen(0, '127.0.0.1');
-    await new Promise((resolve) => server.once('listening', resolve));
-    baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-    browser = await launchChromium();
+    session = await startBrowserSession({ worker: false });
+    ({ browser, baseUrl } = session);
   }, 600_000);
+  afterAll(() => session?.close());
 
-  afterAll(async () => {
-    await browser?.close();
-    await new Promise((resolve) => server?.close(resolve));
-    await testApp?.close();
-  });
-
-  async function signIn(page: Page, email: string): Promise<void> {
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByTestId('user-menu').waitFor();
-  }
+  const signIn = (page: Page, email: string) => session.signInOn(page, email);
 
   /** The pages the side navigation offers, by their link's test id (`nav-<page>`). */
   const navPages = (page: Page) =>

@@ -1,14 +1,9 @@
-import fs from 'node:fs';
 import path from 'node:path';
-import type { Server } from 'node:http';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { launchChromium } from '../support/chromium';
-import { freePort } from '../support/free-port';
-import { createTestApp, type TestApp } from '../support/test-app';
+import type { Page } from 'playwright-core';
+import { startBrowserSession, type BrowserSession } from '../support/browser-session';
+import type { TestApp } from '../support/test-app';
 
 const FIXTURES = path.join(__dirname, '../../fixtures/logs');
-const SCREENSHOTS = path.join(__dirname, '../../.data/e2e-screenshots');
 
 /** A mail as the catcher's REST inbox lists it. */
 interface CaughtMail {
@@ -23,41 +18,19 @@ interface CaughtMail {
  * verdict mail's link and signs the abort off; the auditor reads the run without any way to change it.
  */
 describe('runs in a real browser', () => {
+  let session: BrowserSession;
   let testApp: TestApp;
-  let server: Server;
-  let browser: Browser;
   let baseUrl: string;
   let abortedRunId: number;
 
   beforeAll(async () => {
-    // Mails link to the public address: serve the app there.
-    const port = await freePort();
-    baseUrl = `http://127.0.0.1:${port}`;
-    testApp = await createTestApp({ BELLKEEP_PUBLIC_URL: baseUrl });
-    await testApp.startWorker();
-    server = testApp.app.listen(port, '127.0.0.1');
-    await new Promise((resolve) => server.once('listening', resolve));
-    browser = await launchChromium();
-    fs.mkdirSync(SCREENSHOTS, { recursive: true });
+    session = await startBrowserSession({ worker: true });
+    ({ testApp, baseUrl } = session);
   }, 600_000);
+  afterAll(() => session?.close());
 
-  afterAll(async () => {
-    await browser?.close();
-    await new Promise((resolve) => server?.close(resolve));
-    await testApp?.close();
-  });
-
-  async function signIn(email: string): Promise<Page> {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill(email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByTestId('user-menu').waitFor();
-    return page;
-  }
-
-  const screenshot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+  const signIn = (email: string) => session.signIn(email);
+  const screenshot = (page: Page, name: string) => session.screenshot(page, name);
 
   const navPages = (page: Page) =>
     page
