@@ -1,5 +1,6 @@
 import type { AnalysisResult } from '../../shared/analysis/result';
-import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
+import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
+import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
 import type { RunDto } from '../../shared/api';
 import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../shared/format/numbers';
 import type { OutgoingMail } from './mailer';
@@ -59,12 +60,13 @@ function figureLines(result: AnalysisResult): string[] {
   const { chsh, qber, key, profile } = result;
   if (!chsh || !qber || !key) return [];
   const epsilon = formatScientific(profile.epsilon);
-  const winThreshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
+  const winThreshold = winThresholdOf(result);
   return [
     `CHSH win fraction ${formatFixed(chsh.winFraction)} (threshold ${formatFixed(winThreshold)}; lower bound ${formatFixed(chsh.winFractionLower)} at ε = ${epsilon}) over ${formatCount(chsh.rounds)} test rounds`,
     `S = ${formatFixed(chsh.S, 3)} (local bound 2, quantum bound 2.828); p-value against local models ${formatLog10(chsh.log10PValue)}`,
     `QBER ${formatPercent(qber.rate)} (tolerance ${formatPercent(profile.qberTolerance)}; upper bound ${formatPercent(qber.rateUpper)} at ε = ${epsilon}) over ${formatCount(qber.rounds)} key-setting test rounds`,
     `Raw key ${formatCount(key.rawBits)} bits; finite key estimate ${formatCount(key.finiteKeyBits)} bits (collective attacks)`,
+    ...(key.generalAttack ? [`Key length ${generalKeySentence(key.generalAttack)}`] : []),
   ];
 }
 

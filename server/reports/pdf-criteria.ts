@@ -1,5 +1,6 @@
 import type { AnalysisResult } from '../../shared/analysis/result';
-import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
+import { chshCriterion, qberCriterion } from '../../shared/analysis/report/verdict';
+import { generalThresholdOf } from '../../shared/analysis/report/win-threshold';
 import { formatCount, formatFixed, formatPercent, formatScientific } from '../../shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { PERCENT_DECIMALS, TONE, TYPE, WIN_DECIMALS } from './pdf-style';
@@ -15,18 +16,22 @@ export function writeCriteria(doc: PDFKit.PDFDocument, result: AnalysisResult): 
     paragraph(doc, 'No criterion was judged: the log could not be analysed.', { colour: TONE.muted });
     return;
   }
-  const certified = profile.criterion === 'certified';
-  const judged = certified ? 'bound' : 'observed';
-  const winThreshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
-  const win = certified ? chsh.winFractionLower : chsh.winFraction;
-  const rate = certified ? qber.rateUpper : qber.rate;
+  // Judged by the engine's own criteria; a general-attack profile fixes its own threshold ω_thr.
+  const general = generalThresholdOf(result);
+  const win = chshCriterion(chsh, profile, general);
+  const rate = qberCriterion(qber, profile);
+  const judged = profile.criterion === 'certified' ? 'bound' : 'observed';
+  const thresholdSource = general === undefined ? `ω_Q − ${profile.chshTolerance}` : 'ω_thr, general attacks';
   const fraction = (value: number | null) => formatFixed(value, WIN_DECIMALS);
   const percent = (value: number | null) => formatPercent(value, PERCENT_DECIMALS);
   const rows: GridCell[][] = [
-    ['CHSH win fraction', fraction(chsh.winFraction), `≥ ${fraction(chsh.winFractionLower)}`, `≥ ${fraction(winThreshold)} (ω_Q − ${profile.chshTolerance})`, judged, outcome(win !== null && win >= winThreshold)],
-    ['QBER on the key setting', percent(qber.rate), `≤ ${percent(qber.rateUpper)}`, `≤ ${formatPercent(profile.qberTolerance)}`, judged, outcome(rate !== null && rate <= profile.qberTolerance)],
+    ['CHSH win fraction', fraction(chsh.winFraction), `≥ ${fraction(chsh.winFractionLower)}`, `≥ ${fraction(win.threshold)} (${thresholdSource})`, general === undefined ? judged : 'observed', outcome(win.passes)],
+    ['QBER on the key setting', percent(qber.rate), `≤ ${percent(qber.rateUpper)}`, `≤ ${formatPercent(profile.qberTolerance)}`, judged, outcome(rate.passes)],
   ];
-  if (profile.requirePositiveKey) {
+  if (profile.requirePositiveKey && general !== undefined) {
+    const bits = key.generalAttackBits ?? 0;
+    rows.push(['Key against general attacks', `${formatCount(bits)} bits`, '–', '> 0 bits', 'observed', outcome(bits > 0)]);
+  } else if (profile.requirePositiveKey) {
     rows.push(['Finite key length', `${formatCount(key.finiteKeyBits)} bits`, '–', '> 0 bits', 'observed', outcome(key.finiteKeyBits > 0)]);
   }
   grid(
@@ -44,7 +49,7 @@ export function writeCriteria(doc: PDFKit.PDFDocument, result: AnalysisResult): 
   paragraph(
     doc,
     `Bounds are one-sided Hoeffding bounds, each holding except with probability ε = ${formatScientific(profile.epsilon)}. ` +
-      `The profile judges the ${certified ? 'bounds' : 'observed values'} against the thresholds.`,
+      `The profile judges the ${judged === 'bound' ? 'bounds' : 'observed values'} against the thresholds.`,
     { size: TYPE.small, colour: TONE.muted },
   );
 }

@@ -1,5 +1,6 @@
 import type { FractionInterval } from '../../shared/analysis/report/block-summary';
 import type { AnalysisResult } from '../../shared/analysis/result';
+import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
 import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
 import { formatFixed, formatPercent, formatScientific } from '../../shared/format/numbers';
 import { ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';
@@ -46,7 +47,7 @@ export function writeDriftChart(doc: PDFKit.PDFDocument, result: AnalysisResult)
     paragraph(doc, 'No blocks to plot: the log had no readable rounds.', { colour: TONE.muted });
     return;
   }
-  const winThreshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;
+  const winThreshold = winThresholdOf(result);
   const wins = blocks.map((block) => block.chsh);
   const rates = blocks.map((block) => block.qber);
   const highestRate = Math.max(profile.qberTolerance * 1.6, ...rates.flatMap(({ upper }) => (upper === null ? [] : [upper])));

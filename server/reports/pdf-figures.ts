@@ -1,4 +1,5 @@
 import type { AnalysisResult } from '../../shared/analysis/result';
+import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
 import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '../../shared/analysis/statistics/bell-bounds';
 import { hoeffdingDeviation } from '../../shared/analysis/statistics/hoeffding';
 import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../shared/format/numbers';
@@ -50,6 +51,7 @@ export function writeFigures(doc: PDFKit.PDFDocument, result: AnalysisResult): v
       label: 'Finite key estimate',
       value: `${formatCount(key.finiteKeyBits)} bits${key.finiteKeyBits === 0 ? ' (no key at this size)' : ''}, at f = ${profile.reconciliationEfficiency}, ε_EC = ${formatScientific(profile.epsilonEC)}, ε_PA = ${formatScientific(profile.epsilonPA)}`,
     },
+    ...(key.generalAttack ? [{ label: 'Key against general attacks', value: generalKeySentence(key.generalAttack) }] : []),
     {
       label: 'Asymptotic rate',
       value: `${formatFixed(key.asymptoticRate)} bits per raw bit; min-entropy ${formatFixed(key.minEntropyPerRound)} per round at the lower bound of S`,

@@ -3,7 +3,8 @@ import type { AnalysisResult } from '../../shared/analysis/result';
 import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
-import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
+import { pdfText } from '../support/pdf-text';
+import { fixtureLog, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';
 
 /** Round-by-round testing and the design of Nadlinger et al., Nature 607, 682 (2022) (S = 2.64, Q = 1.8 %, soundness 1e-10). */
 const GENERAL = {
@@ -44,5 +45,21 @@ describe('a profile under the general-attack model, through the API', () => {
 
     const list = (await request(testApp.app).get('/api/runs').set('Authorization', `Bearer ${dev}`).expect(200)).body as RunPageDto;
     expect(list.items.find((item) => item.id === run.id)!.winThreshold).toBe(threshold);
+
+    // The verdict mail and the PDF report name the general-attack figure and judge by ω_thr.
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ${run.verdict} · Fen link · run ${run.id}`);
+    expect(mail.text).toContain('no key against general attacks (entropy accumulation; n = 24');
+    expect(mail.text).toContain(`threshold ${threshold.toFixed(4)}`);
+    const pdf = await request(testApp.app).get(`/api/runs/${run.id}/export/pdf`).set('Authorization', `Bearer ${dev}`).buffer(true)
+      .parse((response, done) => {
+        // A binary body (the PDF) kept as bytes.
+        const chunks: Buffer[] = [];
+        response.on('data', (chunk: Buffer) => chunks.push(chunk));
+        response.on('end', () => done(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
+    const text = await pdfText(pdf.body as Buffer);
+    expect(text).toContain('Key against general attacks');
+    expect(text).toContain(`≥ ${threshold.toFixed(6)} (ω_thr`);
   }, 60_000);
 });

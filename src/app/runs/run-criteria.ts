@@ -1,4 +1,5 @@
 import { chshCriterion, qberCriterion } from '../../../shared/analysis/report/verdict';
+import { generalThresholdOf } from '../../../shared/analysis/report/win-threshold';
 import type { AnalysisResult } from '../../../shared/analysis/result';
 import { formatCount, formatFixed, formatPercent } from '../../../shared/format/numbers';
 
@@ -14,15 +15,6 @@ export interface Criterion {
   /** Which of observed and bound the verdict compares with the threshold. */
   readonly judgedOn: 'observed' | 'bound';
   readonly passes: boolean;
-}
-
-/** The threshold the run's CHSH win fraction is judged against: ω_Q − tolerance, or ω_thr under the general-attack model. */
-export function winThresholdOf(result: AnalysisResult): number {
-  return chshCriterion(result.chsh!, result.profile, generalThresholdOf(result)).threshold;
-}
-
-function generalThresholdOf(result: AnalysisResult): number | undefined {
-  return result.profile.securityModel === 'general' ? result.key?.generalAttack?.omegaThreshold : undefined;
 }
 
 /**

@@ -4,7 +4,7 @@ import type { AnalysisResult } from '../../../shared/analysis/result';
 import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../../shared/format/numbers';
 import { ChshScaleChart } from './chsh-scale-chart';
 import { KeyCaution } from './key-caution';
-import { winThresholdOf } from './run-criteria';
+import { winThresholdOf } from '../../../shared/analysis/report/win-threshold';
 
 /** The figures of an analysed run, each with its bound and threshold; the key figures with their caution. */
 @Component({
