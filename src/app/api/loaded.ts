@@ -13,3 +13,8 @@ export function loaded<T>(source: Observable<T>): Observable<Loaded<T>> {
     startWith<Loaded<T>>({ status: 'loading' }),
   );
 }
+
+/** The rows and total of a loaded page of a list, empty while loading or after a failure. */
+export function pageContents<T>(page: Loaded<{ items: T[]; total: number }>): { rows: T[]; total: number } {
+  return page.status === 'ready' ? { rows: page.value.items, total: page.value.total } : { rows: [], total: 0 };
+}

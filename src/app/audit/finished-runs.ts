@@ -14,7 +14,7 @@ import { Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, filter, map, of, switchMap } from 'rxjs';
 
 import { VERDICTS, type RunPageDto, type RunSummaryDto, type Verdict } from '../../../shared/api';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { RunsApi, type RunQuery } from '../runs/runs-api';
 import { ShortHash } from '../runs/short-hash';
@@ -93,14 +93,9 @@ export class FinishedRuns {
     toObservable(computed(() => ({ query: this.query(), attempt: this.reload() }))).pipe(switchMap(({ query }) => loaded(this.runsApi.list(query)))),
     { initialValue: { status: 'loading' } as Loaded<RunPageDto> },
   );
-  protected readonly rows = computed(() => {
-    const page = this.page();
-    return page.status === 'ready' ? page.value.items : [];
-  });
-  protected readonly total = computed(() => {
-    const page = this.page();
-    return page.status === 'ready' ? page.value.total : 0;
-  });
+  private readonly contents = computed(() => pageContents(this.page()));
+  protected readonly rows = computed(() => this.contents().rows);
+  protected readonly total = computed(() => this.contents().total);
   protected readonly filtered = computed(() => Object.keys(this.chosen()).length > 0);
 
   protected turnPage(event: PageEvent): void {

@@ -16,7 +16,7 @@ import { catchError, debounceTime, map, of, switchMap } from 'rxjs';
 
 import { AUDIT_TARGET_TYPES, type AuditPageDto, type AuditQuery, type AuditTargetType } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { trailDetail, trailWords } from '../runs/trail-words';
 import { AuditApi, type AuditFilters } from './audit-api';
 import { ACTION_FAMILIES, TARGET_WORDS, targetWords } from './audit-words';
@@ -84,14 +84,9 @@ export class SystemTrail {
     toObservable(computed(() => ({ query: this.query(), attempt: this.reload() }))).pipe(switchMap(({ query }) => loaded(this.auditApi.trail(query)))),
     { initialValue: { status: 'loading' } as Loaded<AuditPageDto> },
   );
-  protected readonly rows = computed(() => {
-    const page = this.page();
-    return page.status === 'ready' ? page.value.items : [];
-  });
-  protected readonly total = computed(() => {
-    const page = this.page();
-    return page.status === 'ready' ? page.value.total : 0;
-  });
+  private readonly contents = computed(() => pageContents(this.page()));
+  protected readonly rows = computed(() => this.contents().rows);
+  protected readonly total = computed(() => this.contents().total);
   protected readonly filtered = computed(() => Object.keys(this.chosen()).length > 0);
   protected readonly exporting = signal(false);
 

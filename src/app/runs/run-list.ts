@@ -16,7 +16,7 @@ import { catchError, debounceTime, of, switchMap } from 'rxjs';
 
 import { RUN_SORT_KEYS, RUN_STATES, VERDICTS, type RunSortKey, type RunState, type RunSummaryDto, type Verdict } from '../../../shared/api';
 import { formatCount, formatFixed, formatPercent } from '../../../shared/format/numbers';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { SetupsApi } from '../setups/setups-api';
 import { UsersApi } from '../users/users-api';
@@ -88,14 +88,9 @@ export class RunList {
     ),
     { initialValue: { status: 'loading' } as Loaded<never> },
   );
-  protected readonly rows = computed(() => {
-    const page = this.page();
-    return page.status === 'ready' ? page.value.items : [];
-  });
-  protected readonly total = computed(() => {
-    const page = this.page();
-    return page.status === 'ready' ? page.value.total : 0;
-  });
+  private readonly contents = computed(() => pageContents(this.page()));
+  protected readonly rows = computed(() => this.contents().rows);
+  protected readonly total = computed(() => this.contents().total);
   protected readonly filtered = computed(() => Object.keys(this.query()).some((key) => !(key in FIRST_PAGE)));
 
   protected readonly count = formatCount;
