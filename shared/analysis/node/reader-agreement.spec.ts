@@ -70,6 +70,9 @@ function chunked(bytes: Buffer, size: number) {
   };
 }
 
+// A hundred random logs per property: seconds of work, more when the machine runs other suites too.
+jest.setTimeout(60_000);
+
 describe('the fast reader agrees with csv-parse', () => {
   let scratch: string;
   beforeAll(() => {
