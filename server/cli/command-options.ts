@@ -2,7 +2,7 @@
 export class UsageError extends Error {}
 
 /** Parsed option values, as node:util `parseArgs` gives them. */
-export type OptionValues = Record<string, string | undefined>;
+export type OptionValues = Record<string, string | boolean | undefined>;
 
 /**
  * A number option, or undefined when absent: "1.5e6", "1500000" and "1_500_000" all read, and a
@@ -11,6 +11,7 @@ export type OptionValues = Record<string, string | undefined>;
 export function numberOption(values: OptionValues, name: string): number | undefined {
   const text = values[name];
   if (text === undefined) return undefined;
+  if (typeof text !== 'string') throw new UsageError(`--${name} needs a number`);
   const parts = text.replaceAll('_', '').split('/');
   const [numerator, denominator = 1] = parts.map((part) => (part.trim() === '' ? NaN : Number(part)));
   const value = numerator / denominator;

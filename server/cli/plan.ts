@@ -2,23 +2,26 @@ import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
 import { formatCount, formatPercent } from '../../shared/format/numbers';
+import { generalPlanProblem, planGeneralAttack } from '../../shared/planner/plan-general-attack';
 import { planRounds, PlanInputError } from '../../shared/planner/plan-rounds';
 import { numberOption, UsageError } from './command-options';
 
 const USAGE =
-  'usage: npm run --silent plan -- (--win <ω> | --s <S>) --qber <rate> [--profile <profile.json>] [--rounds <N>] [--rate <rounds/s>] [--x0 <P(x=0)>] [--test-fraction <share>]';
+  'usage: npm run --silent plan -- (--win <ω> | --s <S>) --qber <rate> [--profile <profile.json>] [--rounds <N>] [--rate <rounds/s>] [--x0 <P(x=0)>] [--test-fraction <share>] [--general]';
 const USAGE_ERROR = 2;
 
 /**
  * `plan`: the round-budget plan for tonight, as JSON on stdout (the `PlanDto` of `GET
  * /api/planner`) and a short summary on stderr. Without --rounds it plans at the smallest budget
- * that gives both a positive key and a 99 % chance of passing.
+ * that gives both a positive key and a 99 % chance of passing. --general adds the key length
+ * against general attacks (`generalAttack`, the `GeneralAttackPlanDto` of
+ * `GET /api/planner/general-attack`): a few seconds more.
  */
 async function main(): Promise<void> {
   let values;
   try {
     ({ values } = parseArgs({
-      options: { win: { type: 'string' }, s: { type: 'string' }, qber: { type: 'string' }, profile: { type: 'string' }, rounds: { type: 'string' }, rate: { type: 'string' }, x0: { type: 'string' }, 'test-fraction': { type: 'string' } },
+      options: { win: { type: 'string' }, s: { type: 'string' }, qber: { type: 'string' }, profile: { type: 'string' }, rounds: { type: 'string' }, rate: { type: 'string' }, x0: { type: 'string' }, 'test-fraction': { type: 'string' }, general: { type: 'boolean' } },
       strict: true,
       allowPositionals: false,
     }));
@@ -38,13 +41,15 @@ async function main(): Promise<void> {
       throw new UsageError(`cannot read the profile ${values.profile}: ${(error as Error).message}`);
     }
   }
-  const plan = planRounds({
+  const input = {
     device: { winFraction: win ?? winFractionFromChshValue(chshValue!), qber, trialRate: numberOption(values, 'rate'), xZeroProbability: numberOption(values, 'x0') },
     profile,
     rounds: numberOption(values, 'rounds'),
     testFraction: numberOption(values, 'test-fraction'),
-  });
-  process.stdout.write(`${JSON.stringify(plan, null, 2)}\n`);
+  };
+  const plan = planRounds(input);
+  const general = values.general ? planGeneralAttack(generalPlanProblem(input, plan)) : undefined;
+  process.stdout.write(`${JSON.stringify(general ? { ...plan, generalAttack: general } : plan, null, 2)}\n`);
   const { at } = plan;
   const budget = (rounds: number | null) => (rounds === null ? 'none up to the search limit' : `${formatCount(rounds)} rounds`);
   process.stderr.write(
@@ -52,6 +57,11 @@ async function main(): Promise<void> {
       `At ${formatCount(at.rounds)} rounds: pass ${formatPercent(at.passProbability.all, 1)} (CHSH ${formatPercent(at.passProbability.chsh, 1)}, QBER ${formatPercent(at.passProbability.qber, 1)}), expected finite key ${formatCount(at.expectedFiniteKeyBits)} bits (collective attacks, an estimate).`,
       `Positive key from ${budget(plan.roundsForPositiveKey)}; 99 % pass from ${budget(plan.roundsForLikelyPass)}.`,
       ...(at.acquisitionSeconds === null ? [] : [`Acquisition at ${formatCount(plan.device.trialRate!)} rounds/s: ${formatCount(at.acquisitionSeconds)} s.`]),
+      ...(general
+        ? [
+            `Against general attacks (entropy accumulation, an estimate): ${formatCount(general.at.bits)} bits at γ = ${general.at.testProbability}; a key from ${budget(general.roundsForPositiveKey)}; best γ ${general.bestTestProbability ? `${general.bestTestProbability.testProbability.toFixed(4)} (${formatCount(general.bestTestProbability.bits)} bits)` : 'none gives a key'}.`,
+          ]
+        : []),
       '',
     ].join('\n'),
   );

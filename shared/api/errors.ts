@@ -17,4 +17,5 @@ export type ApiErrorCode =
   | 'not-found'
   | 'conflict'
   | 'rate-limited'
+  | 'busy'
   | 'internal';

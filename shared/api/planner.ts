@@ -101,3 +101,45 @@ export interface PlanPrefillDto {
   /** Their median round count. */
   rounds: number | null;
 }
+
+/** What the general-attack key length is planned with. */
+export interface GeneralPlanSettingsDto {
+  /** `profile`: the profile's own settings; `device`: a protocol designed for the expected device. */
+  source: 'profile' | 'device';
+  soundness: number;
+  /** γ: the probability that a round is tested. */
+  testProbability: number;
+  /** Design S and QBER (m and ω_thr follow at each N), or null when fixed. */
+  design: { chshValue: number; qber: number } | null;
+  fixed: { omegaThreshold: number; syndromeBits: number } | null;
+}
+
+/** The general-attack key at one round budget and test probability. */
+export interface GeneralKeyPoint {
+  rounds: number;
+  testProbability: number;
+  /** ℓ from entropy accumulation, ≥ 0. */
+  bits: number;
+  syndromeBits: number;
+  omegaThreshold: number;
+  /** Why there is no key, when bits is 0. */
+  reason: string | null;
+  /** Probability that the observed CHSH win fraction reaches ω_thr. */
+  chshPassProbability: number;
+  /** With the error-rate criterion, the minimum test rounds and (when required) a positive key. */
+  passProbability: number;
+}
+
+/** `GET /api/planner/general-attack`: the key length against general attacks over N and γ. */
+export interface GeneralAttackPlanDto {
+  settings: GeneralPlanSettingsDto;
+  /** At the chosen N and γ. */
+  at: GeneralKeyPoint;
+  /** Over a logarithmic grid of N at γ. */
+  curve: GeneralKeyPoint[];
+  /** Smallest N with a positive general-attack key at γ, or null up to the search limit. */
+  roundsForPositiveKey: number | null;
+  /** The γ of most key at the chosen N, or null when no γ gives a key there. */
+  bestTestProbability: GeneralKeyPoint | null;
+  cautions: string[];
+}

@@ -9,10 +9,12 @@ import { firstIndexWhere } from './monotone-search';
 /**
  * Probability that the CHSH criterion passes with `rounds` CHSH test rounds each won with
  * probability ω: P(W ≥ w*) for W ~ Bin(rounds, ω), where w* is the fewest wins the engine's own
- * criterion (`chshCriterion` on `summariseChsh`) accepts.
+ * criterion (`chshCriterion` on `summariseChsh`) accepts; under the general model with the
+ * threshold ω_thr of `generalThreshold`.
  */
-export function chshPassProbability(rounds: number, winFraction: number, profile: AnalysisProfile): number {
-  const passes = (wins: number) => chshCriterion(summariseChsh(tableWith(countCell(0, 0, 0, 0), wins, countCell(0, 0, 0, 1), rounds - wins), profile.epsilon), profile).passes;
+export function chshPassProbability(rounds: number, winFraction: number, profile: AnalysisProfile, generalThreshold?: number): number {
+  const passes = (wins: number) =>
+    chshCriterion(summariseChsh(tableWith(countCell(0, 0, 0, 0), wins, countCell(0, 0, 0, 1), rounds - wins), profile.epsilon), profile, generalThreshold).passes;
   const fewest = firstIndexWhere(0, rounds, passes);
   return fewest === null ? 0 : 10 ** log10BinomialUpperTail(fewest, rounds, winFraction);
 }

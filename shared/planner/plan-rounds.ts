@@ -5,6 +5,7 @@ import { summariseQber } from '../analysis/report/qber-summary';
 import type { PlanDevice, PlanDto, PlanPoint, TestFractionPoint } from '../api/planner';
 import { chshPassProbability, qberPassProbability } from './criterion-pass';
 import { CHSH_SETTING_SHARE, expectedCountTable } from './expected-counts';
+import { generalPlanSettings, generalThresholdAt } from './general-plan-settings';
 import { firstIndexWhere } from './monotone-search';
 
 /** What the planner is asked. */
@@ -44,10 +45,12 @@ const FRACTION_STEP = 0.02;
  * and the best test fraction at N.
  */
 export function planRounds(input: PlanInput): PlanDto {
-  const { device, profile: parsedProfile, fixedFraction } = validated(input);
-  // The general-attack key length is not planned here yet: its optimiser would run at every point.
-  const profile: AnalysisProfile = { ...parsedProfile, generalAttack: undefined };
-  const pointAt = (rounds: number, testFraction = fixedFraction) => planPoint(device, profile, rounds, testFraction);
+  const { device, profile, fixedFraction } = validated(input);
+  // Under the general model the CHSH criterion is ω_thr, which moves with N and γ (cheap to compute);
+  // the general-attack key length itself, costlier, is planned apart (`planGeneralAttack`).
+  const general = profile.securityModel === 'general' ? generalPlanSettings(profile, device, fixedFraction) : null;
+  const thresholdAt = (rounds: number, testFraction: number) => (general && !('unavailable' in general) ? generalThresholdAt(general, rounds, testFraction) : undefined);
+  const pointAt = (rounds: number, testFraction = fixedFraction) => planPoint(device, profile, rounds, testFraction, thresholdAt(rounds, testFraction));
 
   const budgets = logGrid(SMALLEST_PLANNED, SEARCH_LIMIT, CURVE_POINTS_PER_DECADE);
   const smallest = (holds: (point: PlanPoint) => boolean) => {
@@ -83,26 +86,30 @@ export function planRounds(input: PlanInput): PlanDto {
 }
 
 /** The budget planned when none is given: enough for both a key and a likely pass, else the search limit. */
-function recommendedRounds(forKey: number | null, forPass: number | null): number {
+export function recommendedRounds(forKey: number | null, forPass: number | null): number {
   return forKey === null || forPass === null ? SEARCH_LIMIT : Math.max(forKey, forPass);
 }
 
-/** The expected run at one budget and test fraction. */
-function planPoint(device: PlanDevice, profile: AnalysisProfile, rounds: number, testFraction: number): PlanPoint {
+/**
+ * The expected run at one budget and test fraction; `generalThreshold` is ω_thr for a
+ * general-attack profile, whose positive-key requirement is judged on the general key instead.
+ */
+export function planPoint(device: PlanDevice, profile: AnalysisProfile, rounds: number, testFraction: number, generalThreshold?: number): PlanPoint {
   // fixed-fraction tests exactly ⌊fraction·N⌋ rounds; the others test each round with that probability.
   const testRounds = profile.testSelection.mode === 'fixed-fraction' ? Math.floor(testFraction * rounds) : testFraction * rounds;
   const test = expectedCountTable(device, testRounds);
   const generation = expectedCountTable(device, rounds - testRounds);
   const chsh = summariseChsh(test, profile.epsilon);
   const qber = summariseQber(test, generation, profile.epsilon);
-  const key = summariseKey(chsh, qber, profile, rounds);
+  // The collective key only: the general one is planned apart (an optimisation per point).
+  const key = summariseKey(chsh, qber, { ...profile, generalAttack: undefined }, rounds);
 
   const chshTestRounds = testRounds * CHSH_SETTING_SHARE;
   const keyTestRounds = qber.rounds;
   const blocking = (family: AnalysisProfile['blockingChecks'][number]) => profile.blockingChecks.includes(family);
   const minimumTestRounds = !blocking('minimum-test-rounds') || Math.min(chshTestRounds, keyTestRounds) >= profile.minTestRounds ? 1 : 0;
-  const positiveKey = !profile.requirePositiveKey || key.finiteKeyBits > 0 ? 1 : 0;
-  const chshPass = chshPassProbability(Math.round(chshTestRounds), device.winFraction, profile);
+  const positiveKey = !profile.requirePositiveKey || profile.securityModel === 'general' || key.finiteKeyBits > 0 ? 1 : 0;
+  const chshPass = chshPassProbability(Math.round(chshTestRounds), device.winFraction, profile, generalThreshold);
   const qberPass = qberPassProbability(Math.round(keyTestRounds), device.qber, profile);
   const asymptoticRate = key.asymptoticRate ?? 0;
   return {
@@ -136,7 +143,8 @@ function bestFraction(curve: TestFractionPoint[], pointAt: (fraction: number) =>
   return refined.expectedFiniteKeyBits >= best.expectedFiniteKeyBits ? refined : best;
 }
 
-function validated(input: PlanInput) {
+/** The checked device, profile and test fraction of a planner input. */
+export function validated(input: PlanInput) {
   const parsed = parseProfile(input.profile);
   if (!parsed.ok) throw new PlanInputError(`The profile is not valid: ${parsed.message}`, 'profile');
   const profile = parsed.profile;
@@ -152,7 +160,10 @@ function validated(input: PlanInput) {
   if (trialRate !== null && !(trialRate > 0 && Number.isFinite(trialRate))) throw new PlanInputError(`The trial rate must be a positive number of rounds per second; it is ${trialRate}.`, 'trialRate');
   const selection = profile.testSelection;
   let fixedFraction: number;
-  if (selection.mode === 'from-log') {
+  if (selection.mode === 'from-log' && profile.securityModel === 'general') {
+    // A general-attack profile fixes the probability its marking tests rounds with.
+    fixedFraction = profile.generalAttack!.testProbability!;
+  } else if (selection.mode === 'from-log') {
     if (input.testFraction === undefined) throw new PlanInputError('The profile takes its test rounds from the log: give the share of rounds the lab marks as test rounds.', 'testFraction');
     requireRange(input.testFraction, 0, 1, 'testFraction', 'The test fraction');
     fixedFraction = input.testFraction;
@@ -171,7 +182,7 @@ function requireRange(value: number, low: number, high: number, field: string, w
 }
 
 /** N from `low` to `high`, `perDecade` points per factor of ten. */
-function logGrid(low: number, high: number, perDecade: number): number[] {
+export function logGrid(low: number, high: number, perDecade: number): number[] {
   const steps = Math.round(Math.log10(high / low) * perDecade);
   return Array.from({ length: steps + 1 }, (_, i) => low * 10 ** (i / perDecade));
 }
@@ -182,7 +193,10 @@ function round6(value: number): number {
 
 function cautionsFor(profile: AnalysisProfile): string[] {
   return [
-    'Key figures are estimates against collective (i.i.d.) attacks; final security claims rest on the lab’s own proof, certification and local rules.',
+    'Key figures here are estimates against collective (i.i.d.) attacks; final security claims rest on the lab’s own proof, certification and local rules.',
+    ...(profile.securityModel === 'general'
+      ? ['The profile judges CHSH against ω_thr of the general model; its key length against general attacks, and any positive-key requirement, are planned beside this plan.']
+      : []),
     'Pass probabilities take the test-round counts at their expected values; the spread of the counts themselves is left out.',
     `The statistical checks (setting uniformity, no-signalling, drift) are not modelled: on a steady device each fails by chance with about the profile’s significance, ${profile.significance}.`,
     ...(profile.requirePositiveKey ? ['The profile requires a positive key: that is judged at the expected values, not as a probability.'] : []),

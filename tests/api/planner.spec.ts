@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { AnalysisResult } from '../../shared/analysis/result';
-import type { ApiErrorBody, PlanDto, PlanPrefillDto, RunDto } from '../../shared/api';
+import type { ApiErrorBody, GeneralAttackPlanDto, PlanDto, PlanPrefillDto, ProfileDto, RunDto } from '../../shared/api';
 import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
 import { planRounds } from '../../shared/planner/plan-rounds';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
@@ -39,6 +39,23 @@ describe('the planner through the API', () => {
     const noVersion = await request(testApp.app).get('/api/planner').query({ winFraction: 0.84, qber: 0.02, profileVersionId: 999 }).set(bearer()).expect(400);
     expect((noVersion.body as ApiErrorBody).error.field).toBe('profileVersionId');
   });
+
+  it('plans the key against general attacks in a thread: the published design’s key at N, the smallest N and the best γ', async () => {
+    // Nadlinger et al., Nature 607, 682 (2022), Supplementary Information: 95 884 bits at n = 1.5e6.
+    const admin = await testApp.signIn('maren.holt@kestrelfen.example', DEMO_PASSWORD);
+    const parameters = { testSelection: { mode: 'bernoulli', probability: 13 / 256 }, securityModel: 'general', generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } } };
+    const profile = (await request(testApp.app).post('/api/profiles').set('Authorization', `Bearer ${admin}`).send({ name: 'Designed general trial', parameters }).expect(201)).body as ProfileDto;
+    const query = { chshValue: 2.64, qber: 0.018, profileVersionId: profile.latestVersionId, rounds: 1_500_000 };
+    const plan = (await request(testApp.app).get('/api/planner/general-attack').query(query).set(bearer()).expect(200)).body as GeneralAttackPlanDto;
+    expect(Math.abs(plan.at.bits - 95_884)).toBeLessThanOrEqual(2);
+    expect(plan.settings).toMatchObject({ source: 'profile', soundness: 1e-10, testProbability: 13 / 256 });
+    expect(plan.roundsForPositiveKey).toBeLessThan(1_500_000);
+    expect(plan.bestTestProbability!.bits).toBeGreaterThan(plan.at.bits);
+    expect(plan.cautions.join(' ')).toContain('final security claims rest on the lab’s own proof');
+
+    const local = await request(testApp.app).get('/api/planner/general-attack').query({ winFraction: 0.74, qber: 0.02, profileVersionId: 1 }).set(bearer()).expect(400);
+    expect((local.body as ApiErrorBody).error).toMatchObject({ field: 'winFraction', message: expect.stringContaining('at or below the local bound') });
+  }, 120_000);
 
   it('pre-fills from the setup’s accepted runs, pooled', async () => {
     const empty = (await request(testApp.app).get('/api/planner/prefill').query({ setupId: fenLink }).set(bearer()).expect(200)).body as PlanPrefillDto;

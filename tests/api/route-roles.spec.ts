@@ -33,6 +33,8 @@ const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: 
   { method: 'get', path: '/api/runs/1/export/pdf', roles: 'any' },
   { method: 'get', path: '/api/planner?qber=0.02&winFraction=0.84&profileVersionId=1', roles: 'any' },
   { method: 'get', path: '/api/planner/prefill?setupId=1', roles: 'any' },
+  // An incomplete query: the role check passes and the input is refused at once (400), unplanned.
+  { method: 'get', path: '/api/planner/general-attack?qber=0.02', roles: 'any' },
   { method: 'get', path: '/api/audit', roles: ['auditor', 'admin'] },
   { method: 'get', path: '/api/audit/actors', roles: ['auditor', 'admin'] },
   { method: 'get', path: '/api/audit/export.csv', roles: ['auditor', 'admin'] },

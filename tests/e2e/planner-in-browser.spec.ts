@@ -1,4 +1,5 @@
 import { formatCount } from '../../shared/format/numbers';
+import { generalKeyPoint, generalPlanProblem } from '../../shared/planner/plan-general-attack';
 import { planRounds } from '../../shared/planner/plan-rounds';
 import { startBrowserSession, type BrowserSession } from '../support/browser-session';
 
@@ -33,6 +34,18 @@ describe('the planner in a real browser', () => {
     await page.getByTestId('planner-chart-rounds').locator('canvas').waitFor();
     await page.getByTestId('planner-chart-fraction').locator('canvas').waitFor();
     await session.screenshot(page, 'planner');
+
+    // The key against general attacks comes from the page's web workers, part by part.
+    const input = { device: { winFraction: 0.84, qber: 0.02, trialRate: 10_000 }, profile: version.parameters, rounds: 2_000_000 };
+    const general = generalKeyPoint(generalPlanProblem(input, plan), 2_000_000);
+    await page.getByTestId('plan-general-bits').filter({ hasText: `${formatCount(general.bits)} bits` }).waitFor();
+    await page.getByTestId('plan-general-rounds-for-key').filter({ hasText: 'rounds' }).waitFor({ timeout: 120_000 });
+    await page.getByTestId('plan-general-best-gamma').filter({ hasText: 'γ =' }).waitFor({ timeout: 120_000 });
+    expect(await page.getByTestId('plan-general-model').innerText()).toContain('Attack model: general');
+    await page.getByTestId('planner-general').scrollIntoViewIfNeeded();
+    await session.screenshot(page, 'planner-general-attack');
+    await page.getByTestId('planner-chart-rounds').scrollIntoViewIfNeeded();
+    await session.screenshot(page, 'planner-general-curve');
     await page.close();
-  }, 60_000);
+  }, 300_000);
 });

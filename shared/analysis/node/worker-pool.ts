@@ -1,15 +1,13 @@
 import * as path from 'node:path';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { AnalysisCancelledError } from './analysis-errors';
 import { RangeSummary } from '../log/range-analysis';
 import { RangeTask } from './range-task';
 import { WorkerReply } from './range-worker';
+import { startTypeScriptWorker } from './typescript-worker';
 
-/**
- * The worker file is TypeScript: each thread first installs tsx's CommonJS hook (the `--import tsx`
- * loader hooks do not reach worker threads on Node 20), then loads it.
- */
-const BOOTSTRAP = `require(${JSON.stringify(require.resolve('tsx/cjs'))}); require(${JSON.stringify(path.join(__dirname, 'range-worker.ts'))});`;
+/** Each thread runs this TypeScript file. */
+const RANGE_WORKER = path.join(__dirname, 'range-worker.ts');
 
 /**
  * A small young generation per thread: the scanner makes little garbage, and V8's default (tens of
@@ -23,7 +21,7 @@ export class WorkerPool {
 
   /** Starts `size` threads; an abort of `signal` stops them, failing the running tasks with `AnalysisCancelledError`. */
   constructor(size: number, signal?: AbortSignal) {
-    this.workers = Array.from({ length: size }, () => new Worker(BOOTSTRAP, { eval: true, resourceLimits: WORKER_LIMITS }));
+    this.workers = Array.from({ length: size }, () => startTypeScriptWorker(RANGE_WORKER, { resourceLimits: WORKER_LIMITS }));
     signal?.addEventListener('abort', () => void this.close(), { once: true });
   }
 

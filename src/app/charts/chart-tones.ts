@@ -1,5 +1,5 @@
 /** The colours charts share with the stylesheet: verdict tones, the threshold amber and the theme's primary. */
-export type ChartTone = 'accept' | 'abort' | 'invalid' | 'pending' | 'threshold' | 'primary';
+export type ChartTone = 'accept' | 'abort' | 'invalid' | 'pending' | 'threshold' | 'primary' | 'general';
 
 const PROPERTY: Record<ChartTone, string> = {
   accept: '--bk-accept',
@@ -8,6 +8,7 @@ const PROPERTY: Record<ChartTone, string> = {
   pending: '--bk-pending',
   threshold: '--bk-threshold',
   primary: '--bk-series',
+  general: '--bk-series-general',
 };
 
 /** The colour of `tone`, read from the page's custom properties so a tone has one value everywhere. */

@@ -54,16 +54,7 @@ import { formatProbability } from './pass-look';
       </div>
     </dl>
   `,
-  styles: `
-    .bk-plan-figures { margin: 0; }
-    .bk-plan-row { display: grid; grid-template-columns: 14em 1fr; gap: 12px; padding: 8px 0; border-top: 1px solid var(--mat-sys-outline-variant); }
-    .bk-plan-row:first-child { border-top: 0; }
-    dt { font: var(--mat-sys-label-large); color: var(--mat-sys-on-surface-variant); }
-    dd { margin: 0; }
-    dd strong { font-size: 1.15em; }
-    .bk-plan-note { display: block; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
-    @media (max-width: 700px) { .bk-plan-row { grid-template-columns: 1fr; gap: 2px; } }
-  `,
+  styleUrl: './plan-rows.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PlanFigures {

@@ -1,6 +1,6 @@
 import type { PlanDto } from '../../../shared/api';
 import type { AnalysisProfile } from '../../../shared/analysis/profile';
-import { planRounds, PlanInputError } from '../../../shared/planner/plan-rounds';
+import { planRounds, PlanInputError, type PlanInput } from '../../../shared/planner/plan-rounds';
 import { PLAN_FIELD_LABELS, planInputFrom, type PlannerFormValue } from './planner-form';
 import { takesTestRoundsFromLog, type ProfileVersionOption } from './profile-versions';
 
@@ -8,7 +8,7 @@ import { takesTestRoundsFromLog, type ProfileVersionOption } from './profile-ver
 export type PlanOutcome =
   | { status: 'waiting'; missing: string[] }
   | { status: 'refused'; field: string; message: string }
-  | { status: 'ready'; plan: PlanDto; profile: AnalysisProfile; roundsChosenByPlanner: boolean };
+  | { status: 'ready'; plan: PlanDto; profile: AnalysisProfile; input: PlanInput; roundsChosenByPlanner: boolean };
 
 /**
  * The plan for the settled form: `planRounds` from the shared engine, run here in the browser.
@@ -20,7 +20,7 @@ export function planOutcome(value: PlannerFormValue, missing: string[], version:
   try {
     const plan = planRounds(input);
     // planRounds refuses parameters that do not parse, so a computed plan has its parsed profile.
-    return { status: 'ready', plan, profile: version.profile!, roundsChosenByPlanner: input.rounds === undefined };
+    return { status: 'ready', plan, profile: version.profile!, input, roundsChosenByPlanner: input.rounds === undefined };
   } catch (error) {
     if (!(error instanceof PlanInputError)) throw error;
     return { status: 'refused', field: PLAN_FIELD_LABELS[error.field] ?? error.field, message: error.message };

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { PlanDto } from '../../../shared/api';
+import type { GeneralKeyPoint, PlanDto } from '../../../shared/api';
 import { formatCount, formatScientific } from '../../../shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 import { percentTick, powerOfTenTick } from './chart-ticks';
@@ -26,25 +26,29 @@ import { formatProbability } from './pass-look';
 export class PlanRoundsChart {
   /** The whole plan. */
   readonly plan = input.required<PlanDto>();
+  /** The key against general attacks over N, once the planner's workers have it. */
+  readonly generalCurve = input<GeneralKeyPoint[] | undefined>(undefined);
 
   protected readonly summary = computed(() => {
     const { curve, at } = this.plan();
     return (
       `Expected finite key and pass probability for N from ${formatScientific(curve[0].rounds, 1)} to ${formatScientific(curve[curve.length - 1].rounds, 1)} rounds. ` +
       `At the chosen N of ${formatCount(at.rounds)}: ${formatCount(at.expectedFiniteKeyBits)} bits, pass probability ${formatProbability(at.passProbability.all)}, ` +
-      `asymptotic limit ${formatCount(at.asymptoticKeyBits)} bits.`
+      `asymptotic limit ${formatCount(at.asymptoticKeyBits)} bits.` +
+      (this.generalCurve() ? ' The key against general attacks is drawn beside, from the same N.' : '')
     );
   });
 
   protected readonly data = computed<ChartData<'line', { x: number; y: number | null }[]>>(() => {
     const { curve, at } = this.plan();
+    const general = this.generalCurve();
     const key = chartTone('primary');
     // A logarithmic axis has no place for 0 bits: the key curves start where the key does.
     const bits = (value: number) => (value > 0 ? value : null);
     return {
       datasets: [
         {
-          label: 'Expected finite key (bits)',
+          label: 'Expected finite key, collective attacks (bits)',
           data: curve.map((point) => ({ x: point.rounds, y: bits(point.expectedFiniteKeyBits) })),
           yAxisID: 'bits',
           borderColor: key,
@@ -62,6 +66,19 @@ export class PlanRoundsChart {
           borderWidth: 1.5,
           pointRadius: 0,
         },
+        ...(general
+          ? [
+              {
+                label: 'Key against general attacks (bits)',
+                data: general.map((point) => ({ x: point.rounds, y: bits(point.bits) })),
+                yAxisID: 'bits',
+                borderColor: chartTone('general'),
+                backgroundColor: chartTone('general'),
+                borderWidth: 2,
+                pointRadius: 2,
+              },
+            ]
+          : []),
         {
           label: 'Pass probability',
           data: curve.map((point) => ({ x: point.rounds, y: point.passProbability.all })),

@@ -13,7 +13,37 @@ import { formatCount } from '../../../shared/format/numbers';
 import { planRounds } from '../../../shared/planner/plan-rounds';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
 import { formatDuration } from './duration';
+import { GENERAL_PLAN_WORKER, GeneralPlanRunner, type GeneralPlanWorker, type WorkerReply } from './general-plan-runner';
+import { generalPlanSteps, type GeneralPlanTask } from './general-plan-steps';
 import { PlannerPage } from './planner-page';
+import { generalAttackKeyLength } from '../../../shared/analysis/entropy-accumulation';
+import { chshValueFromWinFraction } from '../../../shared/analysis/statistics/chsh-value';
+
+/**
+ * A planner worker in the test's own thread: it keeps the task it is given and answers only when
+ * the test asks, with the real steps (each is a full key-length optimisation).
+ */
+class HeldWorker implements GeneralPlanWorker {
+  onmessage: ((event: MessageEvent<WorkerReply>) => void) | null = null;
+  task: GeneralPlanTask | null = null;
+  terminated = false;
+  private steps: Generator | null = null;
+
+  postMessage(task: GeneralPlanTask): void {
+    this.task = task;
+    this.steps = generalPlanSteps(task);
+  }
+
+  /** Computes and delivers the task's next step. */
+  answerNextStep(): void {
+    const next = this.steps!.next();
+    this.onmessage!({ data: next.done ? { done: true } : { step: next.value } } as MessageEvent<WorkerReply>);
+  }
+
+  terminate(): void {
+    this.terminated = true;
+  }
+}
 
 /** A profile version's parameters as the API sends them: complete, defaults filled in. */
 function storedParameters(input: object): Record<string, unknown> {
@@ -70,6 +100,7 @@ describe('PlannerPage', () => {
   let http: HttpTestingController;
   let fixture: ComponentFixture<PlannerPage>;
   let host: HTMLElement;
+  let workers: HeldWorker[];
 
   beforeAll(() => {
     // jsdom has no canvas (it would log that getContext is not implemented): without a context
@@ -80,8 +111,22 @@ describe('PlannerPage', () => {
   afterAll(() => jest.restoreAllMocks());
 
   beforeEach(async () => {
+    workers = [];
+    const startWorker = () => {
+      const worker = new HeldWorker();
+      workers.push(worker);
+      return worker;
+    };
     TestBed.configureTestingModule({
-      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), CHART_PROVIDERS, { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        CHART_PROVIDERS,
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        GeneralPlanRunner,
+        { provide: GENERAL_PLAN_WORKER, useValue: startWorker },
+      ],
     });
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(PlannerPage);
@@ -244,5 +289,30 @@ describe('PlannerPage', () => {
 
     expect(text('planner-refused')).toMatch(/^Rounds \(N\): The round budget must be a whole number from 100/);
     expect(host.querySelector('[data-testid="plan-pass-all"]')).toBeNull();
+  });
+
+  it('computes the key against general attacks in workers, shows it as it arrives, and drops a stale plan', async () => {
+    await typeDevice('0.84', '2', '2e6');
+    await settle();
+    const running = workers.filter((worker) => !worker.terminated);
+    expect(running.map((worker) => worker.task!.part).sort()).toEqual(['gamma', 'rounds']);
+    expect(text('plan-general-bits')).toBe('Computing…');
+    expect(text('plan-general-model')).toContain('This profile judges by collective attacks');
+
+    const rounds = running.find((worker) => worker.task!.part === 'rounds')!;
+    rounds.answerNextStep();
+    await fixture.whenStable();
+    // The profile has no general settings: the protocol is designed for the typed device, ε = 1e-10.
+    const expected = generalAttackKeyLength({ rounds: 2_000_000, testProbability: 0.5, soundness: 1e-10, design: { chshValue: chshValueFromWinFraction(0.84), qber: 0.02 } });
+    expect(text('plan-general-bits')).toContain(`${formatCount(expected.bits)} bits`);
+    expect(text('plan-general-bits')).toContain(`syndrome ${formatCount(expected.syndromeBits)} bits`);
+    expect(text('plan-general-rounds-for-key')).toBe('Computing…');
+    expect(text('plan-general-cautions')).toContain('designed for the expected device');
+
+    // A new input stops the workers of the old one.
+    await type('planner-rounds', '3e6');
+    await settle();
+    expect(running.every((worker) => worker.terminated)).toBe(true);
+    expect(workers.filter((worker) => !worker.terminated).map((worker) => worker.task!.input.rounds)).toEqual([3_000_000, 3_000_000]);
   });
 });

@@ -19,7 +19,9 @@ import { LIKELY_PASS } from '../../../shared/planner/plan-rounds';
 import { loaded, type Loaded } from '../api/loaded';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { SetupsApi } from '../setups/setups-api';
+import { GeneralPlanRunner } from './general-plan-runner';
 import { PlanFigures } from './plan-figures';
+import { PlanGeneralFigures } from './plan-general-figures';
 import { PlanFractionChart } from './plan-fraction-chart';
 import { planOutcome } from './plan-outcome';
 import { PlanPassTable } from './plan-pass-table';
@@ -52,6 +54,7 @@ const PREFILLED_LABELS = [FIELD_LABELS.winFraction, FIELD_LABELS.chshValue, FIEL
     MatSelectModule,
     PlanFigures,
     PlanFractionChart,
+    PlanGeneralFigures,
     PlanPassTable,
     PlanRoundsChart,
     ReactiveFormsModule,
@@ -64,6 +67,7 @@ const PREFILLED_LABELS = [FIELD_LABELS.winFraction, FIELD_LABELS.chshValue, FIEL
 export class PlannerPage {
   private readonly plannerApi = inject(PlannerApi);
   private readonly profilesApi = inject(ProfilesApi);
+  private readonly generalPlans = inject(GeneralPlanRunner);
 
   protected readonly form = createPlannerForm();
   protected readonly labels = FIELD_LABELS;
@@ -103,6 +107,18 @@ export class PlannerPage {
   protected readonly outcome = computed(() => {
     const { value, missing } = this.settled();
     return planOutcome(value, missing, this.versions().find((version) => version.id === value.profileVersionId));
+  });
+
+  /** The general-attack plan of the same input, computed in workers and shown as its parts arrive. */
+  protected readonly general = toSignal(
+    toObservable(this.outcome).pipe(
+      switchMap((outcome) => (outcome.status === 'ready' ? this.generalPlans.run({ input: outcome.input, recommended: outcome.plan }) : of(null))),
+    ),
+    { initialValue: null },
+  );
+  protected readonly generalCurve = computed(() => {
+    const general = this.general();
+    return general && 'plan' in general ? general.plan.curve : undefined;
   });
 
   /** The other measure of the device, converted: S under an ω, ω under an S (the bounds while empty). */
