@@ -116,6 +116,29 @@ describe('ProfileDialog', () => {
     expect(close).not.toHaveBeenCalled();
   });
 
+  it('edits the general-attack settings: the design values shown, each checked by the engine, all saved', async () => {
+    const parameters = (parseProfile({ testSelection: { mode: 'bernoulli', probability: 13 / 256 }, securityModel: 'general', generalAttack: { design: { chshValue: 2.64, qber: 0.018 } } }) as { profile: Record<string, unknown> }).profile;
+    const host = open({ profile: { ...nightly, versions: [{ ...nightly.versions[0], parameters }] } });
+    const shown = (field: string) => host.querySelector<HTMLInputElement>(`[data-testid="profile-${field}"]`)?.value;
+    expect([shown('generalSoundness'), shown('designChshValue'), shown('designQber')]).toEqual(['1e-10', '2.64', '0.018']);
+    // The fixed basis and the marking's γ are not part of this profile: their fields are not shown.
+    expect([shown('omegaThreshold'), shown('syndromeBits'), shown('generalTestProbability')]).toEqual([undefined, undefined, undefined]);
+
+    await type(host, 'designChshValue', '2.9');
+    await type(host, 'designQber', '0.6');
+    await submit(host);
+    expect(errors(host)).toEqual(['Must be at most 2√2.', 'The design QBER must be below 0.5.']);
+    http.expectNone('/api/profiles/1/versions');
+
+    await type(host, 'designChshValue', '2.7');
+    await type(host, 'designQber', '0.02');
+    await type(host, 'generalSoundness', '1e-9');
+    await submit(host);
+    const request = http.expectOne('/api/profiles/1/versions');
+    expect(request.request.body.parameters.generalAttack).toEqual({ soundness: 1e-9, design: { chshValue: 2.7, qber: 0.02 } });
+    expect(request.request.body.parameters.securityModel).toBe('general');
+  });
+
   it('needs a name for a new profile', async () => {
     const host = open({ profile: null });
     await submit(host);

@@ -12,6 +12,7 @@ import type { ProfileDto } from '../../../shared/api';
 import { parseProfile, type AnalysisProfile } from '../../../shared/analysis/profile';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CHECK_FAMILY_OPTIONS, FIELD_MEANINGS, NUMBER_FIELDS } from './profile-fields';
+import { GENERAL_FIELDS } from './general-attack-form';
 import { profileForm, profileParameters } from './profile-form';
 import { ProfilesApi } from './profiles-api';
 
@@ -42,6 +43,7 @@ export class ProfileDialog {
   protected readonly profile = inject<ProfileDialogData>(MAT_DIALOG_DATA).profile;
   protected readonly meanings = FIELD_MEANINGS;
   protected readonly numberFields = NUMBER_FIELDS;
+  protected readonly generalFields = GENERAL_FIELDS;
   protected readonly checkFamilies = CHECK_FAMILY_OPTIONS;
   protected readonly form = profileForm(
     (this.profile?.versions[0]?.parameters as AnalysisProfile | undefined) ?? defaultProfile(),

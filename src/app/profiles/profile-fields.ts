@@ -1,3 +1,4 @@
+import type { GeneralAttackControls } from './general-attack-form';
 import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '../../../shared/analysis/profile';
 import { formatCount, formatScientific } from '../../../shared/format/numbers';
 
@@ -24,7 +25,10 @@ export const NUMBER_FIELDS: readonly NumberField[] = [
 ];
 
 /** Label and meaning of every profile field. */
-export const FIELD_MEANINGS: Record<NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks', FieldMeaning> = {
+export const FIELD_MEANINGS: Record<
+  NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks' | keyof GeneralAttackControls,
+  FieldMeaning
+> = {
   mode: { label: 'Test rounds chosen', hint: 'By a fixed share drawn from the seed, by each round independently, or by the log’s own test column.' },
   fraction: { label: 'Test fraction', hint: 'Exactly this share of all rounds is tested (between 0 and 1). Common: 0.01–0.5.' },
   probability: { label: 'Test probability γ', hint: 'Each round is tested with this probability, independently (between 0 and 1).' },
@@ -34,8 +38,18 @@ export const FIELD_MEANINGS: Record<NumberField | 'mode' | 'fraction' | 'probabi
   criterion: { label: 'Judged on', hint: 'Observed values against the thresholds, or their confidence bounds (certified: stricter).' },
   securityModel: {
     label: 'Attack model of the key',
-    hint: 'Collective: the finite key estimate, assuming i.i.d. devices. General: the entropy-accumulation key length, which needs round-by-round test selection and its settings (soundness, design S and QBER) given through the API.',
+    hint: 'Collective: the finite key estimate, assuming i.i.d. devices. General: the entropy-accumulation key length, which needs round-by-round test selection and its settings below; CHSH is then judged against ω_thr.',
   },
+  generalBasis: {
+    label: 'Key against general attacks',
+    hint: 'Computed from design values (the syndrome length m and threshold ω_thr follow at each run’s N), from a fixed m and ω_thr, or not at all (collective profiles only).',
+  },
+  generalSoundness: { label: 'Total soundness ε', hint: 'Soundness of the whole protocol, split by the optimiser, e.g. 1e-10. Above 4·2⁻⁶¹, below 1.' },
+  designChshValue: { label: 'Design CHSH value S', hint: 'The S the protocol is designed for: above 2, at most 2√2 ≈ 2.8284.' },
+  designQber: { label: 'Design QBER', hint: 'The error rate the syndrome length is designed for, between 0 and 0.5, e.g. 0.018.' },
+  omegaThreshold: { label: 'Threshold ω_thr', hint: 'Fixed acceptance threshold on the CHSH win fraction: above 3/4, below 1.' },
+  syndromeBits: { label: 'Syndrome length m (bits)', hint: 'Bits error correction discloses, fixed in advance. A whole number ≥ 0.' },
+  generalTestProbability: { label: 'Test probability γ of the marking', hint: 'The probability with which the lab marks a round as a test round (its test column).' },
   minTestRounds: { label: 'Minimum test rounds', hint: 'Fewest CHSH test rounds, and fewest key-setting test rounds, a run may have. A whole number ≥ 1.' },
   reconciliationEfficiency: { label: 'Error-correction efficiency f', hint: 'Bits leaked per bit of Shannon limit, from 1 to 2. Common: 1.1–1.2.' },
   epsilonEC: { label: 'ε of error correction', hint: 'Failure probability of error correction, e.g. 1e-10.' },

@@ -1,42 +1,21 @@
-import { FormControl, FormGroup, Validators, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
+import { FormControl, FormGroup, Validators } from '@angular/forms';
 
-import { parseProfile, type AnalysisProfile, type CheckFamily, type TestSelection } from '../../../shared/analysis/profile';
+import type { AnalysisProfile, CheckFamily, TestSelection } from '../../../shared/analysis/profile';
+import { engineRule, followGeneralBasis, generalAttackControls, generalAttackParameters, numberOf, type GeneralAttackControls } from './general-attack-form';
 import { NUMBER_FIELDS, profileNumberText, type NumberField } from './profile-fields';
 
 /** The controls of a profile form: the profile's fields, numbers as text. */
-export type ProfileControls = Record<NumberField, FormControl<string>> & {
+export type ProfileControls = Record<NumberField, FormControl<string>> &
+  GeneralAttackControls & {
   mode: FormControl<TestSelection['mode']>;
   fraction: FormControl<string>;
   probability: FormControl<string>;
   criterion: FormControl<AnalysisProfile['criterion']>;
   securityModel: FormControl<AnalysisProfile['securityModel']>;
-  /** Carried over unchanged: the general-attack settings are edited through the API for now. */
-  generalAttack: FormControl<AnalysisProfile['generalAttack'] | null>;
   requirePositiveKey: FormControl<boolean>;
   blockingChecks: FormControl<CheckFamily[]>;
   note: FormControl<string>;
 };
-
-/** A number typed as text: the number it reads as, or NaN (which the engine calls "not a number"). */
-function numberOf(text: string): number {
-  return text.trim() === '' ? NaN : Number(text.trim());
-}
-
-/**
- * A validator by the engine's own profile rules for one field: the field alone, every other field at
- * its default, goes through `parseProfile`; its message (without the "profile field …:" prefix) is the
- * error. `partial` builds the profile fragment from the control's value.
- */
-function engineRule(partial: (value: never) => Record<string, unknown>): ValidatorFn {
-  return (control: AbstractControl): ValidationErrors | null => {
-    const parsed = parseProfile(partial(control.value as never));
-    return parsed.ok ? null : { profile: sentence(parsed.message.replace(/^profile field [^:]+: /, '')) };
-  };
-}
-
-function sentence(message: string): string {
-  return message.charAt(0).toUpperCase() + message.slice(1) + (message.endsWith('.') || message.endsWith(')') ? '' : '.');
-}
 
 /** A form for a complete profile, filled from `profile`; each field validated by the engine's rules. */
 export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls> {
@@ -63,13 +42,14 @@ export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls
     }),
     criterion: new FormControl(profile.criterion, { nonNullable: true }),
     securityModel: new FormControl(profile.securityModel ?? 'collective', { nonNullable: true }),
-    generalAttack: new FormControl(profile.generalAttack ?? null),
+    ...generalAttackControls(profile),
     requirePositiveKey: new FormControl(profile.requirePositiveKey, { nonNullable: true }),
     blockingChecks: new FormControl([...profile.blockingChecks], { nonNullable: true }),
     note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
   });
-  // Only the share of the chosen selection mode is part of the profile.
+  // Only the share of the chosen selection mode, and the general settings of the chosen basis, are part of the profile.
   const followMode = (mode: TestSelection['mode']) => {
+    followGeneralBasis(form.controls, form.controls.generalBasis.value, mode);
     if (mode === 'fixed-fraction') form.controls.fraction.enable({ emitEvent: false });
     else form.controls.fraction.disable({ emitEvent: false });
     if (mode === 'bernoulli') form.controls.probability.enable({ emitEvent: false });
@@ -77,6 +57,7 @@ export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls
   };
   followMode(selection.mode);
   form.controls.mode.valueChanges.subscribe(followMode);
+  form.controls.generalBasis.valueChanges.subscribe((basis) => followGeneralBasis(form.controls, basis, form.controls.mode.value));
   return form;
 }
 
@@ -96,6 +77,6 @@ export function profileParameters(form: FormGroup<ProfileControls>): Record<stri
     requirePositiveKey: value.requirePositiveKey,
     blockingChecks: value.blockingChecks,
     securityModel: value.securityModel,
-    ...(value.generalAttack ? { generalAttack: value.generalAttack } : {}),
+    ...generalAttackParameters(value, value.mode),
   };
 }
