@@ -116,8 +116,11 @@ export interface GeneralPlanSettingsDto {
 
 /** The general-attack key at one round budget and test probability. */
 export interface GeneralKeyPoint {
+  /** Log rounds N and the probability γ that one is tested. */
   rounds: number;
   testProbability: number;
+  /** The sub-protocol the bound is applied to: CHSH test and key-setting generation rounds n′, tested with γ′. */
+  sifted: { rounds: number; testProbability: number };
   /** ℓ from entropy accumulation, ≥ 0. */
   bits: number;
   syndromeBits: number;

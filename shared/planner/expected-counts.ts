@@ -1,7 +1,6 @@
 import { COUNT_CELLS, countCell } from '../analysis/tally/count-table';
 
-/** Share of the rounds with station B's setting y ∈ {0, 1} (CHSH rounds): y is uniform over 0, 1, 2. */
-export const CHSH_SETTING_SHARE = 2 / 3;
+export { CHSH_SETTING_SHARE } from '../analysis/report/sifted-protocol';
 
 /** The device as the planner expects it. */
 export interface ExpectedDevice {

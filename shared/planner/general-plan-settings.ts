@@ -1,5 +1,6 @@
 import type { AnalysisProfile } from '../analysis/profile';
 import { designThreshold } from '../analysis/entropy-accumulation/design-threshold';
+import { expectedSiftedProtocol } from '../analysis/report/sifted-protocol';
 import { chshValueFromWinFraction } from '../analysis/statistics/chsh-value';
 import { LOCAL_WIN_FRACTION } from '../analysis/statistics/bell-bounds';
 import type { GeneralPlanSettingsDto, PlanDevice } from '../api/planner';
@@ -30,9 +31,14 @@ export function generalPlanSettings(profile: AnalysisProfile, device: PlanDevice
   return { source: 'device', soundness: DEFAULT_SOUNDNESS, testProbability, design, fixed: null };
 }
 
-/** ω_thr at N rounds and test probability γ: the design threshold, or the fixed one. */
-export function generalThresholdAt(settings: GeneralPlanSettingsDto, rounds: number, testProbability = settings.testProbability): number {
-  return settings.design ? designThreshold(rounds, testProbability, settings.design.chshValue) : settings.fixed!.omegaThreshold;
+/**
+ * ω_thr of N log rounds tested with probability γ: the design threshold over the expected
+ * sub-protocol (`expectedSiftedProtocol`), or the fixed one.
+ */
+export function generalThresholdAt(settings: GeneralPlanSettingsDto, logRounds: number, testProbability: number, xZeroProbability: number): number {
+  if (!settings.design) return settings.fixed!.omegaThreshold;
+  const sifted = expectedSiftedProtocol(logRounds, testProbability, xZeroProbability);
+  return designThreshold(sifted.rounds, sifted.testProbability, settings.design.chshValue);
 }
 
 /** The profile judged as the general model judges it (the CHSH criterion against ω_thr). */

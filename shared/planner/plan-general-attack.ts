@@ -1,9 +1,10 @@
 import { generalAttackKeyLength } from '../analysis/entropy-accumulation';
 import type { AnalysisProfile } from '../analysis/profile';
+import { expectedSiftedProtocol } from '../analysis/report/sifted-protocol';
 import type { GeneralAttackPlanDto, GeneralKeyPoint, GeneralPlanSettingsDto, PlanDevice } from '../api/planner';
 import { chshPassProbability } from './criterion-pass';
 import { CHSH_SETTING_SHARE } from './expected-counts';
-import { asGeneralProfile, generalPlanSettings, generalThresholdAt } from './general-plan-settings';
+import { asGeneralProfile, generalPlanSettings } from './general-plan-settings';
 import { firstIndexWhere } from './monotone-search';
 import { logGrid, planPoint, PlanInputError, recommendedRounds, SEARCH_LIMIT, validated, type PlanInput } from './plan-rounds';
 
@@ -38,22 +39,24 @@ export function generalPlanProblem(input: PlanInput, recommended: { roundsForPos
 }
 
 /**
- * The general-attack key at N and γ (`generalAttackKeyLength`, the entropy accumulation bound with
- * every free parameter optimised) and the chance a run of the expected device passes: the CHSH
- * win fraction against ω_thr on the expected CHSH test rounds γ·N·⅔, the other criteria as the
- * collective plan models them.
+ * The general-attack key of N log rounds at γ (`generalAttackKeyLength`, the entropy accumulation
+ * bound with every free parameter optimised, over the expected sub-protocol of CHSH test and
+ * key-setting generation rounds, `expectedSiftedProtocol`) and the chance a run of the expected
+ * device passes: the CHSH win fraction against ω_thr on the expected CHSH test rounds γ·N·⅔, the
+ * other criteria as the collective plan models them.
  */
 export function generalKeyPoint(problem: GeneralPlanProblem, rounds: number, testProbability = problem.settings.testProbability): GeneralKeyPoint {
   const { device, profile, settings } = problem;
-  const common = { rounds, testProbability, soundness: settings.soundness };
+  const sifted = expectedSiftedProtocol(rounds, testProbability, device.xZeroProbability);
+  const common = { ...sifted, soundness: settings.soundness };
   const length = settings.design ? generalAttackKeyLength({ ...common, design: settings.design }) : generalAttackKeyLength({ ...common, ...settings.fixed! });
-  const threshold = generalThresholdAt(settings, rounds, testProbability);
-  const chsh = chshPassProbability(Math.round(testProbability * rounds * CHSH_SETTING_SHARE), device.winFraction, asGeneralProfile(profile), threshold);
+  const chsh = chshPassProbability(Math.round(testProbability * rounds * CHSH_SETTING_SHARE), device.winFraction, asGeneralProfile(profile), length.omegaThreshold);
   const collective = planPoint(device, profile, rounds, testProbability).passProbability;
   const positiveKey = !profile.requirePositiveKey || length.bits > 0 ? 1 : 0;
   return {
     rounds,
     testProbability,
+    sifted,
     bits: length.bits,
     syndromeBits: length.syndromeBits,
     omegaThreshold: length.omegaThreshold,
@@ -134,6 +137,7 @@ export function generalPlanCautions(settings: GeneralPlanSettingsDto): string[] 
     settings.source === 'device'
       ? 'The profile has no general-attack settings: the protocol is designed for the expected device (its S and QBER as design values, soundness 1e-10).'
       : 'Syndrome length and threshold come from the profile’s general-attack settings.',
+    'The bound is applied to the CHSH test rounds and key-setting generation rounds of the log (about N·(⅔γ + ⅙(1 − γ)) of them, tested with γ′ = 4γ/(1 + 3γ)); the other rounds are set aside by their settings.',
     'Pass probabilities take the CHSH test rounds at their expected number γ·N·⅔; the spread of that number is left out.',
   ];
 }

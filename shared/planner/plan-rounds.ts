@@ -49,7 +49,7 @@ export function planRounds(input: PlanInput): PlanDto {
   // Under the general model the CHSH criterion is ω_thr, which moves with N and γ (cheap to compute);
   // the general-attack key length itself, costlier, is planned apart (`planGeneralAttack`).
   const general = profile.securityModel === 'general' ? generalPlanSettings(profile, device, fixedFraction) : null;
-  const thresholdAt = (rounds: number, testFraction: number) => (general && !('unavailable' in general) ? generalThresholdAt(general, rounds, testFraction) : undefined);
+  const thresholdAt = (rounds: number, testFraction: number) => (general && !('unavailable' in general) ? generalThresholdAt(general, rounds, testFraction, device.xZeroProbability) : undefined);
   const pointAt = (rounds: number, testFraction = fixedFraction) => planPoint(device, profile, rounds, testFraction, thresholdAt(rounds, testFraction));
 
   const budgets = logGrid(SMALLEST_PLANNED, SEARCH_LIMIT, CURVE_POINTS_PER_DECADE);

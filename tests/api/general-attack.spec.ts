@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { formatCount } from '../../shared/format/numbers';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
@@ -39,7 +40,7 @@ describe('a profile under the general-attack model, through the API', () => {
     const run = await waitForFinishedRun(testApp.app, dev, (created.body as RunDto).id);
     const result = run.result as unknown as AnalysisResult;
     // 24 000 rounds are far too few for a key against general attacks: no key, with the reason.
-    expect(result.key!.generalAttack).toMatchObject({ rounds: 24_000, testProbability: 0.5, bits: 0, reason: expect.stringContaining('give no key') });
+    expect(result.key!.generalAttack).toMatchObject({ logRounds: 24_000, logTestProbability: 0.5, bits: 0, reason: expect.stringContaining('give no key') });
     const threshold = result.key!.generalAttack!.omegaThreshold;
     expect(run.verdict).toBe(result.chsh!.winFraction! >= threshold ? 'ACCEPT' : 'ABORT');
 
@@ -48,7 +49,9 @@ describe('a profile under the general-attack model, through the API', () => {
 
     // The verdict mail and the PDF report name the general-attack figure and judge by ω_thr.
     const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ${run.verdict} · Fen link · run ${run.id}`);
-    expect(mail.text).toContain('no key against general attacks (entropy accumulation; n = 24');
+    const general = result.key!.generalAttack!;
+    expect(mail.text).toContain(`no key against general attacks (entropy accumulation; over the ${formatCount(general.rounds)} CHSH test and key-setting generation rounds`);
+    expect(mail.text).toContain(`(γ = 0.5000 of all ${formatCount(24_000)})`);
     expect(mail.text).toContain(`threshold ${threshold.toFixed(4)}`);
     const pdf = await request(testApp.app).get(`/api/runs/${run.id}/export/pdf`).set('Authorization', `Bearer ${dev}`).buffer(true)
       .parse((response, done) => {

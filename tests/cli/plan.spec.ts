@@ -48,22 +48,25 @@ describe('plan command', () => {
 
   describe('with --general, for the published design', () => {
     // Nadlinger et al., Nature 607, 682 (2022), Supplementary Information: n = 1.5e6, γ = 13/256,
-    // S = 2.64, QBER 1.8 %, soundness 1e-10 → m = 296 517, ω_thr ≈ 0.825538, 95 884 bits.
-    const designed = { testSelection: { mode: 'bernoulli', probability: 13 / 256 }, securityModel: 'general', generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } } };
+    // S = 2.64, QBER 1.8 %, soundness 1e-10 → m = 296 517, ω_thr ≈ 0.825538, 95 884 bits. Here as the
+    // sub-protocol of CHSH test and key-setting rounds of N = 8 657 227 log rounds at γ = 13/985.
+    const designed = { testSelection: { mode: 'bernoulli', probability: 13 / 985 }, securityModel: 'general', generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } } };
     let general: GeneralAttackPlanDto;
     let problem: GeneralPlanProblem;
 
     beforeAll(() => {
       fs.writeFileSync(profileFile, JSON.stringify(designed));
-      const run = runPlan('--s', '2.64', '--qber', '0.018', '--profile', profileFile, '--rounds', '1.5e6', '--general');
+      const run = runPlan('--s', '2.64', '--qber', '0.018', '--profile', profileFile, '--rounds', '8657227', '--general');
       expect(run.status).toBe(0);
       expect(run.stderr).toContain('Against general attacks (entropy accumulation, an estimate)');
       general = JSON.parse(run.stdout).generalAttack;
-      problem = generalPlanProblem({ device: { winFraction: winFractionFromChshValue(2.64), qber: 0.018 }, profile: designed, rounds: 1_500_000 }, { roundsForPositiveKey: null, roundsForLikelyPass: null });
+      problem = generalPlanProblem({ device: { winFraction: winFractionFromChshValue(2.64), qber: 0.018 }, profile: designed, rounds: 8_657_227 }, { roundsForPositiveKey: null, roundsForLikelyPass: null });
     }, 120_000);
 
     it('reproduces the published key at N and draws a curve that grows with N', () => {
       expect(Math.abs(general.at.bits - 95_884)).toBeLessThanOrEqual(2);
+      expect(general.at.sifted.rounds).toBe(1_500_000);
+      expect(general.at.sifted.testProbability).toBeCloseTo(13 / 256, 15);
       expect(general.at.syndromeBits).toBe(296_517);
       expect(general.settings.source).toBe('profile');
       const bits = general.curve.map((point) => point.bits);
@@ -75,7 +78,7 @@ describe('plan command', () => {
 
     it('gives the exact smallest N for a key: none one round below it', () => {
       const smallest = general.roundsForPositiveKey!;
-      expect(smallest).toBeLessThan(1_500_000);
+      expect(smallest).toBeLessThan(8_657_227);
       expect(generalKeyPoint(problem, smallest).bits).toBeGreaterThan(0);
       expect(generalKeyPoint(problem, smallest - 1).bits).toBe(0);
     }, 60_000);
@@ -83,7 +86,7 @@ describe('plan command', () => {
     it('gives the best γ at N: more key than the profile’s γ, and than a γ 3 % either side', () => {
       const best = general.bestTestProbability!;
       expect(best.bits).toBeGreaterThan(general.at.bits);
-      for (const factor of [0.97, 1.03]) expect(generalKeyPoint(problem, 1_500_000, best.testProbability * factor).bits).toBeLessThanOrEqual(best.bits);
+      for (const factor of [0.97, 1.03]) expect(generalKeyPoint(problem, 8_657_227, best.testProbability * factor).bits).toBeLessThanOrEqual(best.bits);
     }, 60_000);
   });
 });

@@ -46,7 +46,7 @@ export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: Anal
     chshValueLower,
     minEntropyPerRound: chshValueLower === null ? null : minEntropyPerRound(chshValueLower),
     finiteKeyBits: Math.max(0, finite),
-    ...generalFigures(summariseGeneralKey(rounds, profile)),
+    ...generalFigures(summariseGeneralKey({ logRounds: rounds, chshTestRounds: chsh.rounds, keyGenerationRounds: rawBits }, profile)),
   };
 }
 

@@ -32,7 +32,10 @@ import { formatProbability } from './pass-look';
           <dd data-testid="plan-general-bits">
             @if (plan.at; as at) {
               <strong>{{ count(at.bits) }}</strong> bits{{ at.bits === 0 ? ' (no key)' : '' }}
-              <span class="bk-plan-note">γ = {{ gamma(at) }}, ω_thr = {{ fixed(at.omegaThreshold) }}, syndrome {{ count(at.syndromeBits) }} bits, soundness {{ plan.settings?.soundness }}</span>
+              <span class="bk-plan-note">
+                γ = {{ gamma(at) }}: over the {{ count(at.sifted.rounds) }} expected CHSH test and key-setting rounds, tested with γ′ = {{ fixed(at.sifted.testProbability) }};
+                ω_thr = {{ fixed(at.omegaThreshold) }}, syndrome {{ count(at.syndromeBits) }} bits, soundness {{ plan.settings?.soundness }}
+              </span>
               @if (at.reason) {
                 <span class="bk-plan-note">{{ at.reason }}</span>
               }

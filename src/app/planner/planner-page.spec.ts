@@ -17,6 +17,7 @@ import { GENERAL_PLAN_WORKER, GeneralPlanRunner, type GeneralPlanWorker, type Wo
 import { generalPlanSteps, type GeneralPlanTask } from './general-plan-steps';
 import { PlannerPage } from './planner-page';
 import { generalAttackKeyLength } from '../../../shared/analysis/entropy-accumulation';
+import { expectedSiftedProtocol } from '../../../shared/analysis/report/sifted-protocol';
 import { chshValueFromWinFraction } from '../../../shared/analysis/statistics/chsh-value';
 
 /**
@@ -303,7 +304,7 @@ describe('PlannerPage', () => {
     rounds.answerNextStep();
     await fixture.whenStable();
     // The profile has no general settings: the protocol is designed for the typed device, ε = 1e-10.
-    const expected = generalAttackKeyLength({ rounds: 2_000_000, testProbability: 0.5, soundness: 1e-10, design: { chshValue: chshValueFromWinFraction(0.84), qber: 0.02 } });
+    const expected = generalAttackKeyLength({ ...expectedSiftedProtocol(2_000_000, 0.5), soundness: 1e-10, design: { chshValue: chshValueFromWinFraction(0.84), qber: 0.02 } });
     expect(text('plan-general-bits')).toContain(`${formatCount(expected.bits)} bits`);
     expect(text('plan-general-bits')).toContain(`syndrome ${formatCount(expected.syndromeBits)} bits`);
     expect(text('plan-general-rounds-for-key')).toBe('Computing…');
