@@ -42,8 +42,7 @@ export class ProfileDialog {
 
   protected readonly profile = inject<ProfileDialogData>(MAT_DIALOG_DATA).profile;
   protected readonly meanings = FIELD_MEANINGS;
-  protected readonly numberFields = NUMBER_FIELDS;
-  protected readonly generalFields = GENERAL_FIELDS;
+  protected readonly textFields = [...GENERAL_FIELDS, ...NUMBER_FIELDS];
   protected readonly checkFamilies = CHECK_FAMILY_OPTIONS;
   protected readonly form = profileForm(
     (this.profile?.versions[0]?.parameters as AnalysisProfile | undefined) ?? defaultProfile(),
