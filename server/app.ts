@@ -51,7 +51,7 @@ export function createApp({ config, database, services, jwtSecret, welcomeMail }
   app.use('/api/signing-keys', signingKeysRoutes(services.signingKeys));
   app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
   app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));
-  app.use('/api/runs', runsRoutes({ config, runs: services.runs, archive: services.archive, models: database.models, guards }));
+  app.use('/api/runs', runsRoutes({ config, runs: services.runs, logStore: services.logStore, models: database.models, guards }));
   app.use('/api', apiNotFound);
 
   serveBuiltApp(app, config.appDir);

@@ -1,4 +1,3 @@
-import { createLocalArchive, type LocalArchive } from './archive/local-archive';
 import { createAuditTrail, type AuditTrail } from './audit/audit-trail';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
@@ -10,11 +9,13 @@ import { createProfilesService, type ProfilesService } from './profiles/profiles
 import type { AnalysisQueue } from './queue/analysis-queue';
 import { createRunsService, type RunsService } from './runs/runs.service';
 import { createSetupsService, type SetupsService } from './setups/setups.service';
+import { createLogStore } from './storage/create-log-store';
+import type { LogStore } from './storage/log-store';
 import { createUsersService, type UsersService } from './users/users.service';
 
 export interface Services {
   audit: AuditTrail;
-  archive: LocalArchive;
+  logStore: LogStore;
   users: UsersService;
   profiles: ProfilesService;
   setups: SetupsService;
@@ -28,13 +29,13 @@ export interface Services {
 export function createServices(config: Config, database: Database, queue: AnalysisQueue): Services {
   const { sequelize, models } = database;
   const audit = createAuditTrail(models.AuditEvent);
-  const archive = createLocalArchive(config.dataDir);
+  const logStore = createLogStore(config);
   const users = createUsersService(models.User, config.bcryptRounds, audit);
   const profiles = createProfilesService(sequelize, models, audit);
   const setups = createSetupsService(sequelize, models, audit);
-  const runs = createRunsService({ sequelize, models, archive, queue, profiles, setups, audit });
+  const runs = createRunsService({ sequelize, models, logStore, queue, profiles, setups, audit });
   const signingKeys = createSigningKeysService(sequelize, models, audit, resolveSigningKey(config.signingKey, config.dataDir));
-  const verification = createVerificationService(models, archive, signingKeys);
+  const verification = createVerificationService(models, logStore, signingKeys);
   const reverifications = createReverificationsService({ sequelize, models, queue, audit });
-  return { audit, archive, users, profiles, setups, runs, signingKeys, verification, reverifications };
+  return { audit, logStore, users, profiles, setups, runs, signingKeys, verification, reverifications };
 }

@@ -1,23 +1,18 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { createApp } from './app';
-import { resolveJwtSecret } from './auth/jwt-secret';
+import { startApiServer } from './api-server';
 import { loadConfig } from './config/config';
-import { bootstrapDatabase } from './database/bootstrap';
 import { startPostgresCluster } from './database/postgres-cluster';
-import { openDatabase } from './database/sequelize';
 import { startMailCatcher } from './mail/mail-catcher';
-import { createMailer } from './mail/mailer';
-import { createWelcomeMail } from './mail/welcome-mail';
-import { startAnalysisQueue } from './queue/analysis-queue';
-import { createServices } from './services';
+import { startStorageBackend } from './storage/storage-backend';
 import { buildAppIfStale, startDevServer } from './system/angular-build';
 import { spawnWorkerProcess, stopWorkerProcess } from './worker/worker-process';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
 
 /**
  * `npm start`: the project's own PostgreSQL and mail catcher (unless the environment names real
- * ones), migrations and demo data, the built app, and the API; stops what it started on Ctrl-C.
+ * ones), the local fake S3 server when BELLKEEP_STORAGE=s3 names no endpoint, migrations and
+ * demo data, the built app, and the API; stops what it started on Ctrl-C.
  * `--dev` serves the app with Angular's dev server and its proxy instead of the build.
  */
 /** What to undo on the way out, in the order things were started. */
@@ -50,25 +45,19 @@ async function main(): Promise<void> {
     say(`Mail catcher SMTP 127.0.0.1:${config.mailCatcher.smtpPort}, inbox ${catcher.inboxUrl}`);
   }
 
-  const database = openDatabase(databaseUrl);
-  stops.push(() => database.close());
-  const report = await bootstrapDatabase(database, config, { history: true });
-  say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
-  if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
+  const archive = await startStorageBackend(config);
+  stops.push(() => archive.stop());
+  say(`Archive      ${archive.description}`);
+  const started = { ...config, storage: archive.storage };
 
   if (!devMode) await buildAppIfStale(config.appDir);
-  const mailer = createMailer(smtpUrl, config.mailFrom);
-  stops.push(() => mailer.close());
-  const jwtSecret = resolveJwtSecret(config.jwtSecret, config.dataDir);
-  const queue = await startAnalysisQueue(databaseUrl, database.sequelize, config.queue);
-  stops.push(() => queue.stop());
-  const services = createServices(config, database, queue);
-  const worker = spawnWorkerProcess({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl });
+  const api = await startApiServer(started, { databaseUrl, smtpUrl }, { history: true });
+  stops.push(() => api.stop());
+  const { report } = api;
+  say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
+  if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
+  const worker = spawnWorkerProcess({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment });
   stops.push(() => stopWorkerProcess(worker));
-  const app = createApp({ config, database, services, jwtSecret, welcomeMail: createWelcomeMail(mailer, config.publicUrl) });
-  const server = app.listen(config.port, config.host);
-  await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
-  stops.push(() => new Promise<void>((resolve) => server.close(() => resolve())));
 
   let openUrl = config.publicUrl;
   if (devMode) {

@@ -45,6 +45,21 @@ const environmentSchema = z.object({
   BELLKEEP_MAILCATCHER_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
   /** Web inbox port of the local mail catcher. */
   BELLKEEP_MAILCATCHER_WEB_PORT: z.coerce.number().int().min(1).max(65535).default(1080),
+  /** Where archived logs live: `local` (a content-addressed folder under the data folder) or `s3` (a bucket). */
+  BELLKEEP_STORAGE: z.enum(['local', 's3'], { error: 'must be local or s3' }).default('local'),
+  /** URL of the S3-compatible endpoint; unset with `s3`, `npm start` runs a local fake S3 server. */
+  BELLKEEP_S3_ENDPOINT: z.url({ error: 'must be a URL such as https://s3.eu-central-1.amazonaws.com' }).optional(),
+  /** Bucket that holds the archived logs (created when missing). */
+  BELLKEEP_S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be an S3 bucket name (3 to 63 of a-z, 0-9, dot, hyphen)').default('bellkeep-logs'),
+  /** Region of the bucket. */
+  BELLKEEP_S3_REGION: z.string().min(1).default('us-east-1'),
+  /** Port of the local fake S3 server (loopback only). */
+  BELLKEEP_S3_FAKE_PORT: z.coerce.number().int().min(1).max(65535).default(4569),
+  // Credentials: the AWS SDK's own chain; read here only so one place passes them on when given.
+  AWS_ACCESS_KEY_ID: z.string().min(1).optional(),
+  AWS_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** A worker's working folder, for the copies of logs it analyses (default: `work` in the data folder). */
+  BELLKEEP_WORK_DIR: z.string().optional(),
   /** Largest log an upload may carry, in bytes (default 8 GiB). */
   BELLKEEP_UPLOAD_LIMIT_BYTES: z.coerce.number().int().min(1).default(8 * 1024 ** 3),
   /** Seconds an analysis may take before the queue takes its worker for dead and retries it. */
@@ -63,6 +78,25 @@ const environmentSchema = z.object({
   BELLKEEP_ADMIN_NAME: z.string().default('Administrator'),
 });
 
+/** The archive as a folder under the data folder. */
+export interface LocalStorageConfig {
+  kind: 'local';
+}
+
+/** The archive in an S3-compatible bucket. */
+export interface S3StorageConfig {
+  kind: 's3';
+  /** Unset: `npm start` runs the local fake on `fakePort` and fills this in. */
+  endpoint?: string;
+  bucket: string;
+  region: string;
+  /** Given only when the environment names both; otherwise the AWS SDK's own credential chain. */
+  credentials?: { accessKeyId: string; secretAccessKey: string };
+  fakePort: number;
+}
+
+export type StorageConfig = LocalStorageConfig | S3StorageConfig;
+
 export interface Config {
   dataDir: string;
   host: string;
@@ -79,6 +113,10 @@ export interface Config {
   smtpUrl?: string;
   mailFrom: string;
   mailCatcher: { smtpPort: number; webPort: number };
+  /** Where archived logs live (see server/storage/). */
+  storage: StorageConfig;
+  /** A worker's working folder: copies of the logs it analyses, deleted after each analysis. */
+  workDir: string;
   uploadLimitBytes: number;
   queue: { analysisExpireSeconds: number; maintenanceIntervalSeconds: number; pollingIntervalSeconds: number; mailRetryDelaySeconds: number };
   demo: boolean;
@@ -98,8 +136,12 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
   if (Boolean(env.BELLKEEP_ADMIN_EMAIL) !== Boolean(env.BELLKEEP_ADMIN_PASSWORD)) {
     throw new Error('Bad configuration: set both BELLKEEP_ADMIN_EMAIL and BELLKEEP_ADMIN_PASSWORD, or neither');
   }
+  if (Boolean(env.AWS_ACCESS_KEY_ID) !== Boolean(env.AWS_SECRET_ACCESS_KEY)) {
+    throw new Error('Bad configuration: set both AWS_ACCESS_KEY_ID and AWS_SECRET_ACCESS_KEY, or neither');
+  }
+  const dataDir = path.resolve(env.BELLKEEP_DATA_DIR);
   return {
-    dataDir: path.resolve(env.BELLKEEP_DATA_DIR),
+    dataDir,
     host: env.BELLKEEP_HOST,
     port: env.BELLKEEP_PORT,
     publicUrl: env.BELLKEEP_PUBLIC_URL ?? `http://${env.BELLKEEP_HOST}:${env.BELLKEEP_PORT}`,
@@ -113,6 +155,8 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
     smtpUrl: env.BELLKEEP_SMTP_URL,
     mailFrom: env.BELLKEEP_MAIL_FROM,
     mailCatcher: { smtpPort: env.BELLKEEP_MAILCATCHER_SMTP_PORT, webPort: env.BELLKEEP_MAILCATCHER_WEB_PORT },
+    storage: storageConfig(env),
+    workDir: path.resolve(env.BELLKEEP_WORK_DIR ?? path.join(dataDir, 'work')),
     uploadLimitBytes: env.BELLKEEP_UPLOAD_LIMIT_BYTES,
     queue: {
       analysisExpireSeconds: env.BELLKEEP_ANALYSIS_EXPIRE_SECONDS,
@@ -126,5 +170,17 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
         ? { email: env.BELLKEEP_ADMIN_EMAIL, password: env.BELLKEEP_ADMIN_PASSWORD, name: env.BELLKEEP_ADMIN_NAME }
         : undefined,
     appDir: path.join(PROJECT_ROOT, 'dist', 'bellkeep', 'browser'),
+  };
+}
+
+function storageConfig(env: z.infer<typeof environmentSchema>): StorageConfig {
+  if (env.BELLKEEP_STORAGE === 'local') return { kind: 'local' };
+  return {
+    kind: 's3',
+    endpoint: env.BELLKEEP_S3_ENDPOINT,
+    bucket: env.BELLKEEP_S3_BUCKET,
+    region: env.BELLKEEP_S3_REGION,
+    credentials: env.AWS_ACCESS_KEY_ID && env.AWS_SECRET_ACCESS_KEY ? { accessKeyId: env.AWS_ACCESS_KEY_ID, secretAccessKey: env.AWS_SECRET_ACCESS_KEY } : undefined,
+    fakePort: env.BELLKEEP_S3_FAKE_PORT,
   };
 }

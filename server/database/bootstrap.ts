@@ -2,6 +2,7 @@ import type { Config } from '../config/config';
 import { createAuditTrail } from '../audit/audit-trail';
 import { resolveSigningKey } from '../integrity/signing-key';
 import { createSigningKeysService } from '../integrity/signing-keys.service';
+import { createLogStore } from '../storage/create-log-store';
 import { createUsersService } from '../users/users.service';
 import { migrate, seedDemo, seedDemoHistory } from './migrate';
 import type { Database } from './sequelize';
@@ -30,6 +31,6 @@ export async function bootstrapDatabase(database: Database, config: Config, opti
   }
   const needsDemoAdmin = (await users.countActiveAdmins()) === 0;
   const seeders = config.demo || needsDemoAdmin ? await seedDemo(database.sequelize) : [];
-  if (config.demo && options.history) seeders.push(...(await seedDemoHistory(database.sequelize, { dataDir: config.dataDir, signingKey: signingKeys.current })));
+  if (config.demo && options.history) seeders.push(...(await seedDemoHistory(database.sequelize, { logStore: createLogStore(config), signingKey: signingKeys.current })));
   return { migrations, seeders, createdAdmin };
 }

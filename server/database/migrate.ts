@@ -3,6 +3,7 @@ import type { QueryInterface, Sequelize, Transaction } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 import { PROJECT_ROOT } from '../config/config';
 import type { SigningKey } from '../integrity/signing-key';
+import type { LogStore } from '../storage/log-store';
 
 /** What each migration and seeder receives: pass `transaction` to every query it makes. */
 export interface MigrationContext {
@@ -10,13 +11,13 @@ export interface MigrationContext {
   transaction: Transaction;
 }
 
-/** What the demo history seeders receive besides: the data folder, whose archive they fill, and the key results are signed with. */
+/** What the demo history seeders receive besides: the log store they fill, and the key results are signed with. */
 export interface SeederContext extends MigrationContext {
-  dataDir: string;
+  logStore?: LogStore;
   signingKey?: SigningKey;
 }
 
-type SeederExtras = Pick<SeederContext, 'dataDir' | 'signingKey'>;
+type SeederExtras = Pick<SeederContext, 'logStore' | 'signingKey'>;
 
 interface MigrationModule {
   up(context: SeederContext): Promise<void>;
@@ -38,7 +39,7 @@ export async function seedDemo(sequelize: Sequelize): Promise<string[]> {
 }
 
 /**
- * The demo lab's history of analysed nightly runs (seeders/history/), archived under `dataDir` and
+ * The demo lab's history of analysed nightly runs (seeders/history/), archived in `logStore` and
  * signed with `signingKey`;
  * `npm start` loads it, tests leave it out (it takes a few seconds).
  */
@@ -46,7 +47,7 @@ export async function seedDemoHistory(sequelize: Sequelize, extras: Required<See
   return applyFolder(sequelize, 'seeders/history', 'SequelizeDataHistory', extras);
 }
 
-async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string, extras: SeederExtras = { dataDir: '' }): Promise<string[]> {
+async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string, extras: SeederExtras = {}): Promise<string[]> {
   const umzug = new Umzug({
     migrations: {
       glob: [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],

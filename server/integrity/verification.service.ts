@@ -2,10 +2,9 @@ import type { AnalysisResult } from '../../shared/analysis/result';
 import { resultFingerprint } from '../../shared/analysis/node';
 import { formatCount } from '../../shared/format/numbers';
 import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '../../shared/api';
-import type { LocalArchive } from '../archive/local-archive';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
-import { digestFile } from './file-digest';
+import { StoredLogCorruptError, StoredLogMissingError, type LogStore } from '../storage/log-store';
 import { signatureProblem } from './signed-statement';
 import type { SigningKeysService } from './signing-keys.service';
 import { storedSignature } from './stored-signature';
@@ -15,7 +14,7 @@ export interface VerificationService {
   verify(runId: number): Promise<VerificationDto>;
 }
 
-export function createVerificationService(models: Models, archive: LocalArchive, signingKeys: SigningKeysService): VerificationService {
+export function createVerificationService(models: Models, logStore: LogStore, signingKeys: SigningKeysService): VerificationService {
   function fingerprintCheck(result: AnalysisResult): VerificationCheckDto {
     const recomputed = resultFingerprint(result);
     return recomputed === result.fingerprint
@@ -36,20 +35,23 @@ export function createVerificationService(models: Models, archive: LocalArchive,
 
   async function archiveCheck(sha256: string): Promise<VerificationCheckDto> {
     const recorded = await models.ArchiveFile.findByPk(sha256);
-    let found;
+    const failed = (detail: string): VerificationCheckDto => ({ check: 'archive-file', passed: false, detail });
+    // The store checks the bytes against their SHA-256 as they are read; here they are only counted.
+    let bytes = 0;
     try {
-      found = await digestFile(archive.pathOf(sha256));
+      for await (const chunk of logStore.read(sha256) as AsyncIterable<Buffer>) bytes += chunk.length;
     } catch (error) {
-      const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'it is missing' : `it cannot be read (${(error as Error).message})`;
-      return { check: 'archive-file', passed: false, detail: `The archived file ${sha256} fails: ${reason}.` };
+      if (error instanceof StoredLogMissingError) return failed(`The archived file ${sha256} fails: it is missing.`);
+      if (error instanceof StoredLogCorruptError && error.foundSha256) {
+        return failed(`The archived file hashes to ${error.foundSha256}, not to the SHA-256 ${sha256} recorded at upload: its bytes were changed.`);
+      }
+      if (error instanceof StoredLogCorruptError) return failed(`The archived file ${sha256} fails: ${error.problem}.`);
+      return failed(`The archived file ${sha256} fails: it cannot be read (${(error as Error).message}).`);
     }
-    if (found.sha256 !== sha256) {
-      return { check: 'archive-file', passed: false, detail: `The archived file hashes to ${found.sha256}, not to the SHA-256 ${sha256} recorded at upload: its bytes were changed.` };
+    if (recorded && recorded.bytes !== bytes) {
+      return failed(`The archived file is ${formatCount(bytes)} bytes, not the ${formatCount(recorded.bytes)} recorded at upload.`);
     }
-    if (recorded && recorded.bytes !== found.bytes) {
-      return { check: 'archive-file', passed: false, detail: `The archived file is ${formatCount(found.bytes)} bytes, not the ${formatCount(recorded.bytes)} recorded at upload.` };
-    }
-    return { check: 'archive-file', passed: true, detail: `The archived file (${formatCount(found.bytes)} bytes) still hashes to its SHA-256 ${sha256}.` };
+    return { check: 'archive-file', passed: true, detail: `The archived file (${formatCount(bytes)} bytes) still hashes to its SHA-256 ${sha256}.` };
   }
 
   return {

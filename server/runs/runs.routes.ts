@@ -7,8 +7,8 @@ import type { Config } from '../config/config';
 import type { Models } from '../database/models';
 import { idParameter } from '../http/id-parameter';
 import { validateBody, validationError } from '../http/validate-body';
-import type { LocalArchive } from '../archive/local-archive';
 import { toAuditEventDtos } from '../audit/audit-event-dto';
+import type { LogStore } from '../storage/log-store';
 import type { RunsService } from './runs.service';
 import { discardUpload, logUpload, uploadedLog } from './upload-middleware';
 
@@ -72,11 +72,11 @@ const listQuerySchema = z.strictObject({
 const signOffSchema = z.strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) });
 
 /** `/api/runs`: experimentalists upload; everyone signed in reads; shift leads sign off. */
-export function runsRoutes(deps: { config: Config; runs: RunsService; archive: LocalArchive; models: Models; guards: Guards }): Router {
-  const { config, runs, archive, models, guards } = deps;
+export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: LogStore; models: Models; guards: Guards }): Router {
+  const { config, runs, logStore, models, guards } = deps;
   const router = Router();
 
-  router.post('/', guards.requireRole('experimentalist'), logUpload(archive.temporaryFolder, config.uploadLimitBytes), async (request, response) => {
+  router.post('/', guards.requireRole('experimentalist'), logUpload(logStore, config.uploadLimitBytes), async (request, response) => {
     const fields = uploadFieldsSchema.safeParse(request.body ?? {});
     if (!fields.success) {
       await discardUpload(request);
@@ -85,7 +85,7 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; archive: L
     const file = uploadedLog(request);
     try {
       const run = await runs.create(
-        { ...fields.data, originalName: file.originalname, temporaryFile: file.path, sha256: file.sha256, bytes: file.size },
+        { ...fields.data, originalName: file.originalname, log: file.received },
         request.user!.id,
       );
       response.status(201).json(run);

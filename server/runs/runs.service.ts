@@ -2,12 +2,12 @@ import crypto from 'node:crypto';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SignOffDto, type Verdict } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
-import type { LocalArchive } from '../archive/local-archive';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
 import type { AnalysisQueue } from '../queue/analysis-queue';
 import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';
+import type { LogStore, ReceivedLog } from '../storage/log-store';
 import { storedSignature } from '../integrity/stored-signature';
 import { toRunDto, toRunSummary, type RunRow } from './run-dto';
 
@@ -20,9 +20,8 @@ export interface NewRun {
   acquiredOn?: string;
   notes?: string;
   originalName: string;
-  temporaryFile: string;
-  sha256: string;
-  bytes: number;
+  /** The uploaded bytes, received and hashed; kept under their SHA-256 here once the run is valid. */
+  log: ReceivedLog;
 }
 
 export interface RunFilter {
@@ -83,13 +82,13 @@ const RUN_SELECT = `
 export function createRunsService(deps: {
   sequelize: Sequelize;
   models: Models;
-  archive: LocalArchive;
+  logStore: LogStore;
   queue: AnalysisQueue;
   profiles: ProfilesService;
   setups: SetupsService;
   audit: AuditTrail;
 }): RunsService {
-  const { sequelize, models, archive, queue, profiles, setups, audit } = deps;
+  const { sequelize, models, logStore, queue, profiles, setups, audit } = deps;
 
   async function get(id: number, transaction?: Transaction): Promise<RunDto> {
     const [row] = await sequelize.query<RunRow>(`${RUN_SELECT} WHERE r.id = :id`, { type: QueryTypes.SELECT, replacements: { id }, transaction });
@@ -132,16 +131,17 @@ export function createRunsService(deps: {
       const profileVersion = newRun.profileVersionId
         ? await profiles.findVersion(newRun.profileVersionId).catch(asBadField('profileVersionId'))
         : await profiles.latestVersionOf(newRun.profileId ?? setup.defaultProfileId).catch(asBadField('profileId'));
-      const fileWasNew = await archive.store(newRun.temporaryFile, newRun.sha256);
+      const { sha256, bytes } = newRun.log;
+      const { isNew: fileWasNew } = await newRun.log.keep();
       try {
         const id = await sequelize.transaction(async (transaction) => {
-          await models.ArchiveFile.findOrCreate({ where: { sha256: newRun.sha256 }, defaults: { sha256: newRun.sha256, bytes: newRun.bytes }, transaction });
-          const earlier = await models.Run.findOne({ where: { fileSha256: newRun.sha256 }, order: [['id', 'ASC']], transaction });
+          await models.ArchiveFile.findOrCreate({ where: { sha256 }, defaults: { sha256, bytes }, transaction });
+          const earlier = await models.Run.findOne({ where: { fileSha256: sha256 }, order: [['id', 'ASC']], transaction });
           const run = await models.Run.create(
             {
               setupId: setup.id,
               profileVersionId: profileVersion.id,
-              fileSha256: newRun.sha256,
+              fileSha256: sha256,
               originalName: newRun.originalName.slice(0, 255),
               duplicateOf: earlier?.id ?? null,
               uploadedBy: actorId,
@@ -154,7 +154,7 @@ export function createRunsService(deps: {
             { transaction },
           );
           await audit.record(
-            { actorId, action: 'run.uploaded', targetType: 'run', targetId: run.id, details: { sha256: newRun.sha256, bytes: newRun.bytes, duplicateOf: run.duplicateOf } },
+            { actorId, action: 'run.uploaded', targetType: 'run', targetId: run.id, details: { sha256, bytes, duplicateOf: run.duplicateOf } },
             transaction,
           );
           await queue.enqueueAnalysis(run.id, transaction);
@@ -163,7 +163,7 @@ export function createRunsService(deps: {
         return get(id);
       } catch (error) {
         // Nothing may point at bytes archived for a run that was never made.
-        if (fileWasNew && !(await models.ArchiveFile.findByPk(newRun.sha256))) await archive.discard(newRun.sha256);
+        if (fileWasNew && !(await models.ArchiveFile.findByPk(sha256))) await logStore.discard(sha256);
         throw error;
       }
     },

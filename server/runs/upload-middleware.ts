@@ -1,19 +1,19 @@
-import fs from 'node:fs';
 import type { RequestHandler } from 'express';
 import multer from 'multer';
-import { hashingDiskStorage, type HashedUpload } from '../archive/hashing-storage';
 import { HttpError } from '../http/http-error';
+import type { LogStore } from '../storage/log-store';
+import { logStoreStorage, type ReceivedUpload } from './log-storage-engine';
 
 /** The multipart field that carries the log. */
 export const LOG_FIELD = 'log';
 
 /**
- * multer for one log per request, streamed to disk and hashed (never held in memory), with
- * multer's errors turned into sentences: 413 for a file over the limit, 400 for a wrong field.
+ * multer for one log per request, streamed into the log store and hashed (never held in memory),
+ * with multer's errors turned into sentences: 413 for a file over the limit, 400 for a wrong field.
  */
-export function logUpload(temporaryFolder: string, limitBytes: number): RequestHandler {
+export function logUpload(store: LogStore, limitBytes: number): RequestHandler {
   const parse = multer({
-    storage: hashingDiskStorage(temporaryFolder),
+    storage: logStoreStorage(store),
     limits: { fileSize: limitBytes, files: 1, fields: 20, fieldSize: 64 * 1024 },
   }).single(LOG_FIELD);
   return (request, response, next) => {
@@ -33,12 +33,12 @@ export function logUpload(temporaryFolder: string, limitBytes: number): RequestH
   };
 }
 
-/** The stored upload of the request (after {@link logUpload}). */
-export function uploadedLog(request: Express.Request): HashedUpload {
-  return request.file as HashedUpload;
+/** The received upload of the request (after {@link logUpload}). */
+export function uploadedLog(request: Express.Request): ReceivedUpload {
+  return request.file as ReceivedUpload;
 }
 
-/** Deletes the temporary file of a request that will not become a run. */
+/** Drops the received log of a request that did not become a run (nothing happens once it was kept). */
 export async function discardUpload(request: Express.Request): Promise<void> {
-  if (request.file?.path) await fs.promises.rm(request.file.path, { force: true });
+  await (request.file as Partial<ReceivedUpload> | undefined)?.received?.drop();
 }

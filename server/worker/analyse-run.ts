@@ -3,12 +3,12 @@ import type { Sequelize } from 'sequelize';
 import { AnalysisCancelledError } from '../../shared/analysis/node';
 import type { AnalysisProgress } from '../../shared/analysis/node';
 import { FINISHED_STATES, STATE_OF_VERDICT } from '../../shared/api';
-import type { LocalArchive } from '../archive/local-archive';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { signStatement } from '../integrity/signed-statement';
 import type { SigningKey } from '../integrity/signing-key';
 import type { AnalysisQueue } from '../queue/analysis-queue';
+import type { LogStore } from '../storage/log-store';
 import { analyseArchivedRun } from './analyse-archived-run';
 
 /** Progress is written to the run when it has moved by this much (a fraction of the whole). */
@@ -17,7 +17,9 @@ const PROGRESS_STEP = 0.03;
 export interface AnalyseRunDeps {
   sequelize: Sequelize;
   models: Models;
-  archive: LocalArchive;
+  logStore: LogStore;
+  /** This worker's own folder for copies of the logs it analyses. */
+  workFolder: string;
   queue: AnalysisQueue;
   audit: AuditTrail;
   signingKey: SigningKey;
@@ -30,7 +32,7 @@ export interface AnalyseRunDeps {
  * nothing more, so a retried job ends with exactly one stored result.
  */
 export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: AbortSignal): Promise<void> {
-  const { sequelize, models, archive, queue, audit, signingKey } = deps;
+  const { sequelize, models, logStore, workFolder, queue, audit, signingKey } = deps;
   const run = await models.Run.findByPk(runId);
   if (!run || FINISHED_STATES.includes(run.state)) return;
 
@@ -51,7 +53,7 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
 
   let result;
   try {
-    result = await analyseArchivedRun(run, { models, archive }, { onProgress, signal });
+    result = await analyseArchivedRun(run, { models, logStore, workFolder }, { onProgress, signal });
   } catch (error) {
     await pendingWrite;
     // Cancelled (the worker is stopping): the job fails and the queue hands it out again.

@@ -4,11 +4,13 @@ import { createMailer } from '../mail/mailer';
 import { startAnalysisQueue } from '../queue/analysis-queue';
 import { createServices } from '../services';
 import { startWorker } from './worker';
+import { TAKING_JOBS } from './worker-process';
 
 /**
  * `npm run worker`: one analysis worker alone, for a machine that only analyses. It needs the
- * database (BELLKEEP_DATABASE_URL), the archive (BELLKEEP_DATA_DIR) and an SMTP server
- * (BELLKEEP_SMTP_URL); run as many as the lab needs, on as many machines.
+ * database (BELLKEEP_DATABASE_URL), the archive (BELLKEEP_STORAGE and its settings: the bucket,
+ * or a data folder shared with the API), an SMTP server (BELLKEEP_SMTP_URL) and a work folder
+ * of its own (BELLKEEP_WORK_DIR); run as many as the lab needs, on as many machines.
  */
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -18,7 +20,7 @@ async function main(): Promise<void> {
   const queue = await startAnalysisQueue(config.databaseUrl, database.sequelize, config.queue);
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const worker = await startWorker(config, database, queue, createServices(config, database, queue), mailer);
-  process.stdout.write(`Worker ${process.pid} is taking analysis jobs.\n`);
+  process.stdout.write(`Worker ${process.pid} ${TAKING_JOBS}.\n`);
 
   const stop = async () => {
     await worker.stop();

@@ -2,10 +2,10 @@ import os from 'node:os';
 import type { Sequelize } from 'sequelize';
 import { AnalysisCancelledError } from '../../shared/analysis/node';
 import type { ReverificationState } from '../../shared/api';
-import type { LocalArchive } from '../archive/local-archive';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { resultDifferences } from '../integrity/result-differences';
+import type { LogStore } from '../storage/log-store';
 import { analyseArchivedRun } from './analyse-archived-run';
 
 /** Differences kept on the record; the count says how many there were in all. */
@@ -14,7 +14,8 @@ const KEPT_DIFFERENCES = 50;
 export interface ReverifyRunDeps {
   sequelize: Sequelize;
   models: Models;
-  archive: LocalArchive;
+  logStore: LogStore;
+  workFolder: string;
   audit: AuditTrail;
 }
 
@@ -24,7 +25,7 @@ export interface ReverifyRunDeps {
  * own record; the run and its signed result stay as they are. Idempotent like `analyseRun`.
  */
 export async function reverifyRun(reverificationId: number, deps: ReverifyRunDeps, signal: AbortSignal): Promise<void> {
-  const { sequelize, models, archive, audit } = deps;
+  const { sequelize, models, logStore, workFolder, audit } = deps;
   const record = await models.Reverification.findByPk(reverificationId);
   if (!record || !['queued', 'analysing'].includes(record.state)) return;
   const run = (await models.Run.findByPk(record.runId))!;
@@ -32,7 +33,7 @@ export async function reverifyRun(reverificationId: number, deps: ReverifyRunDep
 
   let outcome: Partial<typeof record.dataValues> & { state: ReverificationState };
   try {
-    const result = await analyseArchivedRun(run, { models, archive }, { signal });
+    const result = await analyseArchivedRun(run, { models, logStore, workFolder }, { signal });
     const differences = resultDifferences(run.result, result);
     outcome = {
       state: result.fingerprint === record.storedFingerprint ? 'reproduced' : 'differs',

@@ -3,6 +3,7 @@ import type { Database } from '../database/sequelize';
 import type { Mailer } from '../mail/mailer';
 import { ANALYSIS_QUEUE, REVERIFICATION_QUEUE, VERDICT_MAIL_QUEUE, type AnalysisQueue, type ReverificationJob, type RunJob } from '../queue/analysis-queue';
 import type { Services } from '../services';
+import { removeLeftoverCopies } from '../storage/working-copy';
 import { analyseRun } from './analyse-run';
 import { reverifyRun } from './reverify-run';
 import { sendVerdictMail } from './send-verdict-mail';
@@ -15,14 +16,18 @@ export interface RunningWorker {
 /**
  * A worker: takes analysis and re-verification jobs one at a time each (the engine uses both
  * cores) and verdict-mail jobs.
- * Needs only the database (queue and results) and the archive; any number may run on any machine.
+ * Needs only the database (queue and results) and the log store; any number may run on any
+ * machine, each with a work folder of its own (BELLKEEP_WORK_DIR) for copies of the logs it reads.
  */
 export async function startWorker(config: Config, database: Database, queue: AnalysisQueue, services: Services, mailer: Mailer): Promise<RunningWorker> {
   const stopping = new AbortController();
   const { sequelize, models } = database;
   // Results are signed with this process's key: it must be the one the API lists as in use.
   await services.signingKeys.register();
-  const analysisDeps = { sequelize, models, archive: services.archive, queue, audit: services.audit, signingKey: services.signingKeys.current };
+  await services.logStore.prepare();
+  // Copies left by this worker's predecessor, if it was killed mid-analysis.
+  await removeLeftoverCopies(config.workDir);
+  const analysisDeps = { sequelize, models, logStore: services.logStore, workFolder: config.workDir, queue, audit: services.audit, signingKey: services.signingKeys.current };
   const mailDeps = { sequelize, models, runs: services.runs, setups: services.setups, mailer, audit: services.audit, publicUrl: config.publicUrl };
 
   await queue.boss.work<RunJob>(ANALYSIS_QUEUE, { batchSize: 1, pollingIntervalSeconds: config.queue.pollingIntervalSeconds }, async ([job]) => {

@@ -3,12 +3,12 @@ import os from 'node:os';
 import path from 'node:path';
 import { analyseLog } from '../../shared/analysis/node';
 import type { AnalysisResult } from '../../shared/analysis/result';
-import { createLocalArchive } from '../../server/archive/local-archive';
 import { createAuditTrail } from '../../server/audit/audit-trail';
 import { loadConfig } from '../../server/config/config';
 import { resolveSigningKey } from '../../server/integrity/signing-key';
 import { createSigningKeysService } from '../../server/integrity/signing-keys.service';
 import { createVerificationService } from '../../server/integrity/verification.service';
+import { createLocalLogStore } from '../../server/storage/local-log-store';
 import { DEMO_NIGHTS } from '../../seeders/data/demo-nights';
 import { bootstrapDatabase } from '../../server/database/bootstrap';
 import { DEMO_PEOPLE } from '../../seeders/data/demo-people';
@@ -65,13 +65,13 @@ describe('the demo lab’s history of nights', () => {
 
       const sample = runs[3];
       const stored = sample.result as unknown as AnalysisResult;
-      const again = await analyseLog({ path: createLocalArchive(dataDir).pathOf(sample.fileSha256) }, { profile: stored.profile, seed: sample.seed });
+      const again = await analyseLog({ path: createLocalLogStore(dataDir).pathOf(sample.fileSha256) }, { profile: stored.profile, seed: sample.seed });
       expect(again.fingerprint).toBe(stored.fingerprint);
       expect(await database.models.SignOff.count()).toBe(2 * (DEMO_NIGHTS - 2));
 
       // Signed like any stored result, with the key the bootstrap listed: every check holds.
       const signingKeys = createSigningKeysService(database.sequelize, database.models, createAuditTrail(database.models.AuditEvent), resolveSigningKey(undefined, dataDir));
-      const checked = await createVerificationService(database.models, createLocalArchive(dataDir), signingKeys).verify(sample.id);
+      const checked = await createVerificationService(database.models, createLocalLogStore(dataDir), signingKeys).verify(sample.id);
       expect(checked.checks.map((check) => [check.check, check.passed])).toEqual([['result-fingerprint', true], ['signature', true], ['archive-file', true]]);
       expect(runs.every((run) => run.signingKeyId === signingKeys.current.keyId)).toBe(true);
     } finally {
@@ -86,5 +86,9 @@ describe('configuration', () => {
     expect(() => loadConfig({ BELLKEEP_PORT: 'eighty' })).toThrow(/BELLKEEP_PORT/);
     expect(() => loadConfig({ BELLKEEP_JWT_SECRET: 'short' })).toThrow(/BELLKEEP_JWT_SECRET: must be at least 32/);
     expect(() => loadConfig({ BELLKEEP_ADMIN_EMAIL: 'a@kestrelfen.example' })).toThrow(/both BELLKEEP_ADMIN_EMAIL and BELLKEEP_ADMIN_PASSWORD/);
+    expect(() => loadConfig({ BELLKEEP_STORAGE: 'disk' })).toThrow(/BELLKEEP_STORAGE: must be local or s3/);
+    expect(() => loadConfig({ BELLKEEP_STORAGE: 's3', BELLKEEP_S3_ENDPOINT: 'not a url' })).toThrow(/BELLKEEP_S3_ENDPOINT: must be a URL/);
+    expect(() => loadConfig({ BELLKEEP_S3_BUCKET: 'Logs_Of_Kestrel' })).toThrow(/BELLKEEP_S3_BUCKET: must be an S3 bucket name/);
+    expect(() => loadConfig({ AWS_ACCESS_KEY_ID: 'only-the-id' })).toThrow(/both AWS_ACCESS_KEY_ID and AWS_SECRET_ACCESS_KEY/);
   });
 });

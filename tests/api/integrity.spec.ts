@@ -12,6 +12,7 @@ import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { PROJECT_ROOT } from '../../server/config/config';
 import { signingKeyFromPem } from '../../server/integrity/signing-key';
 import { createSigningKeysService } from '../../server/integrity/signing-keys.service';
+import { createLocalLogStore } from '../../server/storage/local-log-store';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 
@@ -117,7 +118,7 @@ describe('signed results, integrity checks, re-verification and exports', () => 
 
   it('an archived file with one changed byte fails the check and its re-verification differs, naming the fields', async () => {
     const run = await analysed('aborted-low-chsh.csv');
-    const archived = testApp.services.archive.pathOf(run.file.sha256);
+    const archived = createLocalLogStore(testApp.config.dataDir).pathOf(run.file.sha256);
     const bytes = fs.readFileSync(archived);
     // A different outcome digit in the last row: still a valid log, not the signed one.
     const last = bytes.lastIndexOf(Buffer.from(',1'));

@@ -1,11 +1,9 @@
-import http from 'node:http';
-import fs from 'node:fs';
-import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import type { ApiErrorBody, ProfileDto, SetupDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { archiveContents, settledArchiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
-import { fixtureLog, setupId, uploadLog } from '../support/runs-api';
+import { breakOffUpload, fixtureLog, setupId, uploadLog } from '../support/runs-api';
 
 describe('profiles, setups and what the database itself guards', () => {
   let testApp: TestApp;
@@ -85,32 +83,14 @@ describe('profiles, setups and what the database itself guards', () => {
     const response = await uploadLog(testApp.app, dev, fixtureLog('accepted-run.csv'), { setupId: fen }).expect(413);
     expect((response.body as ApiErrorBody).error.message).toMatch(/upload limit of 100000 bytes/);
     expect(await testApp.database.models.Run.count()).toBe(0);
-    expect(fs.readdirSync(testApp.services.archive.temporaryFolder)).toEqual([]);
+    expect(await archiveContents(testApp.config)).toEqual({ kept: [], leftovers: [] });
   });
 
   it('an upload broken off half-way leaves no run and no stray file', async () => {
     const fen = await setupId(testApp.app, dev, 'Fen link');
-    const server = testApp.app.listen(0, '127.0.0.1');
-    await new Promise((resolve) => server.once('listening', resolve));
-    const { port } = server.address() as AddressInfo;
-    const boundary = 'bellkeep-boundary';
-    const outgoing = http.request({
-      host: '127.0.0.1',
-      port,
-      method: 'POST',
-      path: '/api/runs',
-      headers: { Authorization: `Bearer ${dev}`, 'Content-Type': `multipart/form-data; boundary=${boundary}` },
-    });
-    outgoing.on('error', () => undefined);
-    outgoing.write(`--${boundary}\r\nContent-Disposition: form-data; name="setupId"\r\n\r\n${fen}\r\n`);
-    outgoing.write(`--${boundary}\r\nContent-Disposition: form-data; name="log"; filename="night.csv"\r\nContent-Type: text/csv\r\n\r\nround,x,y,a,b\n`);
-    outgoing.write('0,0,1,0,0\n'.repeat(2000));
-    await new Promise((resolve) => setTimeout(resolve, 300));
-    outgoing.destroy();
-    await new Promise((resolve) => setTimeout(resolve, 500));
-    await new Promise((resolve) => server.close(resolve));
+    await breakOffUpload(testApp.app, dev, fen, '0,0,1,0,0\n'.repeat(2000), () => new Promise((resolve) => setTimeout(resolve, 300)));
+    expect(await settledArchiveContents(testApp.config)).toEqual({ kept: [], leftovers: [] });
     expect(await testApp.database.models.Run.count()).toBe(0);
     expect(await testApp.database.models.ArchiveFile.count()).toBe(0);
-    expect(fs.readdirSync(testApp.services.archive.temporaryFolder)).toEqual([]);
   });
 });

@@ -4,6 +4,7 @@ import { analyseLog } from '../../shared/analysis/node';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import type { ApiErrorBody, AuditEventDto, RunDto, RunPageDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { archiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, inbox, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';
 
@@ -102,9 +103,9 @@ describe('the runs pipeline through the API', () => {
     const second = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('drifting-run.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
     expect(second.duplicateOf).toBe(first.id);
     expect(second.file.sha256).toBe(first.file.sha256);
-    const archived = testApp.services.archive.pathOf(first.file.sha256);
-    expect(fs.statSync(archived).mode & 0o777).toBe(0o444);
-    expect(fs.readdirSync(testApp.services.archive.temporaryFolder)).toEqual([]);
+    const { kept, leftovers } = await archiveContents(testApp.config);
+    expect(kept.filter((sha256) => sha256 === first.file.sha256)).toHaveLength(1);
+    expect(leftovers).toEqual([]);
   });
 
   it.each([
@@ -126,7 +127,7 @@ describe('the runs pipeline through the API', () => {
     if (field) expect(error.field).toBe(field);
     else expect(error.message).toMatch(/colour/);
     expect(await testApp.database.models.Run.count()).toBe(before);
-    expect(fs.readdirSync(testApp.services.archive.temporaryFolder)).toEqual([]);
+    expect((await archiveContents(testApp.config)).leftovers).toEqual([]);
   });
 
   it('refuses an upload without a file', async () => {

@@ -1,3 +1,5 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
@@ -57,4 +59,29 @@ export async function waitForMail(inboxUrl: string, subject: string, timeoutMs =
     if (Date.now() > deadline) throw new Error(`No mail "${subject}" after ${timeoutMs} ms`);
     await new Promise((resolve) => setTimeout(resolve, 100));
   }
+}
+
+/**
+ * An upload over a real socket, broken off half-way: the form's `setupId`, then `logStart` as the
+ * beginning of the log; `beforeBreaking` runs while the server holds the open request.
+ */
+export async function breakOffUpload(app: Express, token: string, setupId: number, logStart: string, beforeBreaking: () => Promise<unknown>): Promise<void> {
+  const server = app.listen(0, '127.0.0.1');
+  await new Promise((resolve) => server.once('listening', resolve));
+  const { port } = server.address() as AddressInfo;
+  const boundary = 'bellkeep-boundary';
+  const outgoing = http.request({
+    host: '127.0.0.1',
+    port,
+    method: 'POST',
+    path: '/api/runs',
+    headers: { Authorization: `Bearer ${token}`, 'Content-Type': `multipart/form-data; boundary=${boundary}` },
+  });
+  outgoing.on('error', () => undefined);
+  outgoing.write(`--${boundary}\r\nContent-Disposition: form-data; name="setupId"\r\n\r\n${setupId}\r\n`);
+  outgoing.write(`--${boundary}\r\nContent-Disposition: form-data; name="log"; filename="night.csv"\r\nContent-Type: text/csv\r\n\r\nround,x,y,a,b\n`);
+  outgoing.write(logStart);
+  await beforeBreaking();
+  outgoing.destroy();
+  await new Promise((resolve) => server.close(resolve));
 }

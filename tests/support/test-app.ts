@@ -12,6 +12,7 @@ import { createMailer, type Mailer } from '../../server/mail/mailer';
 import { createWelcomeMail, type WelcomeMail } from '../../server/mail/welcome-mail';
 import { startAnalysisQueue, type AnalysisQueue } from '../../server/queue/analysis-queue';
 import { createServices, type Services } from '../../server/services';
+import { startStorageBackend, type StorageBackend } from '../../server/storage/storage-backend';
 import { startWorker, type RunningWorker } from '../../server/worker/worker';
 import { freePort } from './free-port';
 
@@ -27,6 +28,8 @@ export interface TestApp {
   welcomeMail: WelcomeMail;
   queue: AnalysisQueue;
   services: Services;
+  /** The archive's backend: its `workerEnvironment` lets a worker process reach the same archive. */
+  storage: StorageBackend;
   mailer: Mailer;
   /** Starts the mail catcher again on the same ports, after a test stopped it. */
   restartMailCatcher(): Promise<void>;
@@ -39,12 +42,14 @@ export interface TestApp {
 
 /**
  * The real app on a database of its own (with the demo lab seeded), a real mail catcher on free
- * ports, and cheap bcrypt. `environment` overrides configuration variables.
+ * ports, and cheap bcrypt. `environment` overrides configuration variables: with
+ * `BELLKEEP_STORAGE: 's3'` the archive is a bucket of the local fake S3 server, started on a free
+ * port as `npm start` starts it.
  */
 export async function createTestApp(environment: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-test-data-'));
   const database = await createTestDatabase();
-  const config = loadConfig({
+  const loaded = loadConfig({
     BELLKEEP_DATA_DIR: dataDir,
     BELLKEEP_DATABASE_URL: database.url,
     BELLKEEP_BCRYPT_ROUNDS: '4',
@@ -52,8 +57,11 @@ export async function createTestApp(environment: Record<string, string> = {}): P
     BELLKEEP_QUEUE_POLLING_SECONDS: '0.5',
     BELLKEEP_QUEUE_MAINTENANCE_SECONDS: '1',
     BELLKEEP_MAIL_RETRY_SECONDS: '3',
+    BELLKEEP_S3_FAKE_PORT: String(await freePort()),
     ...environment,
   });
+  const storage = await startStorageBackend(loaded);
+  const config = { ...loaded, storage: storage.storage };
   await seedDemo(database.sequelize);
   const mailPorts = [await freePort(), await freePort()] as const;
   const mailFolder = path.join(dataDir, 'mail');
@@ -76,6 +84,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
     welcomeMail,
     queue,
     services,
+    storage,
     mailer,
     async restartMailCatcher() {
       mailCatcher = await startMailCatcher(...mailPorts, mailFolder);
@@ -95,6 +104,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
       await welcomeMail.settled();
       mailer.close();
       await mailCatcher.stop();
+      await storage.stop();
       await database.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },

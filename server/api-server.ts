@@ -1,0 +1,54 @@
+import { createApp } from './app';
+import { resolveJwtSecret } from './auth/jwt-secret';
+import type { Config } from './config/config';
+import { bootstrapDatabase, type BootstrapReport } from './database/bootstrap';
+import { openDatabase } from './database/sequelize';
+import { createMailer } from './mail/mailer';
+import { createWelcomeMail } from './mail/welcome-mail';
+import { startAnalysisQueue } from './queue/analysis-queue';
+import { createServices } from './services';
+
+/** Where the API finds the database and the mail server, both already running. */
+export interface ApiConnections {
+  databaseUrl: string;
+  smtpUrl: string;
+}
+
+export interface RunningApi {
+  /** What start-up did to the database. */
+  report: BootstrapReport;
+  /** Stops listening, then closes the queue, the mailer and the database. */
+  stop(): Promise<void>;
+}
+
+/**
+ * The API over a running database and mail server: the database brought up to date
+ * (`bootstrapDatabase`, with the demo history when `history` and BELLKEEP_DEMO ask for it), the
+ * job queue, the services and the app, listening on the configured host and port. `npm start` and
+ * `npm run api` both start it here; a failure on the way closes what was opened.
+ */
+export async function startApiServer(config: Config, connections: ApiConnections, options: { history: boolean }): Promise<RunningApi> {
+  const undo: Array<() => void | Promise<void>> = [];
+  const stop = async () => {
+    for (const step of undo.splice(0).reverse()) await step();
+  };
+  try {
+    const database = openDatabase(connections.databaseUrl);
+    undo.push(() => database.close());
+    const report = await bootstrapDatabase(database, config, options);
+    const mailer = createMailer(connections.smtpUrl, config.mailFrom);
+    undo.push(() => mailer.close());
+    const jwtSecret = resolveJwtSecret(config.jwtSecret, config.dataDir);
+    const queue = await startAnalysisQueue(connections.databaseUrl, database.sequelize, config.queue);
+    undo.push(() => queue.stop());
+    const services = createServices(config, database, queue);
+    const app = createApp({ config, database, services, jwtSecret, welcomeMail: createWelcomeMail(mailer, config.publicUrl) });
+    const server = app.listen(config.port, config.host);
+    await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
+    undo.push(() => new Promise<void>((resolve) => server.close(() => resolve())));
+    return { report, stop };
+  } catch (error) {
+    await stop();
+    throw error;
+  }
+}

@@ -1,0 +1,42 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { createLocalLogStore } from './local-log-store';
+import { describeLogStoreContract, randomLog } from './log-store-contract';
+import { putLog } from './log-store';
+
+let dataDir: string;
+
+describeLogStoreContract(
+  'the local folder',
+  async () => {
+    dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-local-store-'));
+    const store = createLocalLogStore(dataDir);
+    return {
+      store,
+      config: { storage: { kind: 'local' }, dataDir },
+      async tamper(sha256, bytes) {
+        fs.chmodSync(store.pathOf(sha256), 0o644);
+        fs.writeFileSync(store.pathOf(sha256), bytes);
+      },
+    };
+  },
+  async () => fs.rmSync(dataDir, { recursive: true, force: true }),
+);
+
+describe('the local folder’s layout', () => {
+  it('is the archive of earlier versions: archive/<first two hex digits>/<sha256>, read-only, and the engine reads that file itself', async () => {
+    const folder = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-local-layout-'));
+    try {
+      const store = createLocalLogStore(folder);
+      const log = randomLog(4096);
+      await putLog(store, log.source());
+      const file = path.join(folder, 'archive', log.sha256.slice(0, 2), log.sha256);
+      expect(fs.statSync(file).mode & 0o777).toBe(0o444);
+      expect(await store.withLocalFile(log.sha256, path.join(folder, 'work'), async (handed) => handed)).toBe(file);
+      expect(fs.existsSync(path.join(folder, 'work'))).toBe(false);
+    } finally {
+      fs.rmSync(folder, { recursive: true, force: true });
+    }
+  });
+});
