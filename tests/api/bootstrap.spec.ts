@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -5,6 +6,7 @@ import { analyseLog } from '../../shared/analysis/node';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { createAuditTrail } from '../../server/audit/audit-trail';
 import { loadConfig } from '../../server/config/config';
+import type { BootstrapReport } from '../../server/database/bootstrap';
 import { resolveSigningKey } from '../../server/integrity/signing-key';
 import { createSigningKeysService } from '../../server/integrity/signing-keys.service';
 import { createVerificationService } from '../../server/integrity/verification.service';
@@ -13,6 +15,7 @@ import { DEMO_NIGHTS } from '../../seeders/data/demo-nights';
 import { bootstrapDatabase } from '../../server/database/bootstrap';
 import { DEMO_PEOPLE } from '../../seeders/data/demo-people';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
+import { ROOT } from '../cli/run-analyse';
 
 describe('start-up bootstrap of a database', () => {
   let database: TestDatabase;
@@ -53,8 +56,13 @@ describe('the demo lab’s history of nights', () => {
     const database = await createTestDatabase();
     const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-history-'));
     try {
-      const config = loadConfig({ BELLKEEP_DATA_DIR: dataDir, BELLKEEP_BCRYPT_ROUNDS: '4' });
-      const report = await bootstrapDatabase(database, config, { history: true });
+      const bootstrap = spawnSync(path.join(ROOT, 'node_modules/.bin/tsx'), [path.join(ROOT, 'tests/support/bootstrap-child.ts')], {
+        cwd: ROOT,
+        encoding: 'utf8',
+        env: { ...process.env, BELLKEEP_DATABASE_URL: database.url, BELLKEEP_DATA_DIR: dataDir, BELLKEEP_BCRYPT_ROUNDS: '4' },
+      });
+      expect({ status: bootstrap.status, stderr: bootstrap.stderr }).toMatchObject({ status: 0 });
+      const report = JSON.parse(bootstrap.stdout) as BootstrapReport;
       expect(report.seeders).toContain('20261201020000-demo-nights.ts');
 
       const runs = await database.models.Run.findAll({ order: [['id', 'ASC']] });
