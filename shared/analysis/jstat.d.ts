@@ -3,6 +3,8 @@ declare module 'jstat' {
   export const jStat: {
     /** Natural logarithm of the gamma function. */
     gammaln(x: number): number;
+    /** Regularised lower incomplete gamma function P(a, x). */
+    lowRegGamma(a: number, x: number): number;
     chisquare: {
       /** Cumulative distribution function of the chi-squared distribution with `dof` degrees of freedom. */
       cdf(x: number, dof: number): number;

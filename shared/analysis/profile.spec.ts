@@ -10,12 +10,13 @@ describe('parseProfile', () => {
         chshTolerance: 0.03,
         qberTolerance: 0.05,
         epsilon: 1e-9,
-        criterion: 'observed',
+        criterion: 'certified',
         minTestRounds: 1000,
         reconciliationEfficiency: 1.15,
         epsilonEC: 1e-10,
         epsilonPA: 1e-10,
         significance: 0.001,
+        missingRoundsTolerance: 0.001,
         driftBlocks: 10,
         requirePositiveKey: false,
         blockingChecks: ['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling'],
@@ -25,9 +26,9 @@ describe('parseProfile', () => {
   });
 
   it('keeps given values and fills the selection default inside a mode', () => {
-    const parsed = parseProfile({ testSelection: { mode: 'bernoulli' }, criterion: 'certified' });
+    const parsed = parseProfile({ testSelection: { mode: 'bernoulli' }, criterion: 'observed' });
     expect(parsed.ok && parsed.profile.testSelection).toEqual({ mode: 'bernoulli', probability: 0.5 });
-    expect(parsed.ok && parsed.profile.criterion).toBe('certified');
+    expect(parsed.ok && parsed.profile.criterion).toBe('observed');
   });
 
   it.each([

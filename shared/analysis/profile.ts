@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 /** The check families a profile can make blocking. */
-export const CHECK_FAMILIES = ['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling', 'stationarity'] as const;
+export const CHECK_FAMILIES = ['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling', 'stationarity', 'test-marks'] as const;
 
 /** A family of checks (`setting-uniformity` covers the x, y and joint tests, and so on). */
 export type CheckFamily = (typeof CHECK_FAMILIES)[number];
@@ -70,8 +70,11 @@ export const profileSchema = z.strictObject({
   qberTolerance: z.number({ error: 'must be a number' }).gt(0, { error: 'must be above 0' }).max(0.5, { error: 'must be at most 0.5' }).default(0.05),
   /** Failure probability of every confidence bound (Hoeffding, sampling). Default 1e-9 (common practice 1e-6–1e-12). */
   epsilon: openUnitInterval('epsilon').default(1e-9),
-  /** `observed`: the observed values against the thresholds; `certified`: the confidence-corrected ones. Default observed. */
-  criterion: z.enum(['observed', 'certified'], { error: 'must be observed or certified' }).default('observed'),
+  /**
+   * `certified`: the confidence-corrected values against the thresholds; `observed`: the observed
+   * ones. Default certified. Under either, ACCEPT needs the lower bound of the win fraction above ¾.
+   */
+  criterion: z.enum(['observed', 'certified'], { error: 'must be observed or certified' }).default('certified'),
   /** Fewest CHSH test rounds and fewest key-setting test rounds accepted. Default 1000 (common practice, no source). */
   minTestRounds: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).default(1000),
   /** Error-correction efficiency f ≥ 1. Default 1.15 (common practice 1.1–1.2, no source). */
@@ -82,6 +85,11 @@ export const profileSchema = z.strictObject({
   epsilonPA: openUnitInterval('epsilonPA').default(1e-10),
   /** A statistical check fails when its p-value falls below this. Default 0.001 (common practice, no source). */
   significance: openUnitInterval('significance').default(0.001),
+  /**
+   * Largest share of the trigger span (first to last round index) that may be missing from the log;
+   * beyond it the run never passes. Default 0.001 (common practice, no source).
+   */
+  missingRoundsTolerance: z.number({ error: 'must be a number' }).min(0, { error: 'must be at least 0' }).lt(0.5, { error: 'must be below 0.5' }).default(0.001),
   /** Number of consecutive blocks for the stationarity check. Default 10. */
   driftBlocks: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(2, { error: 'must be at least 2' }).max(1000, { error: 'must be at most 1000' }).default(10),
   /** Whether ACCEPT also needs a positive finite key. Default false. */

@@ -5,7 +5,9 @@ import { AnalysisProfile, TestSelection } from './profile';
 import { BlockSummary } from './report/block-summary';
 import { ChshSummary } from './report/chsh-summary';
 import { KeySummary } from './report/key-summary';
+import { MissingRoundsSummary } from './report/missing-rounds';
 import { QberSummary } from './report/qber-summary';
+import { SecuritySummary } from './report/security-summary';
 import { CountTable } from './tally/count-table';
 
 /** The verdict on a run. */
@@ -45,10 +47,14 @@ export interface AnalysisResult {
   seed: string | null;
   /** Null for an INVALID log, as are counts, chsh, qber and key. */
   selection: SelectionSummary | null;
+  /** The round indices the log lacks between its first and last; null for an INVALID log. */
+  missingRounds: MissingRoundsSummary | null;
   counts: { test: CountTable; generation: CountTable } | null;
   chsh: ChshSummary | null;
   qber: QberSummary | null;
   key: KeySummary | null;
+  /** The ε bookkeeping of the key figure and the checks' shared significance; null for an INVALID log. */
+  security: SecuritySummary | null;
   checks: CheckResult[];
   blocks: BlockSummary[];
   verdict: Verdict;

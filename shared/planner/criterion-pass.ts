@@ -1,22 +1,41 @@
 import type { AnalysisProfile } from '../analysis/profile';
-import { summariseChsh } from '../analysis/report/chsh-summary';
+import { CHSH_PAIRS, summariseChsh } from '../analysis/report/chsh-summary';
 import { summariseQber } from '../analysis/report/qber-summary';
-import { chshCriterion, qberCriterion } from '../analysis/report/verdict';
+import { chshRulesHold, qberCriterion } from '../analysis/report/verdict';
+import { QUANTUM_WIN_FRACTION } from '../analysis/statistics/bell-bounds';
 import { log10BinomialUpperTail } from '../analysis/statistics/binomial-tail';
 import { COUNT_CELLS, countCell } from '../analysis/tally/count-table';
 import { firstIndexWhere } from './monotone-search';
 
 /**
- * Probability that the CHSH criterion passes with `rounds` CHSH test rounds each won with
- * probability ω: P(W ≥ w*) for W ~ Bin(rounds, ω), where w* is the fewest wins the engine's own
- * criterion (`chshCriterion` on `summariseChsh`) accepts; under the general model with the
- * threshold ω_thr of `generalThreshold`.
+ * Probability that the CHSH rules pass with `rounds` CHSH test rounds each won with probability ω:
+ * P(W ≥ w*) for W ~ Bin(rounds, ω), where w* is the fewest wins the engine's own rules
+ * (`chshRulesHold` on `summariseChsh`: the criterion, a significant violation, the quantum bound)
+ * accept, the rounds and wins split evenly over the four setting pairs as the design expects;
+ * under the general model with the threshold ω_thr of `generalThreshold`, the acceptance count
+ * taken at the expected test rounds. The passing wins form an interval [w*, w⁺): from w⁺ on the
+ * lower bound is above the quantum maximum, which fails, so the probability is P(W ≥ w*) − P(W ≥ w⁺).
  */
 export function chshPassProbability(rounds: number, winFraction: number, profile: AnalysisProfile, generalThreshold?: number): number {
-  const passes = (wins: number) =>
-    chshCriterion(summariseChsh(tableWith(countCell(0, 0, 0, 0), wins, countCell(0, 0, 0, 1), rounds - wins), profile.epsilon), profile, generalThreshold).passes;
-  const fewest = firstIndexWhere(0, rounds, passes);
-  return fewest === null ? 0 : 10 ** log10BinomialUpperTail(fewest, rounds, winFraction);
+  const general = generalThreshold === undefined ? null : { rounds, testProbability: 1, omegaThreshold: generalThreshold };
+  const summary = (wins: number) => summariseChsh(evenPairs(rounds, wins), new Array<number>(COUNT_CELLS).fill(0), profile.epsilon);
+  const aboveQuantum = (wins: number) => (summary(wins).winFractionLower ?? 0) > QUANTUM_WIN_FRACTION;
+  const fewest = firstIndexWhere(0, rounds, (wins) => aboveQuantum(wins) || chshRulesHold(summary(wins), profile, general));
+  if (fewest === null || !chshRulesHold(summary(fewest), profile, general)) return 0;
+  const tooMany = firstIndexWhere(fewest, rounds, aboveQuantum);
+  const tail = (wins: number) => 10 ** log10BinomialUpperTail(wins, rounds, winFraction);
+  return tail(fewest) - (tooMany === null ? 0 : tail(tooMany));
+}
+
+/** A test table of `rounds` CHSH rounds and `wins` wins, both split evenly over the four setting pairs. */
+function evenPairs(rounds: number, wins: number): number[] {
+  const table = new Array<number>(COUNT_CELLS).fill(0);
+  for (const { x, y } of CHSH_PAIRS) {
+    const [win, loss] = x * y === 1 ? [countCell(x, y, 0, 1), countCell(x, y, 0, 0)] : [countCell(x, y, 0, 0), countCell(x, y, 0, 1)];
+    table[win] = wins / 4;
+    table[loss] = (rounds - wins) / 4;
+  }
+  return table;
 }
 
 /**

@@ -16,7 +16,7 @@ const profileOf = (parameters: unknown) => {
 
 describe('criterion pass probabilities', () => {
   it('observed CHSH criterion: the binomial tail above the threshold, as jstat’s binomial CDF gives it', () => {
-    const profile = profileOf({ chshTolerance: 0.02 });
+    const profile = profileOf({ chshTolerance: 0.02, criterion: 'observed' });
     const threshold = QUANTUM_WIN_FRACTION - 0.02;
     const fewestWins = Math.ceil(4000 * threshold);
     // Reference: jStat.binomial.cdf (jstat 1.9), P(W ≥ k) = 1 − P(W ≤ k − 1).
@@ -25,13 +25,26 @@ describe('criterion pass probabilities', () => {
 
   it('certified criterion: the lower Hoeffding bound must reach the threshold, so more wins are needed', () => {
     const profile = profileOf({ chshTolerance: 0.02, criterion: 'certified', epsilon: 1e-3 });
-    const fewestWins = Math.ceil(4000 * (QUANTUM_WIN_FRACTION - 0.02 + hoeffdingDeviation(4000, 1e-3)));
-    expect(chshPassProbability(4000, 0.86, profile)).toBeCloseTo(1 - jStat.binomial.cdf(fewestWins - 1, 4000, 0.86), 8);
-    expect(chshPassProbability(4000, 0.86, profile)).toBeLessThan(chshPassProbability(4000, 0.86, profileOf({ chshTolerance: 0.02 })));
+    const deviation = hoeffdingDeviation(4000, 1e-3);
+    const fewestWins = Math.ceil(4000 * (QUANTUM_WIN_FRACTION - 0.02 + deviation));
+    // From w⁺ wins on, the lower bound is above the quantum maximum ω_Q: broken data, never a pass.
+    const tooManyWins = Math.floor(4000 * (QUANTUM_WIN_FRACTION + deviation)) + 1;
+    const jstatTail = (wins: number) => 1 - jStat.binomial.cdf(wins - 1, 4000, 0.86);
+    expect(chshPassProbability(4000, 0.86, profile)).toBeCloseTo(jstatTail(fewestWins) - jstatTail(tooManyWins), 8);
+    expect(chshPassProbability(4000, 0.86, profile)).toBeLessThan(chshPassProbability(4000, 0.86, profileOf({ chshTolerance: 0.02, criterion: 'observed' })));
+  });
+
+  it('no pass without a significant violation: with few rounds even a good device cannot pass the observed criterion', () => {
+    // 200 CHSH test rounds at ε = 1e-9: the Hoeffding deviation sqrt(ln(1e9)/400) = 0.2276 keeps
+    // the lower bound at or below ¾ up to 195 wins (195/200 − 0.2276 = 0.7474), although the observed
+    // threshold 0.8236 is passed from 165 wins on. Reference: jStat.binomial.cdf, P(W ≥ 196).
+    const profile = profileOf({ criterion: 'observed' });
+    expect(chshPassProbability(200, 0.85, profile)).toBeCloseTo(1 - jStat.binomial.cdf(195, 200, 0.85), 15);
+    expect(chshPassProbability(200, 0.85, profile)).toBeLessThan(1e-9);
   });
 
   it('observed QBER criterion: the binomial CDF up to the tolerance', () => {
-    const profile = profileOf({ qberTolerance: 0.035 });
+    const profile = profileOf({ qberTolerance: 0.035, criterion: 'observed' });
     expect(qberPassProbability(1000, 0.03, profile)).toBeCloseTo(jStat.binomial.cdf(35, 1000, 0.03), 8);
     expect(qberPassProbability(1000, 0, profile)).toBe(1);
   });

@@ -99,7 +99,7 @@ export function planPoint(device: PlanDevice, profile: AnalysisProfile, rounds: 
   const testRounds = profile.testSelection.mode === 'fixed-fraction' ? Math.floor(testFraction * rounds) : testFraction * rounds;
   const test = expectedCountTable(device, testRounds);
   const generation = expectedCountTable(device, rounds - testRounds);
-  const chsh = summariseChsh(test, profile.epsilon);
+  const chsh = summariseChsh(test, generation, profile.epsilon);
   const qber = summariseQber(test, generation, profile.epsilon);
   // The collective key only: the general one is planned apart (an optimisation per point).
   const key = summariseKey(chsh, qber, { ...profile, generalAttack: undefined }, rounds);

@@ -31,7 +31,7 @@ describe('the planner against simulated runs of the device model', () => {
       rounds: 12_000,
       visibility: 0.95,
       keyError: 0.03,
-      profile: { chshTolerance: 0.0207, qberTolerance: 0.0345, minTestRounds: 500 },
+      profile: { criterion: 'observed', chshTolerance: 0.0207, qberTolerance: 0.0345, minTestRounds: 500 },
     },
     {
       name: 'certified criteria, a quarter tested round by round',

@@ -6,7 +6,7 @@ import { gzipSync } from 'node:zlib';
 import { fixture, runAnalyse, SEED } from './run-analyse';
 
 const CONTRACT_KEYS = [
-  'engineVersion', 'input', 'profile', 'seed', 'selection', 'counts', 'chsh', 'qber', 'key', 'checks', 'blocks',
+  'engineVersion', 'input', 'profile', 'seed', 'selection', 'missingRounds', 'counts', 'chsh', 'qber', 'key', 'security', 'checks', 'blocks',
   'verdict', 'reasons', 'errors', 'errorCount', 'fingerprint',
 ];
 
@@ -17,15 +17,16 @@ describe('analyse command', () => {
   });
   afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
-  it('accepts the steady run with exit 0 and every contract key', () => {
-    const run = runAnalyse(fixture('accepted-run.csv'), '--seed', SEED);
+  it('accepts the steady run under the observed criterion with exit 0 and every contract key', () => {
+    const run = runAnalyse(fixture('accepted-run.csv'), '--seed', SEED, '--profile', fixture('observed-profile.json'));
     expect(run.status).toBe(0);
     const result = JSON.parse(run.stdout);
     expect(Object.keys(result).sort()).toEqual([...CONTRACT_KEYS].sort());
     expect(result.verdict).toBe('ACCEPT');
     expect(result.seed).toBe(SEED);
     expect(Object.keys(result.input).sort()).toEqual(expect.arrayContaining(['sha256', 'bytes', 'rounds']));
-    expect(Object.keys(result.chsh)).toEqual(expect.arrayContaining(['rounds', 'wins', 'winFraction', 'winFractionLower', 'S', 'correlators', 'pValue', 'log10PValue']));
+    expect(Object.keys(result.chsh)).toEqual(expect.arrayContaining(['rounds', 'wins', 'winFraction', 'winFractionLower', 'S', 'correlators', 'pValue', 'log10PValue', 'pairs']));
+    expect(result.chsh.pairs).toHaveLength(4);
     expect(Object.keys(result.qber)).toEqual(expect.arrayContaining(['rounds', 'errors', 'rate', 'rateUpper', 'untestedRateUpper']));
     expect(Object.keys(result.key)).toEqual(expect.arrayContaining(['rawBits', 'asymptoticRate', 'minEntropyPerRound', 'finiteKeyBits']));
     expect(result.selection).toEqual({ mode: 'fixed-fraction', testRounds: 12_000, generationRounds: 12_000 });
@@ -49,11 +50,18 @@ describe('analyse command', () => {
     expect(result.checks.find((check: { id: string }) => check.id === 'setting-uniformity-x').status).toBe('fail');
   });
 
-  it('accepts the drifting run but warns on stationarity (not blocking by default)', () => {
-    const run = runAnalyse(fixture('drifting-run.csv'), '--seed', SEED);
+  it('refuses the steady run under the certified default: 24 000 rounds are too few for its bounds', () => {
+    const run = runAnalyse(fixture('accepted-run.csv'), '--seed', SEED);
+    expect(run.status).toBe(1);
+    expect(JSON.parse(run.stdout).reasons.join(' ')).toContain('lower bound of the CHSH win fraction');
+  });
+
+  it('aborts the drifting run under the collective model: its key figure assumes identical rounds', () => {
+    const run = runAnalyse(fixture('drifting-run.csv'), '--seed', SEED, '--profile', fixture('observed-profile.json'));
     const result = JSON.parse(run.stdout);
-    expect(run.status).toBe(0);
-    expect(result.checks.find((check: { id: string }) => check.id === 'stationarity-chsh').status).toBe('warn');
+    expect(run.status).toBe(1);
+    expect(result.checks.find((check: { id: string }) => check.id === 'stationarity-chsh').status).toBe('fail');
+    expect(result.reasons.join(' ')).toContain('stationarity-chsh');
     expect(result.blocks).toHaveLength(10);
   });
 
@@ -63,7 +71,14 @@ describe('analyse command', () => {
     const result = JSON.parse(run.stdout);
     expect(result.seed).toBeNull();
     expect(result.selection.mode).toBe('from-log');
-    expect(result.checks[0]).toMatchObject({ id: 'log-integrity', status: 'warn' });
+    expect(result.verdict).toBe('ACCEPT');
+    // A few trigger indices are missing, within the default tolerance of 0.1 %; with the log's own
+    // marks every one of them counts as a lost test round.
+    expect(result.missingRounds.missing).toBeGreaterThan(0);
+    expect(result.missingRounds.missing).toBeLessThanOrEqual(result.missingRounds.tolerated);
+    expect(result.missingRounds.drawnForTesting).toBe(result.missingRounds.missing);
+    expect(result.chsh.missingTestRounds).toBe(result.missingRounds.missing);
+    expect(result.checks[0]).toMatchObject({ id: 'log-integrity', status: 'pass' });
   });
 
   it('lists the problems of a malformed log with line, column and value, exit 3', () => {

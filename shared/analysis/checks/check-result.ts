@@ -1,3 +1,4 @@
+import { formatLog10 } from '../../format/numbers';
 import { CheckFamily } from '../profile';
 
 /** Outcome of one check. */
@@ -7,11 +8,13 @@ export type CheckStatus = 'pass' | 'warn' | 'fail';
 export interface CheckResult {
   /** Stable id, e.g. `setting-uniformity-x`. */
   id: string;
-  /** `pass`; or, when the check does not hold, `fail` if its family blocks the verdict, else `warn`. */
+  /** `pass`; or, when the check does not hold, `fail` if it blocks the verdict, else `warn`. */
   status: CheckStatus;
   /** The observed value (a p-value for statistical checks), or null when there was nothing to observe. */
   observed: number | null;
-  /** The value it is held against. */
+  /** log10 of the p-value of a statistical check, computed in log space (so it never reads 0); else null. */
+  log10PValue: number | null;
+  /** The value it is held against (for statistical checks, the profile's significance shared among them). */
   threshold: number | null;
   /** What was found, as a sentence. */
   message: string;
@@ -23,21 +26,34 @@ export interface CheckFinding {
   family: CheckFamily;
   /** Whether the check holds. */
   holds: boolean;
-  /** Whether a failure is only ever a warning (gaps in round indices, say). */
-  advisory?: boolean;
+  /** Whether a failure always blocks ACCEPT, whatever the profile's blocking families (soundness checks). */
+  alwaysBlocks?: boolean;
   observed: number | null;
+  log10PValue?: number;
   threshold: number | null;
   message: string;
 }
 
-/** Sets the status of a finding: a check that does not hold fails when its family blocks the verdict, else warns. */
+/** Sets the status of a finding: a check that does not hold fails when it blocks the verdict, else warns. */
 export function checkStatus(finding: CheckFinding, blocking: readonly CheckFamily[]): CheckResult {
-  const blocks = blocking.includes(finding.family) && finding.advisory !== true;
+  const blocks = finding.alwaysBlocks === true || blocking.includes(finding.family);
   const status: CheckStatus = finding.holds ? 'pass' : blocks ? 'fail' : 'warn';
-  return { id: finding.id, status, observed: finding.observed, threshold: finding.threshold, message: finding.message };
+  return { id: finding.id, status, observed: finding.observed, log10PValue: finding.log10PValue ?? null, threshold: finding.threshold, message: finding.message };
 }
 
-/** Formats a p-value for a message. */
-export function formatPValue(p: number): string {
-  return p < 1e-4 ? p.toExponential(2) : p.toPrecision(3);
+/** Formats a p-value given as its log10, so that a tail far below the smallest double still reads as a number, never 0. */
+export function formatPValue(log10PValue: number): string {
+  const p = 10 ** log10PValue;
+  return p >= 1e-4 ? p.toPrecision(3) : formatLog10(log10PValue);
+}
+
+/** A statistical finding: holds when its p-value reaches the check's share of the significance. */
+export function statisticalFinding(
+  fields: Omit<CheckFinding, 'holds' | 'observed' | 'threshold' | 'log10PValue' | 'message'>,
+  log10PValue: number,
+  significance: number,
+  message: (holds: boolean, p: string) => string,
+): CheckFinding {
+  const holds = log10PValue >= Math.log10(significance);
+  return { ...fields, holds, observed: 10 ** log10PValue, log10PValue, threshold: significance, message: message(holds, formatPValue(log10PValue)) };
 }

@@ -1,21 +1,32 @@
+import { formatCount } from '../../format/numbers';
+import { MissingRoundsSummary } from '../report/missing-rounds';
 import { CheckFinding } from './check-result';
 
 /**
- * Log integrity of a log that passed the reading rules (so no repeats or steps back): gaps in the
- * round indices are counted and reported as a warning, never as a failure, since detectors lose rounds.
+ * Missing rounds (the detection and post-selection loopholes: a local model that may leave rounds
+ * out of its log can show any S up to 4 on the rest; Pearle, PRD 2, 1418 (1970); Garg and Mermin,
+ * PRD 35, 3831 (1987); Eberhard, PRA 47, R747 (1993); Larsson, PRA 57, 3304 (1998); Larsson and
+ * Gill, Europhys. Lett. 67, 707 (2004)). The round column is the stations' trigger counter; every
+ * index between the first and the last that the log lacks is a missing round. Each missing round
+ * drawn for testing already counts as a lost CHSH game; beyond that the profile's tolerance caps how
+ * many may be missing at all, and a log past it never passes, whatever the profile's blocking families.
  */
-export function logIntegrityCheck(rounds: number, gaps: number, firstRound: number | null, lastRound: number | null): CheckFinding {
-  const span = firstRound === null ? 'no rounds' : `round indices ${firstRound} to ${lastRound}`;
+export function logIntegrityCheck(rounds: number, span: MissingRoundsSummary): CheckFinding {
+  const { missing, tolerated: allowed, drawnForTesting } = span;
+  const holds = missing <= allowed;
+  const where = `${formatCount(rounds)} rounds with round indices ${span.firstRound} to ${span.lastRound}`;
+  const drawn = drawnForTesting > 0 ? ` ${formatCount(drawnForTesting)} of them were drawn for testing and count as lost CHSH games.` : '';
+  const share = `${((100 * missing) / span.triggers).toPrecision(2)} %`;
   return {
     id: 'log-integrity',
     family: 'log-integrity',
-    holds: gaps === 0,
-    advisory: true,
-    observed: gaps,
-    threshold: 0,
+    holds,
+    alwaysBlocks: true,
+    observed: missing,
+    threshold: allowed,
     message:
-      gaps === 0
-        ? `${rounds} rounds, ${span}, strictly increasing with no gaps.`
-        : `${rounds} rounds, ${span}, strictly increasing; ${gaps} round indices are missing.`,
+      missing === 0
+        ? `${where}, strictly increasing with none missing.`
+        : `${where}: ${formatCount(missing)} of the ${formatCount(span.triggers)} triggers are missing (${share}); the profile tolerates ${formatCount(allowed)}${holds ? '' : ', so the log cannot be trusted to hold every round'}.${drawn}`,
   };
 }

@@ -1,7 +1,10 @@
 import { chiSquaredIndependence } from '../statistics/independence-test';
-import { upperTail } from '../statistics/goodness-of-fit';
+import { chiSquaredTest } from '../statistics/goodness-of-fit';
 import { countCell } from '../tally/count-table';
-import { CheckFinding, formatPValue } from './check-result';
+import { CheckFinding, statisticalFinding } from './check-result';
+
+/** Statistical checks this file makes: one per station. */
+export const NO_SIGNALLING_CHECKS = 2;
 
 /**
  * No-signalling: A's outcome a must not depend on B's setting y (for each x), nor B's outcome b on
@@ -20,16 +23,14 @@ export function noSignallingChecks(all: readonly number[], significance: number)
 
 function combined(id: string, outcome: string, setting: string, tables: number[][][], significance: number): CheckFinding {
   const tests = tables.map((table) => chiSquaredIndependence(table));
-  const statistic = tests.reduce((sum, test) => sum + test.statistic, 0);
-  const degreesOfFreedom = tests.reduce((sum, test) => sum + test.degreesOfFreedom, 0);
-  const pValue = degreesOfFreedom === 0 ? 1 : upperTail(statistic, degreesOfFreedom);
-  const holds = pValue >= significance;
-  return {
-    id,
-    family: 'no-signalling',
-    holds,
-    observed: pValue,
-    threshold: significance,
-    message: `${outcome} ${holds ? 'shows no dependence' : 'depends'} on ${setting} (chi-squared ${statistic.toFixed(2)}, ${degreesOfFreedom} dof, p = ${formatPValue(pValue)}).`,
-  };
+  const test = chiSquaredTest(
+    tests.reduce((sum, one) => sum + one.statistic, 0),
+    tests.reduce((sum, one) => sum + one.degreesOfFreedom, 0),
+  );
+  return statisticalFinding(
+    { id, family: 'no-signalling' },
+    test.log10PValue,
+    significance,
+    (holds, p) => `${outcome} ${holds ? 'shows no dependence' : 'depends'} on ${setting} (chi-squared ${test.statistic.toFixed(2)}, ${test.degreesOfFreedom} dof, p = ${p}).`,
+  );
 }

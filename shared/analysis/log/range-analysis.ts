@@ -4,6 +4,7 @@ import { createTestSelector, SelectionStart, TestSelector } from '../selection/t
 import { RoundTally, TallyCounts } from '../tally/round-tally';
 import { HeaderLayout } from './header-layout';
 import { LogProblem, ProblemList } from './log-problem';
+import { TriggerSpan } from './range-plans';
 import { RecordChecker, RoundMark } from './record-checker';
 import { FIELD } from './round-fields';
 
@@ -23,7 +24,13 @@ export interface RangePlan {
   selection: TestSelection;
   /** Line number of the stretch's first line. */
   firstLine: number;
-  /** Where the stretch starts among the rounds, and the totals. */
+  /** Index (0-based, in log order) of the stretch's first record, for the stationarity blocks. */
+  firstRecord: number;
+  /** Records in the whole log. */
+  totalRecords: number;
+  /** The log's trigger span. */
+  span: TriggerSpan;
+  /** Where the stretch starts among the triggers, and the totals. */
   start: SelectionStart;
   /** Number of stationarity blocks. */
   blocks: number;
@@ -37,6 +44,8 @@ export interface RangeSummary {
   validRecords: number;
   /** Test rounds among them. */
   testRounds: number;
+  /** Triggers missing from the log that were drawn for testing (every missing one, with the log's own marking). */
+  missingTestRounds: number;
   /** The counts. */
   counts: TallyCounts;
   /** The first problems, in order. */
@@ -64,32 +73,50 @@ export class RangeAnalysis {
   private records = 0;
   private validRecords = 0;
   private testRounds = 0;
+  private missingTestRounds = 0;
+  /** The round index whose trigger the selector decides next. */
+  private nextRound: number;
+  private readonly lastRound: number;
 
   constructor(plan: RangePlan, keystream: KeystreamSource | null) {
     this.checker = new RecordChecker(plan.layout, this.problems);
     this.selector = createTestSelector(plan.selection, keystream, plan.start);
-    this.tally = new RoundTally(Math.max(plan.start.totalRounds, 1), plan.blocks, plan.start.firstRound);
-    this.index = plan.start.firstRound;
+    this.tally = new RoundTally(Math.max(plan.totalRecords, 1), plan.blocks, plan.firstRecord);
+    this.index = plan.firstRecord;
+    this.nextRound = plan.span.firstRound + plan.start.firstTrigger;
+    this.lastRound = plan.span.lastRound;
   }
 
-  /** One record: see `RecordChecker.accept` for the arguments. */
+  /**
+   * One record: see `RecordChecker.accept` for the arguments. The triggers missing before a valid
+   * record take their test decisions first. A record of a log that is INVALID anyway (a bad field,
+   * a round index out of order or past the log's last) takes none, so no selection runs wild.
+   */
   accept(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[]): void {
     const valid = this.checker.accept(line, values, fieldCount, rawFields);
-    const decoded = this.checker.decoded;
-    const isTest = this.selector.next(decoded[TEST]);
-    if (valid) {
-      this.validRecords++;
-      this.testRounds += isTest ? 1 : 0;
-      this.tally.add(this.index, decoded[ROUND], decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
-    }
     this.index++;
     this.records++;
+    if (!valid) {
+      return;
+    }
+    const decoded = this.checker.decoded;
+    const round = decoded[ROUND];
+    if (round < this.nextRound || !(round <= this.lastRound)) {
+      return;
+    }
+    if (round > this.nextRound) {
+      this.missingTestRounds += this.selector.skip(round - this.nextRound);
+    }
+    this.nextRound = round + 1;
+    const isTest = this.selector.next(decoded[TEST]);
+    this.validRecords++;
+    this.testRounds += isTest ? 1 : 0;
+    this.tally.add(this.index - 1, round, decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
   }
 
   /** One record whose quoting could not be read. */
   malformed(line: number, text: string, message: string): void {
     this.checker.malformed(line, text, message);
-    this.selector.next(NaN);
     this.index++;
     this.records++;
   }
@@ -100,6 +127,7 @@ export class RangeAnalysis {
       records: this.records,
       validRecords: this.validRecords,
       testRounds: this.testRounds,
+      missingTestRounds: this.missingTestRounds,
       counts: this.tally.counts(),
       problems: this.problems.listed,
       problemCount: this.problems.count,

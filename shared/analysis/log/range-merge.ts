@@ -36,6 +36,7 @@ export function mergeRanges(ranges: readonly RangeSummary[], blocks: number, rou
     records: sum(ranges, (range) => range.records),
     validRecords: sum(ranges, (range) => range.validRecords),
     testRounds: sum(ranges, (range) => range.testRounds),
+    missingTestRounds: sum(ranges, (range) => range.missingTestRounds),
     counts: mergeCounts(ranges.map((range) => range.counts), blocks),
     problems,
     problemCount,

@@ -47,7 +47,7 @@ describe('analyseLog', () => {
   it('certified criterion is stricter than observed', async () => {
     // Same log and seed: the Hoeffding-corrected win fraction is lower, so a tolerance that the
     // observed value meets can fail once corrected.
-    const observed = await analyseLog({ path: ACCEPTED }, { seed: SEED, profile: { chshTolerance: 0.02 } });
+    const observed = await analyseLog({ path: ACCEPTED }, { seed: SEED, profile: { chshTolerance: 0.02, criterion: 'observed' } });
     const certified = await analyseLog({ path: ACCEPTED }, { seed: SEED, profile: { chshTolerance: 0.02, criterion: 'certified' } });
     expect(observed.verdict).toBe('ACCEPT');
     expect(certified.verdict).toBe('ABORT');

@@ -1,13 +1,14 @@
 import { availableParallelism } from 'node:os';
 import { HEAD_BYTES, readLogHead } from '../log/log-head';
 import { mergeRanges } from '../log/range-merge';
-import { planRanges } from '../log/range-plans';
+import { planRanges, spanProblem, triggerSpan } from '../log/range-plans';
 import { FIELD } from '../log/round-fields';
 import { aesKeystream } from './aes-keystream';
 import { AnalysisRequest } from './analysis-request';
 import { progressCounter, ProgressListener } from './analysis-progress';
 import { splitIntoLineRanges } from './byte-ranges';
 import { hashAndCount } from './counting-pass';
+import { readRecordEdges } from './edge-reading';
 import { NO_ROUNDS, ReadOutcome } from './read-outcome';
 import { RangeTask, runRangeTask } from './range-task';
 import { WorkerPool } from './worker-pool';
@@ -55,7 +56,12 @@ export async function readByRanges(
     if (cancelled()) {
       return { kind: 'unreadable', input: { ...input, sha256, rounds }, problems: [], problemCount: 0 };
     }
-    const plans = planRanges(logHead.layout, request.profile, counts, request.seed === null ? null : aesKeystream(request.seed));
+    const edges = await readRecordEdges(path, size, head, logHead.dataOffset, ranges, logHead.layout);
+    const badSpan = spanProblem(triggerSpan(edges, rounds), rounds, logHead.layout);
+    if (badSpan !== null) {
+      return { kind: 'unreadable', input: { ...input, sha256, rounds }, problems: [badSpan], problemCount: 1 };
+    }
+    const plans = planRanges(logHead.layout, request.profile, counts, edges, request.seed === null ? null : aesKeystream(request.seed));
     const tasks: RangeTask[] = ranges.map((range, i) => ({ path, range, plan: plans[i], seed: request.seed }));
     const onBytes = progressCounter('analysing', size, listener);
     onBytes(logHead.dataOffset); // the header, read before this pass

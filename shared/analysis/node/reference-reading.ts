@@ -3,8 +3,8 @@ import { CsvError, Options, parse } from 'csv-parse';
 import { HEAD_BYTES, readLogHead } from '../log/log-head';
 import { parseIntegerField } from '../log/integer-field';
 import { RangeAnalysis } from '../log/range-analysis';
-import { planRanges } from '../log/range-plans';
-import { ROUND_FIELDS } from '../log/round-fields';
+import { planRanges, spanProblem, triggerSpan } from '../log/range-plans';
+import { FIELD, ROUND_FIELDS } from '../log/round-fields';
 import { aesKeystream } from './aes-keystream';
 import { AnalysisRequest } from './analysis-request';
 import { DamagedGzipError, decodeLog } from './decoded-log';
@@ -38,6 +38,7 @@ export async function readWithCsvParse(source: LogSource, request: AnalysisReque
   const head: Uint8Array[] = [];
   let headLength = 0;
   let records = 0;
+  const edgeFields: string[][] = [];
   try {
     const counted = csvRecords(first.chunks, (chunk) => {
       if (headLength < HEAD_BYTES) {
@@ -47,6 +48,9 @@ export async function readWithCsvParse(source: LogSource, request: AnalysisReque
     });
     for await (const record of counted) {
       records += record.record.length > 0 ? 1 : 0;
+      // The header, the first record and the last record: the edges of the trigger span.
+      if (edgeFields.length < 2) edgeFields.push(record.record);
+      else edgeFields[2] = record.record;
     }
   } catch (error) {
     if (error instanceof DamagedGzipError) {
@@ -66,8 +70,14 @@ export async function readWithCsvParse(source: LogSource, request: AnalysisReque
   if (input.rounds === 0) {
     return { kind: 'unreadable', input, problems: [NO_ROUNDS], problemCount: 1 };
   }
+  const roundOf = (fields: string[] | undefined) => parseIntegerField(fields?.[logHead.layout.columnOfField[FIELD.round]] ?? '');
+  const edges = { firstRound: roundOf(edgeFields[1]), lastRound: roundOf(edgeFields[2] ?? edgeFields[1]), previousRounds: [NaN] };
+  const badSpan = spanProblem(triggerSpan(edges, input.rounds), input.rounds, logHead.layout);
+  if (badSpan !== null) {
+    return { kind: 'unreadable', input, problems: [badSpan], problemCount: 1 };
+  }
   const keystream = request.seed === null ? null : aesKeystream(request.seed);
-  const [plan] = planRanges(logHead.layout, request.profile, [{ lines: 0, records: input.rounds }], keystream);
+  const [plan] = planRanges(logHead.layout, request.profile, [{ lines: 0, records: input.rounds }], edges, keystream);
   const analysis = new RangeAnalysis(plan, keystream);
   const values = new Float64Array(ROUND_FIELDS.length);
   const fieldOfColumn = logHead.layout.fieldOfColumn;

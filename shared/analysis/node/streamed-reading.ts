@@ -3,7 +3,8 @@ import { ByteScanner } from '../log/byte-scanner';
 import { HEAD_BYTES, LogHead, readLogHead } from '../log/log-head';
 import { LineCounter } from '../log/line-counter';
 import { RangeAnalysis } from '../log/range-analysis';
-import { planRanges } from '../log/range-plans';
+import { planRanges, spanProblem, triggerSpan } from '../log/range-plans';
+import { firstRecordLine, LastLineKeeper, roundOfLine } from '../log/record-edges';
 import { aesKeystream } from './aes-keystream';
 import { AnalysisRequest } from './analysis-request';
 import { progressCounter, ProgressListener } from './analysis-progress';
@@ -27,6 +28,7 @@ export async function readAsStream(source: LogSource, totalBytes: number | null,
   });
   const compression = counting.gzip ? ('gzip' as const) : ('none' as const);
   const counter = new LineCounter();
+  const lastLine = new LastLineKeeper();
   const head = new Uint8Array(HEAD_BYTES);
   let headLength = 0;
   try {
@@ -37,6 +39,7 @@ export async function readAsStream(source: LogSource, totalBytes: number | null,
         headLength += taken.length;
       }
       counter.push(chunk);
+      lastLine.push(chunk);
       if (cancelled()) {
         break;
       }
@@ -59,7 +62,16 @@ export async function readAsStream(source: LogSource, totalBytes: number | null,
     return { kind: 'unreadable', input, problems: [NO_ROUNDS], problemCount: 1 };
   }
   const dataCount = { lines: total.lines - 1, records: input.rounds };
-  const [plan] = planRanges(logHead.layout, request.profile, [dataCount], request.seed === null ? null : aesKeystream(request.seed));
+  const edges = {
+    firstRound: roundOfLine(firstRecordLine(head.subarray(logHead.dataOffset, decodedBytes)), logHead.layout),
+    lastRound: roundOfLine(lastLine.finish(), logHead.layout),
+    previousRounds: [NaN],
+  };
+  const badSpan = spanProblem(triggerSpan(edges, input.rounds), input.rounds, logHead.layout);
+  if (badSpan !== null) {
+    return { kind: 'unreadable', input, problems: [badSpan], problemCount: 1 };
+  }
+  const [plan] = planRanges(logHead.layout, request.profile, [dataCount], edges, request.seed === null ? null : aesKeystream(request.seed));
   const analysis = new RangeAnalysis(plan, request.seed === null ? null : aesKeystream(request.seed));
   const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine);
   const analyseProgress = progressCounter('analysing', totalBytes, listener);

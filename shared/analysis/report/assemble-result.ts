@@ -1,19 +1,22 @@
 import { checkStatus } from '../checks/check-result';
 import { logIntegrityCheck } from '../checks/log-integrity';
 import { minimumTestRoundsCheck } from '../checks/minimum-test-rounds';
-import { noSignallingChecks } from '../checks/no-signalling';
-import { settingUniformityChecks } from '../checks/setting-uniformity';
-import { stationarityChecks } from '../checks/stationarity';
+import { NO_SIGNALLING_CHECKS, noSignallingChecks } from '../checks/no-signalling';
+import { SETTING_UNIFORMITY_CHECKS, settingUniformityChecks } from '../checks/setting-uniformity';
+import { STATIONARITY_CHECKS, stationarityChecks } from '../checks/stationarity';
+import { testMarkCheckCount, testMarkChecks } from '../checks/test-marks';
 import { ENGINE_VERSION } from '../engine-version';
 import { LogProblem } from '../log/log-problem';
 import { RangeSummary } from '../log/range-analysis';
-import { AnalysisProfile } from '../profile';
+import { AnalysisProfile, CheckFamily } from '../profile';
 import { InputSummary, UnsealedResult } from '../result';
 import { nestCounts } from '../tally/count-table';
 import { blockSummaries } from './block-summary';
 import { summariseChsh } from './chsh-summary';
 import { summariseKey } from './key-summary';
+import { summariseMissingRounds } from './missing-rounds';
 import { summariseQber } from './qber-summary';
+import { summariseSecurity } from './security-summary';
 import { decideVerdict } from './verdict';
 
 /** What every result records about its run, whatever the outcome. */
@@ -23,32 +26,54 @@ export interface RunContext {
   seed: string | null;
 }
 
+/** How many statistical checks a run under the profile makes: they share its significance (see `summariseSecurity`). */
+export function statisticalCheckCount(profile: AnalysisProfile): number {
+  return SETTING_UNIFORMITY_CHECKS + NO_SIGNALLING_CHECKS + STATIONARITY_CHECKS + testMarkCheckCount(profile);
+}
+
+/**
+ * The check families whose failure aborts: the profile's, and stationarity under the collective
+ * model, whose key figure assumes identical rounds (a drifting source voids it).
+ */
+export function blockingFamilies(profile: AnalysisProfile): CheckFamily[] {
+  return profile.securityModel === 'collective' ? [...new Set<CheckFamily>([...profile.blockingChecks, 'stationarity'])] : profile.blockingChecks;
+}
+
 /** The result of a readable log, from the merged summary of all its stretches. */
 export function assembleResult(log: RangeSummary, context: RunContext): UnsealedResult {
   const { profile } = context;
   const { test, generation } = log.counts;
   const all = test.map((count, cell) => count + generation[cell]);
-  const chsh = summariseChsh(test, profile.epsilon);
+  const firstRound = log.first?.round ?? 0;
+  const lastRound = log.last?.round ?? -1;
+  const missingRounds = summariseMissingRounds({ firstRound, lastRound, triggers: lastRound - firstRound + 1 }, log.gaps, log.missingTestRounds, profile.missingRoundsTolerance);
+  const chsh = summariseChsh(test, generation, profile.epsilon, log.missingTestRounds);
   const qber = summariseQber(test, generation, profile.epsilon);
   const key = summariseKey(chsh, qber, profile, log.validRecords);
   const blocks = blockSummaries(log.counts.blockStats, log.counts.blockRounds, profile.epsilon);
+  const checkCount = statisticalCheckCount(profile);
+  const perCheck = profile.significance / checkCount;
   const findings = [
-    logIntegrityCheck(log.records, log.gaps, log.first?.round ?? null, log.last?.round ?? null),
+    logIntegrityCheck(log.records, missingRounds),
     minimumTestRoundsCheck(chsh.rounds, qber.rounds, profile.minTestRounds),
-    ...settingUniformityChecks(all, profile.significance),
-    ...noSignallingChecks(all, profile.significance),
-    ...stationarityChecks(blocks, profile.significance),
+    ...settingUniformityChecks(all, test, perCheck),
+    ...noSignallingChecks(all, perCheck),
+    ...stationarityChecks(blocks, perCheck),
+    ...testMarkChecks(test, generation, profile, perCheck),
   ];
-  const checks = findings.map((finding) => checkStatus(finding, profile.blockingChecks));
+  const blocking = blockingFamilies(profile);
+  const checks = findings.map((finding) => checkStatus(finding, blocking));
   const { verdict, reasons } = decideVerdict(chsh, qber, key, checks, profile);
   return {
     engineVersion: ENGINE_VERSION,
     ...context,
     selection: { mode: profile.testSelection.mode, testRounds: log.testRounds, generationRounds: log.validRecords - log.testRounds },
+    missingRounds,
     counts: { test: nestCounts(test), generation: nestCounts(generation) },
     chsh,
     qber,
     key,
+    security: summariseSecurity(profile, key, checkCount),
     checks,
     blocks,
     verdict,
@@ -67,10 +92,12 @@ export function invalidResult(problems: readonly LogProblem[], problemCount: num
     engineVersion: ENGINE_VERSION,
     ...context,
     selection: null,
+    missingRounds: null,
     counts: null,
     chsh: null,
     qber: null,
     key: null,
+    security: null,
     checks: [],
     blocks: [],
     verdict: 'INVALID',

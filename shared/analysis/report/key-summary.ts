@@ -1,5 +1,6 @@
 import { AnalysisProfile } from '../profile';
 import { asymptoticRate } from '../statistics/asymptotic-rate';
+import { QUANTUM_CHSH_VALUE } from '../statistics/bell-bounds';
 import { chshValueFromWinFraction } from '../statistics/chsh-value';
 import { finiteKeyLength } from '../statistics/finite-key-length';
 import { minEntropyPerRound } from '../statistics/min-entropy';
@@ -19,6 +20,8 @@ export interface KeySummary {
   minEntropyPerRound: number | null;
   /** Finite key length ℓ in bits, 0 when ℓ ≤ 0 (no key). */
   finiteKeyBits: number;
+  /** Why no collective-attack key was computed, when S_low is above 2√2 (broken data); else null. */
+  finiteKeyReason: string | null;
   /** Key length against general attacks (entropy accumulation), when the profile gives its settings; else null. */
   generalAttackBits: number | null;
   generalAttack: GeneralKeySummary | null;
@@ -29,8 +32,9 @@ export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: Anal
   const rawBits = qber.untestedRounds;
   const chshValueLower = chsh.winFractionLower === null ? null : chshValueFromWinFraction(chsh.winFractionLower);
   const asymptotic = chsh.S === null || qber.rate === null ? null : asymptoticRate(chsh.S, qber.rate);
+  const aboveQuantum = chshValueLower !== null && chshValueLower > QUANTUM_CHSH_VALUE;
   const finite =
-    chshValueLower === null || qber.untestedRateUpper === null
+    chshValueLower === null || aboveQuantum || qber.untestedRateUpper === null
       ? 0
       : finiteKeyLength({
           rawBits,
@@ -44,8 +48,11 @@ export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: Anal
     rawBits,
     asymptoticRate: asymptotic,
     chshValueLower,
-    minEntropyPerRound: chshValueLower === null ? null : minEntropyPerRound(chshValueLower),
+    minEntropyPerRound: chshValueLower === null || aboveQuantum ? null : minEntropyPerRound(chshValueLower),
     finiteKeyBits: Math.max(0, finite),
+    finiteKeyReason: aboveQuantum
+      ? `The lower bound S = ${chshValueLower.toFixed(4)} is above 2√2, which no quantum device reaches: no min-entropy and no key are computed from it.`
+      : null,
     ...generalFigures(summariseGeneralKey({ logRounds: rounds, chshTestRounds: chsh.rounds, keyGenerationRounds: rawBits }, profile)),
   };
 }

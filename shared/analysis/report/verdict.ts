@@ -1,6 +1,7 @@
 import { CheckResult } from '../checks/check-result';
 import { AnalysisProfile } from '../profile';
-import { QUANTUM_WIN_FRACTION } from '../statistics/bell-bounds';
+import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '../statistics/bell-bounds';
+import { chshValueFromWinFraction } from '../statistics/chsh-value';
 import { Verdict } from '../result';
 import { ChshSummary } from './chsh-summary';
 import { KeySummary } from './key-summary';
@@ -12,20 +13,30 @@ export interface VerdictFinding {
   reasons: string[];
 }
 
+/** What the general model's acceptance count needs of the run's sub-protocol (see `GeneralKeySummary`). */
+export interface GeneralAcceptance {
+  /** Rounds n′ of the sub-protocol. */
+  rounds: number;
+  /** Its test probability γ′. */
+  testProbability: number;
+  /** The acceptance threshold ω_thr. */
+  omegaThreshold: number;
+}
+
 /**
- * ACCEPT when the CHSH win fraction reaches ω_Q − chshTolerance and the error rate is at most
- * qberTolerance (criterion `observed`: the observed values; `certified`: the Hoeffding-corrected
- * ones), no blocking check failed and, if the profile asks, the finite key is positive; else ABORT.
+ * ACCEPT only when every rule holds; each rule that fails is a sentence in the reasons:
+ * - every CHSH setting pair has test rounds (the win fraction weighs the four equally);
+ * - the CHSH criterion (`chshCriterion`): the profile's threshold, or the general model's count;
+ * - a real violation: the lower confidence bound of the win fraction is above ¾, under every
+ *   criterion (Gill 2003; Hensen et al., Nature 526, 682 (2015) judged significance the same way);
+ * - a physical bound: that lower bound is not above ω_Q = (2 + √2)/4, i.e. S_low ≤ 2√2 (Tsirelson
+ *   1980): above it the data or its analysis is broken, never the device better;
+ * - the error-rate criterion (`qberCriterion`);
+ * - no blocking check failed;
+ * - if the profile asks, a positive key of its attack model.
  */
 export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySummary, checks: readonly CheckResult[], profile: AnalysisProfile): VerdictFinding {
-  const reasons: string[] = [];
-  const winCriterion = chshCriterion(chsh, profile, key.generalAttack?.omegaThreshold);
-  if (winCriterion.value === null) {
-    reasons.push('There are no CHSH test rounds.');
-  } else if (!winCriterion.passes) {
-    const source = profile.securityModel === 'general' && key.generalAttack ? 'ω_thr of the general-attack protocol' : `ω_Q − ${profile.chshTolerance}`;
-    reasons.push(`The ${winCriterion.name} ${winCriterion.value.toFixed(6)} is below the threshold ${winCriterion.threshold.toFixed(6)} (${source}).`);
-  }
+  const reasons = [...chshReasons(chsh, profile, key.generalAttack)];
   const rateCriterion = qberCriterion(qber, profile);
   if (rateCriterion.value === null) {
     reasons.push('There are no key-setting test rounds.');
@@ -38,9 +49,39 @@ export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySumm
   if (profile.requirePositiveKey && profile.securityModel === 'general') {
     if (!key.generalAttackBits) reasons.push(`The key length against general attacks is not positive, and the profile requires a key.${key.generalAttack?.reason ? ` ${key.generalAttack.reason}` : ''}`);
   } else if (profile.requirePositiveKey && key.finiteKeyBits <= 0) {
-    reasons.push('The finite key length is not positive, and the profile requires a key.');
+    reasons.push(`The finite key length is not positive, and the profile requires a key.${key.finiteKeyReason ? ` ${key.finiteKeyReason}` : ''}`);
   }
   return { verdict: reasons.length === 0 ? 'ACCEPT' : 'ABORT', reasons };
+}
+
+/** Whether the CHSH rules of `decideVerdict` all hold (for the planner's pass probabilities). */
+export function chshRulesHold(chsh: ChshSummary, profile: AnalysisProfile, general: GeneralAcceptance | null): boolean {
+  return chshReasons(chsh, profile, general).length === 0;
+}
+
+/** The CHSH rules: setting pairs present, the criterion, a significant violation, the quantum bound. */
+function chshReasons(chsh: ChshSummary, profile: AnalysisProfile, general: GeneralAcceptance | null): string[] {
+  if (chsh.rounds === 0) return ['There are no CHSH test rounds.'];
+  const empty = chsh.pairs.filter((pair) => pair.testRounds === 0).map((pair) => `(${pair.x}, ${pair.y})`);
+  if (empty.length > 0) {
+    return [`The CHSH setting pair${empty.length > 1 ? 's' : ''} ${empty.join(', ')} ha${empty.length > 1 ? 've' : 's'} no test rounds: the win fraction cannot weigh the four pairs equally.`];
+  }
+  const reasons: string[] = [];
+  const criterion = chshCriterion(chsh, profile, general);
+  if (criterion.value !== null && !criterion.passes) {
+    const source = profile.securityModel === 'general' && general ? 'ω_thr of the general-attack protocol' : `ω_Q − ${profile.chshTolerance}`;
+    reasons.push(`The ${criterion.name} ${criterion.value.toFixed(6)} is below the threshold ${criterion.threshold.toFixed(6)} (${source}).`);
+  }
+  const lower = chsh.winFractionLower;
+  const at = `at ε = ${profile.epsilon}`;
+  if (lower === null || lower <= LOCAL_WIN_FRACTION) {
+    reasons.push(`The lower bound of the CHSH win fraction, ${lower === null ? 'unknown' : lower.toFixed(6)} ${at}, is not above the local bound 0.75: these rounds show no significant Bell violation.`);
+  } else if (lower > QUANTUM_WIN_FRACTION) {
+    reasons.push(
+      `The lower bound of the CHSH win fraction, ${lower.toFixed(6)} ${at} (S ≥ ${chshValueFromWinFraction(lower).toFixed(4)}), is above the quantum maximum ${QUANTUM_WIN_FRACTION.toFixed(6)} (S = 2√2): no quantum device does that, so the data or its analysis is broken.`,
+    );
+  }
+  return reasons;
 }
 
 /** A criterion as judged: the value the profile judges on, its threshold, and whether it passes. */
@@ -52,14 +93,20 @@ export interface CriterionJudgement {
 }
 
 /**
- * The CHSH criterion: the win fraction (or its lower bound, `certified`) at least ω_Q −
- * chshTolerance. Under the general-attack model the protocol fixes its own threshold ω_thr, and
- * the observed win fraction of the test rounds must reach it (Nadlinger et al. 2022: the lost test
- * rounds stay within n·γ·(1 − ω_thr)); its confidence is in the key length instead.
+ * The CHSH criterion on the balanced win fraction (or its lower bound, `certified`) against
+ * ω_Q − chshTolerance. Under the general-attack model the protocol's own acceptance count holds
+ * instead: the lost CHSH test rounds L may be at most n′·γ′·(1 − ω_thr) (Nadlinger et al., Nature
+ * 607, 682 (2022), Supplementary Proposition 2), written as the score 1 − L/(n′·γ′) ≥ ω_thr. L
+ * counts the missing test rounds and is the larger of the pooled losses and the losses at the
+ * balanced win fraction, so unequal setting shares cannot lower it.
  */
-export function chshCriterion(chsh: ChshSummary, profile: AnalysisProfile, generalThreshold?: number): CriterionJudgement {
-  if (profile.securityModel === 'general' && generalThreshold !== undefined) {
-    return { name: 'CHSH win fraction', value: chsh.winFraction, threshold: generalThreshold, passes: chsh.winFraction !== null && chsh.winFraction >= generalThreshold };
+export function chshCriterion(chsh: ChshSummary, profile: AnalysisProfile, general?: GeneralAcceptance | null): CriterionJudgement {
+  if (profile.securityModel === 'general' && general) {
+    const expectedTests = general.rounds * general.testProbability;
+    const played = chsh.rounds + chsh.missingTestRounds;
+    const lost = Math.max(played - chsh.wins, chsh.winFraction === null ? played : played * (1 - chsh.winFraction));
+    const value = expectedTests > 0 ? 1 - lost / expectedTests : null;
+    return { name: 'CHSH score of the acceptance count (1 − lost / expected test rounds)', value, threshold: general.omegaThreshold, passes: value !== null && value >= general.omegaThreshold };
   }
   const certified = profile.criterion === 'certified';
   const threshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { aesKeystream } from '../node/aes-keystream';
 import { chiSquaredGoodnessOfFit } from '../statistics/goodness-of-fit';
-import { createTestSelector, fixedFractionTests, testsBeforeRounds } from './test-selector';
+import { createTestSelector, fixedFractionTests, testsBeforeTriggers } from './test-selector';
 
 const seedOf = (i: number) => i.toString(16).padStart(64, '0');
 
@@ -9,7 +9,7 @@ const seedOf = (i: number) => i.toString(16).padStart(64, '0');
 function chosen(seed: string, mode: 'fixed-fraction' | 'bernoulli', share: number, rounds: number): number[] {
   const selection = mode === 'bernoulli' ? { mode, probability: share } : { mode, fraction: share };
   const totalTests = fixedFractionTests(share, rounds);
-  const selector = createTestSelector(selection, aesKeystream(seed), { firstRound: 0, totalRounds: rounds, totalTests, testsBefore: 0 });
+  const selector = createTestSelector(selection, aesKeystream(seed), { firstTrigger: 0, totalTriggers: rounds, totalTests, testsBefore: 0 });
   return Array.from({ length: rounds }, (_, i) => i).filter(() => selector.next(NaN));
 }
 
@@ -56,8 +56,8 @@ describe('test selection', () => {
         const totalTests = fixedFractionTests(0.5, rounds);
         const whole = chosen(seedOf(seed), 'fixed-fraction', 0.5, rounds);
         const cut = Math.floor(cutShare * rounds);
-        const [before] = testsBeforeRounds(keystream, rounds, totalTests, [cut]);
-        const tail = createTestSelector({ mode: 'fixed-fraction', fraction: 0.5 }, keystream, { firstRound: cut, totalRounds: rounds, totalTests, testsBefore: before });
+        const [before] = testsBeforeTriggers(keystream, rounds, totalTests, [cut]);
+        const tail = createTestSelector({ mode: 'fixed-fraction', fraction: 0.5 }, keystream, { firstTrigger: cut, totalTriggers: rounds, totalTests, testsBefore: before });
         const tailChosen = Array.from({ length: rounds - cut }, (_, i) => cut + i).filter(() => tail.next(NaN));
         return before === whole.filter((i) => i < cut).length && tailChosen.join() === whole.filter((i) => i >= cut).join();
       }),

@@ -2,57 +2,80 @@ import { TestSelection } from '../profile';
 import { KeystreamSource } from './keystream';
 import { UniformStream } from './uniform-stream';
 
-/** Decides, round by round in log order, whether a round is a test round. */
+/**
+ * Decides, trigger by trigger, whether a round is a test round. Triggers are the round indices of
+ * the log's span, counted from its first round index: a round missing from the log still takes its
+ * decision, so a missing round drawn for testing can be counted against the run.
+ */
 export interface TestSelector {
-  /** Whether the next round is a test round; `logMark` is the log's own `test` value (0 or 1, or NaN if absent). */
+  /** Whether the next trigger's round is a test round; `logMark` is the log's own `test` value (0 or 1, or NaN if absent). */
   next(logMark: number): boolean;
+  /**
+   * Passes over `count` triggers whose rounds are missing from the log; returns how many of them
+   * were drawn for testing. With the log's own marking the marks went with the rounds, so every
+   * missing round counts as a test round (the conservative reading).
+   */
+  skip(count: number): number;
 }
 
-/** Where a stretch of the log starts, and the totals fixed-fraction selection needs. */
+/** Where a stretch of the log starts among the triggers, and the totals fixed-fraction selection needs. */
 export interface SelectionStart {
-  /** Index (0-based, in log order) of the stretch's first round. */
-  firstRound: number;
-  /** Rounds in the whole log, N. */
-  totalRounds: number;
-  /** Test rounds of the whole log, ⌊fraction·N⌋ (fixed-fraction only). */
+  /** Trigger (round index − the log's first round index) at which the stretch's selection begins. */
+  firstTrigger: number;
+  /** Triggers in the whole log's span, N = last round index − first round index + 1. */
+  totalTriggers: number;
+  /** Test rounds of the whole span, ⌊fraction·N⌋ (fixed-fraction only). */
   totalTests: number;
   /** Test rounds chosen before the stretch (fixed-fraction only). */
   testsBefore: number;
 }
 
-/** Number of test rounds fixed-fraction selection chooses in a log of N rounds: ⌊fraction·N⌋. */
+/** Number of test rounds fixed-fraction selection chooses among N triggers: ⌊fraction·N⌋. */
 export function fixedFractionTests(fraction: number, totalRounds: number): number {
   return Math.floor(fraction * totalRounds);
 }
 
+/** Counts the test decisions among `count` passed-over triggers. */
+function skipBy(selector: TestSelector, count: number): number {
+  let tests = 0;
+  for (let i = 0; i < count; i++) {
+    tests += selector.next(NaN) ? 1 : 0;
+  }
+  return tests;
+}
+
 /**
- * Selection sampling (Knuth, TAOCP vol. 2, §3.4.2, Algorithm S): round i is chosen when
+ * Selection sampling (Knuth, TAOCP vol. 2, §3.4.2, Algorithm S): trigger i is chosen when
  * u_i < (n − chosen so far)/(N − i), which yields exactly n test rounds, every subset of that size
  * equally likely. The decision depends only on the keystream, N and n, never on the data.
  */
 class FixedFractionSelector implements TestSelector {
   private remainingTests: number;
-  private remainingRounds: number;
+  private remainingTriggers: number;
 
   constructor(
     private readonly uniforms: UniformStream,
     start: SelectionStart,
   ) {
     this.remainingTests = start.totalTests - start.testsBefore;
-    this.remainingRounds = start.totalRounds - start.firstRound;
+    this.remainingTriggers = start.totalTriggers - start.firstTrigger;
   }
 
   next(): boolean {
-    const chosen = this.uniforms.next() < this.remainingTests / this.remainingRounds;
-    this.remainingRounds--;
+    const chosen = this.uniforms.next() < this.remainingTests / this.remainingTriggers;
+    this.remainingTriggers--;
     if (chosen) {
       this.remainingTests--;
     }
     return chosen;
   }
+
+  skip(count: number): number {
+    return skipBy(this, count);
+  }
 }
 
-/** Each round independently with probability γ: round i is a test round when u_i < γ. */
+/** Each trigger independently with probability γ: trigger i is a test round when u_i < γ. */
 class BernoulliSelector implements TestSelector {
   constructor(
     private readonly uniforms: UniformStream,
@@ -62,12 +85,20 @@ class BernoulliSelector implements TestSelector {
   next(): boolean {
     return this.uniforms.next() < this.probability;
   }
+
+  skip(count: number): number {
+    return skipBy(this, count);
+  }
 }
 
 /** The lab's own marking, the `test` column. */
 class LogMarkSelector implements TestSelector {
   next(logMark: number): boolean {
     return logMark === 1;
+  }
+
+  skip(count: number): number {
+    return count;
   }
 }
 
@@ -79,23 +110,22 @@ export function createTestSelector(selection: TestSelection, keystream: Keystrea
   if (keystream === null) {
     throw new Error(`test selection ${selection.mode} needs a keystream`);
   }
-  const uniforms = new UniformStream(keystream, start.firstRound);
+  const uniforms = new UniformStream(keystream, start.firstTrigger);
   return selection.mode === 'bernoulli' ? new BernoulliSelector(uniforms, selection.probability) : new FixedFractionSelector(uniforms, start);
 }
 
 /**
- * Test rounds fixed-fraction selection chooses before each of the given round indices (ascending),
- * by running Algorithm S over the keystream alone: lets a stretch start mid-log.
+ * Test rounds fixed-fraction selection chooses before each of the given triggers (ascending), by
+ * running Algorithm S over the keystream alone: lets a stretch start mid-log.
  */
-export function testsBeforeRounds(keystream: KeystreamSource, totalRounds: number, totalTests: number, firstRounds: readonly number[]): number[] {
-  const selector = new FixedFractionSelector(new UniformStream(keystream, 0), { firstRound: 0, totalRounds, totalTests, testsBefore: 0 });
+export function testsBeforeTriggers(keystream: KeystreamSource, totalTriggers: number, totalTests: number, firstTriggers: readonly number[]): number[] {
+  const selector = new FixedFractionSelector(new UniformStream(keystream, 0), { firstTrigger: 0, totalTriggers, totalTests, testsBefore: 0 });
   const before: number[] = [];
   let chosen = 0;
-  let round = 0;
-  for (const target of firstRounds) {
-    for (; round < target; round++) {
-      chosen += selector.next() ? 1 : 0;
-    }
+  let trigger = 0;
+  for (const target of firstTriggers) {
+    chosen += selector.skip(Math.max(target - trigger, 0));
+    trigger = Math.max(target, trigger);
     before.push(chosen);
   }
   return before;

@@ -1,4 +1,4 @@
-import { ChiSquaredTest, upperTail } from './goodness-of-fit';
+import { ChiSquaredTest, chiSquaredTest } from './goodness-of-fit';
 
 /**
  * Pearson's chi-squared test of independence (or homogeneity) on a contingency table, expected
@@ -13,7 +13,7 @@ export function chiSquaredIndependence(table: readonly (readonly number[])[]): C
   const keptRows = table.filter((row) => keptColumns.some((j) => row[j] > 0));
   const degreesOfFreedom = (keptRows.length - 1) * (keptColumns.length - 1);
   if (degreesOfFreedom <= 0) {
-    return { statistic: 0, degreesOfFreedom: 0, pValue: 1 };
+    return { statistic: 0, degreesOfFreedom: 0, pValue: 1, log10PValue: 0 };
   }
   const total = keptColumns.reduce((sum, j) => sum + columnTotals[j], 0);
   let statistic = 0;
@@ -24,5 +24,5 @@ export function chiSquaredIndependence(table: readonly (readonly number[])[]): C
       statistic += (row[j] - expected) ** 2 / expected;
     }
   }
-  return { statistic, degreesOfFreedom, pValue: upperTail(statistic, degreesOfFreedom) };
+  return chiSquaredTest(statistic, degreesOfFreedom);
 }

@@ -3,7 +3,7 @@ import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '../../..
 import { formatCount, formatScientific } from '../../../shared/format/numbers';
 
 /** A number of the profile the form edits as text (ε's in scientific notation). */
-export type NumberField = 'chshTolerance' | 'qberTolerance' | 'epsilon' | 'minTestRounds' | 'reconciliationEfficiency' | 'epsilonEC' | 'epsilonPA' | 'significance' | 'driftBlocks';
+export type NumberField = 'chshTolerance' | 'qberTolerance' | 'epsilon' | 'minTestRounds' | 'reconciliationEfficiency' | 'epsilonEC' | 'epsilonPA' | 'significance' | 'driftBlocks' | 'missingRoundsTolerance';
 
 /** What a profile field is called on screen and what it means, in the hint under it. */
 export interface FieldMeaning {
@@ -22,6 +22,7 @@ export const NUMBER_FIELDS: readonly NumberField[] = [
   'epsilonPA',
   'significance',
   'driftBlocks',
+  'missingRoundsTolerance',
 ];
 
 /** Label and meaning of every profile field. */
@@ -35,7 +36,10 @@ export const FIELD_MEANINGS: Record<
   chshTolerance: { label: 'CHSH tolerance η', hint: 'Accept when the win fraction reaches ω_Q − η, ω_Q ≈ 0.8536. Above 0, at most 0.25. Common: 0.01–0.05.' },
   qberTolerance: { label: 'QBER tolerance', hint: 'Accept when the error rate on the key setting is at most this (above 0, at most 0.5). Common: 0.02–0.08.' },
   epsilon: { label: 'Confidence ε', hint: 'Failure probability of every confidence bound, e.g. 1e-9. Common: 1e-6 to 1e-12.' },
-  criterion: { label: 'Judged on', hint: 'Observed values against the thresholds, or their confidence bounds (certified: stricter).' },
+  criterion: {
+    label: 'Judged on',
+    hint: 'Confidence bounds against the thresholds (certified, the default), or observed values. Either way the win fraction’s lower bound must be above 3/4.',
+  },
   securityModel: {
     label: 'Attack model of the key',
     hint: 'Collective: the finite key estimate, assuming i.i.d. devices. General: the entropy-accumulation key length, which needs round-by-round test selection and its settings below; CHSH is then judged against ω_thr.',
@@ -54,10 +58,20 @@ export const FIELD_MEANINGS: Record<
   reconciliationEfficiency: { label: 'Error-correction efficiency f', hint: 'Bits leaked per bit of Shannon limit, from 1 to 2. Common: 1.1–1.2.' },
   epsilonEC: { label: 'ε of error correction', hint: 'Failure probability of error correction, e.g. 1e-10.' },
   epsilonPA: { label: 'ε of privacy amplification', hint: 'Failure probability of privacy amplification, e.g. 1e-10.' },
-  significance: { label: 'Check significance', hint: 'A statistical check fails when its p-value is below this, e.g. 0.001.' },
+  significance: {
+    label: 'Check significance α',
+    hint: 'Shared by the statistical checks (Bonferroni): each fails below α divided by their number, so an honest run fails any with probability at most α, e.g. 0.001.',
+  },
+  missingRoundsTolerance: {
+    label: 'Missing rounds tolerated',
+    hint: 'Largest share of the round indices, first to last, the log may lack (0 to below 0.5, e.g. 0.001). Missing rounds drawn for testing count as lost games anyway.',
+  },
   driftBlocks: { label: 'Drift blocks', hint: 'Blocks of consecutive rounds for the stationarity check and the drift chart, 2 to 1000.' },
   requirePositiveKey: { label: 'Require a positive finite key', hint: 'ACCEPT also needs a finite key estimate above 0 bits.' },
-  blockingChecks: { label: 'Blocking checks', hint: 'Checks whose failure aborts the run; the others only warn.' },
+  blockingChecks: {
+    label: 'Blocking checks',
+    hint: 'Checks whose failure aborts the run; the others only warn. Missing rounds past the tolerance and the log’s test marks always block, and stationarity blocks under collective attacks.',
+  },
 };
 
 /** Words for the check families. */
@@ -67,6 +81,7 @@ export const CHECK_FAMILY_LABELS: Record<CheckFamily, string> = {
   'setting-uniformity': 'Setting uniformity',
   'no-signalling': 'No-signalling',
   stationarity: 'Stationarity',
+  'test-marks': 'The log’s test marks',
 };
 
 /** The check families in order, with their words. */

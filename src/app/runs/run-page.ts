@@ -15,7 +15,7 @@ import { SetupsApi } from '../setups/setups-api';
 import { CorrelatorChart } from './correlator-chart';
 import { DriftChart } from './drift-chart';
 import { winThresholdOf } from '../../../shared/analysis/report/win-threshold';
-import { runCriteria } from './run-criteria';
+import { criteriaTable } from '../../../shared/analysis/report/criteria-table';
 import { RunExportMenu } from './run-export-menu';
 import { RunFigures } from './run-figures';
 import { RunIntegrity } from './run-integrity';
@@ -82,7 +82,7 @@ export class RunPage {
     const result = this.result();
     return result !== null && result.chsh !== null && result.qber !== null && result.key !== null && result.counts !== null ? result : null;
   });
-  protected readonly criteria = computed(() => (this.analysed() ? runCriteria(this.analysed()!) : []));
+  protected readonly criteria = computed(() => (this.analysed() ? criteriaTable(this.analysed()!) : []));
   protected readonly epsilon = computed(() => formatScientific(this.result()?.profile.epsilon));
   protected readonly winThreshold = computed(() => (this.analysed() ? winThresholdOf(this.analysed()!) : 0));
 
