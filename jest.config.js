@@ -17,7 +17,7 @@ module.exports = {
     {
       displayName: 'shared',
       testEnvironment: 'node',
-      roots: existing('shared', 'fixtures', 'tests/cli'),
+      roots: existing('shared', 'fixtures', 'tests/cli', 'tests/soundness'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
     },
