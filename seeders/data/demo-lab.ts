@@ -5,7 +5,7 @@ export const DEMO_PROFILES: ReadonlyArray<{ name: string; description: string; p
   {
     name: 'Nightly standard',
     description: 'Half the rounds tested, observed values against the thresholds: the everyday check of a night’s run.',
-    parameters: { testSelection: { mode: 'fixed-fraction', fraction: 0.5 }, chshTolerance: 0.03, qberTolerance: 0.05, epsilon: 1e-9 },
+    parameters: { testSelection: { mode: 'fixed-fraction', fraction: 0.5 }, criterion: 'observed', chshTolerance: 0.03, qberTolerance: 0.05, epsilon: 1e-9 },
   },
   {
     name: 'Certified key',

@@ -2,7 +2,7 @@ import { criteriaTable } from '../../shared/analysis/report/criteria-table';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { formatScientific } from '../../shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
-import { TONE, TYPE } from './pdf-style';
+import { PERCENT_DECIMALS, TONE, TYPE, WIN_DECIMALS } from './pdf-style';
 
 /**
  * The acceptance rules as the engine's verdict applies them (shared/analysis/report/criteria-table.ts,
@@ -10,7 +10,7 @@ import { TONE, TYPE } from './pdf-style';
  * the error rate, and a positive key when the profile requires one.
  */
 export function writeCriteria(doc: PDFKit.PDFDocument, result: AnalysisResult): void {
-  const rows = criteriaTable(result);
+  const rows = criteriaTable(result, { win: WIN_DECIMALS, percent: PERCENT_DECIMALS });
   if (rows.length === 0) {
     paragraph(doc, 'No criterion was judged: the log could not be analysed.', { colour: TONE.muted });
     return;

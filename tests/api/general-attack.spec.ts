@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { formatCount } from '../../shared/format/numbers';
+import { chshCriterion } from '../../shared/analysis/report/verdict';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
@@ -42,7 +43,9 @@ describe('a profile under the general-attack model, through the API', () => {
     // 24 000 rounds are far too few for a key against general attacks: no key, with the reason.
     expect(result.key!.generalAttack).toMatchObject({ logRounds: 24_000, logTestProbability: 0.5, bits: 0, reason: expect.stringContaining('give no key') });
     const threshold = result.key!.generalAttack!.omegaThreshold;
-    expect(run.verdict).toBe(result.chsh!.winFraction! >= threshold ? 'ACCEPT' : 'ABORT');
+    // Judged by the theorem's acceptance count against ω_thr, and every other rule of the verdict.
+    expect(chshCriterion(result.chsh!, result.profile, result.key!.generalAttack).threshold).toBe(threshold);
+    expect(run.verdict).toBe(result.reasons.length === 0 ? 'ACCEPT' : 'ABORT');
 
     const list = (await request(testApp.app).get('/api/runs').set('Authorization', `Bearer ${dev}`).expect(200)).body as RunPageDto;
     expect(list.items.find((item) => item.id === run.id)!.winThreshold).toBe(threshold);

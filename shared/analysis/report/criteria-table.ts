@@ -27,8 +27,10 @@ export interface Criterion {
  * bound on the win fraction's lower bound, the key-setting error rate, and a positive key when the
  * profile asks for one. (The checks are listed apart.)
  */
-export function criteriaTable(result: AnalysisResult): Criterion[] {
+export function criteriaTable(result: AnalysisResult, digits: { win: number; percent: number } = { win: 4, percent: 2 }): Criterion[] {
   const { chsh, qber, key, profile } = result;
+  const fraction = (value: number | null) => formatFixed(value, digits.win);
+  const percent = (value: number | null) => formatPercent(value, digits.percent);
   if (chsh === null || qber === null || key === null) return [];
   const generalProtocol = generalAcceptanceOf(result);
   const general = profile.securityModel === 'general' ? (key.generalAttack ?? undefined) : undefined;
@@ -39,45 +41,45 @@ export function criteriaTable(result: AnalysisResult): Criterion[] {
     generalProtocol
       ? {
           name: 'CHSH acceptance count (1 − lost / expected test rounds)',
-          observed: formatFixed(win.value),
+          observed: fraction(win.value),
           bound: '–',
-          threshold: `≥ ${formatFixed(win.threshold)}`,
+          threshold: `≥ ${fraction(win.threshold)}`,
           source: 'ω_thr, general attacks',
           judgedOn: 'observed',
           passes: win.passes,
         }
       : {
           name: 'CHSH win fraction (setting pairs weighed equally)',
-          observed: formatFixed(chsh.winFraction),
-          bound: `≥ ${formatFixed(lower)}`,
-          threshold: `≥ ${formatFixed(win.threshold)}`,
+          observed: fraction(chsh.winFraction),
+          bound: `≥ ${fraction(lower)}`,
+          threshold: `≥ ${fraction(win.threshold)}`,
           source: `ω_Q − ${profile.chshTolerance}`,
           judgedOn: profile.criterion === 'certified' ? 'bound' : 'observed',
           passes: win.passes,
         },
     {
       name: 'Bell violation (lower bound above the local bound)',
-      observed: formatFixed(chsh.winFraction),
-      bound: `≥ ${formatFixed(lower)}`,
-      threshold: `> ${formatFixed(LOCAL_WIN_FRACTION)}`,
+      observed: fraction(chsh.winFraction),
+      bound: `≥ ${fraction(lower)}`,
+      threshold: `> ${fraction(LOCAL_WIN_FRACTION)}`,
       source: 'local bound ¾',
       judgedOn: 'bound',
       passes: lower !== null && lower > LOCAL_WIN_FRACTION,
     },
     {
       name: 'Physical bound (lower bound at most the quantum maximum)',
-      observed: formatFixed(chsh.winFraction),
-      bound: `≥ ${formatFixed(lower)}`,
-      threshold: `≤ ${formatFixed(QUANTUM_WIN_FRACTION)}`,
+      observed: fraction(chsh.winFraction),
+      bound: `≥ ${fraction(lower)}`,
+      threshold: `≤ ${fraction(QUANTUM_WIN_FRACTION)}`,
       source: 'ω_Q = (2 + √2)/4',
       judgedOn: 'bound',
       passes: lower !== null && lower <= QUANTUM_WIN_FRACTION,
     },
     {
       name: 'QBER on the key setting',
-      observed: formatPercent(qber.rate),
-      bound: `≤ ${formatPercent(qber.rateUpper)}`,
-      threshold: `≤ ${formatPercent(rate.threshold)}`,
+      observed: percent(qber.rate),
+      bound: `≤ ${percent(qber.rateUpper)}`,
+      threshold: `≤ ${percent(rate.threshold)}`,
       source: 'profile tolerance',
       judgedOn: profile.criterion === 'certified' ? 'bound' : 'observed',
       passes: rate.passes,
