@@ -72,13 +72,14 @@ describe('runs in a real browser', () => {
     await page.getByRole('button', { name: 'Upload another log' }).click();
     const aborted = await uploadLog(page, 'aborted-low-chsh.csv', 'Fen link');
     expect(aborted.word).toBe('ABORT');
-    expect(aborted.reasons).toEqual([expect.stringMatching(/^The CHSH win fraction 0\.[78]\d+ is below the threshold 0\.823553/)]);
+    // The first reason is the criterion; with so few rounds the bound may also miss the local bound ¾.
+    expect(aborted.reasons[0]).toMatch(/^The CHSH win fraction 0\.[78]\d+ is below the threshold 0\.823553/);
     abortedRunId = aborted.runId;
 
     await page.getByTestId('open-run').click();
     await page.waitForURL(`${baseUrl}/runs/${abortedRunId}`);
     await page.getByTestId('criteria').waitFor();
-    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(/CHSH win fraction\s+0\.[78]\d+\s+≥ 0\.\d+\s+≥ 0\.8236\s+cancel\s*Fail/);
+    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(/CHSH win fraction \(setting pairs weighed equally\)\s+0\.[78]\d+\s+≥ 0\.\d+\s+≥ 0\.8236[^\n]*\s+cancel\s*Fail/);
     expect(await page.getByTestId('figure-finite-key').innerText()).toContain('Estimate against collective (i.i.d.) attacks.');
     await page.locator('canvas').nth(3).waitFor();
     await screenshot(page, 'run-aborted-experimentalist');

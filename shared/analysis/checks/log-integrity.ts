@@ -14,7 +14,7 @@ import { CheckFinding } from './check-result';
 export function logIntegrityCheck(rounds: number, span: MissingRoundsSummary): CheckFinding {
   const { missing, tolerated: allowed, drawnForTesting } = span;
   const holds = missing <= allowed;
-  const where = `${formatCount(rounds)} rounds with round indices ${span.firstRound} to ${span.lastRound}`;
+  const where = `${formatCount(rounds)} rounds with round indices ${formatCount(span.firstRound)} to ${formatCount(span.lastRound)}`;
   const drawn = drawnForTesting > 0 ? ` ${formatCount(drawnForTesting)} of them were drawn for testing and count as lost CHSH games.` : '';
   const share = `${((100 * missing) / span.triggers).toPrecision(2)} %`;
   return {

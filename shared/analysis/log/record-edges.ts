@@ -41,16 +41,12 @@ export function firstRecordLine(bytes: Uint8Array): Uint8Array | null {
 
 /** The last non-blank line of `bytes`, which ends at a line end or at the end of the log; null if none. */
 export function lastRecordLine(bytes: Uint8Array): Uint8Array | null {
-  let end = bytes.length;
-  while (end > 0) {
-    const newline = bytes.lastIndexOf(LF, end - 1);
-    const lineEnd = newline === end - 1 ? end - 1 : end;
-    const previous = newline === end - 1 ? bytes.lastIndexOf(LF, end - 2) : newline;
-    const start = previous + 1;
-    if (!isBlank(bytes, start, lineEnd)) return bytes.subarray(start, lineEnd);
-    end = start;
+  for (let lineEnd = bytes.length; ; ) {
+    const newline = lineEnd === 0 ? -1 : bytes.lastIndexOf(LF, lineEnd - 1);
+    if (!isBlank(bytes, newline + 1, lineEnd)) return bytes.subarray(newline + 1, lineEnd);
+    if (newline < 0) return null;
+    lineEnd = newline;
   }
-  return null;
 }
 
 /** The round index written in one record line under the layout, or NaN when it cannot be read. */
