@@ -6,15 +6,18 @@ import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '../../../shared/analysis/s
 import { formatFixed } from '../../../shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 
-/** The S axis drawn, wide enough for both bounds and every value experiments report. */
+/** The S axis drawn, wide enough for both bounds and every value experiments report; widened for a value beyond it. */
 const S_AXIS = { min: 1.6, max: 3 };
+
+/** Tick step of the S axis. */
+const S_STEP = 0.2;
 
 /** S and its lower bound on one axis between the local bound 2 and the quantum bound 2√2. */
 @Component({
   selector: 'bk-chsh-scale-chart',
   imports: [BaseChartDirective],
   template: `<div class="bk-scale-canvas">
-    <canvas baseChart [type]="'scatter'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
+    <canvas baseChart [type]="'scatter'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
   </div>`,
   styles: `.bk-scale-canvas { position: relative; height: 120px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -58,14 +61,25 @@ export class ChshScaleChart {
     };
   });
 
-  protected readonly options: ChartOptions = {
+  // Broken data can put S or its bound outside the usual axis (above 2√2 up to 4, or below 1.6):
+  // the markers must stay on the chart, or the figure beside it reads as missing.
+  private readonly axis = computed(() => {
+    const shown = [this.value(), this.lower()].filter((x): x is number => x !== null && Number.isFinite(x));
+    const onGrid = (x: number, round: (x: number) => number) => Number((round(x / S_STEP) * S_STEP).toFixed(1));
+    return {
+      min: Math.min(S_AXIS.min, ...shown.map((x) => onGrid(x - S_STEP / 2, Math.floor))),
+      max: Math.max(S_AXIS.max, ...shown.map((x) => onGrid(x + S_STEP / 2, Math.ceil))),
+    };
+  });
+
+  protected readonly options = computed<ChartOptions>(() => ({
     responsive: true,
     maintainAspectRatio: false,
     animation: false,
     plugins: { legend: { position: 'bottom', labels: { usePointStyle: true, boxWidth: 8, font: { size: 11 } } }, tooltip: { enabled: false } },
     scales: {
-      x: { type: 'linear', ...S_AXIS, ticks: { stepSize: 0.2, maxRotation: 0 } },
+      x: { type: 'linear', ...this.axis(), ticks: { stepSize: this.axis().max - this.axis().min > 2 ? 2 * S_STEP : S_STEP, maxRotation: 0 } },
       y: { display: false, min: 0, max: 1 },
     },
-  };
+  }));
 }

@@ -16,17 +16,21 @@ import { CorrelatorChart } from './correlator-chart';
 import { DriftChart } from './drift-chart';
 import { winThresholdOf } from '../../../shared/analysis/report/win-threshold';
 import { criteriaTable } from '../../../shared/analysis/report/criteria-table';
+import { missingRoundsFigures } from './missing-rounds-figures';
+import { RunChecks } from './run-checks';
 import { RunExportMenu } from './run-export-menu';
 import { RunFigures } from './run-figures';
 import { RunIntegrity } from './run-integrity';
 import { RunReverifications } from './run-reverifications';
 import { RunsApi } from './runs-api';
+import { SecurityParameters } from './security-parameters';
+import { SettingPairsTable } from './setting-pairs-table';
 import { SettingsTable } from './settings-table';
 import { SignOffPanel } from './sign-off-panel';
 import { trailDetail, trailWords } from './trail-words';
 import { VerdictBanner } from './verdict-banner';
 
-/** One run: verdict and why, criteria, figures, charts, checks, provenance, integrity, re-verifications, sign-off and trail. */
+/** One run: verdict and why, criteria, setting pairs, figures, charts, security parameters, checks, provenance, integrity, re-verifications, sign-off and trail. */
 @Component({
   selector: 'bk-run-page',
   imports: [
@@ -37,10 +41,13 @@ import { VerdictBanner } from './verdict-banner';
     MatIconModule,
     MatProgressBarModule,
     RouterLink,
+    RunChecks,
     RunExportMenu,
     RunFigures,
     RunIntegrity,
     RunReverifications,
+    SecurityParameters,
+    SettingPairsTable,
     SettingsTable,
     SignOffPanel,
     VerdictBanner,
@@ -84,6 +91,7 @@ export class RunPage {
   });
   protected readonly criteria = computed(() => (this.analysed() ? criteriaTable(this.analysed()!) : []));
   protected readonly epsilon = computed(() => formatScientific(this.result()?.profile.epsilon));
+  protected readonly missingRounds = computed(() => missingRoundsFigures(this.result()?.missingRounds));
   protected readonly winThreshold = computed(() => (this.analysed() ? winThresholdOf(this.analysed()!) : 0));
 
   protected readonly setup = toSignal(
