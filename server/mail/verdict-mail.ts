@@ -1,63 +1,64 @@
+import type { CheckResult } from '../../shared/analysis/checks/check-result';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
 import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
 import type { RunDto } from '../../shared/api';
 import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../shared/format/numbers';
+import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words';
+import { missingRoundsWords } from '../reports/missing-rounds-words';
+import { mailHtml, mailText, type MailBlock } from './mail-blocks';
 import type { OutgoingMail } from './mailer';
-
-/** The one-line caution that stands beside every key figure. */
-export const COLLECTIVE_ATTACK_CAUTION =
-  'Key figures are estimates against collective (i.i.d.) attacks, not a security certificate; final claims rest on the lab’s own proof, certification and local rules.';
 
 /** Words of each verdict in the mail's subject and first line. */
 const VERDICT_WORDS = { ACCEPT: 'ACCEPT: the key may be kept', ABORT: 'ABORT: no key may be kept', INVALID: 'INVALID: the log could not be analysed' } as const;
 
 /**
- * The verdict mail of a finished run: subject with verdict, setup and run number; the key figures
- * with their bounds; the reasons for an abort; the checks that warned; a link to the run's page.
+ * The verdict mail of a finished run: subject with verdict, setup and run number; the reasons for
+ * an abort; the key figures with their bounds, the missing rounds when any, the key figure's total
+ * ε and attack model, and the caution of each model shown; the checks that failed or warned; a
+ * link to the run's page.
  */
 export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: string[]): OutgoingMail & { html: string } {
   const result = run.result as unknown as AnalysisResult;
   const verdict = result.verdict;
-  const link = `${publicUrl}/runs/${run.id}`;
-  const lines = figureLines(result);
-  const warned = result.checks.filter((check) => check.status === 'warn');
-  const failed = result.checks.filter((check) => check.status === 'fail');
-
-  const text = [
-    `Run ${run.id} on ${run.setupName}: ${VERDICT_WORDS[verdict]}.`,
-    `Acquired ${run.acquiredOn ?? 'on an unrecorded date'}; profile ${run.profileName} v${run.profileVersion}; uploaded by ${run.uploadedBy}.`,
-    '',
-    ...(result.reasons.length > 0 ? ['Reasons:', ...result.reasons.map((reason) => `  - ${reason}`), ''] : []),
-    ...(lines.length > 0 ? ['Figures:', ...lines.map((line) => `  ${line}`), '', COLLECTIVE_ATTACK_CAUTION, ''] : []),
-    ...(failed.length > 0 ? ['Checks that failed:', ...failed.map((check) => `  - ${check.message}`), ''] : []),
-    ...(warned.length > 0 ? ['Checks that warned:', ...warned.map((check) => `  - ${check.message}`), ''] : []),
-    ...(verdict === 'INVALID' ? [`The log has ${formatCount(result.errorCount)} problem(s); the first: ${result.errors[0]?.message ?? 'see the run page'}`, ''] : []),
-    `Open the run and sign it off: ${link}`,
-  ].join('\n');
-
-  const list = (items: string[]) => `<ul>${items.map((item) => `<li>${escapeHtml(item)}</li>`).join('')}</ul>`;
-  const html = [
-    `<p><strong>Run ${run.id} on ${escapeHtml(run.setupName)}: ${escapeHtml(VERDICT_WORDS[verdict])}.</strong></p>`,
-    `<p>Acquired ${escapeHtml(run.acquiredOn ?? 'on an unrecorded date')}; profile ${escapeHtml(run.profileName)} v${run.profileVersion}; uploaded by ${escapeHtml(run.uploadedBy)}.</p>`,
-    result.reasons.length > 0 ? `<p>Reasons:</p>${list(result.reasons)}` : '',
-    lines.length > 0 ? `<p>Figures:</p>${list(lines)}<p><em>${escapeHtml(COLLECTIVE_ATTACK_CAUTION)}</em></p>` : '',
-    failed.length > 0 ? `<p>Checks that failed:</p>${list(failed.map((check) => check.message))}` : '',
-    warned.length > 0 ? `<p>Checks that warned:</p>${list(warned.map((check) => check.message))}` : '',
-    `<p><a href="${escapeHtml(link)}">Open run ${run.id} and sign it off</a></p>`,
-  ].join('\n');
-
+  const messagesOf = (status: CheckResult['status']) => result.checks.filter((check) => check.status === status).map((check) => check.message);
+  const blocks: MailBlock[] = [
+    {
+      kind: 'lead',
+      headline: `Run ${run.id} on ${run.setupName}: ${VERDICT_WORDS[verdict]}.`,
+      detail: `Acquired ${run.acquiredOn ?? 'on an unrecorded date'}; profile ${run.profileName} v${run.profileVersion}; uploaded by ${run.uploadedBy}.`,
+    },
+    ...listUnlessEmpty('Reasons:', result.reasons),
+    ...listUnlessEmpty('Figures:', figureLines(result), result.key ? keyCautions(result.key) : []),
+    ...listUnlessEmpty('Checks that failed:', messagesOf('fail')),
+    ...listUnlessEmpty('Checks that warned:', messagesOf('warn')),
+    ...(verdict === 'INVALID'
+      ? [{ kind: 'paragraph', text: `The log has ${formatCount(result.errorCount)} problem(s); the first: ${result.errors[0]?.message ?? 'see the run page'}` } as const]
+      : []),
+    { kind: 'link', text: 'Open the run and sign it off', label: `Open run ${run.id} and sign it off`, url: `${publicUrl}/runs/${run.id}` },
+  ];
   return {
     to: recipients.join(', '),
     subject: `[Bellkeep] ${verdict} · ${run.setupName} · run ${run.id}`,
-    text,
-    html,
+    text: mailText(blocks),
+    html: mailHtml(blocks),
   };
 }
 
-/** The key figures, each with its bound and threshold, as sentences of numbers. */
+/** A list block, or none when it has no items. */
+function listUnlessEmpty(heading: string, items: readonly string[], notes: readonly string[] = []): MailBlock[] {
+  return items.length > 0 ? [{ kind: 'list', heading, items, notes }] : [];
+}
+
+/**
+ * The figures, each with its bound and threshold, as sentences of numbers; the missing rounds when
+ * any are missing; the key figures with their attack models, and the total ε of the one that counts.
+ */
 function figureLines(result: AnalysisResult): string[] {
   const { chsh, qber, key, profile } = result;
+  // Results stored before engine 2.0 have neither `missingRounds` nor `security`.
+  const missing = result.missingRounds ? missingRoundsWords(result.missingRounds) : null;
+  const security = result.security ?? null;
   if (!chsh || !qber || !key) return [];
   const epsilon = formatScientific(profile.epsilon);
   const winThreshold = winThresholdOf(result);
@@ -65,11 +66,11 @@ function figureLines(result: AnalysisResult): string[] {
     `CHSH win fraction ${formatFixed(chsh.winFraction)} (threshold ${formatFixed(winThreshold)}; lower bound ${formatFixed(chsh.winFractionLower)} at ε = ${epsilon}) over ${formatCount(chsh.rounds)} test rounds`,
     `S = ${formatFixed(chsh.S, 3)} (local bound 2, quantum bound 2.828); p-value against local models ${formatLog10(chsh.log10PValue)}`,
     `QBER ${formatPercent(qber.rate)} (tolerance ${formatPercent(profile.qberTolerance)}; upper bound ${formatPercent(qber.rateUpper)} at ε = ${epsilon}) over ${formatCount(qber.rounds)} key-setting test rounds`,
-    `Raw key ${formatCount(key.rawBits)} bits; finite key estimate ${formatCount(key.finiteKeyBits)} bits (collective attacks)`,
+    ...(missing && missing.state !== 'None missing' ? [`Missing rounds (${missing.state.toLowerCase()}): ${missing.sentence}`] : []),
+    key.finiteKeyReason
+      ? `Raw key ${formatCount(key.rawBits)} bits; no finite key estimate (collective attacks): the lower bound of S is above 2√2, which no quantum device reaches`
+      : `Raw key ${formatCount(key.rawBits)} bits; finite key estimate ${formatCount(key.finiteKeyBits)} bits (collective attacks)`,
     ...(key.generalAttack ? [`Key length ${generalKeySentence(key.generalAttack)}`] : []),
+    ...(security ? [`Key figure that counts: ${KEY_FIGURE_OF_MODEL[security.model]}; total ε_key = ${formatScientific(security.keyEpsilon)} over ${security.terms.length} terms`] : []),
   ];
-}
-
-function escapeHtml(value: string): string {
-  return value.replace(/[&<>"']/g, (character) => `&#${character.charCodeAt(0)};`);
 }

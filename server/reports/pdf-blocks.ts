@@ -67,23 +67,44 @@ export interface Field {
   label: string;
   value: string;
   mono?: boolean;
+  /** A tone that flags the row: the label is set bold in it (its words must still say why). */
+  labelTone?: string;
 }
+
+/** Space below each row of `fields`. */
+const FIELD_GAP = 2.5;
 
 /** Labels on the left, values beside them, one row each; long values wrap in their column. */
 export function fields(doc: PDFKit.PDFDocument, rows: readonly Field[]): void {
-  const { left, width } = textColumn(doc);
-  const valueLeft = left + LABEL_WIDTH + LABEL_GAP;
-  const valueWidth = width - LABEL_WIDTH - LABEL_GAP;
+  const { left } = textColumn(doc);
+  const { valueLeft, valueWidth } = fieldColumns(doc);
   for (const row of rows) {
-    const labelHeight = useType(doc, 'body', TYPE.body).heightOfString(row.label, { width: LABEL_WIDTH });
-    useValueType(doc, row);
-    const height = Math.max(labelHeight, doc.heightOfString(row.value, { width: valueWidth }));
+    const height = fieldHeight(doc, row);
     ensureSpace(doc, height);
     const top = doc.y;
-    useType(doc, 'body', TYPE.body, TONE.muted).text(row.label, left, top, { width: LABEL_WIDTH });
+    useLabelType(doc, row).text(row.label, left, top, { width: LABEL_WIDTH });
     useValueType(doc, row).text(row.value, valueLeft, top + (row.mono ? 0.8 : 0), { width: valueWidth });
-    doc.y = top + height + 2.5;
+    doc.y = top + height + FIELD_GAP;
   }
+}
+
+/** The height `fields` takes for these rows, so a caller can keep them on one page with what follows. */
+export function fieldsHeight(doc: PDFKit.PDFDocument, rows: readonly Field[]): number {
+  return rows.reduce((total, row) => total + fieldHeight(doc, row) + FIELD_GAP, 0);
+}
+
+function fieldColumns(doc: PDFKit.PDFDocument): { valueLeft: number; valueWidth: number } {
+  const { left, width } = textColumn(doc);
+  return { valueLeft: left + LABEL_WIDTH + LABEL_GAP, valueWidth: width - LABEL_WIDTH - LABEL_GAP };
+}
+
+function fieldHeight(doc: PDFKit.PDFDocument, row: Field): number {
+  const labelHeight = useLabelType(doc, row).heightOfString(row.label, { width: LABEL_WIDTH });
+  return Math.max(labelHeight, useValueType(doc, row).heightOfString(row.value, { width: fieldColumns(doc).valueWidth }));
+}
+
+function useLabelType(doc: PDFKit.PDFDocument, row: Field): PDFKit.PDFDocument {
+  return row.labelTone ? useType(doc, 'bold', TYPE.body, row.labelTone) : useType(doc, 'body', TYPE.body, TONE.muted);
 }
 
 function useValueType(doc: PDFKit.PDFDocument, row: Field): PDFKit.PDFDocument {

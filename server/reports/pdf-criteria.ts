@@ -18,12 +18,13 @@ export function writeCriteria(doc: PDFKit.PDFDocument, result: AnalysisResult): 
   grid(
     doc,
     [
-      { header: 'Rule', width: 26 },
-      { header: 'Observed', width: 10, align: 'right' },
-      { header: 'Bound', width: 11, align: 'right' },
-      { header: 'Threshold', width: 22, align: 'right' },
-      { header: 'Judged on', width: 9 },
-      { header: 'Outcome', width: 8 },
+      // Widths in points of the A4 column, so that the thresholds with their sources and the headers fit on one line.
+      { header: 'Rule', width: 140 },
+      { header: 'Observed', width: 54, align: 'right' },
+      { header: 'Bound', width: 57, align: 'right' },
+      { header: 'Threshold', width: 141, align: 'right' },
+      { header: 'Judged on', width: 58 },
+      { header: 'Outcome', width: 49 },
     ],
     rows.map((row): GridCell[] => [row.name, row.observed, row.bound, `${row.threshold} (${row.source})`, row.judgedOn, outcome(row.passes)]),
   );

@@ -1,15 +1,18 @@
+import type { KeySummary } from '../../shared/analysis/report/key-summary';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
 import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '../../shared/analysis/statistics/bell-bounds';
 import { hoeffdingDeviation } from '../../shared/analysis/statistics/hoeffding';
+import type { AnalysisProfile } from '../../shared/analysis/profile';
 import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../shared/format/numbers';
-import { COLLECTIVE_ATTACK_CAUTION } from '../mail/verdict-mail';
-import { ensureSpace, fields, paragraph, textColumn, useType } from './pdf-blocks';
-import { PERCENT_DECIMALS, TONE, TYPE, WIN_DECIMALS } from './pdf-style';
+import { keyCautions } from './attack-model-words';
+import { ensureSpace, fields, fieldsHeight, paragraph, type Field } from './pdf-blocks';
+import { cautionHeight, writeCaution } from './pdf-caution';
+import { PERCENT_DECIMALS, TONE, WIN_DECIMALS } from './pdf-style';
 
 /**
- * The figures of the run, each with its Hoeffding deviation or bound; the key figures, which hold
- * only against collective attacks, followed by the caution that says so.
+ * The figures of the run, each with its Hoeffding bound; the key figures, each naming its attack
+ * model, followed by the caution of each model shown.
  */
 export function writeFigures(doc: PDFKit.PDFDocument, result: AnalysisResult): void {
   const { chsh, qber, key, profile } = result;
@@ -18,12 +21,13 @@ export function writeFigures(doc: PDFKit.PDFDocument, result: AnalysisResult): v
     return;
   }
   const epsilon = `ε = ${formatScientific(profile.epsilon)}`;
+  const fraction = (value: number | null) => formatFixed(value, WIN_DECIMALS);
   const percent = (value: number | null) => formatPercent(value, PERCENT_DECIMALS);
   fields(doc, [
     {
       label: 'CHSH win fraction',
       value:
-        `${formatFixed(chsh.winFraction, WIN_DECIMALS)} ± ${formatFixed(hoeffdingDeviation(chsh.rounds, profile.epsilon), WIN_DECIMALS)} (Hoeffding, ${epsilon}); ` +
+        `${fraction(chsh.winFraction)}, lower bound ${fraction(chsh.winFractionLower)} (Hoeffding, ${epsilon}), the four setting pairs weighed equally; ` +
         `${formatCount(chsh.wins)} won of ${formatCount(chsh.rounds)} CHSH test rounds`,
     },
     {
@@ -41,34 +45,37 @@ export function writeFigures(doc: PDFKit.PDFDocument, result: AnalysisResult): v
     },
     {
       label: 'p-value against local models',
-      value: `${formatLog10(chsh.log10PValue)} (binomial tail at 3/4); Azuma–Hoeffding form ${formatLog10(chsh.log10PValueHoeffding)}`,
+      value:
+        `${formatLog10(chsh.log10PValue)}, the larger of the binomial tail at 3/4 (${formatLog10(chsh.log10PValueBinomial)}) ` +
+        `and the balanced win fraction's Hoeffding tail (${formatLog10(chsh.log10PValueHoeffding)})`,
     },
   ]);
   doc.y += 3;
-  fields(doc, [
+  const keyFigures: Field[] = [
     { label: 'Raw key', value: `${formatCount(key.rawBits)} bits (untested rounds with the key setting)` },
-    {
-      label: 'Finite key estimate',
-      value: `${formatCount(key.finiteKeyBits)} bits${key.finiteKeyBits === 0 ? ' (no key at this size)' : ''}, at f = ${profile.reconciliationEfficiency}, ε_EC = ${formatScientific(profile.epsilonEC)}, ε_PA = ${formatScientific(profile.epsilonPA)}`,
-    },
+    { label: 'Finite key estimate', value: finiteKeyLine(key, profile) },
     ...(key.generalAttack ? [{ label: 'Key against general attacks', value: generalKeySentence(key.generalAttack) }] : []),
-    {
-      label: 'Asymptotic rate',
-      value: `${formatFixed(key.asymptoticRate)} bits per raw bit; min-entropy ${formatFixed(key.minEntropyPerRound)} per round at the lower bound of S`,
-    },
-  ]);
-  writeCaution(doc);
+    { label: 'Asymptotic rate', value: `${formatFixed(key.asymptoticRate)} bits per raw bit (collective attacks); ${minEntropyLine(key)}` },
+  ];
+  const cautions = keyCautions(key);
+  // A caution must never be parted from its figures by a page break.
+  ensureSpace(doc, fieldsHeight(doc, keyFigures) + cautions.reduce((total, caution) => total + cautionHeight(doc, caution), 0));
+  fields(doc, keyFigures);
+  for (const caution of cautions) writeCaution(doc, caution);
 }
 
-/** The collective-attack caution, on an amber rule beside the key figures. */
-function writeCaution(doc: PDFKit.PDFDocument): void {
-  const { left, width } = textColumn(doc);
-  const indent = 8;
-  useType(doc, 'body', TYPE.small, TONE.threshold);
-  const height = doc.heightOfString(COLLECTIVE_ATTACK_CAUTION, { width: width - indent });
-  ensureSpace(doc, height + 4);
-  const top = doc.y + 1;
-  doc.rect(left, top - 1, 2, height + 2).fill(TONE.threshold);
-  useType(doc, 'body', TYPE.small, TONE.threshold).text(COLLECTIVE_ATTACK_CAUTION, left + indent, top, { width: width - indent });
-  doc.y += 3;
+/** The collective-attack key length with its parameters, and why none was computed when the bound of S is unphysical. */
+function finiteKeyLine(key: KeySummary, profile: AnalysisProfile): string {
+  const parameters = `f = ${profile.reconciliationEfficiency}, ε_EC = ${formatScientific(profile.epsilonEC)}, ε_PA = ${formatScientific(profile.epsilonPA)}`;
+  if (key.finiteKeyReason) return `none computed (collective attacks; ${parameters}). ${key.finiteKeyReason}`;
+  const none = key.finiteKeyBits === 0 ? ': no key at this size' : '';
+  return `${formatCount(key.finiteKeyBits)} bits against collective (i.i.d.) attacks, at ${parameters}${none}`;
+}
+
+/** The min-entropy per round at S_low; an en dash when none is computed. */
+function minEntropyLine(key: KeySummary): string {
+  const value = formatFixed(key.minEntropyPerRound);
+  return key.minEntropyPerRound === null
+    ? `min-entropy per round ${value}${key.finiteKeyReason ? ' (none above 2√2)' : ''}`
+    : `min-entropy ${value} per round at the lower bound of S`;
 }

@@ -1,15 +1,19 @@
 import crypto from 'node:crypto';
 import PDFDocument from 'pdfkit';
 import { DEMO_PROFILES, DEMO_SETUPS } from '../../seeders/data/demo-lab';
+import { formatPValue } from '../../shared/analysis/checks/check-result';
 import { analyseLog } from '../../shared/analysis/node';
+import type { AnalysisProfileInput } from '../../shared/analysis/profile';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
 import { RUN_REPORT_FORMAT, type RunReportDto } from '../../shared/api';
+import { formatCount, formatScientific } from '../../shared/format/numbers';
 import { fixture, SEED } from '../../tests/cli/run-analyse';
 import { signStatement } from '../integrity/signed-statement';
 import { signingKeyFromPem } from '../integrity/signing-key';
-import { COLLECTIVE_ATTACK_CAUTION } from '../mail/verdict-mail';
 import { pdfFonts, pdfFontsEmbedded, pdfText } from '../../tests/support/pdf-text';
+import { COLLECTIVE_ATTACK_CAUTION, KEY_CAUTION } from './attack-model-words';
+import { missingRoundsWords } from './missing-rounds-words';
 import { createPdfReport } from './pdf-report';
 
 jest.setTimeout(60_000);
@@ -20,8 +24,15 @@ const RUN_ID = 418;
 const SIGNED_OFF_AT = '2025-03-14T07:10:00.000Z';
 const SIGN_OFF_COMMENT = 'Steady night after the realignment; key kept for the relay test.';
 
-async function analysed(log: string): Promise<AnalysisResult> {
-  return analyseLog({ path: fixture(log) }, { profile: NIGHTLY.parameters, seed: SEED });
+/** A profile judged under the general-attack model (round-by-round testing, soundness 1e-10). */
+const GENERAL_PROFILE: AnalysisProfileInput = {
+  testSelection: { mode: 'bernoulli', probability: 0.5 },
+  securityModel: 'general',
+  generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } },
+};
+
+async function analysed(log: string, profile: AnalysisProfileInput = NIGHTLY.parameters): Promise<AnalysisResult> {
+  return analyseLog({ path: fixture(log) }, { profile, seed: SEED });
 }
 
 /** A report of the Fen link's night run, signed with a fresh Ed25519 key and signed off. */
@@ -163,6 +174,47 @@ describe('the PDF report of a run', () => {
       }
     });
 
+    it('tabulates CHSH by setting pair, then gives the balanced win fraction and the pooled one for reference', () => {
+      const chsh = accepted.chsh!;
+      expect(text).toContain('CHSH by setting pair x y Rounds Test rounds Wins Win fraction Lower bound');
+      expect(chsh.pairs).toHaveLength(4);
+      for (const pair of chsh.pairs) {
+        const figures = [pair.x, pair.y, formatCount(pair.rounds), formatCount(pair.testRounds), formatCount(pair.wins), pair.winFraction!.toFixed(6), `≥ ${pair.winFractionLower!.toFixed(6)}`];
+        expect(text).toContain(flatten(figures.join(' ')));
+      }
+      expect(text).toContain(`The win fraction judged weighs the four pairs equally: ${chsh.winFraction!.toFixed(6)}, lower bound ${chsh.winFractionLower!.toFixed(6)}`);
+      expect(text).toContain(flatten(`Pooled over all ${formatCount(chsh.rounds)} test rounds it is ${chsh.pooledWinFraction!.toFixed(6)} (${formatCount(chsh.wins)} won), for reference only`));
+    });
+
+    it('says that no round is missing, with the span and the tolerance', () => {
+      expect(accepted.missingRounds!.missing).toBe(0);
+      expect(text).toContain(`Missing rounds None missing ${flatten(missingRoundsWords(accepted.missingRounds!).sentence)}`);
+    });
+
+    it('lists the security parameters: the key figure’s attack model, its total ε and terms, the rule and how the checks share α', () => {
+      const security = accepted.security!;
+      expect(text).toContain('Security parameters Key figure that counts the finite key estimate, against collective (i.i.d.) attacks');
+      expect(text).toContain(`ε_key = ${formatScientific(security.keyEpsilon)}, from the 4 terms below`);
+      for (const term of security.terms) expect(text).toContain(flatten(`${term.symbol} ${formatScientific(term.value)} ${term.usedFor}`));
+      expect(text).toContain(`How they add up ${security.rule}`);
+      expect(text).toContain(flatten(security.checks.correction));
+      // The section ends with the caution of its attack model.
+      const section = text.indexOf('Security parameters Key figure');
+      expect(text.indexOf(COLLECTIVE_ATTACK_CAUTION, section)).toBeGreaterThan(section);
+    });
+
+    it('gives each statistical check its p-value from its log10, and a dash to the counting checks', () => {
+      const word = { pass: 'pass', warn: 'warning', fail: 'FAIL' } as const;
+      const statistical = accepted.checks.filter((check) => check.log10PValue !== null);
+      expect(statistical.length).toBe(accepted.security!.checks.count);
+      for (const check of accepted.checks) {
+        const pValue = check.log10PValue === null ? '–' : formatPValue(check.log10PValue);
+        expect(text).toContain(`${check.id} ${word[check.status]} ${pValue}`);
+      }
+      const sharing = accepted.security!.checks;
+      expect(text).toContain(flatten(`Each statistical check passes at p ≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)}`));
+    });
+
     it('has a footer with the page count and the exporter on every page', async () => {
       const pages = (await pdfText(pdf)).split('\f');
       expect(pages.length).toBeGreaterThan(1);
@@ -179,7 +231,50 @@ describe('the PDF report of a run', () => {
     const text = await flatText(await pdfBytes(signedReport(aborted)));
     expect(text).toContain('ABORT');
     for (const reason of aborted.reasons) expect(text).toContain(flatten(reason));
-    expect(text).toMatch(/CHSH win fraction \d\.\d+ ≥ \d\.\d+ ≥ \d\.\d+ \(ω_Q − [\d.]+\) observed FAIL/);
+    // The rule's name wraps in its column, so its first line stands before the figures of its row.
+    expect(text).toMatch(/CHSH win fraction \(setting \d\.\d+ ≥ \d\.\d+ ≥ \d\.\d+ \(ω_Q − [\d.]+\) observed FAIL/);
+  });
+
+  it('warns of missing rounds over the tolerance, counted as lost games in the balanced win fraction', async () => {
+    const missingRounds = { ...accepted.missingRounds!, missing: 40, drawnForTesting: 19 };
+    const result: AnalysisResult = { ...accepted, missingRounds, chsh: { ...accepted.chsh!, missingTestRounds: 19 } };
+    const text = await flatText(await pdfBytes(signedReport(result)));
+    expect(text).toContain(`Missing rounds Over tolerance ${flatten(missingRoundsWords(missingRounds).sentence)}`);
+    expect(text).toContain(flatten(`${formatCount(40)} of ${formatCount(missingRounds.triggers)} triggers missing`));
+    expect(text).toContain('19 of them drawn for testing, each counted as a lost CHSH game');
+    expect(text).toContain('It counts 19 missing rounds drawn for testing as lost, where they lower it most.');
+  });
+
+  it('says why no finite key was computed, and shows the missing min-entropy as a dash', async () => {
+    const finiteKeyReason = 'The lower bound S = 2.9000 is above 2√2, which no quantum device reaches: no min-entropy and no key are computed from it.';
+    const result: AnalysisResult = { ...aborted, key: { ...aborted.key!, finiteKeyBits: 0, minEntropyPerRound: null, finiteKeyReason } };
+    const text = await flatText(await pdfBytes(signedReport(result)));
+    expect(text).toContain(`Finite key estimate none computed (collective attacks; f = ${aborted.profile.reconciliationEfficiency}`);
+    expect(text).toContain(finiteKeyReason);
+    expect(text).toContain('min-entropy per round – (none above 2√2)');
+    expect(text).toContain(COLLECTIVE_ATTACK_CAUTION);
+  });
+
+  it('names the general-attack key figure and both cautions under a general-attack profile', async () => {
+    const general = await analysed('accepted-run.csv', GENERAL_PROFILE);
+    expect(general.security!.model).toBe('general');
+    const text = await flatText(await pdfBytes(signedReport(general)));
+    expect(text).toContain('Key figure that counts the key length against general attacks (entropy accumulation)');
+    expect(text).toContain(flatten(general.security!.rule));
+    expect(text).toContain(COLLECTIVE_ATTACK_CAUTION);
+    expect(text).toContain(KEY_CAUTION.general);
+  });
+
+  it('reads a result stored before engine 2.0, saying what that engine did not record', async () => {
+    const { missingRounds: _missing, security: _security, ...older } = accepted;
+    const { pairs: _pairs, ...olderChsh } = accepted.chsh!;
+    const stored = { ...older, engineVersion: '1.4.0', chsh: olderChsh, checks: accepted.checks.map(({ log10PValue: _p, ...check }) => check) } as unknown as AnalysisResult;
+    const text = await flatText(await pdfBytes(signedReport(stored)));
+    expect(text).toContain('No figures per setting pair: not recorded by the engine that stored this result (version 1.4.0).');
+    expect(text).toContain('No missing-rounds count: not recorded by the engine that stored this result (version 1.4.0).');
+    expect(text).toContain('No security parameters: not recorded by the engine that stored this result (version 1.4.0).');
+    expect(text).toContain(`${accepted.checks[0].id} pass –`);
+    expect(text).toContain('This result was stored before engine 2.0, which kept no p-values apart');
   });
 
   it('lists the blocks of the drift chart that fall below the threshold', async () => {

@@ -8,7 +8,10 @@ import { writeFigures } from './pdf-figures';
 import { fontFile, registerFonts } from './pdf-fonts';
 import { writeFooters } from './pdf-footer';
 import { writeHeader } from './pdf-header';
+import { writeMissingRounds } from './pdf-missing-rounds';
 import { writeProvenance } from './pdf-provenance';
+import { writeSecurity } from './pdf-security';
+import { writeSettingPairs } from './pdf-setting-pairs';
 import { writeSettingsTable } from './pdf-settings-table';
 import { writeSignOff } from './pdf-sign-off';
 import { writeSignature } from './pdf-signature';
@@ -18,7 +21,10 @@ import { writeVerdict } from './pdf-verdict';
 /** The sections after the verdict, in order; `keepWith` keeps a title on the page of its first lines. */
 const SECTIONS: ReadonlyArray<{ title: string; keepWith?: number; write: (doc: PDFKit.PDFDocument, report: RunReportDto) => void }> = [
   { title: 'Acceptance criteria', write: (doc, report) => writeCriteria(doc, report.result) },
+  { title: 'CHSH by setting pair', keepWith: 110, write: (doc, report) => writeSettingPairs(doc, report.result) },
+  { title: 'Missing rounds', write: (doc, report) => writeMissingRounds(doc, report.result) },
   { title: 'Figures', write: (doc, report) => writeFigures(doc, report.result) },
+  { title: 'Security parameters', keepWith: 110, write: (doc, report) => writeSecurity(doc, report.result) },
   { title: 'Drift across the run', keepWith: 170, write: (doc, report) => writeDriftChart(doc, report.result) },
   { title: 'Rounds per setting pair', keepWith: 90, write: (doc, report) => writeSettingsTable(doc, report.result) },
   { title: 'Checks', write: (doc, report) => writeChecks(doc, report.result) },

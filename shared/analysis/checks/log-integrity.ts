@@ -1,5 +1,5 @@
 import { formatCount } from '../../format/numbers';
-import { MissingRoundsSummary } from '../report/missing-rounds';
+import { MissingRoundsSummary, missingShareText } from '../report/missing-rounds';
 import { CheckFinding } from './check-result';
 
 /**
@@ -16,7 +16,7 @@ export function logIntegrityCheck(rounds: number, span: MissingRoundsSummary): C
   const holds = missing <= allowed;
   const where = `${formatCount(rounds)} rounds with round indices ${formatCount(span.firstRound)} to ${formatCount(span.lastRound)}`;
   const drawn = drawnForTesting > 0 ? ` ${formatCount(drawnForTesting)} of them were drawn for testing and count as lost CHSH games.` : '';
-  const share = `${((100 * missing) / span.triggers).toPrecision(2)} %`;
+  const share = missingShareText(span);
   return {
     id: 'log-integrity',
     family: 'log-integrity',

@@ -19,3 +19,20 @@ export interface MissingRoundsSummary {
 export function summariseMissingRounds(span: TriggerSpan, missing: number, drawnForTesting: number, tolerance: number): MissingRoundsSummary {
   return { firstRound: span.firstRound, lastRound: span.lastRound, triggers: span.triggers, missing, drawnForTesting, tolerated: Math.floor(tolerance * span.triggers) };
 }
+
+/** The state of a log's missing rounds, as a word (never shown by colour alone). */
+export type MissingRoundsState = 'None missing' | 'Within tolerance' | 'Over tolerance';
+
+/** The state of the missing rounds against the profile's tolerance. */
+export function missingRoundsState(summary: MissingRoundsSummary): MissingRoundsState {
+  return summary.missing > summary.tolerated ? 'Over tolerance' : summary.missing > 0 ? 'Within tolerance' : 'None missing';
+}
+
+/**
+ * The missing rounds' share of the triggers in per cent, two significant digits ("0.17 %"): a
+ * handful of missing rounds among millions of triggers must not read "0.00 %".
+ */
+export function missingShareText(summary: Pick<MissingRoundsSummary, 'missing' | 'triggers'>): string {
+  const share = summary.missing === 0 || summary.triggers === 0 ? '0' : ((100 * summary.missing) / summary.triggers).toPrecision(2);
+  return `${share}\u2009%`;
+}

@@ -1,4 +1,4 @@
-import type { MissingRoundsSummary } from '../../../shared/analysis/report/missing-rounds';
+import { missingRoundsState, missingShareText, type MissingRoundsState, type MissingRoundsSummary } from '../../../shared/analysis/report/missing-rounds';
 import { formatCount } from '../../../shared/format/numbers';
 
 /** The missing-rounds line of a run, every figure formatted. */
@@ -16,12 +16,12 @@ export interface MissingRoundsFigures {
   /** Whether any round is missing at all. */
   readonly anyMissing: boolean;
   /** The word and Material Symbols icon of the state, never shown by colour alone. */
-  readonly word: 'None missing' | 'Within tolerance' | 'Over tolerance';
+  readonly word: MissingRoundsState;
   readonly icon: 'check_circle' | 'info' | 'warning';
 }
 
-/** Thin space between a figure and its unit, as in `formatPercent`. */
-const THIN_SPACE = '\u2009';
+/** The icon of each state. */
+const STATE_ICON: Record<MissingRoundsState, MissingRoundsFigures['icon']> = { 'None missing': 'check_circle', 'Within tolerance': 'info', 'Over tolerance': 'warning' };
 
 /** The missing-rounds figures of a result, or null when it has none (an INVALID log, or an engine before 2.0). */
 export function missingRoundsFigures(summary: MissingRoundsSummary | null | undefined): MissingRoundsFigures | null {
@@ -31,22 +31,12 @@ export function missingRoundsFigures(summary: MissingRoundsSummary | null | unde
     span: `${formatCount(firstRound)} to ${formatCount(lastRound)}`,
     triggers: formatCount(triggers),
     missing: formatCount(missing),
-    share: `${shareOf(missing, triggers)}${THIN_SPACE}%`,
+    share: missingShareText(summary),
     tolerated: formatCount(tolerated),
     drawnForTesting: formatCount(drawnForTesting),
     overTolerance: missing > tolerated,
     anyMissing: missing > 0,
-    ...(missing > tolerated
-      ? { word: 'Over tolerance', icon: 'warning' }
-      : missing > 0
-        ? { word: 'Within tolerance', icon: 'info' }
-        : { word: 'None missing', icon: 'check_circle' }),
+    word: missingRoundsState(summary),
+    icon: STATE_ICON[missingRoundsState(summary)],
   };
-}
-
-// Two significant digits, as the log-integrity check words it: a handful of missing rounds among
-// millions of triggers must not read "0.00 %".
-function shareOf(missing: number, triggers: number): string {
-  if (missing === 0 || triggers === 0) return '0';
-  return ((100 * missing) / triggers).toPrecision(2);
 }
