@@ -3,7 +3,7 @@ import type { AnalysisResult } from '../../shared/analysis/result';
 import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
 import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
 import type { RunDto } from '../../shared/api';
-import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../shared/format/numbers';
+import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '../../shared/format/numbers';
 import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words';
 import { missingRoundsWords } from '../reports/missing-rounds-words';
 import { mailHtml, mailText, type MailBlock } from './mail-blocks';
@@ -64,7 +64,7 @@ function figureLines(result: AnalysisResult): string[] {
   const winThreshold = winThresholdOf(result);
   return [
     `CHSH win fraction ${formatFixed(chsh.winFraction)} (threshold ${formatFixed(winThreshold)}; lower bound ${formatFixed(chsh.winFractionLower)} at ε = ${epsilon}) over ${formatCount(chsh.rounds)} test rounds`,
-    `S = ${formatFixed(chsh.S, 3)} (local bound 2, quantum bound 2.828); p-value against local models ${formatLog10(chsh.log10PValue)}`,
+    `S = ${formatFixed(chsh.S, 3)} (local bound 2, quantum bound 2.828); p-value against local models ${formatPValue(chsh.log10PValue)}`,
     `QBER ${formatPercent(qber.rate)} (tolerance ${formatPercent(profile.qberTolerance)}; upper bound ${formatPercent(qber.rateUpper)} at ε = ${epsilon}) over ${formatCount(qber.rounds)} key-setting test rounds`,
     ...(missing && missing.state !== 'None missing' ? [`Missing rounds (${missing.state.toLowerCase()}): ${missing.sentence}`] : []),
     key.finiteKeyReason

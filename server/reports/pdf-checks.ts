@@ -1,4 +1,5 @@
-import { formatPValue, type CheckResult, type CheckStatus } from '../../shared/analysis/checks/check-result';
+import type { CheckResult, CheckStatus } from '../../shared/analysis/checks/check-result';
+import { formatPValue } from '../../shared/format/numbers';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { formatScientific } from '../../shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';

@@ -4,7 +4,7 @@ import { generalKeySentence } from '../../shared/analysis/report/general-key-wor
 import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '../../shared/analysis/statistics/bell-bounds';
 import { hoeffdingDeviation } from '../../shared/analysis/statistics/hoeffding';
 import type { AnalysisProfile } from '../../shared/analysis/profile';
-import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../shared/format/numbers';
+import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '../../shared/format/numbers';
 import { keyCautions } from './attack-model-words';
 import { ensureSpace, fields, fieldsHeight, paragraph, type Field } from './pdf-blocks';
 import { cautionHeight, writeCaution } from './pdf-caution';
@@ -46,8 +46,8 @@ export function writeFigures(doc: PDFKit.PDFDocument, result: AnalysisResult): v
     {
       label: 'p-value against local models',
       value:
-        `${formatLog10(chsh.log10PValue)}, the larger of the binomial tail at 3/4 (${formatLog10(chsh.log10PValueBinomial)}) ` +
-        `and the balanced win fraction's Hoeffding tail (${formatLog10(chsh.log10PValueHoeffding)})`,
+        `${formatPValue(chsh.log10PValue)}, the larger of the binomial tail at 3/4 (${formatPValue(chsh.log10PValueBinomial)}) ` +
+        `and the balanced win fraction's Hoeffding tail (${formatPValue(chsh.log10PValueHoeffding)})`,
     },
   ]);
   doc.y += 3;

@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import PDFDocument from 'pdfkit';
 import { DEMO_PROFILES, DEMO_SETUPS } from '../../seeders/data/demo-lab';
-import { formatPValue } from '../../shared/analysis/checks/check-result';
+import { formatPValue } from '../../shared/format/numbers';
 import { analyseLog } from '../../shared/analysis/node';
 import type { AnalysisProfileInput } from '../../shared/analysis/profile';
 import type { AnalysisResult } from '../../shared/analysis/result';

@@ -29,6 +29,12 @@ export function formatLog10(log10: number): string {
   return `${(10 ** (log10 - exponent)).toFixed(1)}e${exponent}`;
 }
 
+/** A p-value from its log10: three significant digits down to 1e-4 ("0.0884", "1.00"), then as `formatLog10`; never 0. */
+export function formatPValue(log10PValue: number): string {
+  const p = 10 ** log10PValue;
+  return p >= 1e-4 ? p.toPrecision(3) : formatLog10(log10PValue);
+}
+
 /** A rate as a percentage with two decimals: 0.0182 → "1.82 %". */
 export function formatPercent(value: number | null | undefined, decimals = 2): string {
   return value === null || value === undefined || !Number.isFinite(value) ? '–' : `${(value * 100).toFixed(decimals)}${THIN_SPACE}%`;

@@ -1,4 +1,4 @@
-import { formatLog10 } from '../../format/numbers';
+import { formatPValue } from '../../format/numbers';
 import { CheckFamily } from '../profile';
 
 /** Outcome of one check. */
@@ -39,12 +39,6 @@ export function checkStatus(finding: CheckFinding, blocking: readonly CheckFamil
   const blocks = finding.alwaysBlocks === true || blocking.includes(finding.family);
   const status: CheckStatus = finding.holds ? 'pass' : blocks ? 'fail' : 'warn';
   return { id: finding.id, status, observed: finding.observed, log10PValue: finding.log10PValue ?? null, threshold: finding.threshold, message: finding.message };
-}
-
-/** Formats a p-value given as its log10, so that a tail far below the smallest double still reads as a number, never 0. */
-export function formatPValue(log10PValue: number): string {
-  const p = 10 ** log10PValue;
-  return p >= 1e-4 ? p.toPrecision(3) : formatLog10(log10PValue);
 }
 
 /** A statistical finding: holds when its p-value reaches the check's share of the significance. */

@@ -1,4 +1,5 @@
-import { formatPValue, type CheckResult } from '../../../shared/analysis/checks/check-result';
+import type { CheckResult } from '../../../shared/analysis/checks/check-result';
+import { formatPValue } from '../../../shared/format/numbers';
 import type { SecuritySummary } from '../../../shared/analysis/report/security-summary';
 import { formatCount, formatScientific } from '../../../shared/format/numbers';
 

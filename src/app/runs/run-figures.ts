@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 
 import type { AnalysisResult } from '../../../shared/analysis/result';
-import { formatCount, formatFixed, formatLog10, formatPercent, formatScientific } from '../../../shared/format/numbers';
+import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '../../../shared/format/numbers';
 import { ChshScaleChart } from './chsh-scale-chart';
 import { KeyCaution } from './key-caution';
 import { MissingRoundsLine } from './missing-rounds-line';
@@ -26,9 +26,9 @@ export class RunFigures {
   protected readonly epsilon = computed(() => formatScientific(this.result().profile.epsilon));
   protected readonly winThreshold = computed(() => formatFixed(winThresholdOf(this.result())));
   protected readonly qberTolerance = computed(() => formatPercent(this.result().profile.qberTolerance));
-  protected readonly pValue = computed(() => formatLog10(this.chsh().log10PValue));
-  protected readonly pValueBinomial = computed(() => formatLog10(this.chsh().log10PValueBinomial));
-  protected readonly pValueHoeffding = computed(() => formatLog10(this.chsh().log10PValueHoeffding));
+  protected readonly pValue = computed(() => formatPValue(this.chsh().log10PValue));
+  protected readonly pValueBinomial = computed(() => formatPValue(this.chsh().log10PValueBinomial));
+  protected readonly pValueHoeffding = computed(() => formatPValue(this.chsh().log10PValueHoeffding));
   // Results stored before engine 2.0 lack these; they read as none.
   protected readonly winNote = computed(() => {
     const { wins, rounds, pooledWinFraction } = this.chsh();
