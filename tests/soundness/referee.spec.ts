@@ -77,6 +77,7 @@ describe('a referee’s attacks on the verdict (each over several seeds)', () =>
     expect(result.verdict).toBe('ABORT');
     expect(reasonText(result)).toContain('above the quantum maximum');
     expect(result.key!.minEntropyPerRound).toBeNull();
+    expect(result.key!.asymptoticRate).toBeNull();
     expect(result.key!.finiteKeyBits).toBe(0);
     expect(result.key!.finiteKeyReason).toContain('above 2√2');
   });

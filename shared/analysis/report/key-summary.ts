@@ -12,7 +12,7 @@ import { QberSummary } from './qber-summary';
 export interface KeySummary {
   /** Raw key bits n: generation rounds with the key setting. */
   rawBits: number;
-  /** Asymptotic rate per raw bit at the observed S and QBER (Pironio form); ≤ 0 means no key; null without data. */
+  /** Asymptotic rate per raw bit at the observed S and QBER (Pironio form); ≤ 0 means no key; null without data or when the observed S is above 2√2. */
   asymptoticRate: number | null;
   /** S_low = 8·ω_low − 4 from the Hoeffding-corrected win fraction, or null. */
   chshValueLower: number | null;
@@ -31,7 +31,8 @@ export interface KeySummary {
 export function summariseKey(chsh: ChshSummary, qber: QberSummary, profile: AnalysisProfile, rounds: number): KeySummary {
   const rawBits = qber.untestedRounds;
   const chshValueLower = chsh.winFractionLower === null ? null : chshValueFromWinFraction(chsh.winFractionLower);
-  const asymptotic = chsh.S === null || qber.rate === null ? null : asymptoticRate(chsh.S, qber.rate);
+  // Above 2√2 no rate is defined: a figure from it would be taken from a device that cannot exist.
+  const asymptotic = chsh.S === null || qber.rate === null || chsh.S > QUANTUM_CHSH_VALUE ? null : asymptoticRate(chsh.S, qber.rate);
   const aboveQuantum = chshValueLower !== null && chshValueLower > QUANTUM_CHSH_VALUE;
   const finite =
     chshValueLower === null || aboveQuantum || qber.untestedRateUpper === null
