@@ -43,11 +43,9 @@ const uploadFieldsSchema = z.strictObject({
       }
       return parsed.mapping as unknown as Record<string, unknown>;
     }),
-  seed: z
-    .string()
-    .regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits (256 bits)')
-    .transform((seed) => seed.toLowerCase())
-    .optional(),
+  // Refused with its own message, not as an unknown field: whoever could choose the seed could draw
+  // seeds until one passes.
+  seed: z.never({ error: 'is drawn by the server, never by the uploader: whoever chooses the seed chooses the test rounds' }).optional(),
   acquiredOn: isoDate.optional(),
   notes: z.string().max(4000, 'must be at most 4000 characters').optional(),
 });

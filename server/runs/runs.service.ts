@@ -5,6 +5,7 @@ import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
 import type { AnalysisQueue } from '../queue/analysis-queue';
+import type { ProfileVersionRecord } from '../profiles/profile.model';
 import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';
 import type { LogStore, ReceivedLog } from '../storage/log-store';
@@ -16,7 +17,6 @@ export interface NewRun {
   profileId?: number;
   profileVersionId?: number;
   mapping?: Record<string, unknown>;
-  seed?: string;
   acquiredOn?: string;
   notes?: string;
   originalName: string;
@@ -128,9 +128,8 @@ export function createRunsService(deps: {
         throw error instanceof HttpError && error.status === 404 ? HttpError.badRequest(error.message, field) : error;
       };
       const setup = await setups.get(newRun.setupId).catch(asBadField('setupId'));
-      const profileVersion = newRun.profileVersionId
-        ? await profiles.findVersion(newRun.profileVersionId).catch(asBadField('profileVersionId'))
-        : await profiles.latestVersionOf(newRun.profileId ?? setup.defaultProfileId).catch(asBadField('profileId'));
+      const profileVersion = await profiles.latestVersionOf(setup.defaultProfileId);
+      refuseChosenProfile(newRun, setup.name, profileVersion);
       const { sha256, bytes } = newRun.log;
       const { isNew: fileWasNew } = await newRun.log.keep();
       try {
@@ -148,8 +147,9 @@ export function createRunsService(deps: {
               acquiredOn: newRun.acquiredOn ?? null,
               notes: newRun.notes ?? '',
               mapping: newRun.mapping ?? null,
-              // Drawn now, not by the worker, so every retry of the analysis uses the same seed.
-              seed: newRun.seed ?? crypto.randomBytes(32).toString('hex'),
+              // Drawn now, not by the worker, so every retry of the analysis uses the same seed; the
+              // same bytes uploaded again keep the first run's seed, so re-uploading draws nothing new.
+              seed: earlier?.seed ?? crypto.randomBytes(32).toString('hex'),
             },
             { transaction },
           );
@@ -216,4 +216,19 @@ export function createRunsService(deps: {
       });
     },
   };
+}
+
+/**
+ * An upload is judged under its setup's profile, latest version, and nothing else: the uploader
+ * who could pick a looser profile could pick the verdict. Naming that same profile or version is
+ * harmless; naming another is refused with why.
+ */
+function refuseChosenProfile(newRun: NewRun, setupName: string, setupVersion: ProfileVersionRecord): void {
+  const chosenOther =
+    (newRun.profileId !== undefined && newRun.profileId !== setupVersion.profileId) ||
+    (newRun.profileVersionId !== undefined && newRun.profileVersionId !== setupVersion.id);
+  if (!chosenOther) return;
+  throw HttpError.forbidden(
+    `Runs on ${setupName} are judged under the setup’s own acceptance profile (version ${setupVersion.version}); an upload cannot choose another. An admin may change the setup’s profile before the night.`,
+  );
 }

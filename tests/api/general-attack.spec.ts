@@ -2,7 +2,7 @@ import request from 'supertest';
 import { formatCount } from '../../shared/format/numbers';
 import { chshCriterion } from '../../shared/analysis/report/verdict';
 import type { AnalysisResult } from '../../shared/analysis/result';
-import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto } from '../../shared/api';
+import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto, SetupDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { pdfText } from '../support/pdf-text';
@@ -37,7 +37,23 @@ describe('a profile under the general-attack model, through the API', () => {
     expect((refused.body as ApiErrorBody).error).toMatchObject({ field: 'parameters.testSelection.mode', message: expect.stringContaining('a fixed-size subset is refused') });
 
     const profile = (await request(testApp.app).post('/api/profiles').set('Authorization', `Bearer ${admin}`).send({ name: 'General trial', parameters: GENERAL }).expect(201)).body as ProfileDto;
-    const created = await uploadLog(testApp.app, dev, fixtureLog('accepted-run.csv'), { setupId: await setupId(testApp.app, dev, 'Fen link'), profileId: profile.id, seed: 'd4'.repeat(32) }).expect(201);
+    // An upload cannot choose its profile: the admin puts the setup under the general profile first.
+    const fenLink = await setupId(testApp.app, dev, 'Fen link');
+    const setup = (await request(testApp.app).get(`/api/setups/${fenLink}`).set('Authorization', `Bearer ${admin}`).expect(200)).body as SetupDto;
+    await request(testApp.app)
+      .put(`/api/setups/${fenLink}`)
+      .set('Authorization', `Bearer ${admin}`)
+      .send({
+        name: setup.name,
+        description: setup.description,
+        stationALabel: setup.stationALabel,
+        stationBLabel: setup.stationBLabel,
+        defaultProfileId: profile.id,
+        shiftLeadIds: setup.shiftLeads.map((lead) => lead.id),
+        extraRecipients: setup.extraRecipients,
+      })
+      .expect(200);
+    const created = await uploadLog(testApp.app, dev, fixtureLog('accepted-run.csv'), { setupId: fenLink }).expect(201);
     const run = await waitForFinishedRun(testApp.app, dev, (created.body as RunDto).id);
     const result = run.result as unknown as AnalysisResult;
     // 24 000 rounds are far too few for a key against general attacks: no key, with the reason.

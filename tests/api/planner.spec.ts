@@ -64,8 +64,8 @@ describe('the planner through the API', () => {
     expect(empty).toMatchObject({ setupId: fenLink, runIds: [], winFraction: null, qber: null, rounds: null });
 
     const runs: RunDto[] = [];
-    for (const seed of ['1a', '2b']) {
-      const created = await uploadLog(testApp.app, token, fixtureLog('accepted-run.csv'), { setupId: fenLink, seed: seed.repeat(32) }).expect(201);
+    for (const fixture of ['accepted-run.csv', 'accepted-run.csv']) {
+      const created = await uploadLog(testApp.app, token, fixtureLog(fixture), { setupId: fenLink }).expect(201);
       runs.push(await waitForFinishedRun(testApp.app, token, (created.body as RunDto).id));
     }
     const results = runs.map((run) => run.result as unknown as AnalysisResult);

@@ -8,7 +8,6 @@ import { archiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, inbox, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';
 
-const SEED = 'a5'.repeat(32);
 
 describe('the runs pipeline through the API', () => {
   let testApp: TestApp;
@@ -32,16 +31,16 @@ describe('the runs pipeline through the API', () => {
   afterAll(() => testApp.close());
 
   it('upload → queued → analysed with the setup’s profile → verdict mailed to the shift leads → signed off once', async () => {
-    const created = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, seed: SEED, acquiredOn: '2026-11-30', notes: 'Night 42' }).expect(201);
+    const created = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, acquiredOn: '2026-11-30', notes: 'Night 42' }).expect(201);
     const queued = created.body as RunDto;
-    expect(queued).toMatchObject({ state: 'queued', setupName: 'Fen link', profileName: 'Nightly standard', seed: SEED, acquiredOn: '2026-11-30', duplicateOf: null });
+    expect(queued).toMatchObject({ state: 'queued', setupName: 'Fen link', profileName: 'Nightly standard', seed: expect.stringMatching(/^[0-9a-f]{64}$/), acquiredOn: '2026-11-30', duplicateOf: null });
     expect(queued.file.sha256).toBe(require('node:crypto').createHash('sha256').update(fs.readFileSync(fixtureLog('accepted-run.csv'))).digest('hex'));
 
     const run = await waitForFinishedRun(testApp.app, tokens['sami'], queued.id);
     expect(run).toMatchObject({ state: 'accepted', verdict: 'ACCEPT', progress: 1 });
 
     // The stored result is the engine's own, exactly: the same analysis in this process agrees to the fingerprint.
-    const direct = await analyseLog({ path: fixtureLog('accepted-run.csv') }, { profile: (await testApp.services.profiles.findVersion(run.profileVersionId)).parameters, seed: SEED });
+    const direct = await analyseLog({ path: fixtureLog('accepted-run.csv') }, { profile: (await testApp.services.profiles.findVersion(run.profileVersionId)).parameters, seed: queued.seed });
     expect(run.result).toEqual(JSON.parse(JSON.stringify(direct)));
     const result = run.result as unknown as AnalysisResult;
 
@@ -69,7 +68,7 @@ describe('the runs pipeline through the API', () => {
 
   it('a shift lead of another setup cannot sign off', async () => {
     const bench = await setupId(testApp.app, tokens['dev'], 'Mill Lane bench');
-    const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: bench, profileId: 1 }).expect(201)).body as RunDto;
+    const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: bench }).expect(201)).body as RunDto;
     await waitForFinishedRun(testApp.app, tokens['dev'], created.id);
     const refused = await request(testApp.app).post(`/api/runs/${created.id}/sign-off`).set(bearer('lucia')).send({ comment: 'not mine' }).expect(403);
     expect((refused.body as ApiErrorBody).error.message).toMatch(/assigned to this run’s setup/);
@@ -102,10 +101,20 @@ describe('the runs pipeline through the API', () => {
     const first = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('drifting-run.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
     const second = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('drifting-run.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
     expect(second.duplicateOf).toBe(first.id);
+    // Uploading the same bytes again draws no new seed: no re-upload can shop for test rounds.
+    expect(second.seed).toBe(first.seed);
     expect(second.file.sha256).toBe(first.file.sha256);
     const { kept, leftovers } = await archiveContents(testApp.config);
     expect(kept.filter((sha256) => sha256 === first.file.sha256)).toHaveLength(1);
     expect(leftovers).toEqual([]);
+  });
+
+  it.each([[{ profileId: 2 }], [{ profileVersionId: 4242 }]])('refuses %j, a profile other than the setup’s, with 403 saying why, keeping nothing', async (fields) => {
+    const before = await testApp.database.models.Run.count();
+    const response = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, ...fields }).expect(403);
+    expect((response.body as ApiErrorBody).error.message).toContain('Runs on Fen link are judged under the setup’s own acceptance profile');
+    expect(await testApp.database.models.Run.count()).toBe(before);
+    expect((await archiveContents(testApp.config)).leftovers).toEqual([]);
   });
 
   it.each([
@@ -116,7 +125,6 @@ describe('the runs pipeline through the API', () => {
     [{ mapping: '{"columns": {"x": ""}}' }, 'mapping'],
     [{ mapping: '{not json' }, 'mapping'],
     [{ acquiredOn: '2026-13-40' }, 'acquiredOn'],
-    [{ profileVersionId: 4242 }, 'profileVersionId'],
     [{ colour: 'teal' }, ''],
   ])('refuses the fields %j with 400 naming the field, keeping nothing', async (fields, field) => {
     const body = { setupId: fenLink, ...fields } as Record<string, string | number>;

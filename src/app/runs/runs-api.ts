@@ -56,7 +56,6 @@ export interface RunQuery {
 export interface UploadRequest {
   log: File;
   setupId: number;
-  profileId: number;
   mapping: ColumnMapping;
   acquiredOn?: string | null;
   notes?: string | null;
@@ -86,11 +85,10 @@ export class RunsApi {
     );
   }
 
-  /** Uploads a log with its setup, profile and mapping; the events carry the upload progress. */
+  /** Uploads a log with its setup and mapping (the setup's profile judges it); the events carry the upload progress. */
   upload(request: UploadRequest): Observable<HttpEvent<RunDto>> {
     const form = new FormData();
     form.append('setupId', String(request.setupId));
-    form.append('profileId', String(request.profileId));
     form.append('mapping', JSON.stringify(request.mapping));
     if (request.acquiredOn) form.append('acquiredOn', request.acquiredOn);
     if (request.notes) form.append('notes', request.notes);

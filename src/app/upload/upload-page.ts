@@ -60,7 +60,8 @@ export class UploadPage {
 
   protected readonly form = new FormGroup({
     setupId: new FormControl<number | null>(null, Validators.required),
-    profileId: new FormControl<number | null>(null, Validators.required),
+    // Shown, never chosen: a run is judged under its setup's profile (the server refuses another).
+    profileId: new FormControl<number | null>({ value: null, disabled: true }),
     acquiredOn: new FormControl(''),
     notes: new FormControl('', Validators.maxLength(4000)),
   });
@@ -120,7 +121,7 @@ export class UploadPage {
   protected readonly count = formatCount;
 
   constructor() {
-    // A setup brings its default profile; the experimentalist may pick another.
+    // A setup brings its profile, which judges the run.
     this.form.controls.setupId.valueChanges.pipe(takeUntilDestroyed()).subscribe((setupId) => {
       const setup = this.setupList().find((candidate) => candidate.id === setupId);
       if (setup) this.form.controls.profileId.setValue(setup.defaultProfileId);
@@ -159,8 +160,8 @@ export class UploadPage {
 
   protected upload(): void {
     const file = this.file();
-    const { setupId, profileId, acquiredOn, notes } = this.form.getRawValue();
-    if (this.form.invalid || file === null || setupId === null || profileId === null || !this.preview()?.ok) {
+    const { setupId, acquiredOn, notes } = this.form.getRawValue();
+    if (this.form.invalid || file === null || setupId === null || !this.preview()?.ok) {
       this.form.markAllAsTouched();
       return;
     }
@@ -168,7 +169,7 @@ export class UploadPage {
     this.uploaded.set(0);
     this.failure.set('');
     this.runsApi
-      .upload({ log: file, setupId, profileId, mapping: this.columnMapping(), acquiredOn, notes })
+      .upload({ log: file, setupId, mapping: this.columnMapping(), acquiredOn, notes })
       .pipe(
         tap((event) => {
           if (event.type === HttpEventType.UploadProgress) this.uploaded.set(event.total ? event.loaded / event.total : 0);
