@@ -11,6 +11,7 @@ import { toAuditEventDtos } from '../audit/audit-event-dto';
 import type { LogStore } from '../storage/log-store';
 import type { RunsService } from './runs.service';
 import { discardUpload, logUpload, uploadedLog } from './upload-middleware';
+import { uploadKeys } from './upload-keys';
 
 const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
 const positiveId = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
@@ -74,10 +75,11 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: 
   const { config, runs, logStore, models, guards } = deps;
   const router = Router();
 
-  router.post('/', guards.requireRole('experimentalist'), logUpload(logStore, config.uploadLimitBytes), async (request, response) => {
+  const idempotency = uploadKeys(models.Run.sequelize!, runs);
+  router.post('/', guards.requireRole('experimentalist'), idempotency.middleware, logUpload(logStore, config.uploadLimitBytes), async (request, response) => {
     const fields = uploadFieldsSchema.safeParse(request.body ?? {});
     if (!fields.success) {
-      await discardUpload(request);
+      await Promise.all([discardUpload(request), idempotency.release(response)]);
       throw validationError(fields.error);
     }
     const file = uploadedLog(request);
@@ -86,7 +88,11 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: 
         { ...fields.data, originalName: file.originalname, log: file.received },
         request.user!.id,
       );
+      await idempotency.recordRun(response, run.id);
       response.status(201).json(run);
+    } catch (error) {
+      await idempotency.release(response);
+      throw error;
     } finally {
       await discardUpload(request);
     }

@@ -109,6 +109,29 @@ describe('the runs pipeline through the API', () => {
     expect(leftovers).toEqual([]);
   });
 
+  it('makes one run of repeated requests with one Idempotency-Key, even at the same moment', async () => {
+    const before = await testApp.database.models.Run.count();
+    const send = () => uploadLog(testApp.app, tokens['dev'], fixtureLog('aborted-low-chsh.csv'), { setupId: fenLink }).set('Idempotency-Key', 'fen-night-42-attempt-1');
+    const [first, second] = await Promise.all([send(), send()]);
+    // One claims the key and makes the run (201); the other gets that run (200) or, while the first
+    // is still being received, a 409 that says so.
+    expect([first.status, second.status].sort()).toEqual(expect.arrayContaining([201]));
+    expect([200, 201, 409]).toEqual(expect.arrayContaining([first.status, second.status]));
+    const made = (first.status === 201 ? first : second).body as RunDto;
+    const later = await send().expect(200);
+    expect((later.body as RunDto).id).toBe(made.id);
+    expect(await testApp.database.models.Run.count()).toBe(before + 1);
+    expect((await archiveContents(testApp.config)).leftovers).toEqual([]);
+  });
+
+  it('gives a key back when its upload fails, and refuses a malformed key naming the header', async () => {
+    await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, profileId: 2 }).set('Idempotency-Key', 'retry-me').expect(403);
+    const retried = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink }).set('Idempotency-Key', 'retry-me').expect(201);
+    expect((retried.body as RunDto).setupName).toBe('Fen link');
+    const refused = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink }).set('Idempotency-Key', 'with space').expect(400);
+    expect((refused.body as ApiErrorBody).error.field).toBe('Idempotency-Key');
+  });
+
   it.each([[{ profileId: 2 }], [{ profileVersionId: 4242 }]])('refuses %j, a profile other than the setup’s, with 403 saying why, keeping nothing', async (fields) => {
     const before = await testApp.database.models.Run.count();
     const response = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, ...fields }).expect(403);

@@ -57,6 +57,8 @@ export interface UploadRequest {
   log: File;
   setupId: number;
   mapping: ColumnMapping;
+  /** Names this upload attempt: a repeat of the request with the same key makes no second run. */
+  idempotencyKey: string;
   acquiredOn?: string | null;
   notes?: string | null;
 }
@@ -94,7 +96,7 @@ export class RunsApi {
     if (request.notes) form.append('notes', request.notes);
     // The file goes last: the server reads the fields before the log's bytes.
     form.append('log', request.log, request.log.name);
-    return this.http.post<RunDto>('/api/runs', form, { reportProgress: true, observe: 'events' });
+    return this.http.post<RunDto>('/api/runs', form, { reportProgress: true, observe: 'events', headers: { 'Idempotency-Key': request.idempotencyKey } });
   }
 
   /** What happened to the run, oldest first. */

@@ -160,6 +160,8 @@ export class UploadPage {
 
   protected upload(): void {
     const file = this.file();
+    // A second click before the page shows the upload must not send the log again.
+    if (this.phase() !== 'choosing') return;
     const { setupId, acquiredOn, notes } = this.form.getRawValue();
     if (this.form.invalid || file === null || setupId === null || !this.preview()?.ok) {
       this.form.markAllAsTouched();
@@ -169,7 +171,7 @@ export class UploadPage {
     this.uploaded.set(0);
     this.failure.set('');
     this.runsApi
-      .upload({ log: file, setupId, mapping: this.columnMapping(), acquiredOn, notes })
+      .upload({ log: file, setupId, mapping: this.columnMapping(), acquiredOn, notes, idempotencyKey: crypto.randomUUID() })
       .pipe(
         tap((event) => {
           if (event.type === HttpEventType.UploadProgress) this.uploaded.set(event.total ? event.loaded / event.total : 0);

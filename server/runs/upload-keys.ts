@@ -1,0 +1,77 @@
+import type { RequestHandler, Response } from 'express';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { HttpError } from '../http/http-error';
+import type { RunsService } from './runs.service';
+
+/** The request header that makes an upload idempotent (the name of the IETF HTTP draft). */
+export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
+
+/** Visible ASCII, 1 to 200 characters: room for a UUID or a client's own scheme. */
+const KEY_PATTERN = /^[\x21-\x7e]{1,200}$/;
+
+interface ClaimedKey {
+  userId: number;
+  key: string;
+  /** Set once the run exists, so the claim is kept when the response closes. */
+  runId?: number;
+}
+
+/**
+ * Idempotent uploads: with an `Idempotency-Key` header, the first request claims the key (one
+ * INSERT, so two requests at the same moment cannot both win) before any byte is read; a repeat
+ * gets the run the key made (200), or 409 while the first is still being received. A request that
+ * ends without a run gives its key back, so the client's retry can try again.
+ */
+export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
+  const claims = new WeakMap<Response, ClaimedKey>();
+
+  const middleware: RequestHandler = async (request, response, next) => {
+    const key = request.get(IDEMPOTENCY_HEADER);
+    if (key === undefined) return next();
+    if (!KEY_PATTERN.test(key)) throw HttpError.badRequest('must be 1 to 200 visible ASCII characters', IDEMPOTENCY_HEADER);
+    const userId = request.user!.id;
+    const replacements = { userId, key };
+    const claimed = await sequelize.query(
+      'INSERT INTO upload_keys (user_id, idempotency_key) VALUES (:userId, :key) ON CONFLICT DO NOTHING RETURNING user_id',
+      { replacements, type: QueryTypes.SELECT },
+    );
+    if (claimed.length === 1) {
+      claims.set(response, { userId, key });
+      // Failures before the route runs (a broken-off or too large upload) give the key back here.
+      response.on('close', () => void release(response));
+      return next();
+    }
+    request.resume(); // the repeat's bytes are not needed
+    const [existing] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE user_id = :userId AND idempotency_key = :key', {
+      replacements,
+      type: QueryTypes.SELECT,
+    });
+    if (existing?.run_id) {
+      response.status(200).json(await runs.get(existing.run_id));
+      return;
+    }
+    throw HttpError.conflict('An upload with this Idempotency-Key is still being received; ask again once it has finished.', IDEMPOTENCY_HEADER);
+  };
+
+  /** Points the response's claimed key, if any, at the run it made. */
+  async function recordRun(response: Response, runId: number): Promise<void> {
+    const claim = claims.get(response);
+    if (!claim) return;
+    claim.runId = runId;
+    await sequelize.query('UPDATE upload_keys SET run_id = :runId WHERE user_id = :userId AND idempotency_key = :key', {
+      replacements: { runId, userId: claim.userId, key: claim.key },
+    });
+  }
+
+  /** Gives the response's claimed key back unless it made a run, so a retry can use it. */
+  async function release(response: Response): Promise<void> {
+    const claim = claims.get(response);
+    if (!claim || claim.runId !== undefined) return;
+    claims.delete(response);
+    await sequelize.query('DELETE FROM upload_keys WHERE user_id = :userId AND idempotency_key = :key AND run_id IS NULL', {
+      replacements: { userId: claim.userId, key: claim.key },
+    });
+  }
+
+  return { middleware, recordRun, release };
+}
