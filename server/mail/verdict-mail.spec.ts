@@ -1,25 +1,13 @@
-import { DEMO_PROFILES } from '../../seeders/data/demo-lab';
-import { analyseLog } from '../../shared/analysis/node';
-import type { AnalysisProfileInput } from '../../shared/analysis/profile';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { STATE_OF_VERDICT, type RunDto } from '../../shared/api';
 import { formatCount, formatScientific } from '../../shared/format/numbers';
-import { fixture, SEED } from '../../tests/cli/run-analyse';
+import { SEED } from '../../tests/cli/run-analyse';
+import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '../../tests/support/fixture-results';
 import { COLLECTIVE_ATTACK_CAUTION, KEY_CAUTION } from '../reports/attack-model-words';
 import { composeVerdictMail } from './verdict-mail';
 
-const NIGHTLY = DEMO_PROFILES.find((profile) => profile.name === 'Nightly standard')!;
 
-/** A profile judged under the general-attack model (round-by-round testing, soundness 1e-10). */
-const GENERAL_PROFILE: AnalysisProfileInput = {
-  testSelection: { mode: 'bernoulli', probability: 0.5 },
-  securityModel: 'general',
-  generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } },
-};
-
-async function analysed(log: string, profile: AnalysisProfileInput = NIGHTLY.parameters): Promise<AnalysisResult> {
-  return analyseLog({ path: fixture(log) }, { profile, seed: SEED });
-}
+const analysed = analysedFixture;
 
 /** Run 418 of the Fen link, finished with this result. */
 function finishedRun(result: AnalysisResult): RunDto {

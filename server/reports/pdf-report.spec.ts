@@ -1,14 +1,13 @@
 import crypto from 'node:crypto';
 import PDFDocument from 'pdfkit';
-import { DEMO_PROFILES, DEMO_SETUPS } from '../../seeders/data/demo-lab';
+import { DEMO_SETUPS } from '../../seeders/data/demo-lab';
 import { formatPValue } from '../../shared/format/numbers';
-import { analyseLog } from '../../shared/analysis/node';
-import type { AnalysisProfileInput } from '../../shared/analysis/profile';
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
 import { RUN_REPORT_FORMAT, type RunReportDto } from '../../shared/api';
 import { formatCount, formatScientific } from '../../shared/format/numbers';
-import { fixture, SEED } from '../../tests/cli/run-analyse';
+import { SEED } from '../../tests/cli/run-analyse';
+import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '../../tests/support/fixture-results';
 import { signStatement } from '../integrity/signed-statement';
 import { signingKeyFromPem } from '../integrity/signing-key';
 import { pdfFonts, pdfFontsEmbedded, pdfText } from '../../tests/support/pdf-text';
@@ -18,22 +17,12 @@ import { createPdfReport } from './pdf-report';
 
 jest.setTimeout(60_000);
 
-const NIGHTLY = DEMO_PROFILES.find((profile) => profile.name === 'Nightly standard')!;
 const FEN_LINK = DEMO_SETUPS[0];
 const RUN_ID = 418;
 const SIGNED_OFF_AT = '2025-03-14T07:10:00.000Z';
 const SIGN_OFF_COMMENT = 'Steady night after the realignment; key kept for the relay test.';
 
-/** A profile judged under the general-attack model (round-by-round testing, soundness 1e-10). */
-const GENERAL_PROFILE: AnalysisProfileInput = {
-  testSelection: { mode: 'bernoulli', probability: 0.5 },
-  securityModel: 'general',
-  generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } },
-};
-
-async function analysed(log: string, profile: AnalysisProfileInput = NIGHTLY.parameters): Promise<AnalysisResult> {
-  return analyseLog({ path: fixture(log) }, { profile, seed: SEED });
-}
+const analysed = analysedFixture;
 
 /** A report of the Fen link's night run, signed with a fresh Ed25519 key and signed off. */
 function signedReport(result: AnalysisResult): RunReportDto {
