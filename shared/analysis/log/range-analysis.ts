@@ -94,7 +94,7 @@ export class RangeAnalysis {
    */
   accept(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[]): void {
     const valid = this.checker.accept(line, values, fieldCount, rawFields);
-    this.index++;
+    const index = this.index++;
     this.records++;
     if (!valid) {
       return;
@@ -111,7 +111,7 @@ export class RangeAnalysis {
     const isTest = this.selector.next(decoded[TEST]);
     this.validRecords++;
     this.testRounds += isTest ? 1 : 0;
-    this.tally.add(this.index - 1, round, decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
+    this.tally.add(index, round, decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
   }
 
   /** One record whose quoting could not be read. */
