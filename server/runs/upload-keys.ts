@@ -1,10 +1,18 @@
-import type { RequestHandler, Response } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { HttpError } from '../http/http-error';
 import type { RunsService } from './runs.service';
 
 /** The request header that makes an upload idempotent (the name of the IETF HTTP draft). */
 export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
+
+/** Reads and drops the rest of a request's body, so an early answer reaches a client still sending. */
+function drained(request: Request): Promise<void> {
+  return new Promise((resolve) => {
+    if (request.readableEnded) return resolve();
+    request.once('end', resolve).once('close', resolve).resume();
+  });
+}
 
 /** Visible ASCII, 1 to 200 characters: room for a UUID or a client's own scheme. */
 const KEY_PATTERN = /^[\x21-\x7e]{1,200}$/;
@@ -28,7 +36,10 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
   const middleware: RequestHandler = async (request, response, next) => {
     const key = request.get(IDEMPOTENCY_HEADER);
     if (key === undefined) return next();
-    if (!KEY_PATTERN.test(key)) throw HttpError.badRequest('must be 1 to 200 visible ASCII characters', IDEMPOTENCY_HEADER);
+    if (!KEY_PATTERN.test(key)) {
+      await drained(request);
+      throw HttpError.badRequest('must be 1 to 200 visible ASCII characters', IDEMPOTENCY_HEADER);
+    }
     const userId = request.user!.id;
     const replacements = { userId, key };
     const claimed = await sequelize.query(
@@ -41,7 +52,7 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
       response.on('close', () => void release(response));
       return next();
     }
-    request.resume(); // the repeat's bytes are not needed
+    await drained(request); // the repeat's bytes are not needed, but a client still sending them must not see a broken pipe
     const [existing] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE user_id = :userId AND idempotency_key = :key', {
       replacements,
       type: QueryTypes.SELECT,
