@@ -4,7 +4,7 @@ import type { Config } from './config/config';
 import { bootstrapDatabase, type BootstrapReport } from './database/bootstrap';
 import { openDatabase } from './database/sequelize';
 import { createMailer } from './mail/mailer';
-import { createWelcomeMail } from './mail/welcome-mail';
+import { createAppMail } from './mail/app-mail';
 import { startAnalysisQueue } from './queue/analysis-queue';
 import { createServices } from './services';
 
@@ -42,7 +42,7 @@ export async function startApiServer(config: Config, connections: ApiConnections
     const queue = await startAnalysisQueue(connections.databaseUrl, database.sequelize, config.queue);
     undo.push(() => queue.stop());
     const services = createServices(config, database, queue);
-    const app = createApp({ config, database, services, jwtSecret, welcomeMail: createWelcomeMail(mailer, config.publicUrl) });
+    const app = createApp({ config, database, services, jwtSecret, appMail: createAppMail(mailer, config.publicUrl) });
     const server = app.listen(config.port, config.host);
     await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
     undo.push(() => new Promise<void>((resolve) => server.close(() => resolve())));

@@ -4,18 +4,23 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { auditRoutes } from './audit/audit.routes';
 import { authRoutes } from './auth/auth.routes';
+import { bookingsRoutes } from './bookings/bookings.routes';
 import { createGuards } from './auth/passport';
+import { RESUMABLE_UPLOAD_PATH } from '../shared/api';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { runIntegrityRoutes } from './integrity/integrity.routes';
 import { signingKeysRoutes } from './integrity/signing-keys.routes';
-import type { WelcomeMail } from './mail/welcome-mail';
+import type { AppMail } from './mail/app-mail';
 import { plannerRoutes } from './planner/planner.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
+import { resumableUploads } from './runs/resumable-uploads';
 import { runsRoutes } from './runs/runs.routes';
 import type { Services } from './services';
 import { setupsRoutes } from './setups/setups.routes';
+import { uploaderGuard } from './upload-tokens/uploader-guard';
+import { uploadTokensRoutes } from './upload-tokens/upload-tokens.routes';
 import { usersRoutes } from './users/users.routes';
 
 export interface AppDependencies {
@@ -23,14 +28,14 @@ export interface AppDependencies {
   database: Database;
   services: Services;
   jwtSecret: string;
-  welcomeMail: WelcomeMail;
+  appMail: AppMail;
 }
 
 /**
  * Builds the Express app: configuration, middleware, one router per resource, the built Angular
  * app, and the one error handler last. It does not listen: start.ts does, tests use supertest.
  */
-export function createApp({ config, database, services, jwtSecret, welcomeMail }: AppDependencies): Express {
+export function createApp({ config, database, services, jwtSecret, appMail }: AppDependencies): Express {
   const app = express();
   const guards = createGuards(jwtSecret, services.users);
 
@@ -44,14 +49,21 @@ export function createApp({ config, database, services, jwtSecret, welcomeMail }
     response.json({ status: 'ok' });
   });
   app.use('/api/auth', authRoutes(config, jwtSecret, services.users, guards));
-  app.use('/api/users', usersRoutes(services.users, guards, welcomeMail));
+  app.use('/api/users', usersRoutes(services.users, guards, appMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));
+  const uploader = uploaderGuard(guards, services.uploadTokens);
+  app.use('/api/setups/:id/upload-tokens', uploadTokensRoutes({ tokens: services.uploadTokens, guards }));
   app.use('/api/setups', setupsRoutes(services.setups, guards));
+  app.use('/api/bookings', bookingsRoutes({ bookings: services.bookings, setups: services.setups, appMail, guards }));
   app.use('/api/planner', plannerRoutes({ models: database.models, setups: services.setups, profiles: services.profiles, guards }));
   app.use('/api/signing-keys', signingKeysRoutes(services.signingKeys));
   app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
   app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));
-  app.use('/api/runs', runsRoutes({ config, runs: services.runs, logStore: services.logStore, models: database.models, guards }));
+  app.use('/api/runs', runsRoutes({ config, runs: services.runs, logStore: services.logStore, models: database.models, guards, uploader }));
+  app.use(
+    RESUMABLE_UPLOAD_PATH,
+    resumableUploads({ sequelize: database.sequelize, runs: services.runs, logStore: services.logStore, uploader, dataDir: config.dataDir, limitBytes: config.uploadLimitBytes }),
+  );
   app.use('/api', apiNotFound);
 
   serveBuiltApp(app, config.appDir);

@@ -1,4 +1,5 @@
 import { createAuditTrail, type AuditTrail } from './audit/audit-trail';
+import { createBookingsService, type BookingsService } from './bookings/bookings.service';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { resolveSigningKey } from './integrity/signing-key';
@@ -11,6 +12,7 @@ import { createRunsService, type RunsService } from './runs/runs.service';
 import { createSetupsService, type SetupsService } from './setups/setups.service';
 import { createLogStore } from './storage/create-log-store';
 import type { LogStore } from './storage/log-store';
+import { createUploadTokensService, type UploadTokensService } from './upload-tokens/upload-tokens.service';
 import { createUsersService, type UsersService } from './users/users.service';
 
 export interface Services {
@@ -19,6 +21,8 @@ export interface Services {
   users: UsersService;
   profiles: ProfilesService;
   setups: SetupsService;
+  bookings: BookingsService;
+  uploadTokens: UploadTokensService;
   runs: RunsService;
   signingKeys: SigningKeysService;
   verification: VerificationService;
@@ -33,9 +37,11 @@ export function createServices(config: Config, database: Database, queue: Analys
   const users = createUsersService(models.User, config.bcryptRounds, audit);
   const profiles = createProfilesService(sequelize, models, audit);
   const setups = createSetupsService(sequelize, models, audit);
-  const runs = createRunsService({ sequelize, models, logStore, queue, profiles, setups, audit });
+  const bookings = createBookingsService({ models, profiles, setups, audit });
+  const uploadTokens = createUploadTokensService(models, setups, audit);
+  const runs = createRunsService({ sequelize, models, logStore, queue, profiles, setups, bookings, audit });
   const signingKeys = createSigningKeysService(sequelize, models, audit, resolveSigningKey(config.signingKey, config.dataDir));
   const verification = createVerificationService(models, logStore, signingKeys);
   const reverifications = createReverificationsService({ sequelize, models, queue, audit });
-  return { audit, logStore, users, profiles, setups, runs, signingKeys, verification, reverifications };
+  return { audit, logStore, users, profiles, setups, bookings, uploadTokens, runs, signingKeys, verification, reverifications };
 }

@@ -1,6 +1,7 @@
 import crypto from 'node:crypto';
 import { analyseLog, resultFingerprint } from '../../shared/analysis/node';
 import { RUN_REPORT_FORMAT, type RunReportDto } from '../../shared/api';
+import { seedCommitment } from '../bookings/seed-commitment';
 import { resultDifferences } from '../integrity/result-differences';
 import { signatureProblem } from '../integrity/signed-statement';
 import { signingKeyId } from '../integrity/signing-key';
@@ -62,6 +63,21 @@ export function reportSignatureChecks(report: RunReportDto, pinnedPublicKeyPem?:
     checks.push({ passed: true, text: `Signing key ${signature.keyId}: compare it with the server's published keys (GET /api/signing-keys), or pin one with --public-key.` });
   }
   return checks;
+}
+
+/**
+ * The seed against the booking's commitment, published before acquisition: SHA-256 of the seed's
+ * hex characters must equal it, or the seed was not the one drawn at booking.
+ */
+export function seedCommitmentCheck(report: RunReportDto): ReportCheck {
+  const booking = report.run.booking;
+  if (!booking) {
+    return { passed: true, text: 'Unbooked run: its seed was drawn at upload, after the data existed, so there is no commitment to check it against.' };
+  }
+  const found = seedCommitment(report.seed);
+  return found === booking.seedCommitment
+    ? { passed: true, text: `The seed matches booking ${booking.bookingId}'s commitment ${booking.seedCommitment}, published before acquisition.` }
+    : { passed: false, text: `The seed hashes to ${found}, not to booking ${booking.bookingId}'s commitment ${booking.seedCommitment}: it is not the seed drawn at booking.` };
 }
 
 /** The log against the report: same bytes, and the same result re-derived with the report's profile, mapping and seed. */

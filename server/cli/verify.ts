@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import type { RunReportDto } from '../../shared/api';
-import { rederivationChecks, reportProblem, reportSignatureChecks, type ReportCheck } from './report-checks';
+import { rederivationChecks, reportProblem, reportSignatureChecks, seedCommitmentCheck, type ReportCheck } from './report-checks';
 
 const USAGE = 'usage: npm run --silent verify -- <exported-report.json> <log> [--public-key <key.pem>]';
 /** Exit codes: 0 everything matches, 1 a check failed, 2 a usage or read error. */
@@ -34,7 +34,7 @@ async function readText(file: string, what: string): Promise<string> {
 /**
  * `verify`: checks an exported run report offline, with nothing but the report and the log: the
  * result against its fingerprint, the signature against the report's public key (or a pinned
- * one), and the result re-derived from the log with the report's profile, mapping and seed.
+ * one), the seed against its booking's commitment, and the result re-derived from the log with the report's profile, mapping and seed.
  */
 async function main(): Promise<number> {
   const args = parseArguments(process.argv.slice(2));
@@ -50,7 +50,7 @@ async function main(): Promise<number> {
   const report = parsed as RunReportDto;
   const pinned = args.publicKey === undefined ? undefined : await readText(args.publicKey, 'public key');
 
-  const checks: ReportCheck[] = [...reportSignatureChecks(report, pinned), ...(await rederivationChecks(report, args.log))];
+  const checks: ReportCheck[] = [...reportSignatureChecks(report, pinned), seedCommitmentCheck(report), ...(await rederivationChecks(report, args.log))];
   for (const check of checks) process.stdout.write(`${check.passed ? '✓' : '✗'} ${check.text}\n`);
   const failed = checks.filter((check) => !check.passed).length;
   process.stdout.write(failed === 0 ? `Run ${report.run.id}: everything matches.\n` : `Run ${report.run.id}: ${failed} check(s) failed.\n`);

@@ -1,14 +1,18 @@
 import type { ModelStatic, Sequelize } from 'sequelize';
 import { defineAuditEventModel, type AuditEventRecord } from '../audit/audit-event.model';
+import { defineBookingModel, type BookingRecord } from '../bookings/booking.model';
 import { defineIntegrityModels, type IntegrityModels } from '../integrity/integrity.model';
 import { defineProfileModels, type ProfileModels } from '../profiles/profile.model';
 import { defineRunModels, type RunModels } from '../runs/run.model';
 import { defineSetupModels, type SetupModels } from '../setups/setup.model';
+import { defineUploadTokenModel, type UploadTokenRecord } from '../upload-tokens/upload-token.model';
 import { defineUserModel, type UserModelStatic } from '../users/user.model';
 
 export interface Models extends ProfileModels, SetupModels, RunModels, IntegrityModels {
   User: UserModelStatic;
   AuditEvent: ModelStatic<AuditEventRecord>;
+  Booking: ModelStatic<BookingRecord>;
+  UploadToken: ModelStatic<UploadTokenRecord>;
 }
 
 /** Every Sequelize model of the app, defined in one place. */
@@ -16,6 +20,8 @@ export function defineModels(sequelize: Sequelize): Models {
   return {
     User: defineUserModel(sequelize),
     AuditEvent: defineAuditEventModel(sequelize),
+    Booking: defineBookingModel(sequelize),
+    UploadToken: defineUploadTokenModel(sequelize),
     ...defineProfileModels(sequelize),
     ...defineSetupModels(sequelize),
     ...defineRunModels(sequelize),

@@ -12,6 +12,8 @@ export class ReverificationRecord extends Model<InferAttributes<ReverificationRe
   declare id: CreationOptional<number>;
   declare runId: number;
   declare requestedBy: number;
+  /** Another seed than the run's: an admin's re-analysis, which never replaces the verdict. */
+  declare seed: CreationOptional<string | null>;
   declare state: CreationOptional<ReverificationState>;
   declare storedFingerprint: string;
   declare storedEngineVersion: string;
@@ -50,6 +52,7 @@ export function defineIntegrityModels(sequelize: Sequelize): IntegrityModels {
       id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
       runId: { type: DataTypes.INTEGER, allowNull: false, field: 'run_id' },
       requestedBy: { type: DataTypes.INTEGER, allowNull: false, field: 'requested_by' },
+      seed: { type: DataTypes.CHAR(64) },
       state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'queued' },
       storedFingerprint: { type: DataTypes.CHAR(64), allowNull: false, field: 'stored_fingerprint' },
       storedEngineVersion: { type: DataTypes.STRING(32), allowNull: false, field: 'stored_engine_version' },

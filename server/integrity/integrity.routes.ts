@@ -7,6 +7,7 @@ import type { AuditTrail } from '../audit/audit-trail';
 import type { Guards } from '../auth/passport';
 import { HttpError } from '../http/http-error';
 import { idParameter } from '../http/id-parameter';
+import { validateBody } from '../http/validate-body';
 import { blocksCsv, countsCsv } from '../reports/run-csv';
 import { buildRunReport, type RunReportDeps } from '../reports/run-report';
 import type { ReverificationsService } from './reverifications.service';
@@ -21,6 +22,10 @@ const EXPORT_FILE: Record<ExportFormat, (runId: number) => string> = {
   'counts.csv': (runId) => `bellkeep-run-${runId}-counts.csv`,
   'blocks.csv': (runId) => `bellkeep-run-${runId}-blocks.csv`,
 };
+
+const reverificationSchema = z.strictObject({
+  seed: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits').optional(),
+});
 
 /**
  * `/api/runs/:id/...` for auditing: the integrity check, re-verifications (auditors and admins
@@ -38,8 +43,12 @@ export function runIntegrityRoutes(deps: RunReportDeps & { verification: Verific
     response.json(await reverifications.list(idParameter(request, 'run')));
   });
 
-  router.post('/:id/reverifications', guards.requireRole('auditor', 'admin'), async (request, response) => {
-    response.status(201).json(await reverifications.request(idParameter(request, 'run'), request.user!.id));
+  router.post('/:id/reverifications', guards.requireRole('auditor', 'admin'), validateBody(reverificationSchema), async (request, response) => {
+    const { seed } = request.body as z.infer<typeof reverificationSchema>;
+    if (seed !== undefined && !request.user!.roles.includes('admin')) {
+      throw HttpError.forbidden('Only an admin re-analyses a log with another seed; an auditor re-verifies it as recorded.');
+    }
+    response.status(201).json(await reverifications.request(idParameter(request, 'run'), request.user!.id, seed?.toLowerCase()));
   });
 
   router.get('/:id/export/:format', guards.requireSignIn, async (request, response) => {

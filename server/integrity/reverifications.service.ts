@@ -7,8 +7,11 @@ import type { AnalysisQueue } from '../queue/analysis-queue';
 import type { ReverificationRecord } from './integrity.model';
 
 export interface ReverificationsService {
-  /** Queues a re-analysis of a run's archived file; the original result is never touched. */
-  request(runId: number, actorId: number): Promise<ReverificationDto>;
+  /**
+   * Queues a re-analysis of a run's archived file, as recorded or (an admin's) with another seed;
+   * the original result and verdict are never touched.
+   */
+  request(runId: number, actorId: number, seed?: string): Promise<ReverificationDto>;
   /** A run's re-verifications, newest first. */
   list(runId: number): Promise<ReverificationDto[]>;
 }
@@ -22,6 +25,7 @@ export function createReverificationsService(deps: { sequelize: Sequelize; model
       id: record.id,
       runId: record.runId,
       requestedBy: people.find((person) => person.id === record.requestedBy)?.name ?? '',
+      seed: record.seed ?? null,
       state: record.state,
       storedFingerprint: record.storedFingerprint,
       storedEngineVersion: record.storedEngineVersion,
@@ -36,7 +40,7 @@ export function createReverificationsService(deps: { sequelize: Sequelize; model
   }
 
   return {
-    async request(runId, actorId) {
+    async request(runId, actorId, seed) {
       const id = await sequelize.transaction(async (transaction) => {
         const run = await models.Run.findByPk(runId, { transaction });
         if (!run) throw HttpError.notFound(`There is no run with id ${runId}.`);
@@ -44,10 +48,10 @@ export function createReverificationsService(deps: { sequelize: Sequelize; model
           throw HttpError.conflict(`Run ${runId} is ${run.state}: only a run with a stored result can be re-verified.`);
         }
         const record = await models.Reverification.create(
-          { runId, requestedBy: actorId, storedFingerprint: String(run.result['fingerprint']), storedEngineVersion: String(run.result['engineVersion']) },
+          { runId, requestedBy: actorId, seed: seed ?? null, storedFingerprint: String(run.result['fingerprint']), storedEngineVersion: String(run.result['engineVersion']) },
           { transaction },
         );
-        await audit.record({ actorId, action: 'run.reverification-requested', targetType: 'run', targetId: runId, details: { reverificationId: record.id } }, transaction);
+        await audit.record({ actorId, action: 'run.reverification-requested', targetType: 'run', targetId: runId, details: { reverificationId: record.id, ...(seed ? { seed } : {}) } }, transaction);
         await queue.enqueueReverification(record.id, transaction);
         return record.id;
       });

@@ -3,6 +3,7 @@ import type { AnalysisResult } from '../../shared/analysis/result';
 import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
 import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
 import type { RunDto } from '../../shared/api';
+import { bookingWords } from '../../shared/format/booking-words';
 import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '../../shared/format/numbers';
 import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words';
 import { missingRoundsWords } from '../reports/missing-rounds-words';
@@ -13,21 +14,25 @@ import type { OutgoingMail } from './mailer';
 const VERDICT_WORDS = { ACCEPT: 'ACCEPT: the key may be kept', ABORT: 'ABORT: no key may be kept', INVALID: 'INVALID: the log could not be analysed' } as const;
 
 /**
- * The verdict mail of a finished run: subject with verdict, setup and run number; the reasons for
- * an abort; the key figures with their bounds, the missing rounds when any, the key figure's total
+ * The verdict mail of a finished run: subject with verdict, setup and run number (and the attempt
+ * or "unbooked"); booked or unbooked with the attempts; the uploader's notes; the reasons for an abort; the key figures with their bounds, the missing rounds when any, the key figure's total
  * ε and attack model, and the caution of each model shown; the checks that failed or warned; a
- * link to the run's page.
+ * link straight to the run's sign-off.
  */
 export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: string[]): OutgoingMail & { html: string } {
   const result = run.result as unknown as AnalysisResult;
   const verdict = result.verdict;
   const messagesOf = (status: CheckResult['status']) => result.checks.filter((check) => check.status === status).map((check) => check.message);
+  const booking = bookingWords(run);
+  const attempt = run.booking && run.booking.attempt > 1 ? ` · attempt ${run.booking.attempt}` : run.booking ? '' : ' · unbooked';
   const blocks: MailBlock[] = [
     {
       kind: 'lead',
       headline: `Run ${run.id} on ${run.setupName}: ${VERDICT_WORDS[verdict]}.`,
       detail: `Acquired ${run.acquiredOn ?? 'on an unrecorded date'}; profile ${run.profileName} v${run.profileVersion}; uploaded by ${run.uploadedBy}.`,
     },
+    ...listUnlessEmpty(`${booking.state}:`, [booking.headline, ...booking.details]),
+    ...(run.notes.trim() ? [{ kind: 'paragraph', text: `Uploader’s notes: ${run.notes.trim()}` } as const] : []),
     ...listUnlessEmpty('Reasons:', result.reasons),
     ...listUnlessEmpty('Figures:', figureLines(result), result.key ? keyCautions(result.key) : []),
     ...listUnlessEmpty('Checks that failed:', messagesOf('fail')),
@@ -35,11 +40,11 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
     ...(verdict === 'INVALID'
       ? [{ kind: 'paragraph', text: `The log has ${formatCount(result.errorCount)} problem(s); the first: ${result.errors[0]?.message ?? 'see the run page'}` } as const]
       : []),
-    { kind: 'link', text: 'Open the run and sign it off', label: `Open run ${run.id} and sign it off`, url: `${publicUrl}/runs/${run.id}` },
+    { kind: 'link', text: 'Sign it off', label: `Sign off run ${run.id}`, url: `${publicUrl}/runs/${run.id}#sign-off` },
   ];
   return {
     to: recipients.join(', '),
-    subject: `[Bellkeep] ${verdict} · ${run.setupName} · run ${run.id}`,
+    subject: `[Bellkeep] ${verdict} · ${run.setupName} · run ${run.id}${attempt}`,
     text: mailText(blocks),
     html: mailHtml(blocks),
   };

@@ -1,4 +1,5 @@
 import type { RunReportDto } from '../../shared/api';
+import { bookingWords } from '../../shared/format/booking-words';
 import { fields, textColumn, useType } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
 import { TONE, TYPE } from './pdf-style';
@@ -7,6 +8,7 @@ import { TONE, TYPE } from './pdf-style';
 export function writeHeader(doc: PDFKit.PDFDocument, report: RunReportDto): void {
   const { left, width } = textColumn(doc);
   const { run } = report;
+  const booking = bookingWords({ id: run.id, booking: run.booking ?? null, replayOf: run.replayOf ?? null });
   const top = doc.y;
   drawMark(doc, left, top + 3);
   useType(doc, 'bold', TYPE.title, TONE.text).text('Bellkeep run report', left + 34, top, { width: width - 34, lineBreak: false });
@@ -18,6 +20,7 @@ export function writeHeader(doc: PDFKit.PDFDocument, report: RunReportDto): void
     { label: 'Acquired', value: run.acquiredOn ?? 'not recorded' },
     { label: 'Uploaded by', value: `${run.uploadedBy}, ${formatInstant(run.createdAt)}` },
     { label: 'File name', value: run.originalName },
+    { label: booking.state, value: [booking.headline, ...booking.details].join(' ') },
     ...(run.notes.trim() === '' ? [] : [{ label: 'Notes', value: run.notes.trim() }]),
   ]);
 }

@@ -288,7 +288,7 @@ describe('the PDF report of a run', () => {
         {
           id: 7,
           runId: RUN_ID,
-          requestedBy: 'Sami Virtanen',
+          requestedBy: 'Sami Virtanen', seed: null,
           state: 'differs',
           storedFingerprint: accepted.fingerprint,
           storedEngineVersion: accepted.engineVersion,

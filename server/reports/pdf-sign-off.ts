@@ -34,6 +34,7 @@ function writeReverification(doc: PDFKit.PDFDocument, reverification: Reverifica
   const rows: Field[] = [
     { label: `Re-verification ${reverification.id}`, value: REVERIFICATION_STATE[reverification.state] },
     { label: 'Asked for', value: `${formatInstant(reverification.createdAt)} by ${reverification.requestedBy}; finished ${formatInstant(reverification.finishedAt)}` },
+    ...(reverification.seed ? [{ label: 'Another seed', value: `${reverification.seed}: a fresh draw of test rounds by an admin; it never replaces the verdict`, mono: true }] : []),
     { label: 'Engine versions', value: `stored ${reverification.storedEngineVersion}, re-analysed ${reverification.newEngineVersion ?? '–'}` },
     { label: 'Stored fingerprint', value: reverification.storedFingerprint, mono: true },
     { label: 'New fingerprint', value: reverification.newFingerprint ?? '–', mono: true },

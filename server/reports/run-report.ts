@@ -42,6 +42,8 @@ export async function buildRunReport(runId: number, exportedBy: string, deps: Ru
       state: run.state,
       verdict: run.verdict,
       duplicateOf: run.duplicateOf,
+      booking: run.booking,
+      replayOf: run.replayOf,
     },
     profile: { profileId: version.profileId, versionId: version.id, name: run.profileName, version: version.version, parameters: version.parameters },
     mapping: run.mapping,

@@ -24,6 +24,9 @@ export interface RunRow {
   created_at: Date;
   finished_at: Date | null;
   duplicate_of: number | null;
+  booking_id: number | null;
+  attempt: number | null;
+  replay_of: number | null;
   signed_off: boolean;
   file_sha256: string;
   fingerprint: string | null;
@@ -51,6 +54,9 @@ export function toRunSummary(row: RunRow): RunSummaryDto {
     createdAt: row.created_at.toISOString(),
     finishedAt: row.finished_at?.toISOString() ?? null,
     duplicateOf: row.duplicate_of,
+    bookingId: row.booking_id,
+    attempt: row.attempt,
+    replayOf: row.replay_of,
     signedOff: row.signed_off,
     fileSha256: row.file_sha256,
     fingerprint: row.fingerprint,
@@ -70,6 +76,7 @@ export interface RunDetails {
   signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
   deliveries: MailDeliveryDto[];
+  booking: RunDto['booking'];
 }
 
 export function toRunDto(row: RunRow, details: RunDetails): RunDto {

@@ -8,7 +8,14 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
   declare fileSha256: string;
   declare originalName: CreationOptional<string>;
   declare duplicateOf: number | null;
-  declare uploadedBy: number;
+  /** The person who uploaded; null when an upload token did. */
+  declare uploadedBy: number | null;
+  declare uploadTokenId: CreationOptional<number | null>;
+  declare bookingId: CreationOptional<number | null>;
+  /** Attempt k of the booking; null when unbooked. */
+  declare attempt: CreationOptional<number | null>;
+  declare replacementReason: CreationOptional<string | null>;
+  declare replayOf: CreationOptional<number | null>;
   declare acquiredOn: string | null;
   declare notes: CreationOptional<string>;
   declare mapping: Record<string, unknown> | null;
@@ -71,7 +78,12 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
       fileSha256: { type: DataTypes.CHAR(64), allowNull: false, field: 'file_sha256' },
       originalName: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '', field: 'original_name' },
       duplicateOf: { type: DataTypes.INTEGER, field: 'duplicate_of' },
-      uploadedBy: { type: DataTypes.INTEGER, allowNull: false, field: 'uploaded_by' },
+      uploadedBy: { type: DataTypes.INTEGER, field: 'uploaded_by' },
+      uploadTokenId: { type: DataTypes.INTEGER, field: 'upload_token_id' },
+      bookingId: { type: DataTypes.INTEGER, field: 'booking_id' },
+      attempt: { type: DataTypes.INTEGER },
+      replacementReason: { type: DataTypes.TEXT, field: 'replacement_reason' },
+      replayOf: { type: DataTypes.INTEGER, field: 'replay_of' },
       acquiredOn: { type: DataTypes.DATEONLY, field: 'acquired_on' },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       mapping: { type: DataTypes.JSONB },

@@ -1,6 +1,5 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
 import { RUN_SEARCH_MIN_PREFIX, RUN_SORT_KEYS, RUN_STATES, VERDICTS } from '../../shared/api';
 import type { Guards } from '../auth/passport';
 import type { Config } from '../config/config';
@@ -11,45 +10,13 @@ import { toAuditEventDtos } from '../audit/audit-event-dto';
 import type { LogStore } from '../storage/log-store';
 import type { RunsService } from './runs.service';
 import { discardUpload, logUpload, uploadedLog } from './upload-middleware';
+import { isoDate, positiveId, uploadFieldsSchema } from './upload-fields';
 import { uploadKeys } from './upload-keys';
-
-const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
-const positiveId = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
 
 const hexPrefix = z
   .string()
   .regex(new RegExp(`^[0-9a-fA-F]{${RUN_SEARCH_MIN_PREFIX},64}$`), `must be ${RUN_SEARCH_MIN_PREFIX} to 64 hexadecimal digits`)
   .transform((hex) => hex.toLowerCase());
-
-const uploadFieldsSchema = z.strictObject({
-  setupId: positiveId('a setup'),
-  profileId: positiveId('a profile').optional(),
-  profileVersionId: positiveId('a profile version').optional(),
-  mapping: z
-    .string()
-    .optional()
-    .transform((text, context) => {
-      if (text === undefined || text.trim() === '') return undefined;
-      let value: unknown;
-      try {
-        value = JSON.parse(text);
-      } catch {
-        context.addIssue({ code: 'custom', message: 'is not valid JSON' });
-        return z.NEVER;
-      }
-      const parsed = parseColumnMapping(value);
-      if (!parsed.ok) {
-        context.addIssue({ code: 'custom', message: parsed.message });
-        return z.NEVER;
-      }
-      return parsed.mapping as unknown as Record<string, unknown>;
-    }),
-  // Refused with its own message, not as an unknown field: whoever could choose the seed could draw
-  // seeds until one passes.
-  seed: z.never({ error: 'is drawn by the server, never by the uploader: whoever chooses the seed chooses the test rounds' }).optional(),
-  acquiredOn: isoDate.optional(),
-  notes: z.string().max(4000, 'must be at most 4000 characters').optional(),
-});
 
 const listQuerySchema = z.strictObject({
   page: z.coerce.number().int().min(0).default(0),
@@ -70,13 +37,13 @@ const listQuerySchema = z.strictObject({
 
 const signOffSchema = z.strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) });
 
-/** `/api/runs`: experimentalists upload; everyone signed in reads; shift leads sign off. */
-export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: LogStore; models: Models; guards: Guards }): Router {
-  const { config, runs, logStore, models, guards } = deps;
+/** `/api/runs`: experimentalists and upload tokens upload; everyone signed in reads; shift leads sign off. */
+export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: LogStore; models: Models; guards: Guards; uploader: RequestHandler }): Router {
+  const { config, runs, logStore, models, guards, uploader } = deps;
   const router = Router();
 
   const idempotency = uploadKeys(models.Run.sequelize!, runs);
-  router.post('/', guards.requireRole('experimentalist'), idempotency.middleware, logUpload(logStore, config.uploadLimitBytes), async (request, response) => {
+  router.post('/', uploader, idempotency.middleware, logUpload(logStore, config.uploadLimitBytes), async (request, response) => {
     const fields = uploadFieldsSchema.safeParse(request.body ?? {});
     if (!fields.success) {
       await Promise.all([discardUpload(request), idempotency.release(response)]);
@@ -86,7 +53,7 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: 
     try {
       const run = await runs.create(
         { ...fields.data, originalName: file.originalname, log: file.received },
-        request.user!.id,
+        request.uploader!,
       );
       await idempotency.recordRun(response, run.id);
       response.status(201).json(run);

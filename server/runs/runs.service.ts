@@ -1,7 +1,9 @@
-import crypto from 'node:crypto';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SignOffDto, type Verdict } from '../../shared/api';
+import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SetupDto, type SignOffDto, type Verdict } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
+import type { BookingRecord } from '../bookings/booking.model';
+import type { BookingsService } from '../bookings/bookings.service';
+import { drawSeed } from '../bookings/seed-commitment';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
 import type { AnalysisQueue } from '../queue/analysis-queue';
@@ -10,6 +12,8 @@ import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';
 import type { LogStore, ReceivedLog } from '../storage/log-store';
 import { storedSignature } from '../integrity/stored-signature';
+import { uploaderInTrail, type Uploader } from '../upload-tokens/uploader';
+import type { RunRecord } from './run.model';
 import { toRunDto, toRunSummary, type RunRow } from './run-dto';
 
 export interface NewRun {
@@ -17,8 +21,12 @@ export interface NewRun {
   profileId?: number;
   profileVersionId?: number;
   mapping?: Record<string, unknown>;
+  /** The booking the log is for; when absent, the setup's booking of the night, if any (see BookingsService). */
+  bookingId?: number;
   acquiredOn?: string;
   notes?: string;
+  /** Required when the booking has a log already: why this one replaces it. */
+  replacementReason?: string;
   originalName: string;
   /** The uploaded bytes, received and hashed; kept under their SHA-256 here once the run is valid. */
   log: ReceivedLog;
@@ -45,7 +53,13 @@ export interface RunFilter {
 }
 
 export interface RunsService {
-  create(run: NewRun, actorId: number): Promise<RunDto>;
+  create(run: NewRun, uploader: Uploader): Promise<RunDto>;
+  /**
+   * Refuses, before any byte is sent, what `create` would refuse for these fields whatever the
+   * bytes: another setup's token, a chosen profile, a booking's window not yet open, a replacement
+   * without a reason. A resumable upload asks this when it is created.
+   */
+  refuseEarly(run: Omit<NewRun, 'log' | 'originalName'>, uploader: Uploader): Promise<void>;
   list(filter: RunFilter): Promise<RunPageDto>;
   get(id: number, transaction?: Transaction): Promise<RunDto>;
   signOff(id: number, comment: string, actor: { id: number; name: string }): Promise<SignOffDto>;
@@ -69,14 +83,15 @@ const RUN_SELECT = `
          (r.result #>> '{qber,rate}')::float8 AS qber,
          (r.result #>> '{chsh,S}')::float8 AS chsh_value,
          (r.result #>> '{key,finiteKeyBits}')::float8 AS finite_key_bits,
-         u.name AS uploaded_by_name, to_char(r.acquired_on, 'YYYY-MM-DD') AS acquired_on,
+         coalesce(u.name, 'upload token “' || t.name || '”') AS uploaded_by_name, r.booking_id, r.attempt, r.replay_of, to_char(r.acquired_on, 'YYYY-MM-DD') AS acquired_on,
          r.created_at, r.finished_at, r.duplicate_of, r.file_sha256, r.result ->> 'fingerprint' AS fingerprint,
          EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off
     FROM runs r
     JOIN setups s ON s.id = r.setup_id
     JOIN profile_versions v ON v.id = r.profile_version_id
     JOIN profiles p ON p.id = v.profile_id
-    JOIN users u ON u.id = r.uploaded_by`;
+    LEFT JOIN users u ON u.id = r.uploaded_by
+    LEFT JOIN upload_tokens t ON t.id = r.upload_token_id`;
 
 /** Runs: created from an archived upload, read with paging and filters, signed off by shift leads. */
 export function createRunsService(deps: {
@@ -86,9 +101,70 @@ export function createRunsService(deps: {
   queue: AnalysisQueue;
   profiles: ProfilesService;
   setups: SetupsService;
+  bookings: BookingsService;
   audit: AuditTrail;
 }): RunsService {
-  const { sequelize, models, logStore, queue, profiles, setups, audit } = deps;
+  const { sequelize, models, logStore, queue, profiles, setups, bookings, audit } = deps;
+
+  /** The setup an upload is for, which an upload token must be of. */
+  async function uploadSetup(newRun: Pick<NewRun, 'setupId'>, uploader: Uploader): Promise<SetupDto> {
+    if (uploader.kind === 'token' && uploader.token.setupId !== newRun.setupId) {
+      throw HttpError.forbidden(`Upload token “${uploader.token.name}” uploads to its own setup only (setup ${uploader.token.setupId}).`);
+    }
+    return setups.get(newRun.setupId).catch((error: unknown) => {
+      throw error instanceof HttpError && error.status === 404 ? HttpError.badRequest(error.message, 'setupId') : error;
+    });
+  }
+
+  /** The upload's booking, if any, and the profile version it is judged under, refusing a chosen other one. */
+  async function bookingAndProfile(newRun: Omit<NewRun, 'log' | 'originalName'>, setup: SetupDto, transaction: Transaction) {
+    const booking = await bookings.bookingForUpload(setup.id, newRun, transaction);
+    const profileVersion = booking
+      ? (await models.ProfileVersion.findByPk(booking.profileVersionId, { transaction }))!
+      : await profiles.latestVersionOf(setup.defaultProfileId);
+    refuseChosenProfile(newRun, booking ? `booking ${booking.id}` : `${setup.name}, unbooked,`, profileVersion);
+    return { booking, profileVersion };
+  }
+
+  /**
+   * Where a booked upload stands: attempt k of its booking, under the booking's seed. The bytes of
+   * an earlier run are refused (a replay: the same data judged twice), and a second log of the
+   * night needs a reason.
+   */
+  async function bookedPlace(booking: BookingRecord, newRun: Omit<NewRun, 'log' | 'originalName'>, earlier: RunRecord | null, transaction: Transaction) {
+    if (earlier) {
+      throw HttpError.conflict(
+        `These bytes are already run ${earlier.id}${earlier.bookingId === booking.id ? ` (attempt ${earlier.attempt} of this booking)` : ''}: a log is judged once, under one seed. Upload the night’s own log.`,
+      );
+    }
+    if (newRun.acquiredOn !== undefined && newRun.acquiredOn !== booking.night) {
+      throw HttpError.badRequest(`acquiredOn: booking ${booking.id} is the night of ${booking.night}, not ${newRun.acquiredOn}`, 'acquiredOn');
+    }
+    if (Date.now() < booking.windowStart.getTime()) {
+      throw HttpError.conflict(`Booking ${booking.id}’s acquisition window opens at ${booking.windowStart.toISOString()}; its log comes after.`);
+    }
+    const previous = await models.Run.findAll({ where: { bookingId: booking.id }, order: [['attempt', 'ASC']], transaction });
+    const reason = newRun.replacementReason?.trim() ?? '';
+    if (previous.length > 0 && reason === '') {
+      const last = previous[previous.length - 1];
+      throw HttpError.badRequest(
+        `replacementReason: the night of ${booking.night} already has run ${last.id} (attempt ${last.attempt}); a replacement needs a reason, and keeps the earlier runs`,
+        'replacementReason',
+      );
+    }
+    return { bookingId: booking.id, attempt: previous.length + 1, replacementReason: previous.length > 0 ? reason : null, acquiredOn: booking.night, seed: booking.seed, replayOf: null };
+  }
+
+  /**
+   * An unbooked upload: its seed drawn now, after the data existed, unless the same bytes came
+   * before (they keep that run's seed, so uploading again draws nothing new). Bytes seen before
+   * under a booking or another night are a replay, flagged.
+   */
+  function unbookedPlace(newRun: NewRun, earlier: RunRecord | null) {
+    const acquiredOn = newRun.acquiredOn ?? null;
+    const replay = earlier !== null && (earlier.bookingId !== null || earlier.acquiredOn !== acquiredOn);
+    return { bookingId: null, attempt: null, replacementReason: null, acquiredOn, seed: earlier?.seed ?? drawSeed(), replayOf: replay ? earlier.id : null };
+  }
 
   async function get(id: number, transaction?: Transaction): Promise<RunDto> {
     const [row] = await sequelize.query<RunRow>(`${RUN_SELECT} WHERE r.id = :id`, { type: QueryTypes.SELECT, replacements: { id }, transaction });
@@ -98,6 +174,7 @@ export function createRunsService(deps: {
     const signOff = await models.SignOff.findByPk(id, { transaction });
     const signer = signOff ? await models.User.findByPk(signOff.userId, { transaction }) : null;
     const deliveries = await models.MailDelivery.findAll({ where: { runId: id }, order: [['attemptedAt', 'ASC']], transaction });
+    const booking = run.bookingId === null ? null : await bookings.get(run.bookingId, transaction);
     return toRunDto(row, {
       file: { sha256: file.sha256, bytes: file.bytes, originalName: run.originalName },
       seed: run.seed,
@@ -110,6 +187,14 @@ export function createRunsService(deps: {
       result: run.result ?? null,
       signature: storedSignature(run),
       signOff: signOff && signer ? { userId: signer.id, userName: signer.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,
+      booking: booking && {
+        bookingId: booking.id,
+        night: booking.night,
+        seedCommitment: booking.seedCommitment,
+        attempt: run.attempt!,
+        replacementReason: run.replacementReason ?? '',
+        attempts: booking.attempts,
+      },
       deliveries: deliveries.map((delivery) => ({
         recipients: [...delivery.recipients],
         status: delivery.status,
@@ -123,19 +208,25 @@ export function createRunsService(deps: {
   return {
     get,
 
-    async create(newRun, actorId) {
-      const asBadField = (field: string) => (error: unknown) => {
-        throw error instanceof HttpError && error.status === 404 ? HttpError.badRequest(error.message, field) : error;
-      };
-      const setup = await setups.get(newRun.setupId).catch(asBadField('setupId'));
-      const profileVersion = await profiles.latestVersionOf(setup.defaultProfileId);
-      refuseChosenProfile(newRun, setup.name, profileVersion);
+    async refuseEarly(newRun, uploader) {
+      const setup = await uploadSetup(newRun, uploader);
+      await sequelize.transaction(async (transaction) => {
+        const { booking } = await bookingAndProfile(newRun, setup, transaction);
+        if (booking) await bookedPlace(booking, newRun, null, transaction);
+      });
+    },
+
+    async create(newRun, uploader) {
+      const setup = await uploadSetup(newRun, uploader);
       const { sha256, bytes } = newRun.log;
       const { isNew: fileWasNew } = await newRun.log.keep();
       try {
         const id = await sequelize.transaction(async (transaction) => {
+          const { booking, profileVersion } = await bookingAndProfile(newRun, setup, transaction);
           await models.ArchiveFile.findOrCreate({ where: { sha256 }, defaults: { sha256, bytes }, transaction });
           const earlier = await models.Run.findOne({ where: { fileSha256: sha256 }, order: [['id', 'ASC']], transaction });
+          const place = booking ? await bookedPlace(booking, newRun, earlier, transaction) : unbookedPlace(newRun, earlier);
+          const trail = uploaderInTrail(uploader);
           const run = await models.Run.create(
             {
               setupId: setup.id,
@@ -143,18 +234,22 @@ export function createRunsService(deps: {
               fileSha256: sha256,
               originalName: newRun.originalName.slice(0, 255),
               duplicateOf: earlier?.id ?? null,
-              uploadedBy: actorId,
-              acquiredOn: newRun.acquiredOn ?? null,
+              uploadedBy: uploader.kind === 'person' ? uploader.user.id : null,
+              uploadTokenId: uploader.kind === 'token' ? uploader.token.id : null,
               notes: newRun.notes ?? '',
               mapping: newRun.mapping ?? null,
-              // Drawn now, not by the worker, so every retry of the analysis uses the same seed; the
-              // same bytes uploaded again keep the first run's seed, so re-uploading draws nothing new.
-              seed: earlier?.seed ?? crypto.randomBytes(32).toString('hex'),
+              ...place,
             },
             { transaction },
           );
           await audit.record(
-            { actorId, action: 'run.uploaded', targetType: 'run', targetId: run.id, details: { sha256, bytes, duplicateOf: run.duplicateOf } },
+            {
+              actorId: trail.actorId,
+              action: 'run.uploaded',
+              targetType: 'run',
+              targetId: run.id,
+              details: { ...trail.details, sha256, bytes, duplicateOf: run.duplicateOf, bookingId: run.bookingId, attempt: run.attempt, replacementReason: run.replacementReason, replayOf: run.replayOf },
+            },
             transaction,
           );
           await queue.enqueueAnalysis(run.id, transaction);
@@ -219,16 +314,16 @@ export function createRunsService(deps: {
 }
 
 /**
- * An upload is judged under its setup's profile, latest version, and nothing else: the uploader
- * who could pick a looser profile could pick the verdict. Naming that same profile or version is
- * harmless; naming another is refused with why.
+ * An upload is judged under its booking's profile version (unbooked: the setup's latest) and
+ * nothing else: the uploader who could pick a looser profile could pick the verdict. Naming that
+ * same profile or version is harmless; naming another is refused with why.
  */
-function refuseChosenProfile(newRun: NewRun, setupName: string, setupVersion: ProfileVersionRecord): void {
+function refuseChosenProfile(newRun: Omit<NewRun, 'log' | 'originalName'>, judgedAs: string, setupVersion: ProfileVersionRecord): void {
   const chosenOther =
     (newRun.profileId !== undefined && newRun.profileId !== setupVersion.profileId) ||
     (newRun.profileVersionId !== undefined && newRun.profileVersionId !== setupVersion.id);
   if (!chosenOther) return;
   throw HttpError.forbidden(
-    `Runs on ${setupName} are judged under the setup’s own acceptance profile (version ${setupVersion.version}); an upload cannot choose another. An admin may change the setup’s profile before the night.`,
+    `Logs of ${judgedAs} are judged under the profile fixed for them (version ${setupVersion.version}); an upload cannot choose another. A shift lead or admin books a night under another profile, with a reason, before acquisition.`,
   );
 }

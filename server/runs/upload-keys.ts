@@ -1,6 +1,7 @@
 import type { Request, RequestHandler, Response } from 'express';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { HttpError } from '../http/http-error';
+import { uploaderKey } from '../upload-tokens/uploader';
 import type { RunsService } from './runs.service';
 
 /** The request header that makes an upload idempotent (the name of the IETF HTTP draft). */
@@ -18,7 +19,7 @@ function drained(request: Request): Promise<void> {
 const KEY_PATTERN = /^[\x21-\x7e]{1,200}$/;
 
 interface ClaimedKey {
-  userId: number;
+  uploader: string;
   key: string;
   /** Set once the run exists, so the claim is kept when the response closes. */
   runId?: number;
@@ -40,20 +41,20 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
       await drained(request);
       throw HttpError.badRequest('must be 1 to 200 visible ASCII characters', IDEMPOTENCY_HEADER);
     }
-    const userId = request.user!.id;
-    const replacements = { userId, key };
+    const uploader = uploaderKey(request.uploader!);
+    const replacements = { uploader, key };
     const claimed = await sequelize.query(
-      'INSERT INTO upload_keys (user_id, idempotency_key) VALUES (:userId, :key) ON CONFLICT DO NOTHING RETURNING user_id',
+      'INSERT INTO upload_keys (uploader, idempotency_key) VALUES (:uploader, :key) ON CONFLICT DO NOTHING RETURNING uploader',
       { replacements, type: QueryTypes.SELECT },
     );
     if (claimed.length === 1) {
-      claims.set(response, { userId, key });
+      claims.set(response, { uploader, key });
       // Failures before the route runs (a broken-off or too large upload) give the key back here.
       response.on('close', () => void release(response));
       return next();
     }
     await drained(request); // the repeat's bytes are not needed, but a client still sending them must not see a broken pipe
-    const [existing] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE user_id = :userId AND idempotency_key = :key', {
+    const [existing] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE uploader = :uploader AND idempotency_key = :key', {
       replacements,
       type: QueryTypes.SELECT,
     });
@@ -69,8 +70,8 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
     const claim = claims.get(response);
     if (!claim) return;
     claim.runId = runId;
-    await sequelize.query('UPDATE upload_keys SET run_id = :runId WHERE user_id = :userId AND idempotency_key = :key', {
-      replacements: { runId, userId: claim.userId, key: claim.key },
+    await sequelize.query('UPDATE upload_keys SET run_id = :runId WHERE uploader = :uploader AND idempotency_key = :key', {
+      replacements: { runId, uploader: claim.uploader, key: claim.key },
     });
   }
 
@@ -79,8 +80,8 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
     const claim = claims.get(response);
     if (!claim || claim.runId !== undefined) return;
     claims.delete(response);
-    await sequelize.query('DELETE FROM upload_keys WHERE user_id = :userId AND idempotency_key = :key AND run_id IS NULL', {
-      replacements: { userId: claim.userId, key: claim.key },
+    await sequelize.query('DELETE FROM upload_keys WHERE uploader = :uploader AND idempotency_key = :key AND run_id IS NULL', {
+      replacements: { uploader: claim.uploader, key: claim.key },
     });
   }
 

@@ -4,7 +4,7 @@ import { MIN_PASSWORD_LENGTH, ROLES, type CreateUserRequest, type UpdateUserRequ
 import type { Guards } from '../auth/passport';
 import { idParameter } from '../http/id-parameter';
 import { validateBody } from '../http/validate-body';
-import type { WelcomeMail } from '../mail/welcome-mail';
+import type { AppMail } from '../mail/app-mail';
 import type { UsersService } from './users.service';
 
 const rolesSchema = z.array(z.enum(ROLES)).min(1, 'needs at least one role');
@@ -22,7 +22,7 @@ const updateSchema = z
   .refine((body) => Object.keys(body).length > 0, 'give at least one of name, roles, active');
 
 /** Admin-only user management under `/api/users`. */
-export function usersRoutes(users: UsersService, guards: Guards, welcomeMail: WelcomeMail): Router {
+export function usersRoutes(users: UsersService, guards: Guards, appMail: AppMail): Router {
   const router = Router();
   router.use(guards.requireRole('admin'));
 
@@ -32,7 +32,7 @@ export function usersRoutes(users: UsersService, guards: Guards, welcomeMail: We
 
   router.post('/', validateBody(createSchema), async (request, response) => {
     const created = await users.create(request.body as CreateUserRequest, request.user!.id);
-    welcomeMail.send(created, request.user!.name);
+    appMail.welcome(created, request.user!.name);
     response.status(201).json(created);
   });
 

@@ -11,7 +11,7 @@ import type { LogStore } from '../storage/log-store';
  * engine reads a local file: the store's own, or a copy in the worker's work folder (see LogStore).
  */
 export async function analyseArchivedRun(
-  run: RunRecord,
+  run: Pick<RunRecord, 'profileVersionId' | 'fileSha256' | 'mapping' | 'seed'>,
   deps: { models: Models; logStore: LogStore; workFolder: string },
   options: { onProgress?: ProgressListener; signal: AbortSignal },
 ): Promise<AnalysisResult> {

@@ -33,7 +33,8 @@ export async function reverifyRun(reverificationId: number, deps: ReverifyRunDep
 
   let outcome: Partial<typeof record.dataValues> & { state: ReverificationState };
   try {
-    const result = await analyseArchivedRun(run, { models, logStore, workFolder }, { signal });
+    // With another seed (an admin's), the same log and profile under a fresh draw of test rounds.
+    const result = await analyseArchivedRun(record.seed ? { ...run.get(), seed: record.seed } : run, { models, logStore, workFolder }, { signal });
     const differences = resultDifferences(run.result, result);
     outcome = {
       state: result.fingerprint === record.storedFingerprint ? 'reproduced' : 'differs',

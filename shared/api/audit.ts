@@ -14,7 +14,7 @@ export interface AuditQuery {
   to?: string;
 }
 
-export const AUDIT_TARGET_TYPES = ['run', 'user', 'profile', 'setup', 'signing-key', 'audit'] as const;
+export const AUDIT_TARGET_TYPES = ['run', 'user', 'profile', 'setup', 'booking', 'upload-token', 'signing-key', 'audit'] as const;
 export type AuditTargetType = (typeof AUDIT_TARGET_TYPES)[number];
 
 /** Someone who appears in the trail, as `GET /api/audit/actors` lists them for the actor filter. */
@@ -42,6 +42,9 @@ export const AUDIT_ACTIONS = [
   'setup.changed',
   'profile.created',
   'profile.version-created',
+  'booking.created',
+  'upload-token.created',
+  'upload-token.revoked',
   'run.uploaded',
   'run.analysis-started',
   'run.finished',

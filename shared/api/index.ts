@@ -1,5 +1,6 @@
 export * from './audit';
 export * from './auth';
+export * from './bookings';
 export * from './errors';
 export * from './integrity';
 export * from './planner';

@@ -1,3 +1,4 @@
+import type { RunBookingDto } from './bookings';
 import type { AnalysisResult } from '../analysis/result';
 import type { SignOffDto } from './runs';
 
@@ -71,6 +72,8 @@ export interface ReverificationDto {
   id: number;
   runId: number;
   requestedBy: string;
+  /** Another seed than the run's, when an admin asked for one: a fresh draw of test rounds that never replaces the verdict. */
+  seed: string | null;
   state: ReverificationState;
   storedFingerprint: string;
   storedEngineVersion: string;
@@ -83,6 +86,11 @@ export interface ReverificationDto {
   error: string | null;
   createdAt: string;
   finishedAt: string | null;
+}
+
+/** Body of `POST /api/runs/:id/reverifications`: empty, or (admins only) another seed, 64 hex digits. */
+export interface ReverificationRequest {
+  seed?: string;
 }
 
 /** The formats of `GET /api/runs/:id/export/:format`. */
@@ -111,6 +119,9 @@ export interface RunReportDto {
     state: string;
     verdict: string | null;
     duplicateOf: number | null;
+    /** The booking with its seed commitment and attempts; null: unbooked (absent in reports made before bookings). */
+    booking?: RunBookingDto | null;
+    replayOf?: number | null;
   };
   profile: { profileId: number; versionId: number; name: string; version: number; parameters: Record<string, unknown> };
   mapping: Record<string, unknown> | null;

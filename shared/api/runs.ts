@@ -1,3 +1,4 @@
+import type { RunBookingDto } from './bookings';
 import type { ResultSignatureDto } from './integrity';
 
 /** Where a run is in its life. */
@@ -49,6 +50,12 @@ export interface RunSummaryDto {
   finishedAt: string | null;
   /** Set when the same bytes were uploaded before: the earlier run. */
   duplicateOf: number | null;
+  /** The booking the run belongs to; null: unbooked, its seed drawn after the data existed. */
+  bookingId: number | null;
+  /** Attempt k of its booking (k > 1: a replacement); null when unbooked. */
+  attempt: number | null;
+  /** Set when these bytes were uploaded before under another booking or night: that run. */
+  replayOf: number | null;
   signedOff: boolean;
   /** SHA-256 of the archived log, hex. */
   fileSha256: string;
@@ -82,6 +89,8 @@ export interface RunDto extends RunSummaryDto {
   signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
   deliveries: MailDeliveryDto[];
+  /** The booking, its commitment and every attempt; null when unbooked. */
+  booking: RunBookingDto | null;
 }
 
 /** A page of runs. */

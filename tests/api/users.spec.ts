@@ -36,7 +36,7 @@ describe('user management (admin)', () => {
     expect(created.body).toMatchObject({ email: 'noor.fell@kestrelfen.example', roles: ['experimentalist', 'auditor'], active: true });
     await testApp.signIn('noor.fell@kestrelfen.example', 'mill-lane-night');
 
-    await testApp.welcomeMail.settled();
+    await testApp.appMail.settled();
     const inbox = (await (await fetch(`${testApp.mailCatcher.inboxUrl}/api/email`)).json()) as CaughtMail[];
     const welcome = inbox.find((mail) => mail.to.some((to) => to.address === 'noor.fell@kestrelfen.example'));
     expect(welcome?.subject).toBe('Your Bellkeep account is ready');

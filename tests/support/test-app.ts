@@ -9,7 +9,7 @@ import { loadConfig, type Config } from '../../server/config/config';
 import { seedDemo } from '../../server/database/migrate';
 import { startMailCatcher, type MailCatcher } from '../../server/mail/mail-catcher';
 import { createMailer, type Mailer } from '../../server/mail/mailer';
-import { createWelcomeMail, type WelcomeMail } from '../../server/mail/welcome-mail';
+import { createAppMail, type AppMail } from '../../server/mail/app-mail';
 import { startAnalysisQueue, type AnalysisQueue } from '../../server/queue/analysis-queue';
 import { createServices, type Services } from '../../server/services';
 import { startStorageBackend, type StorageBackend } from '../../server/storage/storage-backend';
@@ -25,7 +25,7 @@ export interface TestApp {
   config: Config;
   database: TestDatabase;
   mailCatcher: MailCatcher;
-  welcomeMail: WelcomeMail;
+  appMail: AppMail;
   queue: AnalysisQueue;
   services: Services;
   /** The archive's backend: its `workerEnvironment` lets a worker process reach the same archive. */
@@ -67,12 +67,12 @@ export async function createTestApp(environment: Record<string, string> = {}): P
   const mailFolder = path.join(dataDir, 'mail');
   let mailCatcher = await startMailCatcher(...mailPorts, mailFolder);
   const mailer: Mailer = createMailer(mailCatcher.smtpUrl, config.mailFrom);
-  const welcomeMail = createWelcomeMail(mailer, config.publicUrl);
+  const appMail = createAppMail(mailer, config.publicUrl);
   const queue = await startAnalysisQueue(database.url, database.sequelize, config.queue);
   const services = createServices(config, database, queue);
   // As `npm start` does on bootstrap: the key results are signed with is listed before any run.
   await services.signingKeys.register();
-  const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, welcomeMail });
+  const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, appMail });
   const workers: RunningWorker[] = [];
   return {
     app,
@@ -81,7 +81,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
     get mailCatcher() {
       return mailCatcher;
     },
-    welcomeMail,
+    appMail,
     queue,
     services,
     storage,
@@ -101,7 +101,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
     async close() {
       for (const worker of workers) await worker.stop();
       await queue.stop();
-      await welcomeMail.settled();
+      await appMail.settled();
       mailer.close();
       await mailCatcher.stop();
       await storage.stop();

@@ -7,6 +7,8 @@ export const TARGET_WORDS: Readonly<Record<AuditTargetType, string>> = {
   user: 'User',
   profile: 'Profile',
   setup: 'Setup',
+  booking: 'Booked night',
+  'upload-token': 'Upload token',
   'signing-key': 'Signing key',
   audit: 'Audit',
 };

@@ -25,7 +25,7 @@ const night: RunSummaryDto = {
   acquiredOn: '2026-11-18',
   createdAt: '2026-11-19T05:30:00Z',
   finishedAt: '2026-11-19T05:42:00Z',
-  duplicateOf: null,
+  duplicateOf: null, bookingId: 3, attempt: 1, replayOf: null,
   signedOff: true,
   fileSha256: '9f3ac07e1b22d4f9a0e6'.padEnd(64, '0'),
   fingerprint: '41d2be7765aa90f3be21'.padEnd(64, '5'),

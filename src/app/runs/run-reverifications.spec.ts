@@ -11,7 +11,7 @@ const LIST = '/api/runs/12/reverifications';
 const reproduced: ReverificationDto = {
   id: 3,
   runId: 12,
-  requestedBy: 'Sami Virtanen',
+  requestedBy: 'Sami Virtanen', seed: null,
   state: 'reproduced',
   storedFingerprint: 'c07e1b22d4f9a0e6'.repeat(4),
   storedEngineVersion: '1.2.0',

@@ -11,6 +11,9 @@ const ACTION_WORDS: Record<AuditAction, string> = {
   'setup.changed': 'Setup changed',
   'profile.created': 'Profile added',
   'profile.version-created': 'Profile version added',
+  'booking.created': 'Night booked',
+  'upload-token.created': 'Upload token made',
+  'upload-token.revoked': 'Upload token revoked',
   'run.uploaded': 'Uploaded the log',
   'run.analysis-started': 'Analysis started',
   'run.finished': 'Analysis finished',
@@ -35,6 +38,18 @@ type Details = Record<string, unknown>;
 
 /** The detail line of the actions whose details need reading by their action. */
 const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string>> = {
+  'booking.created': ({ night, seedCommitment }) => (typeof night === 'string' && typeof seedCommitment === 'string' ? `Night ${night} · seed commitment ${seedCommitment}` : ''),
+  'upload-token.created': ({ name, expiresAt }) => (typeof name === 'string' ? `“${name}”${typeof expiresAt === 'string' ? `, valid until ${expiresAt.slice(0, 10)}` : ''}` : ''),
+  'upload-token.revoked': ({ name }) => (typeof name === 'string' ? `“${name}”` : ''),
+  'run.uploaded': ({ attempt, replacementReason, replayOf, uploadToken }) =>
+    [
+      typeof uploadToken === 'string' ? `By upload token “${uploadToken}”` : '',
+      typeof attempt === 'number' ? `Attempt ${attempt}` : 'Unbooked',
+      typeof replacementReason === 'string' && replacementReason !== '' ? `replaces the earlier log: ${replacementReason}` : '',
+      typeof replayOf === 'number' ? `same bytes as run ${replayOf}` : '',
+    ]
+      .filter(Boolean)
+      .join(' · '),
   'run.exported': ({ format }) => (isExportFormat(format) ? EXPORT_FORMAT_LABELS[format] : ''),
   'run.reverification-requested': ({ reverificationId }) => (typeof reverificationId === 'number' ? `Re-verification ${reverificationId}` : ''),
   'run.reverification-finished': ({ state, error, differenceCount }) => {

@@ -1,0 +1,67 @@
+import { ROLE_LABELS, type BookingDto, type UserDto } from '../../shared/api';
+import type { Mailer, OutgoingMail } from './mailer';
+
+/** The mails the API sends itself (the verdict mail is the worker's). */
+export interface AppMail {
+  /** The account mail of a new user. */
+  welcome(user: UserDto, createdBy: string): void;
+  /** The booking mail to the setup's shift leads: the night, its profile and the seed commitment. */
+  booked(booking: BookingDto, recipients: string[]): void;
+  /** Resolves when every mail started so far has been handed over (or has failed and been logged). */
+  settled(): Promise<void>;
+}
+
+/**
+ * Mails sent in the background: a mail server that is down never undoes the account or the
+ * booking (the booking's commitment is in the trail and on its page either way).
+ */
+export function createAppMail(mailer: Mailer, publicUrl: string): AppMail {
+  const pending = new Set<Promise<unknown>>();
+  const send = (mail: OutgoingMail) => {
+    const delivery = mailer
+      .send(mail)
+      .catch((error: unknown) => console.error(`Mail “${mail.subject}” to ${mail.to} failed:`, error))
+      .finally(() => pending.delete(delivery));
+    pending.add(delivery);
+  };
+  return {
+    welcome(user, createdBy) {
+      const roles = user.roles.map((role) => ROLE_LABELS[role]).join(', ');
+      send({
+        to: user.email,
+        subject: 'Your Bellkeep account is ready',
+        text: [
+          `Hello ${user.name},`,
+          '',
+          `${createdBy} has made you a Bellkeep account with the roles: ${roles}.`,
+          `Sign in at ${publicUrl}/sign-in with this e-mail address; your admin gives you the password.`,
+          '',
+          'Bellkeep keeps the verdicts of the lab’s Bell-test runs.',
+        ].join('\n'),
+      });
+    },
+    booked(booking, recipients) {
+      if (recipients.length === 0) return;
+      send({
+        to: recipients.join(', '),
+        subject: `[Bellkeep] ${booking.setupName}: night of ${booking.night} booked`,
+        text: [
+          `${booking.bookedBy} booked the night of ${booking.night} on ${booking.setupName}.`,
+          '',
+          `Acquisition window: ${booking.windowStart} to ${booking.windowEnd} (UTC)`,
+          `Planned rounds: ${booking.plannedRounds}`,
+          `Profile: ${booking.profileName} v${booking.profileVersion}${booking.profileReason ? ` (chosen instead of the setup’s: ${booking.profileReason})` : ''}`,
+          '',
+          `Seed commitment: ${booking.seedCommitment}`,
+          'The seed that will pick the test rounds was drawn now and stays hidden until the log is in;',
+          'the run then shows it, and `printf %s <seed> | sha256sum` must print this commitment.',
+          '',
+          `The booking: ${publicUrl}/setups/${booking.setupId}`,
+        ].join('\n'),
+      });
+    },
+    async settled() {
+      await Promise.all([...pending]);
+    },
+  };
+}

@@ -1,0 +1,119 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { IncomingMessage } from 'node:http';
+import { Router, type Request, type RequestHandler } from 'express';
+import { FileStore } from '@tus/file-store';
+import { Server, type Upload } from '@tus/server';
+import { QueryTypes, type Sequelize } from 'sequelize';
+import { RESUMABLE_UPLOAD_PATH, type ApiErrorBody } from '../../shared/api';
+import { HttpError } from '../http/http-error';
+import { validationError } from '../http/validate-body';
+import type { LogStore } from '../storage/log-store';
+import { uploaderKey, type Uploader } from '../upload-tokens/uploader';
+import type { RunsService } from './runs.service';
+import { uploadFieldsSchema, type UploadFields } from './upload-fields';
+
+/** A resumable upload nobody finished is thrown away after a week. */
+const ABANDONED_AFTER_MS = 7 * 86_400_000;
+/** The metadata key that binds an upload to whoever created it. */
+const UPLOADER_KEY = 'bellkeepUploader';
+
+/** A refusal in the shape tus passes on to the client: the API's JSON error body. */
+function tusError(error: HttpError): { status_code: number; body: string } {
+  const body: ApiErrorBody = { error: { code: error.code, message: error.message, ...(error.field ? { field: error.field } : {}) } };
+  return { status_code: error.status, body: JSON.stringify(body) };
+}
+
+/** The upload's own fields, from its tus metadata (all values are text, as in a multipart form). */
+function fieldsOf(upload: Upload): UploadFields {
+  const { filename: _filename, [UPLOADER_KEY]: _uploader, ...metadata } = upload.metadata ?? {};
+  const present = Object.fromEntries(Object.entries(metadata).filter((entry): entry is [string, string] => typeof entry[1] === 'string'));
+  const parsed = uploadFieldsSchema.safeParse(present);
+  if (!parsed.success) throw validationError(parsed.error);
+  return parsed.data;
+}
+
+/**
+ * `/api/uploads`: resumable uploads by the tus 1.0 protocol (@tus/server), for the acquisition
+ * computer's curl recipe and the browser alike. A log of several GB over a flaky link goes on
+ * where it broke off. The upload's fields travel as tus metadata and are checked when the upload
+ * is created, so a refusal comes before the bytes; when the last byte is in, the file is streamed
+ * into the archive (hashed on the way, as a multipart upload is) and becomes a run, whose JSON is
+ * the answer to the last PATCH. A finished upload's id is kept, so asking again (GET) gives the
+ * same run and never a second one. Partial uploads wait under the data folder, also with S3.
+ */
+export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService; logStore: LogStore; uploader: RequestHandler; dataDir: string; limitBytes: number }): Router {
+  const { sequelize, runs, logStore, uploader, limitBytes } = deps;
+  const directory = path.join(deps.dataDir, 'resumable-uploads');
+  fs.mkdirSync(directory, { recursive: true });
+  const store = new FileStore({ directory, expirationPeriodInMilliseconds: ABANDONED_AFTER_MS });
+  const uploaderOf = (request: IncomingMessage) => (request as Request).uploader!;
+  const finishedKey = (id: string) => `resumable:${id}`;
+
+  async function finishedRun(uploaderValue: Uploader, id: string): Promise<number | null> {
+    const [row] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE uploader = :uploader AND idempotency_key = :key', {
+      replacements: { uploader: uploaderKey(uploaderValue), key: finishedKey(id) },
+      type: QueryTypes.SELECT,
+    });
+    return row?.run_id ?? null;
+  }
+
+  async function forget(id: string): Promise<void> {
+    await store.remove(id).catch(() => undefined);
+  }
+
+  const tus = new Server({
+    path: RESUMABLE_UPLOAD_PATH,
+    datastore: store,
+    maxSize: limitBytes,
+    async onUploadCreate(request, response, upload) {
+      try {
+        const fields = fieldsOf(upload);
+        await runs.refuseEarly(fields, uploaderOf(request));
+      } catch (error) {
+        if (error instanceof HttpError) throw tusError(error);
+        throw error;
+      }
+      return { res: response, metadata: { ...upload.metadata, [UPLOADER_KEY]: uploaderKey(uploaderOf(request)) } };
+    },
+    async onIncomingRequest(request, _response, id) {
+      if (request.method === 'POST' || request.method === 'OPTIONS') return;
+      const upload = await store.getUpload(id).catch(() => null);
+      // Somebody else's upload is not there for this uploader: the same answer as an unknown id.
+      if (upload && upload.metadata?.[UPLOADER_KEY] !== uploaderKey(uploaderOf(request))) throw { status_code: 404, body: 'The file for this url was not found\n' };
+    },
+    async onUploadFinish(request, response, upload) {
+      const who = uploaderOf(request);
+      const received = await logStore.receive(fs.createReadStream(path.join(directory, upload.id)));
+      try {
+        const run = await runs.create({ ...fieldsOf(upload), originalName: upload.metadata?.filename ?? '', log: received }, who);
+        await sequelize.query('INSERT INTO upload_keys (uploader, idempotency_key, run_id) VALUES (:uploader, :key, :runId)', {
+          replacements: { uploader: uploaderKey(who), key: finishedKey(upload.id), runId: run.id },
+        });
+        await forget(upload.id);
+        return { res: response, status_code: 201, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(run) };
+      } catch (error) {
+        if (!(error instanceof HttpError)) throw error;
+        await forget(upload.id); // refused for good: the same bytes and fields would be refused again
+        throw tusError(error);
+      } finally {
+        await received.drop();
+      }
+    },
+  });
+  void tus.cleanUpExpiredUploads().catch(() => undefined);
+
+  const router = Router();
+  router.use(uploader);
+  // GET is not tus: it tells a client whose last answer was lost which run its finished upload made.
+  router.get('/:id', async (request, response) => {
+    const runId = await finishedRun(request.uploader!, String(request.params.id));
+    if (runId === null) throw HttpError.notFound(`There is no finished upload ${request.params.id} of yours; ask its offset with HEAD and go on.`);
+    response.json(await runs.get(runId));
+  });
+  router.use((request, response) => {
+    request.url = request.originalUrl; // tus reads the upload id from the full path
+    void tus.handle(request, response);
+  });
+  return router;
+}

@@ -1,0 +1,40 @@
+import { z } from 'zod';
+import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
+
+export const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
+export const positiveId = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
+
+/** The fields of an upload besides the log: the multipart form's, or a resumable upload's metadata. */
+export const uploadFieldsSchema = z.strictObject({
+  setupId: positiveId('a setup'),
+  bookingId: positiveId('a booking').optional(),
+  replacementReason: z.string().trim().max(2000, 'must be at most 2000 characters').optional(),
+  profileId: positiveId('a profile').optional(),
+  profileVersionId: positiveId('a profile version').optional(),
+  mapping: z
+    .string()
+    .optional()
+    .transform((text, context) => {
+      if (text === undefined || text.trim() === '') return undefined;
+      let value: unknown;
+      try {
+        value = JSON.parse(text);
+      } catch {
+        context.addIssue({ code: 'custom', message: 'is not valid JSON' });
+        return z.NEVER;
+      }
+      const parsed = parseColumnMapping(value);
+      if (!parsed.ok) {
+        context.addIssue({ code: 'custom', message: parsed.message });
+        return z.NEVER;
+      }
+      return parsed.mapping as unknown as Record<string, unknown>;
+    }),
+  // Refused with its own message, not as an unknown field: whoever could choose the seed could draw
+  // seeds until one passes.
+  seed: z.never({ error: 'is drawn by the server, never by the uploader: whoever chooses the seed chooses the test rounds' }).optional(),
+  acquiredOn: isoDate.optional(),
+  notes: z.string().max(4000, 'must be at most 4000 characters').optional(),
+});
+
+export type UploadFields = z.infer<typeof uploadFieldsSchema>;

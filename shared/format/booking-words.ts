@@ -1,0 +1,34 @@
+import type { RunDto } from '../api';
+
+/** How a run came to its seed, in sentences: booked (attempt k, the earlier ones) or unbooked. */
+export interface BookingWords {
+  /** "Booked" or "Unbooked". */
+  state: 'Booked' | 'Unbooked';
+  /** The line that says it all: the night and attempt, or the unbooked caution. */
+  headline: string;
+  /** Further sentences: the commitment, the replacement's reason, the earlier attempts, a replay. */
+  details: string[];
+}
+
+/** The unbooked caution, word for word everywhere a run is shown. */
+export const UNBOOKED_CAUTION = 'Unbooked: the seed that chose the test rounds was drawn at upload, after the data existed.';
+
+/** The words of a run's booking for the run page, the mail and the PDF. */
+export function bookingWords(run: Pick<RunDto, 'id' | 'booking' | 'replayOf'>): BookingWords {
+  const replay = run.replayOf === null ? [] : [`Replay: these bytes were uploaded before as run ${run.replayOf}, under another booking or night.`];
+  const booking = run.booking;
+  if (!booking) return { state: 'Unbooked', headline: UNBOOKED_CAUTION, details: replay };
+  const earlier = booking.attempts.filter((attempt) => attempt.attempt !== booking.attempt);
+  return {
+    state: 'Booked',
+    headline: `Booked night ${booking.night} (booking ${booking.bookingId}): attempt ${booking.attempt} of ${booking.attempts.length}.`,
+    details: [
+      `Seed committed at booking, before acquisition: SHA-256 ${booking.seedCommitment}.`,
+      ...(booking.attempt > 1 ? [`Replaces the earlier log: ${booking.replacementReason}`] : []),
+      ...(earlier.length > 0
+        ? [`Other attempts: ${earlier.map((attempt) => `${attempt.attempt} — run ${attempt.runId}, ${attempt.verdict ?? attempt.state}`).join('; ')}.`]
+        : []),
+      ...replay,
+    ],
+  };
+}
