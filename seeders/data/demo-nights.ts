@@ -26,3 +26,17 @@ export function demoNight(setupName: string, night: number): { model: DeviceMode
   const seed = FIXTURE_SEED.slice(0, 60) + (setupName === 'Fen link' ? '1' : '2') + night.toString(16).padStart(3, '0');
   return { model, seed };
 }
+
+/** The demo night left unbooked (the lab forgot to book it): Mill Lane bench, night 12. */
+export const UNBOOKED_NIGHT = { setupName: 'Mill Lane bench', night: 12 } as const;
+
+/**
+ * The demo night whose log was replaced: the Fen link's night 14 was first uploaded before the
+ * acquisition computer had finished writing it (its first quarter only), then again in full.
+ */
+export const REPLACED_NIGHT = {
+  setupName: 'Fen link',
+  night: 14,
+  firstShare: 0.25,
+  reason: 'The first upload was copied while the acquisition computer was still writing the file: it holds only the first quarter of the night.',
+} as const;

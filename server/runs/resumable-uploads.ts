@@ -106,7 +106,8 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
   const router = Router();
   router.use(uploader);
   // GET is not tus: it tells a client whose last answer was lost which run its finished upload made.
-  router.get('/:id', async (request, response) => {
+  router.get('/:id', async (request, response, next) => {
+    if (request.method === 'HEAD') return next(); // Express routes HEAD to GET handlers; HEAD is tus's
     const runId = await finishedRun(request.uploader!, String(request.params.id));
     if (runId === null) throw HttpError.notFound(`There is no finished upload ${request.params.id} of yours; ask its offset with HEAD and go on.`);
     response.json(await runs.get(runId));

@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -11,7 +12,7 @@ import { resolveSigningKey } from '../../server/integrity/signing-key';
 import { createSigningKeysService } from '../../server/integrity/signing-keys.service';
 import { createVerificationService } from '../../server/integrity/verification.service';
 import { createLocalLogStore } from '../../server/storage/local-log-store';
-import { DEMO_NIGHTS } from '../../seeders/data/demo-nights';
+import { DEMO_NIGHTS, REPLACED_NIGHT } from '../../seeders/data/demo-nights';
 import { bootstrapDatabase } from '../../server/database/bootstrap';
 import { DEMO_PEOPLE } from '../../seeders/data/demo-people';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
@@ -66,7 +67,21 @@ describe('the demo lab’s history of nights', () => {
       expect(report.seeders).toContain('20261201020000-demo-nights.ts');
 
       const runs = await database.models.Run.findAll({ order: [['id', 'ASC']] });
-      expect(runs).toHaveLength(2 * DEMO_NIGHTS);
+      // One run per night and setup, and the replaced night's first attempt.
+      expect(runs).toHaveLength(2 * DEMO_NIGHTS + 1);
+      const bookings = await database.models.Booking.findAll();
+      expect(bookings).toHaveLength(2 * DEMO_NIGHTS - 1);
+      expect(runs.filter((run) => run.bookingId === null).map((run) => run.originalName)).toEqual([expect.stringMatching(/^mill-lane-bench-/)]);
+      const replacement = runs.find((run) => run.attempt === 2)!;
+      expect(replacement.replacementReason).toBe(REPLACED_NIGHT.reason);
+      expect(runs.find((run) => run.bookingId === replacement.bookingId && run.attempt === 1)).toBeDefined();
+      // Every booked run carries its booking's seed, and the booking published its hash beforehand.
+      for (const run of runs.filter((candidate) => candidate.bookingId !== null)) {
+        const booking = bookings.find((candidate) => candidate.id === run.bookingId)!;
+        expect(run.seed).toBe(booking.seed);
+        expect(crypto.createHash('sha256').update(booking.seed).digest('hex')).toBe(booking.seedCommitment);
+        expect(booking.createdAt.getTime()).toBeLessThan(booking.windowStart.getTime());
+      }
       const verdicts = new Set(runs.map((run) => run.verdict));
       expect(verdicts).toEqual(new Set(['ACCEPT', 'ABORT']));
       expect(runs.some((run) => (run.result as unknown as AnalysisResult).key!.finiteKeyBits > 0)).toBe(true);

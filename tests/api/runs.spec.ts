@@ -44,7 +44,7 @@ describe('the runs pipeline through the API', () => {
     expect(run.result).toEqual(JSON.parse(JSON.stringify(direct)));
     const result = run.result as unknown as AnalysisResult;
 
-    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ACCEPT · Fen link · run ${run.id}`);
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ACCEPT · Fen link · run ${run.id} · unbooked`);
     expect(mail.to.map((to) => to.address).sort()).toEqual(['ada.reyes@kestrelfen.example', 'lucia.brandt@kestrelfen.example', 'night-desk@kestrelfen.example']);
     expect(mail.text).toContain(`CHSH win fraction ${result.chsh!.winFraction!.toFixed(4)}`);
     expect(mail.text).toContain(`S = ${result.chsh!.S!.toFixed(3)}`);
@@ -80,7 +80,7 @@ describe('the runs pipeline through the API', () => {
     expect(run).toMatchObject({ state: 'aborted', verdict: 'ABORT' });
     const reasons = (run.result as unknown as AnalysisResult).reasons;
     expect(reasons.length).toBeGreaterThan(0);
-    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ABORT · Fen link · run ${run.id}`);
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ABORT · Fen link · run ${run.id} · unbooked`);
     expect(mail.text).toContain(reasons[0]);
   }, 60_000);
 
@@ -135,7 +135,7 @@ describe('the runs pipeline through the API', () => {
   it.each([[{ profileId: 2 }], [{ profileVersionId: 4242 }]])('refuses %j, a profile other than the setup’s, with 403 saying why, keeping nothing', async (fields) => {
     const before = await testApp.database.models.Run.count();
     const response = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, ...fields }).expect(403);
-    expect((response.body as ApiErrorBody).error.message).toContain('Runs on Fen link are judged under the setup’s own acceptance profile');
+    expect((response.body as ApiErrorBody).error.message).toContain('Logs of Fen link, unbooked, are judged under the profile fixed for them');
     expect(await testApp.database.models.Run.count()).toBe(before);
     expect((await archiveContents(testApp.config)).leftovers).toEqual([]);
   });
@@ -199,7 +199,7 @@ describe('the runs pipeline through the API', () => {
       await new Promise((resolve) => setTimeout(resolve, 100));
     }
     await testApp.restartMailCatcher();
-    const subject = `[Bellkeep] ${run.verdict} · Fen link · run ${run.id}`;
+    const subject = `[Bellkeep] ${run.verdict} · Fen link · run ${run.id} · unbooked`;
     await waitForMail(inboxUrl, subject);
     await new Promise((resolve) => setTimeout(resolve, 2500));
     expect((await inbox(inboxUrl)).filter((mail) => mail.subject === subject)).toHaveLength(1);
