@@ -1,5 +1,6 @@
 import type { AnalysisResult } from '../../shared/analysis/result';
-import { STATE_OF_VERDICT, type RunDto } from '../../shared/api';
+import { STATE_OF_VERDICT, type RunBookingDto, type RunDto } from '../../shared/api';
+import { UNBOOKED_CAUTION } from '../../shared/format/booking-words';
 import { formatCount, formatScientific } from '../../shared/format/numbers';
 import { SEED } from '../../tests/cli/run-analyse';
 import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '../../tests/support/fixture-results';
@@ -109,11 +110,35 @@ describe('the verdict mail', () => {
   it('gives an unreadable log its problems, in both parts, and no figures and no caution', async () => {
     const invalid = await analysed('malformed-rows.csv');
     const mail = mailOf(invalid);
-    expect(mail.subject).toBe('[Bellkeep] INVALID · Fen link · run 418');
+    expect(mail.subject).toBe('[Bellkeep] INVALID · Fen link · run 418 · unbooked');
     expect(mail.text).not.toContain('Figures:');
     expect(mail.text).not.toContain(COLLECTIVE_ATTACK_CAUTION);
     const problems = `The log has ${formatCount(invalid.errorCount)} problem(s); the first: ${invalid.errors[0].message}`;
     expect(mail.text).toContain(problems);
     expect(decoded(mail.html)).toContain(`<p>${problems}</p>`);
+  });
+
+  it('says a run is unbooked, with the caution that its seed came after the data, and flags a replay', () => {
+    const mail = composeVerdictMail({ ...finishedRun(accepted), replayOf: 12 }, 'https://bellkeep.example', ['night-desk@kestrelfen.example']);
+    expect(mail.text).toContain(`Unbooked:\n  - ${UNBOOKED_CAUTION}\n  - Replay: these bytes were uploaded before as run 12`);
+  });
+
+  it('names a replacement as attempt k of its booking, with its reason, the other attempts, the notes and a link to the sign-off', () => {
+    const booking: RunBookingDto = {
+      bookingId: 31, night: '2025-03-13', seedCommitment: 'ab'.repeat(32), attempt: 2, replacementReason: 'The first copy was cut short.',
+      attempts: [
+        { runId: 417, attempt: 1, state: 'aborted', verdict: 'ABORT', replacementReason: '', createdAt: '2025-03-14T05:00:00.000Z' },
+        { runId: 418, attempt: 2, state: 'accepted', verdict: 'ACCEPT', replacementReason: 'The first copy was cut short.', createdAt: '2025-03-14T05:02:11.000Z' },
+      ],
+    };
+    const mail = composeVerdictMail({ ...finishedRun(accepted), bookingId: 31, attempt: 2, booking, notes: 'Detector B re-cooled at 23:10.' }, 'https://bellkeep.example', ['night-desk@kestrelfen.example']);
+    expect(mail.subject).toBe('[Bellkeep] ACCEPT · Fen link · run 418 · attempt 2');
+    expect(mail.text).toContain('Booked night 2025-03-13 (booking 31): attempt 2 of 2.');
+    expect(mail.text).toContain(`Seed committed at booking, before acquisition: SHA-256 ${'ab'.repeat(32)}.`);
+    expect(mail.text).toContain('Replaces the earlier log: The first copy was cut short.');
+    expect(mail.text).toContain('Other attempts: 1 — run 417, ABORT.');
+    expect(mail.text).toContain('Uploader’s notes: Detector B re-cooled at 23:10.');
+    expect(mail.text).toContain('Sign it off: https://bellkeep.example/runs/418#sign-off');
+    expect(decoded(mail.html)).toContain('<li>Booked night 2025-03-13 (booking 31): attempt 2 of 2.</li>');
   });
 });

@@ -7,7 +7,9 @@ import request from 'supertest';
 import { canonicalJson } from '../../shared/analysis/canonical-json';
 import { resultFingerprint } from '../../shared/analysis/node';
 import type { AnalysisResult } from '../../shared/analysis/result';
-import type { AuditPageDto, ReverificationDto, RunDto, RunReportDto, SigningKeyDto, VerificationDto } from '../../shared/api';
+import type { AuditPageDto, BookingDto, ReverificationDto, RunDto, RunReportDto, SigningKeyDto, VerificationDto } from '../../shared/api';
+import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
+import { writeModelLog } from '../../fixtures/model-log-file';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { PROJECT_ROOT } from '../../server/config/config';
 import { signingKeyFromPem } from '../../server/integrity/signing-key';
@@ -181,6 +183,21 @@ describe('signed results, integrity checks, re-verification and exports', () => 
     expect(runVerify(reportFile).status).toBe(2);
   }, 120_000);
 
+  it('an admin may re-analyse with another seed, never replacing the verdict; an auditor may not choose a seed', async () => {
+    const run = await analysed('drifting-run.csv');
+    const seed = 'c3'.repeat(32);
+    await request(testApp.app).post(`/api/runs/${run.id}/reverifications`).set(bearer('sami')).send({ seed }).expect(403);
+    await request(testApp.app).post(`/api/runs/${run.id}/reverifications`).set(bearer('maren')).send({ seed: 'not hex' }).expect(400);
+    const queued = (await request(testApp.app).post(`/api/runs/${run.id}/reverifications`).set(bearer('maren')).send({ seed }).expect(201)).body as ReverificationDto;
+    expect(queued.seed).toBe(seed);
+    const done = await waitForReverification(run.id, queued.id);
+    expect(done.state).toBe('differs');
+    expect(done.newFingerprint).not.toBe(queued.storedFingerprint);
+    expect((await testApp.database.models.Reverification.findByPk(queued.id))!.result).toMatchObject({ seed });
+    const after = (await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('sami')).expect(200)).body as RunDto;
+    expect({ verdict: after.verdict, result: after.result, seed: after.seed }).toEqual({ verdict: run.verdict, result: run.result, seed: run.seed });
+  }, 90_000);
+
   it('exports the counts and blocks as CSV that add up to the result, and records every export', async () => {
     const run = await analysed('accepted-run.csv');
     const result = run.result as unknown as AnalysisResult;
@@ -246,4 +263,33 @@ describe('signed results, integrity checks, re-verification and exports', () => 
       await new Promise((resolve) => setTimeout(resolve, 200));
     }
   }
+
+  // Last: from here on the Fen link has an open booking, which every upload without a date joins.
+  it('a booked run’s report checks the revealed seed against the commitment published at booking', async () => {
+    const log = path.join(scratch, 'booked-night.csv');
+    await writeModelLog(log, { ...steadyPair, rounds: 20_000 }, FIXTURE_SEED.slice(0, 60) + 'b00c');
+    const now = Date.now();
+    const booking = (
+      await request(testApp.app)
+        .post('/api/bookings')
+        .set(bearer('dev'))
+        .send({ setupId: fenLink, night: '2026-12-04', windowStart: new Date(now - 60_000).toISOString(), windowEnd: new Date(now + 3_600_000).toISOString(), plannedRounds: 20_000 })
+        .expect(201)
+    ).body as BookingDto;
+    const created = (await uploadLog(testApp.app, tokens['dev'], log, { setupId: fenLink, bookingId: booking.id }).expect(201)).body as RunDto;
+    await waitForFinishedRun(testApp.app, tokens['sami'], created.id);
+    const exported = await request(testApp.app).get(`/api/runs/${created.id}/export/json`).set(bearer('sami')).expect(200);
+    const reportFile = path.join(scratch, 'booked-report.json');
+    fs.writeFileSync(reportFile, exported.text);
+    const good = runVerify(reportFile, log);
+    expect(good.stdout).toContain(`✓ The seed matches booking ${booking.id}'s commitment ${booking.seedCommitment}`);
+    expect(good.status).toBe(0);
+
+    // A report claiming another commitment (or, the same, another seed) no longer checks.
+    const forged = path.join(scratch, 'forged-commitment.json');
+    fs.writeFileSync(forged, exported.text.replaceAll(booking.seedCommitment, '0'.repeat(64)));
+    const bad = runVerify(forged, log);
+    expect(bad.stdout).toContain('✗ The seed hashes to');
+    expect(bad.status).toBe(1);
+  }, 120_000);
 });
