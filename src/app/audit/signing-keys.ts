@@ -1,28 +1,26 @@
-import { ClipboardModule } from '@angular/cdk/clipboard';
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { switchMap } from 'rxjs';
 
 import type { SigningKeyDto } from '../../../shared/api';
 import { loaded, type Loaded } from '../api/loaded';
+import { CopyButton } from '../clipboard/copy-button';
 import { AuditApi } from './audit-api';
 
 /** The public keys results are signed with, each to copy for checking a report away from Bellkeep. */
 @Component({
   selector: 'bk-signing-keys',
-  imports: [ClipboardModule, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [CopyButton, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './signing-keys.html',
   styleUrl: './signing-keys.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SigningKeys {
   private readonly auditApi = inject(AuditApi);
-  private readonly snackBar = inject(MatSnackBar);
 
   private readonly reload = signal(0);
   protected readonly keys = toSignal(toObservable(this.reload).pipe(switchMap(() => loaded(this.auditApi.signingKeys()))), {
@@ -39,13 +37,5 @@ export class SigningKeys {
 
   protected retry(): void {
     this.reload.update((attempt) => attempt + 1);
-  }
-
-  protected announceCopy(copied: boolean, key: SigningKeyDto): void {
-    this.snackBar.open(
-      copied ? `Public key ${key.keyId} copied.` : `The key could not be copied: select its text and copy it by hand.`,
-      'Close',
-      { duration: 4000 },
-    );
   }
 }
