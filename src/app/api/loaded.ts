@@ -18,3 +18,13 @@ export function loaded<T>(source: Observable<T>): Observable<Loaded<T>> {
 export function pageContents<T>(page: Loaded<{ items: T[]; total: number }>): { rows: T[]; total: number } {
   return page.status === 'ready' ? { rows: page.value.items, total: page.value.total } : { rows: [], total: 0 };
 }
+
+/** The value once it is there; null while loading or after a failure. */
+export function readyValue<T>(state: Loaded<T>): T | null {
+  return state.status === 'ready' ? state.value : null;
+}
+
+/** The failure's sentence; empty while loading or once the value is there. */
+export function failureMessage(state: Loaded<unknown>): string {
+  return state.status === 'failed' ? state.message : '';
+}

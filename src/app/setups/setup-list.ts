@@ -12,13 +12,14 @@ import type { SetupDto } from '../../../shared/api';
 import { loaded, type Loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';
+import { SetupFacts } from './setup-facts';
 import { SetupTrendChart } from './setup-trend-chart';
 import { SetupsApi } from './setups-api';
 
 /** The setups, each with its shift leads and the trend of its nightly runs; admins edit them. */
 @Component({
   selector: 'bk-setup-list',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, SetupTrendChart],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, SetupFacts, SetupTrendChart],
   templateUrl: './setup-list.html',
   styleUrl: './setup-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

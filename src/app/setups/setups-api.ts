@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { SaveSetupRequest, SetupDto } from '../../../shared/api';
+import type { CreatedUploadTokenDto, CreateUploadTokenRequest, SaveSetupRequest, SetupDto, UploadTokenDto } from '../../../shared/api';
 
 /** The client of the API's setups area. */
 @Injectable({ providedIn: 'root' })
@@ -27,5 +27,20 @@ export class SetupsApi {
   /** Replaces a setup's details and shift leads (admin). */
   update(id: number, request: SaveSetupRequest): Observable<SetupDto> {
     return this.http.put<SetupDto>(`/api/setups/${id}`, request);
+  }
+
+  /** The setup's upload tokens, newest first, never the tokens themselves (admin or the setup's shift lead). */
+  uploadTokens(setupId: number): Observable<UploadTokenDto[]> {
+    return this.http.get<UploadTokenDto[]>(`/api/setups/${setupId}/upload-tokens`);
+  }
+
+  /** Makes an upload token for the setup's acquisition computer; the answer holds the token, this once. */
+  createUploadToken(setupId: number, request: CreateUploadTokenRequest): Observable<CreatedUploadTokenDto> {
+    return this.http.post<CreatedUploadTokenDto>(`/api/setups/${setupId}/upload-tokens`, request);
+  }
+
+  /** Revokes an upload token: it stops working at once. */
+  revokeUploadToken(setupId: number, tokenId: number): Observable<UploadTokenDto> {
+    return this.http.post<UploadTokenDto>(`/api/setups/${setupId}/upload-tokens/${tokenId}/revoke`, null);
   }
 }

@@ -3,5 +3,12 @@ import { Routes } from '@angular/router';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
 
 export const setupsRoutes: Routes = [
-  { path: '', title: 'Setups · Bellkeep', providers: CHART_PROVIDERS, loadComponent: () => import('./setup-list').then((m) => m.SetupList) },
+  {
+    path: '',
+    providers: CHART_PROVIDERS,
+    children: [
+      { path: '', title: 'Setups · Bellkeep', loadComponent: () => import('./setup-list').then((m) => m.SetupList) },
+      { path: ':id', title: 'Setup · Bellkeep', loadComponent: () => import('./setup-page').then((m) => m.SetupPage) },
+    ],
+  },
 ];

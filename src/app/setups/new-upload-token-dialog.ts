@@ -1,0 +1,74 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+
+import type { CreatedUploadTokenDto, SetupDto } from '../../../shared/api';
+import { apiErrorMessage } from '../api/api-error-message';
+import { CopyButton } from '../clipboard/copy-button';
+import { SetupsApi } from './setups-api';
+
+/** The longest validity the server takes, in days. */
+const LONGEST_VALIDITY_DAYS = 366;
+
+/**
+ * Makes an upload token for a setup's acquisition computer, then shows it this once with a copy
+ * button: the server keeps only its hash. Closes with the token's listing once it is made.
+ */
+@Component({
+  selector: 'bk-new-upload-token-dialog',
+  imports: [CopyButton, DatePipe, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
+  templateUrl: './new-upload-token-dialog.html',
+  styleUrl: './new-upload-token-dialog.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class NewUploadTokenDialog {
+  private readonly setupsApi = inject(SetupsApi);
+  private readonly dialogRef = inject<MatDialogRef<NewUploadTokenDialog, CreatedUploadTokenDto>>(MatDialogRef);
+  private readonly destroyRef = inject(DestroyRef);
+
+  protected readonly setup = inject<SetupDto>(MAT_DIALOG_DATA);
+  protected readonly longestValidity = LONGEST_VALIDITY_DAYS;
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    name: ['', [Validators.required, Validators.maxLength(120)]],
+    validDays: [90, [Validators.required, Validators.min(1), Validators.max(LONGEST_VALIDITY_DAYS)]],
+  });
+  protected readonly saving = signal(false);
+  protected readonly failure = signal('');
+  /** The token once made: shown here and nowhere else, ever. */
+  protected readonly created = signal<CreatedUploadTokenDto | null>(null);
+
+  protected createToken(): void {
+    if (this.form.invalid || this.saving()) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const { name, validDays } = this.form.getRawValue();
+    this.saving.set(true);
+    this.failure.set('');
+    this.setupsApi
+      .createUploadToken(this.setup.id, { name: name.trim(), validDays })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (created) => {
+          this.saving.set(false);
+          this.created.set(created);
+          // Neither Escape nor a click outside closes it now: the token is gone once the dialog is.
+          this.dialogRef.disableClose = true;
+        },
+        error: (error: unknown) => {
+          this.saving.set(false);
+          this.failure.set(apiErrorMessage(error));
+        },
+      });
+  }
+
+  protected finish(): void {
+    this.dialogRef.close(this.created() ?? undefined);
+  }
+}
