@@ -9,6 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { FINISHED_STATES, type RunDto, type SetupDto, type SignOffDto } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
+import { leadsSetup } from '../setups/setup-lead';
 import { RunsApi } from './runs-api';
 
 /** The shift lead's sign-off of a run: the form for a lead of its setup, the recorded sign-off for everyone. */
@@ -35,10 +36,7 @@ export class SignOffPanel {
 
   protected readonly finished = computed(() => FINISHED_STATES.includes(this.run().state));
   /** Whether the signed-in user leads the run's setup. */
-  protected readonly leadsSetup = computed(() => {
-    const userId = this.session.user()?.id;
-    return this.session.hasAnyRole(['shift-lead']) && (this.setup()?.shiftLeads.some((lead) => lead.id === userId) ?? false);
-  });
+  protected readonly leadsSetup = computed(() => leadsSetup(this.session.user(), this.setup()));
   protected readonly leadNames = computed(() => this.setup()?.shiftLeads.map((lead) => lead.name).join(', ') || 'a shift lead');
 
   protected signOffRun(): void {
