@@ -4,6 +4,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 
@@ -282,6 +283,26 @@ describe('PlannerPage', () => {
     // The setup's uneven settings change the key, so the plan shows whether they were used.
     expect(expected.at.expectedFiniteKeyBits).not.toBe(fair.at.expectedFiniteKeyBits);
     expect(text('plan-key-bits')).toContain(`${formatCount(expected.at.expectedFiniteKeyBits)} bits`);
+  });
+
+  it('books the chosen setup’s night with the plan’s rounds', async () => {
+    const bookButton = () => host.querySelector<HTMLButtonElement>('[data-testid="book-night"]')!;
+    expect(bookButton().disabled).toBe(true);
+    expect(text('planner-book-hint')).toBe('Choose a setup to book its night.');
+
+    await choose('setupId', 'Fen link');
+    const prefill: PlanPrefillDto = { setupId: 2, profileVersionId: 12, runIds: [], winFraction: 0.84, qber: 0.02, xZeroProbability: null, rounds: 1_800_000 };
+    http.expectOne('/api/planner/prefill?setupId=2').flush(prefill);
+    await settle();
+    bookButton().click();
+    await fixture.whenStable();
+    http.expectOne('/api/profiles').flush(profiles);
+    await fixture.whenStable();
+
+    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toBe('Book a night on Fen link');
+    expect(document.querySelector<HTMLInputElement>('[data-testid="book-rounds"]')?.value).toBe(formatCount(1_800_000));
+    await dialog.close();
   });
 
   it('shows the planner’s own sentence when it refuses an input, naming the field', async () => {

@@ -3,6 +3,7 @@ import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-i
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -17,6 +18,7 @@ import { chshValueFromWinFraction, winFractionFromChshValue } from '../../../sha
 import { formatCount, formatFixed, formatPercent, formatScientific } from '../../../shared/format/numbers';
 import { LIKELY_PASS } from '../../../shared/planner/plan-rounds';
 import { loaded, type Loaded } from '../api/loaded';
+import { BookNightDialog, type BookNightData } from '../bookings/book-night-dialog';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { SetupsApi } from '../setups/setups-api';
 import { GeneralPlanRunner } from './general-plan-runner';
@@ -68,6 +70,7 @@ export class PlannerPage {
   private readonly plannerApi = inject(PlannerApi);
   private readonly profilesApi = inject(ProfilesApi);
   private readonly generalPlans = inject(GeneralPlanRunner);
+  private readonly dialog = inject(MatDialog);
 
   protected readonly form = createPlannerForm();
   protected readonly labels = FIELD_LABELS;
@@ -139,7 +142,9 @@ export class PlannerPage {
 
   /** The chosen setup's pooled runs, once asked for; null without a setup. */
   protected readonly prefill = signal<Loaded<PlanPrefillDto> | null>(null);
-  protected readonly prefillSetupName = computed(() => this.setupList().find((setup) => setup.id === this.typed().setupId)?.name ?? 'The setup');
+  /** The chosen setup, whose night "Book this night" books; null while none is chosen. */
+  protected readonly chosenSetup = computed(() => this.setupList().find((setup) => setup.id === this.typed().setupId) ?? null);
+  protected readonly prefillSetupName = computed(() => this.chosenSetup()?.name ?? 'The setup');
 
   constructor() {
     const { controls } = this.form;
@@ -160,6 +165,15 @@ export class PlannerPage {
       if (this.needsTestFraction()) controls.testFractionPercent.enable();
       else controls.testFractionPercent.disable();
     });
+  }
+
+  /** Opens the booking of tonight on the chosen setup, with the rounds of the plan (or as typed). */
+  protected bookNight(): void {
+    const setup = this.chosenSetup();
+    if (setup === null) return;
+    const outcome = this.outcome();
+    const plannedRounds = outcome.status === 'ready' ? outcome.plan.at.rounds : parseRoundCount(this.typed().rounds);
+    this.dialog.open<BookNightDialog, BookNightData>(BookNightDialog, { data: { setup, plannedRounds }, maxWidth: '96vw' });
   }
 
   protected showDeviceAs(measure: DeviceMeasure): void {
