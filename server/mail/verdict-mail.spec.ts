@@ -1,6 +1,6 @@
 import type { AnalysisResult } from '../../shared/analysis/result';
 import { STATE_OF_VERDICT, type RunBookingDto, type RunDto } from '../../shared/api';
-import { UNBOOKED_CAUTION } from '../../shared/format/booking-words';
+import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '../../shared/format/booking-words';
 import { formatCount, formatScientific } from '../../shared/format/numbers';
 import { SEED } from '../../tests/cli/run-analyse';
 import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '../../tests/support/fixture-results';
@@ -136,6 +136,7 @@ describe('the verdict mail', () => {
     expect(mail.text).toContain('Booked night 2025-03-13 (booking 31): attempt 2 of 2.');
     expect(mail.text).toContain(`Seed committed at booking, before acquisition: SHA-256 ${'ab'.repeat(32)}.`);
     expect(mail.text).toContain('Replaces the earlier log: The first copy was cut short.');
+    expect(mail.text).toContain(REVEALED_SEED_CAUTION);
     expect(mail.text).toContain('Other attempts: 1 — run 417, ABORT.');
     expect(mail.text).toContain('Uploader’s notes: Detector B re-cooled at 23:10.');
     expect(mail.text).toContain('Sign it off: https://bellkeep.example/runs/418#sign-off');

@@ -13,6 +13,10 @@ export interface BookingWords {
 /** The unbooked caution, word for word everywhere a run is shown. */
 export const UNBOOKED_CAUTION = 'Unbooked: the seed that chose the test rounds was drawn at upload, after the data existed.';
 
+/** The caution of a replacement: its log came after the seed was revealed. */
+export const REVEALED_SEED_CAUTION =
+  'This log came after the seed was revealed with the first attempt: whoever wrote it could know which rounds would be tested. Judge the replacement with that in mind.';
+
 /** The words of a run's booking for the run page, the mail and the PDF. */
 export function bookingWords(run: Pick<RunDto, 'id' | 'booking' | 'replayOf'>): BookingWords {
   const replay = run.replayOf === null ? [] : [`Replay: these bytes were uploaded before as run ${run.replayOf}, under another booking or night.`];
@@ -24,7 +28,13 @@ export function bookingWords(run: Pick<RunDto, 'id' | 'booking' | 'replayOf'>): 
     headline: `Booked night ${booking.night} (booking ${booking.bookingId}): attempt ${booking.attempt} of ${booking.attempts.length}.`,
     details: [
       `Seed committed at booking, before acquisition: SHA-256 ${booking.seedCommitment}.`,
-      ...(booking.attempt > 1 ? [`Replaces the earlier log: ${booking.replacementReason}`] : []),
+      ...(booking.attempt > 1
+        ? [
+            `Replaces the earlier log: ${booking.replacementReason}`,
+            // The seed was revealed with attempt 1, so this log may have been written knowing its test rounds.
+            REVEALED_SEED_CAUTION,
+          ]
+        : []),
       ...(earlier.length > 0
         ? [`Other attempts: ${earlier.map((attempt) => `${attempt.attempt} — run ${attempt.runId}, ${attempt.verdict ?? attempt.state}`).join('; ')}.`]
         : []),
