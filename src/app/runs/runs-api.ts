@@ -1,4 +1,4 @@
-import { HttpClient, HttpEvent } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable, switchMap, takeWhile, timer } from 'rxjs';
 
@@ -16,7 +16,6 @@ import {
   type Verdict,
   type VerificationDto,
 } from '../../../shared/api';
-import type { ColumnMapping } from '../../../shared/analysis/log/column-mapping';
 import { FileDownloads } from '../api/download';
 import { queryParams } from '../api/query-params';
 
@@ -52,17 +51,6 @@ export interface RunQuery {
   fingerprint?: string | null;
 }
 
-/** What an experimentalist sends with a log. */
-export interface UploadRequest {
-  log: File;
-  setupId: number;
-  mapping: ColumnMapping;
-  /** Names this upload attempt: a repeat of the request with the same key makes no second run. */
-  idempotencyKey: string;
-  acquiredOn?: string | null;
-  notes?: string | null;
-}
-
 /** The client of the API's runs area. */
 @Injectable({ providedIn: 'root' })
 export class RunsApi {
@@ -85,18 +73,6 @@ export class RunsApi {
       switchMap(() => this.get(id)),
       takeWhile((run) => !FINISHED_STATES.includes(run.state), true),
     );
-  }
-
-  /** Uploads a log with its setup and mapping (the setup's profile judges it); the events carry the upload progress. */
-  upload(request: UploadRequest): Observable<HttpEvent<RunDto>> {
-    const form = new FormData();
-    form.append('setupId', String(request.setupId));
-    form.append('mapping', JSON.stringify(request.mapping));
-    if (request.acquiredOn) form.append('acquiredOn', request.acquiredOn);
-    if (request.notes) form.append('notes', request.notes);
-    // The file goes last: the server reads the fields before the log's bytes.
-    form.append('log', request.log, request.log.name);
-    return this.http.post<RunDto>('/api/runs', form, { reportProgress: true, observe: 'events', headers: { 'Idempotency-Key': request.idempotencyKey } });
   }
 
   /** What happened to the run, oldest first. */

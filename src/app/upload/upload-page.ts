@@ -1,6 +1,6 @@
-import { HttpEventType } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,19 +9,23 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { catchError, filter, map, of, startWith, switchMap, tap } from 'rxjs';
+import { catchError, filter, map, of, switchMap } from 'rxjs';
 
-import { FINISHED_STATES, type ProfileDto, type RunDto, type SetupDto } from '../../../shared/api';
+import { FINISHED_STATES, type BookingDto, type ProfileDto, type RunDto, type SetupDto } from '../../../shared/api';
 import { OUTCOME_ENCODINGS, type ColumnMapping, type OutcomeEncoding } from '../../../shared/analysis/log/column-mapping';
 import { FIELD_MEANING, ROUND_FIELDS, type RoundField } from '../../../shared/analysis/log/round-fields';
 import { formatCount } from '../../../shared/format/numbers';
 import { apiErrorMessage } from '../api/api-error-message';
-import { loaded, type Loaded } from '../api/loaded';
+import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
+import { BookingsApi } from '../bookings/bookings-api';
+import { profileVersionOptions, takesTestRoundsFromLog } from '../planner/profile-versions';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { RunsApi } from '../runs/runs-api';
 import { VerdictBanner } from '../runs/verdict-banner';
 import { SetupsApi } from '../setups/setups-api';
+import { openBookings, replacementIn } from './booking-choice';
 import { guessMapping, headerNames, previewLog, readLogSample, type LogSample } from './log-preview';
+import { ResumableUploads } from './resumable-uploads';
 
 /** Where the upload is. */
 type UploadPhase = 'choosing' | 'uploading' | 'analysing' | 'finished';
@@ -30,13 +34,14 @@ type UploadPhase = 'choosing' | 'uploading' | 'analysing' | 'finished';
 type MappingControls = Record<RoundField, FormControl<string | null>> & { outcomes: FormControl<OutcomeEncoding> };
 
 /**
- * Uploading a night's log: setup and profile, the file (dropped or picked, plain or gzip), its first
- * rows read in the browser under an editable column mapping, then the upload's progress and the
- * analysis's progress up to the verdict.
+ * Uploading a night's log: setup, the booking it joins (and why it replaces the night's earlier log),
+ * the file (dropped or picked, plain or gzip), its first rows read in the browser under an editable
+ * column mapping, then the resumable upload's progress and the analysis's progress up to the verdict.
  */
 @Component({
   selector: 'bk-upload-page',
   imports: [
+    DatePipe,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
@@ -53,6 +58,8 @@ type MappingControls = Record<RoundField, FormControl<string | null>> & { outcom
 })
 export class UploadPage {
   private readonly runsApi = inject(RunsApi);
+  private readonly bookingsApi = inject(BookingsApi);
+  private readonly uploads = inject(ResumableUploads);
   private readonly destroyRef = inject(DestroyRef);
 
   protected readonly fields = ROUND_FIELDS.map((field) => ({ field, meaning: FIELD_MEANING[field] }));
@@ -60,10 +67,14 @@ export class UploadPage {
 
   protected readonly form = new FormGroup({
     setupId: new FormControl<number | null>(null, Validators.required),
-    // Shown, never chosen: a run is judged under its setup's profile (the server refuses another).
-    profileId: new FormControl<number | null>({ value: null, disabled: true }),
-    acquiredOn: new FormControl(''),
-    notes: new FormControl('', Validators.maxLength(4000)),
+    // The booking the log joins; null only when the setup has none open (the run is then unbooked).
+    bookingId: new FormControl<number | null>(null),
+    // Asked for, and required, when the chosen booking has a log already.
+    replacementReason: new FormControl('', { nonNullable: true, validators: Validators.maxLength(2000) }),
+    // Shown, never chosen: a run is judged under its booking's profile, or its setup's (the server refuses another).
+    profileVersionId: new FormControl<number | null>({ value: null, disabled: true }),
+    acquiredOn: new FormControl('', { nonNullable: true }),
+    notes: new FormControl('', { nonNullable: true, validators: Validators.maxLength(4000) }),
   });
   protected readonly mapping = new FormGroup<MappingControls>({
     ...(Object.fromEntries(ROUND_FIELDS.map((field) => [field, new FormControl<string | null>(null)])) as Record<RoundField, FormControl<string | null>>),
@@ -72,22 +83,36 @@ export class UploadPage {
 
   protected readonly setups = toSignal(loaded(inject(SetupsApi).list()), { initialValue: { status: 'loading' } as Loaded<SetupDto[]> });
   protected readonly profiles = toSignal(loaded(inject(ProfilesApi).list()), { initialValue: { status: 'loading' } as Loaded<ProfileDto[]> });
-  protected readonly setupList = computed(() => {
-    const setups = this.setups();
-    return setups.status === 'ready' ? setups.value : [];
-  });
-  protected readonly profileList = computed(() => {
-    const profiles = this.profiles();
-    return profiles.status === 'ready' ? profiles.value : [];
-  });
+  protected readonly setupList = computed(() => readyValue(this.setups()) ?? []);
+  protected readonly versions = computed(() => profileVersionOptions(readyValue(this.profiles()) ?? []));
 
-  private readonly profileId = toSignal(this.form.controls.profileId.valueChanges.pipe(startWith(null)));
-  /** Whether the chosen profile takes its test rounds from the log's own `test` column. */
-  protected readonly needsTestColumn = computed(() => {
-    const profile = this.profileList().find((candidate) => candidate.id === this.profileId());
-    const latest = profile?.versions.find((version) => version.id === profile.latestVersionId);
-    return (latest?.parameters['testSelection'] as { mode?: string } | undefined)?.mode === 'from-log';
+  protected readonly setupId = toSignal(this.form.controls.setupId.valueChanges, { initialValue: null });
+  private readonly bookingId = toSignal(this.form.controls.bookingId.valueChanges, { initialValue: null });
+  /** Asks for the setup's bookings again after an upload, which added an attempt to one. */
+  private readonly reloadBookings = signal(0);
+  /** The chosen setup's bookings (none before a setup is chosen). */
+  private readonly bookings = toSignal(
+    toObservable(computed(() => ({ setupId: this.setupId(), attempt: this.reloadBookings() }))).pipe(
+      switchMap(({ setupId }) => (setupId === null ? of<Loaded<BookingDto[]>>({ status: 'ready', value: [] }) : loaded(this.bookingsApi.list(setupId)))),
+    ),
+    { initialValue: { status: 'ready', value: [] } as Loaded<BookingDto[]> },
+  );
+  protected readonly bookingsLoading = computed(() => this.bookings().status === 'loading');
+  protected readonly bookingsFailure = computed(() => failureMessage(this.bookings()));
+  /** The bookings the log can join now, latest window first. */
+  protected readonly openBookingList = computed(() => openBookings(readyValue(this.bookings()) ?? [], new Date()));
+  protected readonly chosenBooking = computed(() => this.openBookingList().find((booking) => booking.id === this.bookingId()) ?? null);
+  /** The night's log this upload would replace, if the chosen booking has one. */
+  protected readonly replacement = computed(() => replacementIn(this.chosenBooking()));
+
+  /** The profile version that judges the run: the booking's, or the setup's latest. */
+  private readonly judgingVersionId = computed(() => {
+    const setup = this.setupList().find((candidate) => candidate.id === this.setupId());
+    const setupProfile = readyValue(this.profiles())?.find((profile) => profile.id === setup?.defaultProfileId);
+    return this.chosenBooking()?.profileVersionId ?? setupProfile?.latestVersionId ?? null;
   });
+  /** Whether that version takes its test rounds from the log's own `test` column. */
+  protected readonly needsTestColumn = computed(() => takesTestRoundsFromLog(this.versions().find((version) => version.id === this.judgingVersionId())));
 
   protected readonly file = signal<File | null>(null);
   protected readonly sample = signal<LogSample | null>(null);
@@ -121,10 +146,29 @@ export class UploadPage {
   protected readonly count = formatCount;
 
   constructor() {
-    // A setup brings its profile, which judges the run.
-    this.form.controls.setupId.valueChanges.pipe(takeUntilDestroyed()).subscribe((setupId) => {
-      const setup = this.setupList().find((candidate) => candidate.id === setupId);
-      if (setup) this.form.controls.profileId.setValue(setup.defaultProfileId);
+    const { bookingId, replacementReason, profileVersionId, acquiredOn } = this.form.controls;
+    // The booking the server would pick is chosen; "unbooked" is there only when none is open.
+    effect(() => {
+      const first = this.openBookingList()[0]?.id ?? null;
+      untracked(() => bookingId.setValue(first));
+    });
+    effect(() => {
+      const booking = this.chosenBooking();
+      const replacing = this.replacement() !== null;
+      const versionId = this.judgingVersionId();
+      untracked(() => {
+        profileVersionId.setValue(versionId);
+        replacementReason.setValidators(replacing ? [Validators.required, Validators.maxLength(2000)] : Validators.maxLength(2000));
+        replacementReason.updateValueAndValidity();
+        // A booked log is of its booking's night: the server refuses another date.
+        if (booking) {
+          acquiredOn.setValue(booking.night);
+          acquiredOn.disable();
+        } else if (acquiredOn.disabled) {
+          acquiredOn.reset('');
+          acquiredOn.enable();
+        }
+      });
     });
   }
 
@@ -162,26 +206,27 @@ export class UploadPage {
     const file = this.file();
     // A second click before the page shows the upload must not send the log again.
     if (this.phase() !== 'choosing') return;
-    const { setupId, acquiredOn, notes } = this.form.getRawValue();
-    if (this.form.invalid || file === null || setupId === null || !this.preview()?.ok) {
+    const { setupId, bookingId, replacementReason, acquiredOn, notes } = this.form.getRawValue();
+    if (this.form.invalid || file === null || setupId === null || !this.preview()?.ok || this.bookingsLoading()) {
       this.form.markAllAsTouched();
       return;
     }
     this.phase.set('uploading');
     this.uploaded.set(0);
     this.failure.set('');
-    this.runsApi
-      .upload({ log: file, setupId, mapping: this.columnMapping(), acquiredOn, notes, idempotencyKey: crypto.randomUUID() })
+    this.uploads
+      .send({ log: file, setupId, mapping: this.columnMapping(), bookingId, replacementReason, acquiredOn: bookingId === null ? acquiredOn : '', notes })
       .pipe(
-        tap((event) => {
-          if (event.type === HttpEventType.UploadProgress) this.uploaded.set(event.total ? event.loaded / event.total : 0);
-        }),
-        filter((event) => event.type === HttpEventType.Response),
-        switchMap((event) => {
+        switchMap((progress) => {
+          if (progress.kind === 'sending') {
+            this.uploaded.set(progress.fraction);
+            return of(null);
+          }
           this.uploaded.set(1);
           this.phase.set('analysing');
-          return this.runsApi.watch(event.body!.id);
+          return this.runsApi.watch(progress.run.id);
         }),
+        filter((run) => run !== null),
         catchError((error: unknown) => {
           this.failure.set(apiErrorMessage(error));
           this.phase.set('choosing');
@@ -202,6 +247,8 @@ export class UploadPage {
     this.file.set(null);
     this.sample.set(null);
     this.form.controls.notes.reset('');
-    this.form.controls.acquiredOn.reset('');
+    this.form.controls.replacementReason.reset('');
+    if (this.form.controls.acquiredOn.enabled) this.form.controls.acquiredOn.reset('');
+    this.reloadBookings.update((attempt) => attempt + 1);
   }
 }

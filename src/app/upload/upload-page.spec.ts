@@ -1,0 +1,188 @@
+import { HttpErrorResponse, provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { MatSelectHarness } from '@angular/material/select/testing';
+import { provideRouter } from '@angular/router';
+import { Subject } from 'rxjs';
+
+import type { BookingDto, ProfileDto, RunDto, SetupDto } from '../../../shared/api';
+import { ResumableUploads, type UploadProgress } from './resumable-uploads';
+import type { LogUpload } from './upload-metadata';
+import { UploadPage } from './upload-page';
+
+const setups: SetupDto[] = [
+  {
+    id: 2,
+    name: 'Fen link',
+    description: '',
+    stationALabel: 'North Hall',
+    stationBLabel: 'Mill Lane',
+    defaultProfileId: 1,
+    defaultProfileName: 'Nightly standard',
+    shiftLeads: [],
+    extraRecipients: [],
+    createdAt: '2026-11-01T08:00:00Z',
+  },
+];
+
+const version = (id: number, profileId: number, number: number) => ({ id, profileId, version: number, parameters: {}, note: '', createdBy: 'Maren Holt', createdAt: '2026-11-20T08:00:00Z', usedByRuns: 0 });
+const profiles: ProfileDto[] = [
+  { id: 1, name: 'Nightly standard', description: '', latestVersionId: 12, createdAt: '2026-11-01T08:00:00Z', versions: [version(12, 1, 2), version(11, 1, 1)] },
+];
+
+const hour = 3_600_000;
+/** A booking of last night, its window closed two hours ago; with a log as run 41 when `runIds` says so. */
+function lastNight(runIds: number[] = []): BookingDto {
+  return {
+    id: 7,
+    setupId: 2,
+    setupName: 'Fen link',
+    night: '2027-03-14',
+    windowStart: new Date(Date.now() - 12 * hour).toISOString(),
+    windowEnd: new Date(Date.now() - 2 * hour).toISOString(),
+    plannedRounds: 2_000_000,
+    profileVersionId: 11,
+    profileName: 'Nightly standard',
+    profileVersion: 1,
+    profileReason: 'Tolerance kept from last week.',
+    seedCommitment: '777ddf8cec451a4bdc78edf2e608beeaa3a6b5faa240f5c2edae085b77d51ee6',
+    seed: null,
+    bookedBy: 'Dev Okafor',
+    createdAt: '2027-03-14T08:00:00Z',
+    attempts: runIds.map((runId, index) => ({ runId, attempt: index + 1, state: 'aborted', verdict: 'ABORT', replacementReason: '', createdAt: '2027-03-15T06:00:00Z' })),
+  };
+}
+
+const LOG = 'round,x,y,a,b\n1,0,1,0,0\n2,1,1,1,0\n3,0,0,1,1\n';
+
+describe('UploadPage', () => {
+  let http: HttpTestingController;
+  let fixture: ComponentFixture<UploadPage>;
+  let loader: HarnessLoader;
+  let host: HTMLElement;
+  let sent: LogUpload[];
+  let progress: Subject<UploadProgress>;
+
+  beforeEach(async () => {
+    sent = [];
+    progress = new Subject();
+    const uploads: Pick<ResumableUploads, 'send'> = {
+      send: (log) => {
+        sent.push(log);
+        return progress;
+      },
+    };
+    TestBed.configureTestingModule({
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        { provide: ResumableUploads, useValue: uploads },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(UploadPage);
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    host = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    http.expectOne('/api/setups').flush(setups);
+    http.expectOne('/api/profiles').flush(profiles);
+    await fixture.whenStable();
+  });
+
+  afterEach(() => http.verify());
+
+  const select = (testId: string) => loader.getHarness(MatSelectHarness.with({ selector: `[data-testid="${testId}"]` }));
+  const text = (testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+
+  /** Chooses Fen link, answers its bookings, and picks the log. */
+  async function prepare(bookings: BookingDto[]): Promise<void> {
+    const setup = await select('setup-select');
+    await setup.open();
+    await setup.clickOptions({ text: 'Fen link' });
+    http.expectOne('/api/bookings?setupId=2').flush(bookings);
+    await fixture.whenStable();
+    await (fixture.componentInstance as unknown as { chooseLog(file: File): Promise<void> }).chooseLog(new File([LOG], 'night-14.csv'));
+    await fixture.whenStable();
+  }
+
+  const clickUpload = async () => {
+    host.querySelector<HTMLButtonElement>('[data-testid="upload-button"]')!.click();
+    await fixture.whenStable();
+  };
+
+  it('joins the booking open now, judged under its profile on its night', async () => {
+    await prepare([lastNight()]);
+    const booking = await select('booking-select');
+    expect(await booking.getValueText()).toBe('Night of 14 Mar 2027 · booking 7');
+    expect(await (await select('profile-select')).getValueText()).toBe('Nightly standard v1');
+    expect(host.querySelector<HTMLInputElement>('input[formControlName="acquiredOn"]')?.disabled).toBe(true);
+    expect(host.querySelector('[data-testid="replacement"]')).toBeNull();
+
+    // A double click: the second lands before the page shows the upload, and sends nothing.
+    const button = host.querySelector<HTMLButtonElement>('[data-testid="upload-button"]')!;
+    button.click();
+    button.click();
+    await fixture.whenStable();
+    expect(sent).toHaveLength(1);
+    expect(sent[0]).toMatchObject({ setupId: 2, bookingId: 7, replacementReason: '', acquiredOn: '' });
+
+    progress.next({ kind: 'sending', fraction: 0.5 });
+    await fixture.whenStable();
+    expect(host.querySelector('[data-testid="upload-progress"]')?.getAttribute('aria-valuenow')).toBe('50');
+    progress.next({ kind: 'done', run: { id: 42, state: 'queued' } as RunDto });
+    progress.complete();
+    // The analysis is followed by polling, whose first request waits for a timer.
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    http.expectOne('/api/runs/42').flush({ id: 42, state: 'accepted', progress: 1, result: null, error: null } as unknown as RunDto);
+    await fixture.whenStable();
+    expect(text('open-run')).toContain('Open run 42');
+    expect(host.querySelector('[data-testid="open-run"]')?.getAttribute('href')).toBe('/runs/42');
+  });
+
+  it('asks why, and says which attempt it will be, when the night has a log already', async () => {
+    await prepare([lastNight([41])]);
+    expect(text('replacement')).toContain('This night already has run 41 (attempt 1); this upload will be attempt 2.');
+
+    await clickUpload();
+    expect(sent).toHaveLength(0);
+    expect(text('replacement')).toContain('Say why the night’s log is replaced.');
+
+    const reason = host.querySelector<HTMLTextAreaElement>('[data-testid="replacement-reason"]')!;
+    reason.value = 'Detector B was saturated; log re-read from the second disk.';
+    reason.dispatchEvent(new Event('input'));
+    await clickUpload();
+    expect(sent[0]).toMatchObject({ bookingId: 7, replacementReason: 'Detector B was saturated; log re-read from the second disk.' });
+  });
+
+  it('offers "unbooked" only when no booking is open, and says what that means', async () => {
+    await prepare([]);
+    const booking = await select('booking-select');
+    await booking.open();
+    expect(await Promise.all((await booking.getOptions()).map((option) => option.getText()))).toEqual(['No booking (unbooked)']);
+    await booking.close();
+    expect(text('unbooked-hint')).toContain('No booking is open: the run will be unbooked');
+    expect(await (await select('profile-select')).getValueText()).toBe('Nightly standard v2');
+
+    const acquiredOn = host.querySelector<HTMLInputElement>('input[formControlName="acquiredOn"]')!;
+    expect(acquiredOn.disabled).toBe(false);
+    acquiredOn.value = '2027-03-10';
+    acquiredOn.dispatchEvent(new Event('input'));
+    await clickUpload();
+    expect(sent[0]).toMatchObject({ bookingId: null, acquiredOn: '2027-03-10' });
+  });
+
+  it('shows the server’s refusal and lets the user try again', async () => {
+    await prepare([lastNight()]);
+    await clickUpload();
+    const message = 'These bytes are already run 40: a log is judged once, under one seed. Upload the night’s own log.';
+    progress.error(new HttpErrorResponse({ status: 409, error: { error: { code: 'conflict', message } } }));
+    await fixture.whenStable();
+    expect(text('upload-failure')).toBe(`The upload was refused. ${message}`);
+    expect(host.querySelector('[data-testid="upload-button"]')).not.toBeNull();
+  });
+});
