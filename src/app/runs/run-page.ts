@@ -1,10 +1,10 @@
-import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { DatePipe, DOCUMENT } from '@angular/common';
+import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, inject, Injector, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { RouterLink } from '@angular/router';
+import { ActivatedRoute, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
 
 import type { AuditEventDto, RunDto, SetupDto, SignOffDto } from '../../../shared/api';
@@ -17,6 +17,7 @@ import { DriftChart } from './drift-chart';
 import { winThresholdOf } from '../../../shared/analysis/report/win-threshold';
 import { criteriaTable } from '../../../shared/analysis/report/criteria-table';
 import { missingRoundsFigures } from './missing-rounds-figures';
+import { RunBooking } from './run-booking';
 import { RunChecks } from './run-checks';
 import { RunExportMenu } from './run-export-menu';
 import { RunFigures } from './run-figures';
@@ -30,6 +31,9 @@ import { SignOffPanel } from './sign-off-panel';
 import { trailDetail, trailWords } from './trail-words';
 import { VerdictBanner } from './verdict-banner';
 
+/** The id of the sign-off panel, and the fragment the verdict mail's link ends in. */
+const SIGN_OFF_ANCHOR = 'sign-off';
+
 /** One run: verdict and why, criteria, setting pairs, figures, charts, security parameters, checks, provenance, integrity, re-verifications, sign-off and trail. */
 @Component({
   selector: 'bk-run-page',
@@ -41,6 +45,7 @@ import { VerdictBanner } from './verdict-banner';
     MatIconModule,
     MatProgressBarModule,
     RouterLink,
+    RunBooking,
     RunChecks,
     RunExportMenu,
     RunFigures,
@@ -115,10 +120,23 @@ export class RunPage {
     { initialValue: { status: 'loading' } as Loaded<AuditEventDto[]> },
   );
 
+  protected readonly signOffAnchor = SIGN_OFF_ANCHOR;
   protected readonly trailWords = trailWords;
   protected readonly trailDetail = trailDetail;
   protected readonly count = formatCount;
   protected readonly fixed = formatFixed;
+
+  constructor() {
+    // The verdict mail links to /runs/N#sign-off: once the run is on screen, its sign-off is shown.
+    const fragment = toSignal(inject(ActivatedRoute).fragment, { initialValue: null });
+    const document = inject(DOCUMENT);
+    const injector = inject(Injector);
+    const scrolled = effect(() => {
+      if (this.run() === null || fragment() !== SIGN_OFF_ANCHOR) return;
+      scrolled.destroy();
+      afterNextRender(() => document.getElementById(SIGN_OFF_ANCHOR)?.scrollIntoView({ block: 'start' }), { injector });
+    });
+  }
 
   protected retry(): void {
     this.reload.update((attempt) => attempt + 1);
