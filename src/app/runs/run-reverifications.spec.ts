@@ -150,4 +150,55 @@ describe('RunReverifications', () => {
     await settle();
     expect(host.querySelector('[role="alert"]')?.textContent).toContain('A re-verification of run 12 is already under way.');
   });
+
+  it('lets an admin re-analyse with a seed drawn in the browser, and says such a row never replaces the verdict', async () => {
+    const host = await showAs(['admin']);
+    http.expectOne(LIST).flush([reproduced]);
+    await settle();
+    host.querySelector<HTMLButtonElement>('[data-testid="open-seed-form"]')!.click();
+    await settle();
+
+    host.querySelector<HTMLButtonElement>('[data-testid="draw-seed"]')!.click();
+    await settle();
+    const drawn = host.querySelector<HTMLInputElement>('[data-testid="seed-input"]')!.value;
+    expect(drawn).toMatch(/^[0-9a-f]{64}$/);
+
+    host.querySelector<HTMLButtonElement>('[data-testid="reverify-with-seed"]')!.click();
+    const request = http.expectOne({ method: 'POST', url: LIST });
+    expect(request.request.body).toEqual({ seed: drawn });
+    const seeded: ReverificationDto = { ...differs, id: 6, seed: drawn, state: 'differs', createdAt: '2027-03-03T10:00:00Z' };
+    request.flush(seeded, { status: 201, statusText: 'Created' });
+    await settle();
+    http.expectOne({ method: 'GET', url: LIST }).flush([seeded, reproduced]);
+    await settle();
+
+    expect(host.querySelector('[data-testid="seed-form"]')).toBeNull();
+    const seedRow = host.querySelector('[data-testid="reverification-seed-6"]')!;
+    expect(seedRow.querySelector('code')?.getAttribute('title')).toBe(drawn);
+    expect(seedRow.textContent).toContain('another seed — never replaces the verdict');
+    expect(host.querySelector('[data-testid="reverification-seed-3"]')).toBeNull();
+  });
+
+  it('asks for 64 hex digits before sending a typed seed', async () => {
+    const host = await showAs(['admin']);
+    http.expectOne(LIST).flush([]);
+    await settle();
+    host.querySelector<HTMLButtonElement>('[data-testid="open-seed-form"]')!.click();
+    await settle();
+    const input = host.querySelector<HTMLInputElement>('[data-testid="seed-input"]')!;
+    input.value = '9f2c4e81';
+    input.dispatchEvent(new Event('input'));
+    host.querySelector<HTMLButtonElement>('[data-testid="reverify-with-seed"]')!.click();
+    await settle();
+    http.expectNone({ method: 'POST', url: LIST });
+    expect(host.querySelector('[data-testid="seed-form"]')?.textContent).toContain('A seed is 64 hexadecimal digits');
+  });
+
+  it('offers another seed to admins only', async () => {
+    const host = await showAs(['auditor']);
+    http.expectOne(LIST).flush([]);
+    await settle();
+    expect(host.querySelector('[data-testid="reverify"]')).not.toBeNull();
+    expect(host.querySelector('[data-testid="open-seed-form"]')).toBeNull();
+  });
 });

@@ -1,8 +1,11 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { startWith, Subject, switchMap } from 'rxjs';
 
@@ -10,6 +13,7 @@ import type { ReverificationDto, Role } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded, type Loaded } from '../api/loaded';
 import { Session } from '../auth/session';
+import { randomSeed, seedValidator } from './another-seed';
 import { lookOfReverification } from './reverification-look';
 import { isReverificationRunning, RunsApi } from './runs-api';
 import { ShortHash } from './short-hash';
@@ -19,11 +23,12 @@ const MAY_REVERIFY: readonly Role[] = ['auditor', 'admin'];
 
 /**
  * Re-analyses of a run's archived log, kept beside the stored result: how each ended and which
- * fields differ. Auditors and admins ask for a new one; the list follows it until it settles.
+ * fields differ. Auditors and admins ask for a new one; admins may also ask for one with another
+ * seed (a fresh draw of test rounds, never replacing the verdict). The list follows it until it settles.
  */
 @Component({
   selector: 'bk-run-reverifications',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, ShortHash],
+  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, ReactiveFormsModule, ShortHash],
   templateUrl: './run-reverifications.html',
   styleUrl: './run-reverifications.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -55,7 +60,12 @@ export class RunReverifications {
     return live.status === 'failed' ? live.message : '';
   });
 
-  protected readonly mayRequest = inject(Session).hasAnyRole(MAY_REVERIFY);
+  private readonly session = inject(Session);
+  protected readonly mayRequest = this.session.hasAnyRole(MAY_REVERIFY);
+  /** Whether the user may re-analyse with another seed: admins only (the server refuses others). */
+  protected readonly mayChooseSeed = this.session.hasAnyRole(['admin']);
+  protected readonly seedFormOpen = signal(false);
+  protected readonly seed = new FormControl('', { nonNullable: true, validators: [Validators.required, seedValidator] });
   protected readonly requesting = signal(false);
   protected readonly requestFailure = linkedSignal({ source: this.runId, computation: () => '' });
   protected readonly running = computed(() => this.reverifications().some(isReverificationRunning));
@@ -70,11 +80,30 @@ export class RunReverifications {
   }
 
   protected requestReverification(): void {
+    this.request(undefined);
+  }
+
+  /** Fills the seed field with a fresh seed drawn in the browser. */
+  protected drawSeed(): void {
+    this.seed.setValue(randomSeed());
+  }
+
+  protected requestWithSeed(): void {
+    if (this.seed.invalid) {
+      this.seed.markAsTouched();
+      return;
+    }
+    this.request(this.seed.value.trim().toLowerCase());
+  }
+
+  private request(seed: string | undefined): void {
     this.requesting.set(true);
     this.requestFailure.set('');
-    this.runsApi.requestReverification(this.runId()).subscribe({
+    this.runsApi.requestReverification(this.runId(), seed).subscribe({
       next: () => {
         this.requesting.set(false);
+        this.seedFormOpen.set(false);
+        this.seed.reset();
         this.requested.next();
       },
       error: (error: unknown) => {

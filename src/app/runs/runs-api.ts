@@ -7,6 +7,7 @@ import {
   type AuditEventDto,
   type ExportFormat,
   type ReverificationDto,
+  type ReverificationRequest,
   type ReverificationState,
   type RunDto,
   type RunPageDto,
@@ -106,9 +107,13 @@ export class RunsApi {
     );
   }
 
-  /** Asks for a re-analysis of the archived log (auditor, admin); it starts queued. */
-  requestReverification(id: number): Observable<ReverificationDto> {
-    return this.http.post<ReverificationDto>(`/api/runs/${id}/reverifications`, null);
+  /**
+   * Asks for a re-analysis of the archived log (auditor, admin); it starts queued. With `seed` (an
+   * admin only), a fresh draw of test rounds that never replaces the verdict.
+   */
+  requestReverification(id: number, seed?: string): Observable<ReverificationDto> {
+    const request: ReverificationRequest | null = seed === undefined ? null : { seed };
+    return this.http.post<ReverificationDto>(`/api/runs/${id}/reverifications`, request);
   }
 
   /** Downloads the run in `format` under the server's file name; emits that name. */
