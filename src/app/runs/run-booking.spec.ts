@@ -87,4 +87,13 @@ describe('RunBooking', () => {
     expect(host.querySelector('li a')?.getAttribute('href')).toBe('/runs/9');
     expect(host.querySelector('[data-testid="commitment-check"]')).toBeNull();
   });
+
+  it('says so when the browser cannot hash (no Web Crypto on a page not served over HTTPS)', async () => {
+    const digest = jest.spyOn(crypto.subtle, 'digest').mockRejectedValue(new TypeError('crypto.subtle is undefined'));
+    const host = await show(runWith({ booking }));
+    digest.mockRestore();
+    const outcome = host.querySelector('[data-testid="commitment-outcome"]');
+    expect(icon(outcome)).toBe('help');
+    expect(text(outcome)).toBe('This browser cannot check the seed here: Web Crypto needs the page served over HTTPS.');
+  });
 });

@@ -2,11 +2,11 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { distinctUntilChanged, from, of, startWith, switchMap } from 'rxjs';
+import { catchError, distinctUntilChanged, from, map, of, startWith, switchMap } from 'rxjs';
 
 import type { RunDto } from '../../../shared/api';
 import { bookingWords, REVEALED_SEED_CAUTION } from '../../../shared/format/booking-words';
-import { checkSeedCommitment } from '../bookings/seed-commitment';
+import { checkSeedCommitment, type CommitmentCheck } from '../bookings/seed-commitment';
 import { CopyButton } from '../clipboard/copy-button';
 import { runLinkParts } from './run-link-parts';
 
@@ -35,12 +35,32 @@ export class RunBooking {
     return this.words().details.map((sentence) => ({ parts: runLinkParts(sentence), caution: cautions.has(sentence) }));
   });
 
-  /** The browser's check of the revealed seed against the commitment; null while it computes, or when unbooked. */
-  protected readonly check = toSignal(
+  /**
+   * The browser's check of the revealed seed against the commitment, while it computes and once done;
+   * `unavailable` where the browser offers no Web Crypto (a page not served over HTTPS or from localhost).
+   */
+  private readonly check = toSignal(
     toObservable(computed(() => (this.run().booking ? { seed: this.run().seed, commitment: this.run().booking!.seedCommitment } : null))).pipe(
       distinctUntilChanged((first, second) => first?.seed === second?.seed && first?.commitment === second?.commitment),
-      switchMap((pair) => (pair === null ? of(null) : from(checkSeedCommitment(pair.seed, pair.commitment)).pipe(startWith(null)))),
+      switchMap((pair) =>
+        pair === null
+          ? of(null)
+          : from(checkSeedCommitment(pair.seed, pair.commitment)).pipe(
+              map((done): SeedCheck => ({ status: 'done', ...done })),
+              catchError(() => of<SeedCheck>({ status: 'unavailable' })),
+              startWith<SeedCheck>({ status: 'checking' }),
+            ),
+      ),
     ),
     { initialValue: null },
   );
+  /** The check once done. */
+  protected readonly checked = computed(() => {
+    const check = this.check();
+    return check?.status === 'done' ? check : null;
+  });
+  protected readonly uncheckable = computed(() => this.check()?.status === 'unavailable');
 }
+
+/** Where the browser's check of the seed stands. */
+type SeedCheck = { status: 'checking' } | { status: 'unavailable' } | ({ status: 'done' } & CommitmentCheck);

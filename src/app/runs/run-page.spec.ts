@@ -76,6 +76,6 @@ describe('RunPage', () => {
   it('stays at the top otherwise, and shows how the run came to its seed', async () => {
     const harness = await open('/runs/42');
     expect(scrolledTo).toEqual([]);
-    expect(harness.routeNativeElement?.querySelector('[data-testid="booking"]')?.textContent).toContain(UNBOOKED_CAUTION);
+    expect(harness.routeNativeElement?.querySelector('[data-testid="run-booking"]')?.textContent).toContain(UNBOOKED_CAUTION);
   });
 });
