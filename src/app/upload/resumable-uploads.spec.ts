@@ -138,10 +138,7 @@ describe('ResumableUploads', () => {
 
   const methods = () => server.seen.map((request) => request.method);
 
-  /**
-   * Lets `ms` of fake time pass in steps, with a real moment after each: tus-js-client hashes the
-   * fingerprint (Web Crypto, outside the fake clock) before each retry sets its next timer.
-   */
+  /** Lets `ms` of fake time pass in steps, with a real moment after each for what runs outside the fake clock. */
   async function passTime(ms: number): Promise<void> {
     for (let passed = 0; passed < ms; passed += 500) {
       await jest.advanceTimersByTimeAsync(500);

@@ -5,7 +5,6 @@ import { catchError, firstValueFrom, Observable, of } from 'rxjs';
 import { Upload, type DetailedError, type HttpRequest, type HttpResponse, type HttpStack } from 'tus-js-client';
 
 import { RESUMABLE_UPLOAD_PATH, type RunDto } from '../../../shared/api';
-import { sha256Hex } from '../api/sha256-hex';
 import { Session } from '../auth/session';
 import { shouldRetryUpload, uploadFailure } from './upload-failure';
 import { uploadMetadata, type LogUpload } from './upload-metadata';
@@ -55,8 +54,9 @@ export class ResumableUploads {
         headers: { Authorization: `Bearer ${this.session.token()}` },
         retryDelays: RETRY_DELAYS_MS,
         removeFingerprintOnSuccess: true,
-        // Another user, or other fields (checked when the upload was made), start a new upload.
-        fingerprint: (file: File) => sha256Hex(JSON.stringify([this.session.user()?.id, file.name, file.size, file.lastModified, metadata])).then((hash) => `bellkeep-${hash}`),
+        // Another user, or other fields (checked when the upload was made), start a new upload. No
+        // hash: Web Crypto is missing where the page is not served over HTTPS.
+        fingerprint: (file: File) => Promise.resolve(`bellkeep-${JSON.stringify([this.session.user()?.id, file.name, file.size, file.lastModified, metadata])}`),
         ...(this.httpStack ? { httpStack: this.httpStack } : {}),
         onProgress: (sent, total) => subscriber.next({ kind: 'sending', fraction: total > 0 ? sent / total : 0 }),
         onAfterResponse: (request, response) => this.noticeFinished(request, response),

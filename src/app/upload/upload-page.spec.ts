@@ -118,7 +118,7 @@ describe('UploadPage', () => {
   it('joins the booking open now, judged under its profile on its night', async () => {
     await prepare([lastNight()]);
     const booking = await select('booking-select');
-    expect(await booking.getValueText()).toBe('Night of 14 Mar 2027 · booking 7');
+    expect(await booking.getValueText()).toBe('Night of 14 Mar 2027 (booking 7)');
     expect(await (await select('profile-select')).getValueText()).toBe('Nightly standard v1');
     expect(host.querySelector<HTMLInputElement>('input[formControlName="acquiredOn"]')?.disabled).toBe(true);
     expect(host.querySelector('[data-testid="replacement"]')).toBeNull();
