@@ -127,11 +127,15 @@ describe('BookNightDialog', () => {
     expect(document.querySelector('[data-testid="booked-setup-link"]')?.getAttribute('href')).toBe('/setups/2');
   });
 
-  it('moves the window with the night', async () => {
+  it('moves the window with the night, its times as edited', async () => {
     const dialog = await openAs(9, ['experimentalist']);
+    await (await input(dialog, 'book-window-start')).setValue('2027-03-14T21:30');
     await (await input(dialog, 'book-night-date')).setValue('2027-03-20');
-    expect(await (await input(dialog, 'book-window-start')).getValue()).toBe('2027-03-20T20:00');
+    expect(await (await input(dialog, 'book-window-start')).getValue()).toBe('2027-03-20T21:30');
     expect(await (await input(dialog, 'book-window-end')).getValue()).toBe('2027-03-21T06:00');
+    // The same night again moves nothing.
+    await (await input(dialog, 'book-night-date')).setValue('2027-03-20');
+    expect(await (await input(dialog, 'book-window-start')).getValue()).toBe('2027-03-20T21:30');
   });
 
   it('says what is wrong with the window before asking the server', async () => {

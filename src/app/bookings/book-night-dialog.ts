@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { map, startWith } from 'rxjs';
+import { filter, map, pairwise, startWith } from 'rxjs';
 
 import type { BookingDto, BookNightRequest, ProfileDto, SetupDto } from '../../../shared/api';
 import { formatCount } from '../../../shared/format/numbers';
@@ -21,7 +21,7 @@ import { profileVersionOptions } from '../planner/profile-versions';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { leadsSetup } from '../setups/setup-lead';
 import { BookingsApi } from './bookings-api';
-import { isoFromLocal, nightWindow, tonightWindow, windowProblem } from './booking-window';
+import { isoFromLocal, moveToNight, tonightWindow, windowProblem } from './booking-window';
 
 /** What the dialog books: a night of `setup`, with the rounds the planner settled on (if any). */
 export interface BookNightData {
@@ -84,12 +84,13 @@ export class BookNightDialog {
 
   constructor() {
     const { night, windowStart, windowEnd, profileVersionId, profileReason } = this.form.controls;
-    // A night brings its evening-to-morning window; either end can still be moved after.
-    night.valueChanges.pipe(takeUntilDestroyed()).subscribe((chosen) => {
-      if (!chosen) return;
-      const window = nightWindow(chosen);
-      windowStart.setValue(window.windowStart);
-      windowEnd.setValue(window.windowEnd);
+    // Another night takes the window along, its times as they are (edited or not). A date being
+    // typed reads as empty until it is whole: the window moves from the last whole one.
+    night.valueChanges.pipe(startWith(night.value), filter((value) => value !== ''), pairwise(), takeUntilDestroyed()).subscribe(([before, chosen]) => {
+      if (chosen === before) return;
+      const moved = moveToNight({ night: before, windowStart: windowStart.value, windowEnd: windowEnd.value }, chosen);
+      windowStart.setValue(moved.windowStart);
+      windowEnd.setValue(moved.windowEnd);
     });
     // The setup's version is chosen once the profiles are in; only those who may choose another can change it.
     effect(() => {

@@ -1,4 +1,4 @@
-import { isoFromLocal, localDate, localDateTime, nightWindow, tonightWindow, windowProblem } from './booking-window';
+import { isoFromLocal, localDate, localDateTime, moveToNight, nightWindow, tonightWindow, windowProblem } from './booking-window';
 
 describe('nightWindow', () => {
   it('runs from 20:00 on the night to 06:00 the next morning', () => {
@@ -26,6 +26,25 @@ describe('tonightWindow', () => {
 
   it('opens now once 20:00 has passed, so the booking is not refused as late', () => {
     expect(tonightWindow(new Date(2027, 2, 14, 21, 7, 45))).toEqual({ night: '2027-03-14', windowStart: '2027-03-14T21:07', windowEnd: '2027-03-15T06:00' });
+  });
+});
+
+describe('moveToNight', () => {
+  it('moves the window by whole days and keeps its times, as edited', () => {
+    const edited = { night: '2027-03-14', windowStart: '2027-03-14T21:30', windowEnd: '2027-03-15T05:15' };
+    expect(moveToNight(edited, '2027-03-16')).toEqual({ night: '2027-03-16', windowStart: '2027-03-16T21:30', windowEnd: '2027-03-17T05:15' });
+    expect(moveToNight(edited, '2027-02-28')).toEqual({ night: '2027-02-28', windowStart: '2027-02-28T21:30', windowEnd: '2027-03-01T05:15' });
+  });
+
+  it('keeps the wall-clock times across the spring and autumn changes of daylight saving', () => {
+    const window = nightWindow('2027-03-20');
+    expect(moveToNight(window, '2027-04-03')).toEqual(nightWindow('2027-04-03'));
+    expect(moveToNight(nightWindow('2027-10-20'), '2027-11-05')).toEqual(nightWindow('2027-11-05'));
+  });
+
+  it('leaves the window as it is for the same night', () => {
+    const edited = { night: '2027-03-14', windowStart: '2027-03-14T07:45', windowEnd: '2027-03-14T17:45' };
+    expect(moveToNight(edited, '2027-03-14')).toEqual(edited);
   });
 });
 

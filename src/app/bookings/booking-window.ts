@@ -40,6 +40,27 @@ export function tonightWindow(now: Date): NightWindow {
   return new Date(tonight.windowStart) < now ? { ...tonight, windowStart: localDateTime(now) } : tonight;
 }
 
+/**
+ * The window moved from one night to another by whole days, its times kept: a window edited by
+ * hand follows the night it belongs to.
+ */
+export function moveToNight(window: NightWindow, night: string): NightWindow {
+  const days = Math.round((dayOf(night) - dayOf(window.night)) / 86_400_000);
+  const moved = (localDateTimeText: string) => {
+    const date = new Date(localDateTimeText);
+    // By the calendar, not by adding hours: the wall-clock time stays across a daylight-saving change.
+    date.setDate(date.getDate() + days);
+    return localDateTime(date);
+  };
+  return { night, windowStart: moved(window.windowStart), windowEnd: moved(window.windowEnd) };
+}
+
+/** Noon of a night's date, local time: whole days apart whatever the daylight-saving shifts between. */
+function dayOf(night: string): number {
+  const [year, month, day] = night.split('-').map(Number);
+  return new Date(year, month - 1, day, 12).getTime();
+}
+
 /** A local date-time from a `datetime-local` input as the ISO instant the API takes (UTC). */
 export function isoFromLocal(localDateTime: string): string {
   return new Date(localDateTime).toISOString();
