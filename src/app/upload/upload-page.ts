@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { catchError, filter, map, of, switchMap } from 'rxjs';
+import { catchError, map, of, switchMap } from 'rxjs';
 
 import { FINISHED_STATES, type BookingDto, type ProfileDto, type RunDto, type SetupDto } from '../../../shared/api';
 import { OUTCOME_ENCODINGS, type ColumnMapping, type OutcomeEncoding } from '../../../shared/analysis/log/column-mapping';
@@ -226,7 +226,6 @@ export class UploadPage {
           this.phase.set('analysing');
           return this.runsApi.watch(progress.run.id);
         }),
-        filter((run) => run !== null),
         catchError((error: unknown) => {
           this.failure.set(apiErrorMessage(error));
           this.phase.set('choosing');
