@@ -64,6 +64,8 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
 
   const tus = new Server({
     path: RESUMABLE_UPLOAD_PATH,
+    // "/api/uploads/<id>": right behind a TLS proxy too, where the Host and scheme seen here are not the client's.
+    relativeLocation: true,
     datastore: store,
     maxSize: limitBytes,
     async onUploadCreate(request, response, upload) {

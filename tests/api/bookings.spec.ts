@@ -208,7 +208,7 @@ describe('booked nights and the acquisition computer', () => {
           headers: { ...bearer('dev'), ...tus, 'Upload-Length': String(bytes.length), 'Upload-Metadata': metadata({ filename: 'night.csv', setupId: String(millLane), acquiredOn: '2026-11-25' }) },
         });
         expect(created.status).toBe(201);
-        const location = created.headers.get('location')!;
+        const location = new URL(created.headers.get('location')!, base).href;
 
         // Half the bytes, then the connection is cut with the request still promising the rest.
         const half = Math.floor(bytes.length / 2);
