@@ -52,9 +52,11 @@ describe('booked nights in a real browser', () => {
     // The window opens at 20:00 tonight by default; this night's acquisition is already under way.
     const now = new Date(Date.now() - 5 * 60_000);
     const local = (date: Date) => new Date(date.getTime() - date.getTimezoneOffset() * 60_000).toISOString().slice(0, 16);
+    await lead.getByTestId('book-night-date').fill(local(now).slice(0, 10));
     await lead.getByTestId('book-window-start').fill(local(now));
     await lead.getByTestId('book-window-end').fill(local(new Date(now.getTime() + 10 * 3_600_000)));
-    await lead.getByTestId('book-night-date').fill(local(now).slice(0, 10));
+    // Fen link has no accepted run here, so the Planner has no rounds to pass on.
+    await lead.getByTestId('book-rounds').fill('40000');
     await screenshot(lead, 'booking-dialog');
     await lead.getByTestId('book-submit').click();
     const commitment = (await lead.getByTestId('booked-commitment').innerText()).trim();
@@ -115,7 +117,7 @@ describe('booked nights in a real browser', () => {
     await screenshot(dev, 'run-replacement');
 
     await dev.getByTestId('nav-runs').click();
-    await dev.getByText('attempt 2').first().waitFor();
+    await dev.getByTestId(`booking-note-${secondId}`).filter({ hasText: 'attempt 2' }).waitFor();
     await screenshot(dev, 'runs-list-attempts');
     await dev.close();
   }, 300_000);

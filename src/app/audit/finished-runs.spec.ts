@@ -87,6 +87,13 @@ describe('FinishedRuns', () => {
     expect(row.querySelector('[data-testid="verdict-chip"]')?.textContent).toContain('ABORT');
   });
 
+  it('says under each night how its run was booked: nothing for a first log, the attempt of a replacement, "unbooked"', async () => {
+    runRequests()[0].flush(pageOf([night, { ...night, id: 13, attempt: 2 }, { ...night, id: 14, bookingId: null, attempt: null }]));
+    await settle();
+    const noteOf = (id: number) => host.querySelector(`[data-testid="booking-note-${id}"]`)?.textContent?.trim() ?? null;
+    expect([noteOf(12), noteOf(13), noteOf(14)]).toEqual([null, 'attempt 2', 'unbooked']);
+  });
+
   it('says what is wrong with a hash prefix and keeps the list until it is right', async () => {
     runRequests()[0].flush(pageOf([night]));
     await settle();

@@ -17,6 +17,7 @@ import { VERDICTS, type RunPageDto, type RunSummaryDto, type Verdict } from '../
 import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { RunsApi, type RunQuery } from '../runs/runs-api';
+import { BookingNoteLine } from '../runs/booking-note-line';
 import { ShortHash } from '../runs/short-hash';
 import { VerdictChip } from '../runs/verdict-chip';
 import { lookOfVerdict } from '../runs/verdict-look';
@@ -33,6 +34,7 @@ const TYPING_PAUSE_MILLISECONDS = 300;
 @Component({
   selector: 'bk-finished-runs',
   imports: [
+    BookingNoteLine,
     DatePipe,
     MatButtonModule,
     MatFormFieldModule,

@@ -20,7 +20,7 @@ import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { SetupsApi } from '../setups/setups-api';
 import { UsersApi } from '../users/users-api';
-import { bookingNote } from './booking-note';
+import { BookingNoteLine } from './booking-note-line';
 import { RunsApi, type RunQuery } from './runs-api';
 import { VerdictChip } from './verdict-chip';
 import { lookOfState, lookOfVerdict } from './verdict-look';
@@ -33,6 +33,7 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'createdAt', directi
 @Component({
   selector: 'bk-run-list',
   imports: [
+    BookingNoteLine,
     DatePipe,
     MatButtonModule,
     MatFormFieldModule,
@@ -94,7 +95,6 @@ export class RunList {
   protected readonly total = computed(() => this.contents().total);
   protected readonly filtered = computed(() => Object.keys(this.query()).some((key) => !(key in FIRST_PAGE)));
 
-  protected readonly noteOf = bookingNote;
   protected readonly count = formatCount;
   protected readonly fixed = formatFixed;
   protected readonly percent = formatPercent;
