@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 import { startApiServer } from './api-server';
 import { loadConfig } from './config/config';
@@ -6,7 +7,7 @@ import { startPostgresCluster } from './database/postgres-cluster';
 import { startMailCatcher } from './mail/mail-catcher';
 import { startStorageBackend } from './storage/storage-backend';
 import { buildAppIfStale, startDevServer } from './system/angular-build';
-import { spawnWorkerProcess, stopWorkerProcess } from './worker/worker-process';
+import { superviseWorker } from './worker/worker-supervisor';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
 
 /**
@@ -16,23 +17,39 @@ import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
  * `--dev` serves the app with Angular's dev server and its proxy instead of the build.
  */
 /** What to undo on the way out, in the order things were started. */
-const stops: Array<() => void | Promise<void>> = [];
+const stops: Array<{ what: string; stop: () => void | Promise<void> }> = [];
+/** A step of the stop that takes longer is left behind, so the steps after it (PostgreSQL last) still run. */
+const STOP_STEP_MS = 15_000;
 
+/** Undoes every start, last first; a step that fails or hangs is reported and passed over. */
 async function stopAll(): Promise<void> {
-  for (const stop of stops.reverse()) await stop();
+  for (const { what, stop } of stops.splice(0).reverse()) {
+    let timer: NodeJS.Timeout | undefined;
+    const late = new Promise<'late'>((resolve) => (timer = setTimeout(() => resolve('late'), STOP_STEP_MS)));
+    try {
+      if ((await Promise.race([Promise.resolve().then(stop), late])) === 'late') say(`  ${what}: still stopping after ${STOP_STEP_MS / 1000} s; going on`);
+    } catch (error) {
+      say(`  ${what}: ${error instanceof Error ? error.message : String(error)}`);
+    } finally {
+      clearTimeout(timer);
+    }
+  }
 }
 
 async function main(): Promise<void> {
   const devMode = process.argv.includes('--dev');
   const config = loadConfig();
   fs.mkdirSync(config.dataDir, { recursive: true });
+  if (await portAnswers(config.host, config.port)) {
+    throw new Error(`something already listens on ${config.host}:${config.port}: is Bellkeep running in another terminal? Open ${config.publicUrl}, or stop that one first (Ctrl-C there).`);
+  }
 
   let databaseUrl = config.databaseUrl;
   if (!databaseUrl) {
     const cluster = await startPostgresCluster({ folder: path.join(config.dataDir, 'postgres'), port: config.postgresPort, database: 'bellkeep' });
-    if (cluster.startedHere) stops.push(() => cluster.stop());
+    if (cluster.startedHere) stops.push({ what: 'PostgreSQL', stop: () => cluster.stop() });
     databaseUrl = cluster.url;
-    say(`PostgreSQL   127.0.0.1:${config.postgresPort} (${cluster.startedHere ? 'started' : 'already running'}; data in ${path.join(config.dataDir, 'postgres')})`);
+    say(`PostgreSQL   127.0.0.1:${config.postgresPort} (${cluster.startedHere ? 'started' : 'already running'}; data in ${cluster.folder})`);
   }
 
   let smtpUrl = config.smtpUrl;
@@ -40,29 +57,29 @@ async function main(): Promise<void> {
     const mailFolder = path.join(config.dataDir, 'mail');
     fs.mkdirSync(mailFolder, { recursive: true });
     const catcher = await startMailCatcher(config.mailCatcher.smtpPort, config.mailCatcher.webPort, mailFolder);
-    stops.push(() => catcher.stop());
+    stops.push({ what: 'the mail catcher', stop: () => catcher.stop() });
     smtpUrl = catcher.smtpUrl;
     say(`Mail catcher SMTP 127.0.0.1:${config.mailCatcher.smtpPort}, inbox ${catcher.inboxUrl}`);
   }
 
   const archive = await startStorageBackend(config);
-  stops.push(() => archive.stop());
+  stops.push({ what: 'the archive', stop: () => archive.stop() });
   say(`Archive      ${archive.description}`);
   const started = { ...config, storage: archive.storage };
 
   if (!devMode) await buildAppIfStale(config.appDir);
   const api = await startApiServer(started, { databaseUrl, smtpUrl }, { history: true });
-  stops.push(() => api.stop());
+  stops.push({ what: 'the API', stop: () => api.stop() });
   const { report } = api;
   say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
   if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
-  const worker = spawnWorkerProcess({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment });
-  stops.push(() => stopWorkerProcess(worker));
+  const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment }, say);
+  stops.push({ what: 'the worker', stop: () => worker.stop() });
 
   let openUrl = config.publicUrl;
   if (devMode) {
     const devServer = startDevServer();
-    stops.push(() => devServer.stop());
+    stops.push({ what: 'the dev server', stop: () => devServer.stop() });
     openUrl = devServer.url;
   }
   say(`\nBellkeep is running: open ${openUrl}`);
@@ -72,13 +89,36 @@ async function main(): Promise<void> {
   }
   say('Ctrl-C stops it.');
 
-  const shutDown = async () => {
-    say('\nStopping Bellkeep...');
-    await stopAll();
+}
+
+/**
+ * One stop however many signals come: npm and tsx pass a signal on to this process, which the
+ * process-group signal has already reached, so the same Ctrl-C or SIGTERM arrives two or three
+ * times. Handlers stay installed, so a repeat never falls back to Node's default (exit at once,
+ * leaving the rest running).
+ */
+let stopping = false;
+function shutDown(): void {
+  if (stopping) return;
+  stopping = true;
+  say('\nStopping Bellkeep...');
+  void stopAll().finally(() => {
+    say('Stopped.');
     process.exit(0);
-  };
-  process.once('SIGINT', shutDown);
-  process.once('SIGTERM', shutDown);
+  });
+}
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, shutDown);
+
+/** Whether a server answers on host:port (a second `npm start` would fail later, on the port, less clearly). */
+function portAnswers(host: string, port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = net.connect({ host, port });
+    socket.once('connect', () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once('error', () => resolve(false));
+  });
 }
 
 function say(line: string): void {

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiErrorBody } from '../../shared/api';
+import { faultLines, oneLine } from '../system/fault-lines';
 import { HttpError } from './http-error';
 
 /** Unknown API routes answer in the same JSON shape as every other error. */
@@ -12,12 +13,24 @@ export const errorHandler: ErrorRequestHandler = (error, request, response, _nex
   // The client went away mid-request (an upload broken off): nobody is left to answer.
   if (request.socket.destroyed || response.headersSent) return;
   const httpError = toHttpError(error);
-  if (httpError.status >= 500) console.error(error);
+  if (httpError.status >= 500) reportFault(error, `${request.method} ${request.originalUrl}`);
   const body: ApiErrorBody = {
     error: { code: httpError.code, message: httpError.message, ...(httpError.field ? { field: httpError.field } : {}) },
   };
   response.status(httpError.status).json(body);
 };
+
+const apiFaults = faultLines('API');
+
+/**
+ * A server error in one line (counted when the same one repeats, as while the database restarts);
+ * a programming error also gets its stack, which is what finds it.
+ */
+function reportFault(error: unknown, route: string): void {
+  const unreachable = error instanceof Error && /Connection|ECONNREFUSED|57P0/.test(`${error.name} ${oneLine(error)}`);
+  if (unreachable || !(error instanceof Error)) apiFaults(error);
+  else console.error(`API: ${route}: ${error.stack ?? oneLine(error)}`);
+}
 
 function toHttpError(error: unknown): HttpError {
   if (error instanceof HttpError) return error;

@@ -1,5 +1,6 @@
 import PgBoss from 'pg-boss';
 import type { Sequelize, Transaction } from 'sequelize';
+import { faultLines } from '../system/fault-lines';
 
 /** Queue of analyses: one job per run, payload `{ runId }`. */
 export const ANALYSIS_QUEUE = 'run-analysis';
@@ -46,7 +47,7 @@ export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequeli
     maintenanceIntervalSeconds: options.maintenanceIntervalSeconds,
     monitorStateIntervalSeconds: Math.max(options.maintenanceIntervalSeconds, 1),
   });
-  boss.on('error', (error) => console.error('Job queue:', error));
+  boss.on('error', faultLines('Job queue'));
   await boss.start();
   const queues = [
     { name: ANALYSIS_QUEUE, retryLimit: 5, retryDelay: 2, retryBackoff: true, expireInSeconds: options.analysisExpireSeconds },

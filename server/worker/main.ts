@@ -22,15 +22,32 @@ async function main(): Promise<void> {
   const worker = await startWorker(config, database, queue, createServices(config, database, queue), mailer);
   process.stdout.write(`Worker ${process.pid} ${TAKING_JOBS}.\n`);
 
+  // Once, however often the signal comes (a process group's Ctrl-C and its relays): a repeat must
+  // not fall back to Node's default and leave the job in hand unreturned.
+  let stopping = false;
   const stop = async () => {
+    if (stopping) return;
+    stopping = true;
     await worker.stop();
     await queue.stop();
     mailer.close();
     await database.close();
     process.exit(0);
   };
-  process.once('SIGINT', stop);
-  process.once('SIGTERM', stop);
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+  // Started by `npm start`: a worker whose starter died without stopping it (SIGKILL) stops too.
+  const starter = Number(process.env['BELLKEEP_WORKER_STARTER_PID'] ?? 0);
+  if (starter > 0) setInterval(() => void (isAlive(starter) || stop()), 1000).unref();
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (error) {
+    return (error as NodeJS.ErrnoException).code === 'EPERM';
+  }
 }
 
 main().catch((error: unknown) => {

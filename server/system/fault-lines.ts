@@ -1,0 +1,34 @@
+/** The same fault again within this window is counted, not printed. */
+const QUIET_MS = 30_000;
+
+/** An error in one line: its message and, when the driver gives one, its code (ECONNREFUSED, 57P01...). */
+export function oneLine(error: unknown): string {
+  if (!(error instanceof Error)) return String(error);
+  const code = (error as { code?: unknown }).code;
+  const message = error.message.replace(/\s+/g, ' ').trim() || error.name;
+  return typeof code === 'string' && !message.includes(code) ? `${message} (${code})` : message;
+}
+
+/**
+ * One clear line per fault instead of the driver's objects: a database restart makes the job
+ * queue report the same failure on every poll, so a repeat within 30 s is only counted, and the
+ * count is said with the next line that gets through.
+ */
+export function faultLines(source: string, write: (line: string) => void = (line) => process.stderr.write(`${line}\n`)) {
+  let last = '';
+  let lastAt = 0;
+  let repeats = 0;
+  return (error: unknown): void => {
+    const text = oneLine(error);
+    const now = Date.now();
+    if (text === last && now - lastAt < QUIET_MS) {
+      repeats += 1;
+      return;
+    }
+    const before = repeats > 0 ? ` (the previous fault ${repeats} more time${repeats === 1 ? '' : 's'})` : '';
+    write(`${source}: ${text}${before}`);
+    last = text;
+    lastAt = now;
+    repeats = 0;
+  };
+}
