@@ -1,7 +1,7 @@
 import { createApp } from './app';
 import { resolveJwtSecret } from './auth/jwt-secret';
 import type { Config } from './config/config';
-import { bootstrapDatabase, type BootstrapReport } from './database/bootstrap';
+import { bootstrapDatabase, seedHistory, type BootstrapReport } from './database/bootstrap';
 import { openDatabase } from './database/sequelize';
 import { createMailer } from './mail/mailer';
 import { createAppMail } from './mail/app-mail';
@@ -17,6 +17,8 @@ export interface ApiConnections {
 export interface RunningApi {
   /** What start-up did to the database. */
   report: BootstrapReport;
+  /** Seeds the demo history now (when the demo is on and it was not seeded yet), while the API serves. */
+  seedHistory(onProgress: (done: number, total: number) => void): Promise<string[]>;
   /** Stops listening, then closes the queue, the mailer and the database. */
   stop(): Promise<void>;
 }
@@ -46,7 +48,7 @@ export async function startApiServer(config: Config, connections: ApiConnections
     const server = app.listen(config.port, config.host);
     await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
     undo.push(() => new Promise<void>((resolve) => server.close(() => resolve())));
-    return { report, stop };
+    return { report, seedHistory: (onProgress) => seedHistory(database, config, onProgress), stop };
   } catch (error) {
     await stop();
     throw error;

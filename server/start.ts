@@ -6,7 +6,8 @@ import { loadConfig } from './config/config';
 import { startPostgresCluster } from './database/postgres-cluster';
 import { startMailCatcher } from './mail/mail-catcher';
 import { startStorageBackend } from './storage/storage-backend';
-import { buildAppIfStale, startDevServer } from './system/angular-build';
+import { appBuildIsStale, buildApp, startDevServer } from './system/angular-build';
+import { withProgress } from './system/progress-lines';
 import { superviseWorker } from './worker/worker-supervisor';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
 
@@ -67,14 +68,17 @@ async function main(): Promise<void> {
   say(`Archive      ${archive.description}`);
   const started = { ...config, storage: archive.storage };
 
-  if (!devMode) await buildAppIfStale(config.appDir);
-  const api = await startApiServer(started, { databaseUrl, smtpUrl }, { history: true });
+  // The API listens while the app is built: it serves the build once there is one.
+  const building = !devMode && appBuildIsStale(config.appDir) ? withProgress('Building the app (ng build)', buildApp(), say) : Promise.resolve();
+  building.catch(() => undefined); // awaited below; a failure must not count as unhandled before then
+  const api = await withProgress('Database     migrations and the demo lab', startApiServer(started, { databaseUrl, smtpUrl }, { history: false }), say);
   stops.push({ what: 'the API', stop: () => api.stop() });
   const { report } = api;
   say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
   if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
   const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment }, say);
   stops.push({ what: 'the worker', stop: () => worker.stop() });
+  await building;
 
   let openUrl = config.publicUrl;
   if (devMode) {
@@ -88,7 +92,19 @@ async function main(): Promise<void> {
     for (const person of DEMO_PEOPLE) say(`  ${person.email.padEnd(34)} ${person.roles.join(', ')}`);
   }
   say('Ctrl-C stops it.');
+  seedHistoryMeanwhile(api);
+}
 
+/**
+ * The demo lab's three weeks of nights, analysed while the app already serves (the Runs screen
+ * fills when they are in, all at once: one transaction); a line every 5 s says how far it is.
+ */
+function seedHistoryMeanwhile(api: { seedHistory(onProgress: (done: number, total: number) => void): Promise<string[]> }): void {
+  let progress = '';
+  void withProgress('Demo history (the app already serves)', api.seedHistory((done, total) => (progress = `night ${done} of ${total}`)), say, () => progress).then(
+    (seeders) => seeders.length === 0 || say(`Demo history ${seeders.length} seeder(s) run: the Runs screen has three weeks of nights`),
+    (error: unknown) => say(`Demo history could not be seeded: ${error instanceof Error ? error.message : String(error)}`),
+  );
 }
 
 /**

@@ -23,7 +23,7 @@ const DEMO_NOTE = 'Demo night (invented device model).';
  * committed), except one the lab forgot to book; one night's log replaced with a reason; uploaded
  * by Dev Okafor, signed off by the setup's first shift lead except for the last two nights.
  */
-export async function up({ queryInterface, transaction, logStore, signingKey }: SeederContext): Promise<void> {
+export async function up({ queryInterface, transaction, logStore, signingKey, progress }: SeederContext): Promise<void> {
   if (!signingKey) throw new Error('The demo history is signed like any result: give the seeder the signing key.');
   if (!logStore) throw new Error('The demo history is archived like any upload: give the seeder the log store.');
   const sequelize = queryInterface.sequelize;
@@ -32,6 +32,8 @@ export async function up({ queryInterface, transaction, logStore, signingKey }: 
   const scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-demo-nights-'));
   const [uploader] = await select<{ id: number }>("SELECT id FROM users WHERE email = 'dev.okafor@kestrelfen.example'");
   const today = new Date();
+  const totalNights = DEMO_SETUPS.length * DEMO_NIGHTS;
+  let nightsDone = 0;
 
   try {
     for (const setup of DEMO_SETUPS) {
@@ -81,6 +83,7 @@ export async function up({ queryInterface, transaction, logStore, signingKey }: 
             name: `${setup.name.toLowerCase().replace(/\W+/g, '-')}-${acquiredOn}.csv`, finishedAt: `${acquiredOn}T06:${String(log.minute).padStart(2, '0')}:00.000Z`,
           });
           // Every night but the last two is signed off; of a replaced night, the last attempt only.
+          if (log === logs[logs.length - 1]) progress?.(++nightsDone, totalNights);
           if (night < DEMO_NIGHTS - 2 && log === logs[logs.length - 1]) {
             const comment = result.verdict === 'ACCEPT' ? 'Key kept.' : 'Key discarded; hardware checked in the morning.';
             const finishedAt = `${acquiredOn}T07:00:00.000Z`;

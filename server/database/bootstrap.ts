@@ -31,6 +31,15 @@ export async function bootstrapDatabase(database: Database, config: Config, opti
   }
   const needsDemoAdmin = (await users.countActiveAdmins()) === 0;
   const seeders = config.demo || needsDemoAdmin ? await seedDemo(database.sequelize) : [];
-  if (config.demo && options.history) seeders.push(...(await seedDemoHistory(database.sequelize, { logStore: createLogStore(config), signingKey: signingKeys.current })));
+  if (options.history) seeders.push(...(await seedHistory(database, config)));
   return { migrations, seeders, createdAdmin };
+}
+
+/**
+ * The demo lab's analysed nightly runs, when BELLKEEP_DEMO asks for the demo (once: a seeded
+ * history is not seeded again). `onProgress` hears of each night analysed.
+ */
+export async function seedHistory(database: Database, config: Config, onProgress?: (done: number, total: number) => void): Promise<string[]> {
+  if (!config.demo) return [];
+  return seedDemoHistory(database.sequelize, { logStore: createLogStore(config), signingKey: resolveSigningKey(config.signingKey, config.dataDir), progress: onProgress });
 }

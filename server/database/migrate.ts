@@ -15,9 +15,11 @@ export interface MigrationContext {
 export interface SeederContext extends MigrationContext {
   logStore?: LogStore;
   signingKey?: SigningKey;
+  /** Hears of a long seeder's steps (the demo history's nights). */
+  progress?: (done: number, total: number) => void;
 }
 
-type SeederExtras = Pick<SeederContext, 'logStore' | 'signingKey'>;
+type SeederExtras = Pick<SeederContext, 'logStore' | 'signingKey' | 'progress'>;
 
 interface MigrationModule {
   up(context: SeederContext): Promise<void>;
@@ -43,7 +45,7 @@ export async function seedDemo(sequelize: Sequelize): Promise<string[]> {
  * signed with `signingKey`;
  * `npm start` loads it, tests leave it out (it takes a few seconds).
  */
-export async function seedDemoHistory(sequelize: Sequelize, extras: Required<SeederExtras>): Promise<string[]> {
+export async function seedDemoHistory(sequelize: Sequelize, extras: Required<Pick<SeederExtras, 'logStore' | 'signingKey'>> & Pick<SeederExtras, 'progress'>): Promise<string[]> {
   return applyFolder(sequelize, 'seeders/history', 'SequelizeDataHistory', extras);
 }
 

@@ -1,4 +1,4 @@
-import { spawn, spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { PROJECT_ROOT } from '../config/config';
@@ -6,17 +6,20 @@ import { PROJECT_ROOT } from '../config/config';
 /** What the built app is made from: a change to any of them calls for a new build. */
 const APP_SOURCES = ['src', 'shared', 'public', 'angular.json', 'tsconfig.app.json', 'package-lock.json'];
 
-/** Runs a production `ng build` when the build is missing or older than any of its sources. */
-export async function buildAppIfStale(appDir: string): Promise<void> {
+/** Whether the build is missing or older than any of its sources. */
+export function appBuildIsStale(appDir: string): boolean {
   const indexFile = path.join(appDir, 'index.html');
   const builtAt = fs.existsSync(indexFile) ? fs.statSync(indexFile).mtimeMs : 0;
-  if (builtAt > newestChange(APP_SOURCES.map((source) => path.join(PROJECT_ROOT, source)))) return;
-  process.stdout.write('Building the app (ng build, about 20 s)...\n');
-  const outcome = spawnSync(process.execPath, [ngCli(), 'build', '--configuration', 'production'], {
-    cwd: PROJECT_ROOT,
-    stdio: ['ignore', 'ignore', 'inherit'],
+  return builtAt <= newestChange(APP_SOURCES.map((source) => path.join(PROJECT_ROOT, source)));
+}
+
+/** A production `ng build`, in a child process so the rest of the start goes on meanwhile. */
+export function buildApp(): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [ngCli(), 'build', '--configuration', 'production'], { cwd: PROJECT_ROOT, stdio: ['ignore', 'ignore', 'inherit'] });
+    child.once('error', reject);
+    child.once('exit', (code) => (code === 0 ? resolve() : reject(new Error('ng build failed; its messages are above.'))));
   });
-  if (outcome.status !== 0) throw new Error('ng build failed; its messages are above.');
 }
 
 /** `ng serve` with the proxy to the API, for `npm run dev`. */

@@ -1,5 +1,5 @@
 import { loadConfig } from '../../server/config/config';
-import { buildAppIfStale } from '../../server/system/angular-build';
+import { appBuildIsStale, buildApp } from '../../server/system/angular-build';
 import setUpTestCluster from './database-setup';
 import { ensureChromium } from './chromium';
 
@@ -11,5 +11,5 @@ import { ensureChromium } from './chromium';
 export default async function setUpBrowserTests(): Promise<void> {
   await setUpTestCluster();
   ensureChromium();
-  await buildAppIfStale(loadConfig().appDir);
+  if (appBuildIsStale(loadConfig().appDir)) await buildApp();
 }
