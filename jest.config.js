@@ -1,7 +1,8 @@
-// One jest run, four projects: the pure engine and API types (shared), the Express API against a
-// real PostgreSQL (server), the Angular components under jsdom (client), and one real-browser
-// end-to-end test (e2e). The projects that need a database share one throwaway PostgreSQL cluster,
-// started by their global set-up (reference-counted, so it starts once per jest run).
+// One jest run, five projects: the pure engine and API types (shared), the Express API against a
+// real PostgreSQL (server), faults, loads and hostile input against the real app (reliability),
+// the Angular components under jsdom (client), and real-browser end-to-end tests (e2e). The
+// projects that need a database share one throwaway PostgreSQL cluster, started by their global
+// set-up (reference-counted, so it starts once per jest run).
 const fs = require('node:fs');
 const path = require('node:path');
 
@@ -28,6 +29,16 @@ module.exports = {
       // alone can pass jest's default 5 s, in a hook as in a test.
       testTimeout: 60_000,
       roots: existing('server', 'tests/api'),
+      testMatch: ['**/*.spec.ts'],
+      transform: nodeTransform,
+      globalSetup: '<rootDir>/tests/support/database-setup.ts',
+      globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
+    },
+    {
+      // Faults, loads and hostile input against the real app (`npm run test:reliability`).
+      displayName: 'reliability',
+      testEnvironment: 'node',
+      roots: existing('tests/reliability'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
       globalSetup: '<rootDir>/tests/support/database-setup.ts',

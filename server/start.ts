@@ -92,7 +92,7 @@ async function main(): Promise<void> {
     for (const person of DEMO_PEOPLE) say(`  ${person.email.padEnd(34)} ${person.roles.join(', ')}`);
   }
   say('Ctrl-C stops it.');
-  seedHistoryMeanwhile(api);
+  if (config.demoHistory) seedHistoryMeanwhile(api);
 }
 
 /**

@@ -72,6 +72,10 @@ const environmentSchema = z.object({
   BELLKEEP_MAIL_RETRY_SECONDS: z.coerce.number().int().min(1).default(30),
   /** Whether to load the demo lab (people, later setups and runs) on start. */
   BELLKEEP_DEMO: z.enum(['true', 'false']).default('true'),
+  /** Whether `npm start` also analyses the demo lab's three weeks of nights (with BELLKEEP_DEMO). */
+  BELLKEEP_DEMO_HISTORY: z.enum(['true', 'false']).default('true'),
+  /** Folder of the built app the API serves (default: Angular's build output in the checkout). */
+  BELLKEEP_APP_DIR: z.string().optional(),
   /** First admin of a real deployment, created when the database has no admin. */
   BELLKEEP_ADMIN_EMAIL: z.string().email().optional(),
   BELLKEEP_ADMIN_PASSWORD: z.string().min(10, 'must be at least 10 characters').optional(),
@@ -120,6 +124,8 @@ export interface Config {
   uploadLimitBytes: number;
   queue: { analysisExpireSeconds: number; maintenanceIntervalSeconds: number; pollingIntervalSeconds: number; mailRetryDelaySeconds: number };
   demo: boolean;
+  /** Whether `npm start` seeds the demo history (only with `demo`). */
+  demoHistory: boolean;
   bootstrapAdmin?: { email: string; password: string; name: string };
   /** Folder of the built Angular app the API serves. */
   appDir: string;
@@ -165,11 +171,12 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
       mailRetryDelaySeconds: env.BELLKEEP_MAIL_RETRY_SECONDS,
     },
     demo: env.BELLKEEP_DEMO === 'true',
+    demoHistory: env.BELLKEEP_DEMO_HISTORY === 'true',
     bootstrapAdmin:
       env.BELLKEEP_ADMIN_EMAIL && env.BELLKEEP_ADMIN_PASSWORD
         ? { email: env.BELLKEEP_ADMIN_EMAIL, password: env.BELLKEEP_ADMIN_PASSWORD, name: env.BELLKEEP_ADMIN_NAME }
         : undefined,
-    appDir: path.join(PROJECT_ROOT, 'dist', 'bellkeep', 'browser'),
+    appDir: path.resolve(env.BELLKEEP_APP_DIR ?? path.join(PROJECT_ROOT, 'dist', 'bellkeep', 'browser')),
   };
 }
 
