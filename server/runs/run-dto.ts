@@ -72,6 +72,7 @@ export interface RunDetails {
   attempts: number;
   analysedBy: string | null;
   startedAt: Date | null;
+  heartbeatAt: Date | null;
   result: Record<string, unknown> | null;
   signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
@@ -80,5 +81,5 @@ export interface RunDetails {
 }
 
 export function toRunDto(row: RunRow, details: RunDetails): RunDto {
-  return { ...toRunSummary(row), ...details, startedAt: details.startedAt?.toISOString() ?? null };
+  return { ...toRunSummary(row), ...details, startedAt: details.startedAt?.toISOString() ?? null, heartbeatAt: details.heartbeatAt?.toISOString() ?? null };
 }

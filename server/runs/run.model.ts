@@ -34,6 +34,8 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
   declare signature: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare startedAt: CreationOptional<Date | null>;
+  /** Written every WORKER_HEARTBEAT_SECONDS by the worker analysing the run. */
+  declare heartbeatAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
 }
 
@@ -100,6 +102,7 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
       signature: { type: DataTypes.TEXT },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       startedAt: { type: DataTypes.DATE, field: 'started_at' },
+      heartbeatAt: { type: DataTypes.DATE, field: 'heartbeat_at' },
       finishedAt: { type: DataTypes.DATE, field: 'finished_at' },
     },
     { sequelize, tableName: 'runs', modelName: 'Run', updatedAt: false },

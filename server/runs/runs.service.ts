@@ -184,6 +184,7 @@ export function createRunsService(deps: {
       attempts: run.attempts,
       analysedBy: run.analysedBy ?? null,
       startedAt: run.startedAt ?? null,
+      heartbeatAt: run.heartbeatAt ?? null,
       result: run.result ?? null,
       signature: storedSignature(run),
       signOff: signOff && signer ? { userId: signer.id, userName: signer.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,

@@ -2,7 +2,7 @@ import os from 'node:os';
 import type { Sequelize } from 'sequelize';
 import { AnalysisCancelledError } from '../../shared/analysis/node';
 import type { AnalysisProgress } from '../../shared/analysis/node';
-import { FINISHED_STATES, STATE_OF_VERDICT } from '../../shared/api';
+import { FINISHED_STATES, WORKER_HEARTBEAT_SECONDS, STATE_OF_VERDICT } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { signStatement } from '../integrity/signed-statement';
@@ -37,7 +37,7 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
   if (!run || FINISHED_STATES.includes(run.state)) return;
 
   const worker = `${os.hostname()}:${process.pid}`;
-  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt: new Date(), error: null }, { where: { id: runId } });
+  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt: new Date(), heartbeatAt: new Date(), error: null }, { where: { id: runId } });
   await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1, worker } });
 
   let written = 0;
@@ -51,9 +51,13 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
     pendingWrite = pendingWrite.then(() => models.Run.update({ progress }, { where: { id: runId, state: 'analysing' } }));
   };
 
+  // Alive, however slowly the log comes (an S3 copy shows no progress): a silent run's worker is gone.
+  const heartbeat = setInterval(() => {
+    void models.Run.update({ heartbeatAt: new Date() }, { where: { id: runId, state: 'analysing', analysedBy: worker } }).catch(() => undefined);
+  }, WORKER_HEARTBEAT_SECONDS * 1000);
   let result;
   try {
-    result = await analyseArchivedRun(run, { models, logStore, workFolder }, { onProgress, signal });
+    result = await analyseArchivedRun(run, { models, logStore, workFolder }, { onProgress, signal }).finally(() => clearInterval(heartbeat));
   } catch (error) {
     await pendingWrite;
     // Cancelled (the worker is stopping): the job fails and the queue hands it out again.

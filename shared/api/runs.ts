@@ -5,6 +5,9 @@ import type { ResultSignatureDto } from './integrity';
 export const RUN_STATES = ['queued', 'analysing', 'accepted', 'aborted', 'invalid', 'failed'] as const;
 export type RunState = (typeof RUN_STATES)[number];
 
+/** How often the worker analysing a run says it is alive. */
+export const WORKER_HEARTBEAT_SECONDS = 10;
+
 /** States after which nothing more happens to a run's result. */
 export const FINISHED_STATES: readonly RunState[] = ['accepted', 'aborted', 'invalid', 'failed'];
 
@@ -84,6 +87,8 @@ export interface RunDto extends RunSummaryDto {
   /** The worker of the latest attempt, `host:pid`. */
   analysedBy: string | null;
   startedAt: string | null;
+  /** The analysing worker's last sign of life (every WORKER_HEARTBEAT_SECONDS). */
+  heartbeatAt: string | null;
   result: Record<string, unknown> | null;
   /** The server's signature over the stored result, when analysed. */
   signature: ResultSignatureDto | null;

@@ -6,6 +6,7 @@ import type { RunDto } from '../../../shared/api';
 import type { AnalysisResult } from '../../../shared/analysis/result';
 import { formatCount } from '../../../shared/format/numbers';
 import { lookOfState } from './verdict-look';
+import { workerWait } from './worker-wait';
 
 /** The sentence under each state's word. */
 const HEADLINES: Record<RunDto['state'], string> = {
@@ -36,6 +37,8 @@ export class VerdictBanner {
   protected readonly headline = computed(() => HEADLINES[this.run().state]);
   protected readonly pending = computed(() => this.run().state === 'queued' || this.run().state === 'analysing');
   protected readonly percent = computed(() => Math.round(this.run().progress * 100));
+  /** Recomputed with each poll of the pending run, which brings a new run object. */
+  protected readonly waiting = computed(() => workerWait(this.run(), Date.now()));
   protected readonly result = computed(() => this.run().result as AnalysisResult | null);
   protected readonly problems = computed(() => this.result()?.errors.slice(0, LISTED_PROBLEMS) ?? []);
   protected readonly moreProblems = computed(() => {
