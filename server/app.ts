@@ -10,6 +10,7 @@ import { RESUMABLE_UPLOAD_PATH } from '../shared/api';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { refuseNulCharacters } from './http/refuse-nul';
 import { runIntegrityRoutes } from './integrity/integrity.routes';
 import { signingKeysRoutes } from './integrity/signing-keys.routes';
 import type { AppMail } from './mail/app-mail';
@@ -44,6 +45,7 @@ export function createApp({ config, database, services, jwtSecret, appMail }: Ap
   app.set('trust proxy', 'loopback');
   app.use(helmet());
   app.use('/api', express.json({ limit: '100kb' }));
+  app.use('/api', refuseNulCharacters);
 
   app.get('/api/health', (_request, response) => {
     response.json({ status: 'ok' });
