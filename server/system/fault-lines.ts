@@ -32,3 +32,16 @@ export function faultLines(source: string, write: (line: string) => void = (line
     repeats = 0;
   };
 }
+
+/**
+ * A process that meets an error nobody handled says so in one line and ends (its supervisor starts
+ * it again), instead of Node printing the driver's whole object graph.
+ */
+export function endOnUnhandledFaults(source: string): void {
+  const end = (error: unknown) => {
+    process.stderr.write(`${source}: stopped by an unhandled error: ${oneLine(error)}\n`);
+    process.exit(1);
+  };
+  process.on('uncaughtException', end);
+  process.on('unhandledRejection', end);
+}

@@ -48,7 +48,8 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
     const progress = Math.min(1, (phase === 'counting' ? 0 : 0.5) + (0.5 * bytesRead) / totalBytes);
     if (progress - written < PROGRESS_STEP) return;
     written = progress;
-    pendingWrite = pendingWrite.then(() => models.Run.update({ progress }, { where: { id: runId, state: 'analysing' } }));
+    // Progress is a courtesy: a write lost while the database restarts must not end the analysis.
+    pendingWrite = pendingWrite.then(() => models.Run.update({ progress }, { where: { id: runId, state: 'analysing' } })).catch(() => undefined);
   };
 
   // Alive, however slowly the log comes (an S3 copy shows no progress): a silent run's worker is gone.

@@ -5,6 +5,7 @@ import { startAnalysisQueue } from '../queue/analysis-queue';
 import { createServices } from '../services';
 import { startWorker } from './worker';
 import { TAKING_JOBS } from './worker-process';
+import { endOnUnhandledFaults } from '../system/fault-lines';
 
 /**
  * `npm run worker`: one analysis worker alone, for a machine that only analyses. It needs the
@@ -13,6 +14,7 @@ import { TAKING_JOBS } from './worker-process';
  * of its own (BELLKEEP_WORK_DIR); run as many as the lab needs, on as many machines.
  */
 async function main(): Promise<void> {
+  endOnUnhandledFaults(`Worker ${process.pid}`);
   const config = loadConfig();
   if (!config.databaseUrl) throw new Error('Set BELLKEEP_DATABASE_URL: a worker shares the database of the API.');
   if (!config.smtpUrl) throw new Error('Set BELLKEEP_SMTP_URL: a worker mails the verdicts.');

@@ -1,104 +1,19 @@
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
-import os from 'node:os';
 import path from 'node:path';
 import type { LoginResponse, RunDto, SetupDto } from '../../shared/api';
 import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
 import { writeModelLog } from '../../fixtures/model-log-file';
 import { PROJECT_ROOT } from '../../server/config/config';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { freePort } from '../support/free-port';
-
-/** `npm start` as a lab runs it, in a process group of its own, on free ports and a data folder of its own. */
-interface Started {
-  child: ChildProcess;
-  output: () => string;
-  baseUrl: string;
-  dataDir: string;
-  ports: number[];
-  waitFor(text: string | RegExp, timeoutMs?: number): Promise<void>;
-}
-
-async function startBellkeep(dataDir: string, extra: Record<string, string> = {}): Promise<Started> {
-  const [port, pgPort, smtpPort, webPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
-  // A built app of its own (an index.html newer than every source), so the start does not run ng build.
-  const appDir = path.join(dataDir, 'app');
-  fs.mkdirSync(appDir, { recursive: true });
-  fs.writeFileSync(path.join(appDir, 'index.html'), '<!doctype html><title>Bellkeep</title>');
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'server', 'start.ts')], {
-    cwd: PROJECT_ROOT,
-    detached: true,
-    stdio: ['ignore', 'pipe', 'pipe'],
-    env: {
-      ...process.env,
-      BELLKEEP_DATA_DIR: dataDir,
-      BELLKEEP_APP_DIR: appDir,
-      BELLKEEP_PORT: String(port),
-      BELLKEEP_PG_PORT: String(pgPort),
-      BELLKEEP_MAILCATCHER_SMTP_PORT: String(smtpPort),
-      BELLKEEP_MAILCATCHER_WEB_PORT: String(webPort),
-      BELLKEEP_BCRYPT_ROUNDS: '4',
-      BELLKEEP_DEMO_HISTORY: 'false',
-      ...extra,
-    },
-  });
-  let output = '';
-  child.stdout!.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  child.stderr!.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  const waitFor = async (text: string | RegExp, timeoutMs = 90_000) => {
-    const deadline = Date.now() + timeoutMs;
-    while (!(typeof text === 'string' ? output.includes(text) : text.test(output))) {
-      if (Date.now() > deadline) throw new Error(`No "${text}" after ${timeoutMs} ms; the output:\n${output}`);
-      await new Promise((resolve) => setTimeout(resolve, 100));
-    }
-  };
-  return { child, output: () => output, baseUrl: `http://127.0.0.1:${port}`, dataDir, ports: [port, pgPort, smtpPort, webPort], waitFor };
-}
-
-function portOpen(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = net.connect({ host: '127.0.0.1', port });
-    socket.once('connect', () => (socket.destroy(), resolve(true)));
-    socket.once('error', () => resolve(false));
-  });
-}
-
-/** Waits until none of the ports answers: every process that served them is gone. */
-async function untilClosed(ports: number[], timeoutMs = 40_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const open = [];
-    for (const port of ports) if (await portOpen(port)) open.push(port);
-    if (open.length === 0) return;
-    if (Date.now() > deadline) throw new Error(`Ports still answering after ${timeoutMs} ms: ${open.join(', ')}`);
-    await new Promise((resolve) => setTimeout(resolve, 250));
-  }
-}
-
-/** The processes whose command line names this data folder (the cluster and its guardian). */
-function processesOf(dataDir: string): string[] {
-  const found = spawnSync('pgrep', ['-af', dataDir], { encoding: 'utf8' }).stdout.trim();
-  return found === '' ? [] : found.split('\n');
-}
-
-async function api<T>(baseUrl: string, route: string, init: RequestInit & { token?: string } = {}): Promise<T> {
-  const response = await fetch(`${baseUrl}${route}`, {
-    ...init,
-    headers: { ...(init.token ? { Authorization: `Bearer ${init.token}` } : {}), ...(init.body && typeof init.body === 'string' ? { 'Content-Type': 'application/json' } : {}), ...init.headers },
-  });
-  if (!response.ok) throw new Error(`${init.method ?? 'GET'} ${route}: ${response.status} ${await response.text()}`);
-  return (await response.json()) as T;
-}
+import { api, processesOf, startBellkeep, startFolder, untilClosed } from '../support/started-bellkeep';
 
 jest.setTimeout(180_000);
 
 describe('npm start as a lab runs it: starting, stopping, and a worker that dies', () => {
   const folders: string[] = [];
   const dataFolder = () => {
-    const folder = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-lifecycle-'));
-    // As root the cluster runs as `postgres`, which must enter the folder.
-    fs.chmodSync(folder, 0o755);
+    const folder = startFolder();
     folders.push(folder);
     return folder;
   };
