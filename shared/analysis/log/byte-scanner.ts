@@ -90,8 +90,7 @@ export class ByteScanner {
   private extendCarry(bytes: Uint8Array): void {
     const previous = this.carry ?? new Uint8Array(0);
     if (previous.length + bytes.length > MAX_LINE_BYTES) {
-      const preview = this.decoder.decode(previous.subarray(0, 40));
-      this.analysis.malformed(this.line++, `${preview}…`, `the line is longer than ${MAX_LINE_BYTES} bytes: not a round record`);
+      this.tooLong(this.line++, previous.length > 0 ? previous : bytes);
       this.carry = null;
       this.skippingLongLine = true;
       return;
@@ -181,9 +180,19 @@ export class ByteScanner {
     return length;
   }
 
+  /** Reports a line too long to be a round record, with its first bytes. */
+  private tooLong(line: number, start: Uint8Array): void {
+    this.analysis.malformed(line, `${this.decoder.decode(start.subarray(0, 40))}…`, `the line is longer than ${MAX_LINE_BYTES} bytes: not a round record`);
+  }
+
   private readLine(bytes: Uint8Array, start: number, end: number, fieldCount: number, quoted: boolean): void {
     const line = this.line++;
     if (end === start) {
+      return;
+    }
+    // The same rule for a long line read whole from one chunk as for one carried across chunks.
+    if (end - start > MAX_LINE_BYTES) {
+      this.tooLong(line, bytes.subarray(start, end));
       return;
     }
     this.lineBytes = bytes;

@@ -1,4 +1,6 @@
-import { readFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { analyseLog } from './analyse-log';
@@ -36,6 +38,63 @@ describe('analyseLog', () => {
     const result = await analyseLog({ open: async function* () { yield damaged; } }, { seed: SEED });
     expect(result.verdict).toBe('INVALID');
     expect(result.errors[0].message).toContain('gzip data is damaged');
+  });
+
+  it('names the whole stored file in a damaged gzip result, though the reading stopped at the damage', async () => {
+    const damaged = gzipSync(readFileSync(ACCEPTED));
+    // The first deflate block header (after the 10-byte gzip header) made an invalid block type:
+    // the decoder fails at once. Small pieces, so almost all of the file comes after that.
+    damaged[10] |= 0b110;
+    const pieces = async function* () {
+      for (let start = 0; start < damaged.length; start += 100) yield damaged.subarray(start, start + 100);
+    };
+    const result = await analyseLog({ open: pieces }, { seed: SEED });
+    expect(result.errors[0].message).toContain('gzip data is damaged');
+    expect(result.input).toMatchObject({ bytes: damaged.length, sha256: createHash('sha256').update(damaged).digest('hex') });
+  });
+
+  it('calls gzip data that expands more than 100-fold a decompression bomb, having decoded little of it', async () => {
+    const bomb = gzipSync(Buffer.alloc(256 * 1024 * 1024, '\n'), { level: 9 });
+    const result = await analyseLog({ open: async function* () { yield bomb; } }, { seed: SEED });
+    expect(result.verdict).toBe('INVALID');
+    expect(result.errors[0]).toMatchObject({ line: 1, column: null });
+    const [, taken, decoded] = /expands more than 100-fold \((\d+) bytes to (\d+) so far\): a decompression bomb/.exec(result.errors[0].message)!.map(Number);
+    expect(decoded).toBeGreaterThan(100 * taken);
+    expect(decoded).toBeLessThan(4 * 1024 * 1024);
+    expect(result.input).toMatchObject({ bytes: bomb.length, compression: 'gzip' });
+  });
+
+  it('calls a line over 1 MiB no round record, whether it is read whole, in pieces or from gzip', async () => {
+    // Hex of a hash chain: a long field that gzip cannot squeeze like a decompression bomb.
+    const junk = Array.from({ length: 24_000 }, (_, i) => createHash('sha256').update(String(i)).digest('hex')).join('');
+    const lines = readFileSync(ACCEPTED, 'utf8').split('\n');
+    lines[5] = `5,${junk},1,0,1`;
+    const log = Buffer.from(lines.join('\n'));
+    const folder = mkdtempSync(path.join(tmpdir(), 'long-line-'));
+    const file = path.join(folder, 'log.csv');
+    writeFileSync(file, log);
+    const pieces = async function* () {
+      for (let start = 0; start < log.length; start += 64 * 1024) yield log.subarray(start, start + 64 * 1024);
+    };
+    const gzip = gzipSync(log);
+    const results = [
+      await analyseLog({ path: file }, { seed: SEED }),
+      await analyseLog({ open: pieces }, { seed: SEED }),
+      await analyseLog({ open: async function* () { yield gzip; } }, { seed: SEED }),
+    ];
+    rmSync(folder, { recursive: true });
+    for (const result of results) {
+      expect(result.errors[0]).toEqual({ line: 6, column: null, value: `5,${junk.slice(0, 38)}…`, message: 'the line is longer than 1048576 bytes: not a round record' });
+    }
+  });
+
+  it('shows a NUL byte past the first 64 KiB as ␀ in its problem: PostgreSQL stores no NUL', async () => {
+    const lines = readFileSync(ACCEPTED, 'utf8').split('\n');
+    lines[9000] = lines[9000].replace(',', ',\0');
+    const log = Buffer.from(lines.join('\n'));
+    const result = await analyseLog({ open: async function* () { yield log; } }, { seed: SEED });
+    expect(result.errors[0]).toMatchObject({ line: 9001, column: 'x', value: expect.stringMatching(/^\u2400[01]$/) });
+    expect(JSON.stringify(result)).not.toContain('\\u0000');
   });
 
   it('refuses a bad seed, profile or mapping with an AnalysisRequestError naming it', async () => {

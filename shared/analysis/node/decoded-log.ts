@@ -1,8 +1,18 @@
 import { Readable } from 'node:stream';
+import { finished } from 'node:stream/promises';
 import { createGunzip } from 'node:zlib';
 
 /** First two bytes of every gzip member (RFC 1952). */
 const GZIP_MAGIC = [0x1f, 0x8b];
+
+/**
+ * The most a gzip log may expand, and the decoded bytes always allowed before the ratio counts:
+ * Apache POI's zip-bomb guard (ZipSecureFile: MIN_INFLATE_RATIO 0.01, GRACE_ENTRY_SIZE 100 KiB).
+ * Round logs compress 5- to 7-fold (measured on generated logs, gzip -9); a run of one repeated
+ * byte about 1000-fold, which without a bound costs a worker minutes per compressed megabyte.
+ */
+export const MAX_GZIP_EXPANSION = 100;
+const EXPANSION_GRACE_BYTES = 100 * 1024;
 
 /** The decoded (decompressed when gzip) bytes of a log. */
 export interface DecodedLog {
@@ -12,12 +22,13 @@ export interface DecodedLog {
   chunks: AsyncIterable<Uint8Array>;
 }
 
-/** Why the gzip data of a log could not be decompressed. */
+/** Why the gzip data of a log could not be decompressed: damaged, or expanding like a decompression bomb. */
 export class DamagedGzipError extends Error {}
 
 /**
  * Decodes raw log bytes: gzip is recognised by its magic bytes, not by the file name, and
- * decompressed (all members). `onRaw` sees every raw chunk, for hashing and progress.
+ * decompressed (all members). `onRaw` sees every raw chunk, for hashing and progress: all of
+ * them, even when the gzip data fails part-way.
  */
 export async function decodeLog(raw: AsyncIterable<Uint8Array>, onRaw: (chunk: Uint8Array) => void): Promise<DecodedLog> {
   const iterator = raw[Symbol.asyncIterator]();
@@ -46,11 +57,35 @@ async function* gunzipped(raw: AsyncIterable<Uint8Array>): AsyncGenerator<Uint8A
   const gunzip = createGunzip({ chunkSize: 1024 * 1024 });
   input.on('error', (error) => gunzip.destroy(error));
   input.pipe(gunzip);
+  let decoded = 0;
+  let problem: string | null = null;
   try {
     for await (const chunk of gunzip) {
+      decoded += (chunk as Uint8Array).length;
+      // bytesWritten: the compressed bytes the decoder has taken so far.
+      if (decoded > EXPANSION_GRACE_BYTES && decoded > MAX_GZIP_EXPANSION * gunzip.bytesWritten) {
+        problem = `the gzip data expands more than ${MAX_GZIP_EXPANSION}-fold (${gunzip.bytesWritten} bytes to ${decoded} so far): a decompression bomb, not a round log`;
+        break;
+      }
       yield chunk as Uint8Array;
     }
   } catch (error) {
-    throw new DamagedGzipError(`the gzip data is damaged (${(error as Error).message})`);
+    problem = `the gzip data is damaged (${(error as Error).message})`;
   }
+  if (problem === null) {
+    return;
+  }
+  await readToEnd(input);
+  throw new DamagedGzipError(problem);
+}
+
+/**
+ * Reads the raw bytes the decoder left, for `onRaw` alone: the result's SHA-256 and size are
+ * those of the whole file as stored, which the server compares with what it archived.
+ */
+async function readToEnd(input: Readable): Promise<void> {
+  input.unpipe();
+  input.resume();
+  // A failing source is the damage already reported.
+  await finished(input).catch(() => undefined);
 }
