@@ -1,4 +1,4 @@
-import { QueryTypes, UniqueConstraintError, type Sequelize } from 'sequelize';
+import { QueryTypes, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import { parseProfile } from '../../shared/analysis/profile';
 import type { CreateProfileRequest, CreateProfileVersionRequest, ProfileDto, ProfileVersionDto } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
@@ -13,7 +13,7 @@ export interface ProfilesService {
   addVersion(profileId: number, request: CreateProfileVersionRequest, actorId: number): Promise<ProfileDto>;
   /** The version to analyse with; 404 naming the id when there is none. */
   findVersion(id: number): Promise<ProfileVersionRecord>;
-  latestVersionOf(profileId: number): Promise<ProfileVersionRecord>;
+  latestVersionOf(profileId: number, transaction?: Transaction): Promise<ProfileVersionRecord>;
 }
 
 /** Acceptance profiles: every edit writes a new, fixed version; parameters checked by the engine's schema. */
@@ -103,8 +103,8 @@ export function createProfilesService(sequelize: Sequelize, models: Models, audi
       return version;
     },
 
-    async latestVersionOf(profileId) {
-      const version = await ProfileVersion.findOne({ where: { profileId }, order: [['version', 'DESC']] });
+    async latestVersionOf(profileId, transaction) {
+      const version = await ProfileVersion.findOne({ where: { profileId }, order: [['version', 'DESC']], transaction });
       if (!version) throw HttpError.notFound(`There is no acceptance profile with id ${profileId}.`);
       return version;
     },

@@ -8,6 +8,14 @@ export interface ReceivedUpload extends Express.Multer.File {
   received: ReceivedLog;
 }
 
+/** The log store failed to take an upload's bytes: the server's fault (disk, bucket), never the form's. */
+export class LogStoreFailure extends Error {
+  constructor(readonly reason: unknown) {
+    super(reason instanceof Error ? reason.message : String(reason));
+    this.name = 'LogStoreFailure';
+  }
+}
+
 /**
  * A multer storage engine that hands the uploaded file's stream straight to the log store, which
  * hashes it on the way (nothing held in memory; with S3 nothing on local disk). The stored name
@@ -28,7 +36,7 @@ export function logStoreStorage(store: LogStore): multer.StorageEngine {
       file.stream.pipe(source);
       store.receive(source).then(
         (received) => callback(null, { received, size: received.bytes }),
-        (error: unknown) => callback(error),
+        (error: unknown) => callback(new LogStoreFailure(error)),
       );
     },
     _removeFile(_request: Request, file: Express.Multer.File & Partial<ReceivedUpload>, callback: (error: Error | null) => void) {

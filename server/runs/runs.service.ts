@@ -119,9 +119,11 @@ export function createRunsService(deps: {
   /** The upload's booking, if any, and the profile version it is judged under, refusing a chosen other one. */
   async function bookingAndProfile(newRun: Omit<NewRun, 'log' | 'originalName'>, setup: SetupDto, transaction: Transaction) {
     const booking = await bookings.bookingForUpload(setup.id, newRun, transaction);
+    // Every query in the transaction: one beside it needs a second pooled connection while this one
+    // is held, and as many uploads at once as the pool has connections then wait on each other.
     const profileVersion = booking
       ? (await models.ProfileVersion.findByPk(booking.profileVersionId, { transaction }))!
-      : await profiles.latestVersionOf(setup.defaultProfileId);
+      : await profiles.latestVersionOf(setup.defaultProfileId, transaction);
     refuseChosenProfile(newRun, booking ? `booking ${booking.id}` : `${setup.name}, unbooked,`, profileVersion);
     return { booking, profileVersion };
   }
@@ -233,7 +235,8 @@ export function createRunsService(deps: {
               setupId: setup.id,
               profileVersionId: profileVersion.id,
               fileSha256: sha256,
-              originalName: newRun.originalName.slice(0, 255),
+              // 255 characters as the column counts them, code points: a cut between UTF-16 units could split a pair.
+              originalName: [...newRun.originalName].slice(0, 255).join(''),
               duplicateOf: earlier?.id ?? null,
               uploadedBy: uploader.kind === 'person' ? uploader.user.id : null,
               uploadTokenId: uploader.kind === 'token' ? uploader.token.id : null,

@@ -2,19 +2,23 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { HttpError } from '../http/http-error';
 import type { LogStore } from '../storage/log-store';
-import { logStoreStorage, type ReceivedUpload } from './log-storage-engine';
+import { LogStoreFailure, logStoreStorage, type ReceivedUpload } from './log-storage-engine';
 
 /** The multipart field that carries the log. */
 export const LOG_FIELD = 'log';
 
 /**
  * multer for one log per request, streamed into the log store and hashed (never held in memory),
- * with multer's errors turned into sentences: 413 for a file over the limit, 400 for a wrong field.
+ * with multer's errors turned into sentences: 413 for a file over the limit, 400 for a wrong field
+ * or a body that is no well-formed form (busboy's errors); the log store's own failures stay 500s.
  */
 export function logUpload(store: LogStore, limitBytes: number): RequestHandler {
   const parse = multer({
     storage: logStoreStorage(store),
     limits: { fileSize: limitBytes, files: 1, fields: 20, fieldSize: 64 * 1024 },
+    // Browsers write a file name in UTF-8 (the HTML standard's multipart/form-data encoding);
+    // busboy's default, Latin-1, turns "ночь-42.csv" into "Ð½Ð¾ÑÑ-42.csv".
+    defParamCharset: 'utf8',
   }).single(LOG_FIELD);
   return (request, response, next) => {
     parse(request, response, (error?: unknown) => {
@@ -28,7 +32,9 @@ export function logUpload(store: LogStore, limitBytes: number): RequestHandler {
         }
         return next(HttpError.badRequest(`${error.message}${error.field ? ` (field "${error.field}")` : ''}.`, error.field));
       }
-      next(error);
+      if (error instanceof LogStoreFailure) return next(error.reason);
+      // busboy's: a part header with a control character (a file name with a NUL byte), a cut-off body.
+      next(HttpError.badRequest(`The upload is no well-formed multipart form: ${(error as Error).message}.`));
     });
   };
 }

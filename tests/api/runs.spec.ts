@@ -161,6 +161,25 @@ describe('the runs pipeline through the API', () => {
     expect((await archiveContents(testApp.config)).leftovers).toEqual([]);
   });
 
+  it('refuses a form whose file name holds a control character with 400 saying so, not a server error', async () => {
+    const log = { bytes: fs.readFileSync(fixtureLog('malformed-rows.csv')), name: 'night\u0007.csv' };
+    const response = await uploadLog(testApp.app, tokens['dev'], log, { setupId: fenLink }).expect(400);
+    expect((response.body as ApiErrorBody).error.message).toBe('The upload is no well-formed multipart form: Malformed part header.');
+  });
+
+  it('keeps a file name written in UTF-8 as written', async () => {
+    const log = { bytes: fs.readFileSync(fixtureLog('malformed-rows.csv')), name: 'ночь-42 über Fen 🌙.csv' };
+    const created = (await uploadLog(testApp.app, tokens['dev'], log, { setupId: fenLink }).expect(201)).body as RunDto;
+    expect(created.file.originalName).toBe('ночь-42 über Fen 🌙.csv');
+  });
+
+  it('answers more uploads at once than the database pool has connections', async () => {
+    // Each upload's transaction holds a pooled connection, so a query beside it waits for another.
+    // These are refused in the transaction (another profile), after the setup's profile is read there.
+    const uploads = Array.from({ length: 24 }, () => uploadLog(testApp.app, tokens['dev'], fixtureLog('malformed-rows.csv'), { setupId: fenLink, profileId: 2 }));
+    expect((await Promise.all(uploads)).map((response) => response.status)).toEqual(uploads.map(() => 403));
+  }, 50_000);
+
   it('refuses an upload without a file', async () => {
     const response = await request(testApp.app).post('/api/runs').set(bearer('dev')).field('setupId', String(fenLink)).expect(400);
     expect((response.body as ApiErrorBody).error.field).toBe('log');

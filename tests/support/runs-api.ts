@@ -18,11 +18,20 @@ export async function setupId(app: Express, token: string, name: string): Promis
   return (response.body as SetupDto[]).find((setup) => setup.name === name)!.id;
 }
 
-/** Uploads a log through the API; `fields` are the form's other fields. */
-export function uploadLog(app: Express, token: string, file: string, fields: Record<string, string | number>) {
+/** A log in memory, with the file name its upload carries. */
+export interface LogBytes {
+  bytes: Buffer;
+  name: string;
+}
+
+/** Uploads a log through the API, from a file or from memory; `fields` are the form's other fields. */
+export function uploadLog(app: Express, token: string, file: string | LogBytes, fields: Record<string, string | number>) {
   let call = request(app).post('/api/runs').set('Authorization', `Bearer ${token}`);
   for (const [name, value] of Object.entries(fields)) call = call.field(name, String(value));
-  return call.attach('log', file);
+  if (typeof file === 'string') return call.attach('log', file);
+  // form-data sends a `filepath` as written (normalised), but cuts a `filename` to its base name
+  // before it leaves; superagent's types know only `filename`.
+  return call.attach('log', file.bytes, { filepath: file.name } as { filename?: string });
 }
 
 /** Polls the run until its analysis is over; returns it. */
