@@ -1,5 +1,4 @@
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import { startApiServer } from './api-server';
 import { loadConfig } from './config/config';
@@ -7,6 +6,7 @@ import { startPostgresCluster } from './database/postgres-cluster';
 import { startMailCatcher } from './mail/mail-catcher';
 import { startStorageBackend } from './storage/storage-backend';
 import { appBuildIsStale, buildApp, startDevServer } from './system/angular-build';
+import { portAnswers } from './system/port-answers';
 import { withProgress } from './system/progress-lines';
 import { superviseWorker } from './worker/worker-supervisor';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
@@ -41,6 +41,7 @@ async function main(): Promise<void> {
   const devMode = process.argv.includes('--dev');
   const config = loadConfig();
   fs.mkdirSync(config.dataDir, { recursive: true });
+  // A second `npm start` would fail later, on the port, less clearly.
   if (await portAnswers(config.host, config.port)) {
     throw new Error(`something already listens on ${config.host}:${config.port}: is Bellkeep running in another terminal? Open ${config.publicUrl}, or stop that one first (Ctrl-C there).`);
   }
@@ -124,18 +125,6 @@ function shutDown(): void {
   });
 }
 for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, shutDown);
-
-/** Whether a server answers on host:port (a second `npm start` would fail later, on the port, less clearly). */
-function portAnswers(host: string, port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = net.connect({ host, port });
-    socket.once('connect', () => {
-      socket.destroy();
-      resolve(true);
-    });
-    socket.once('error', () => resolve(false));
-  });
-}
 
 function say(line: string): void {
   process.stdout.write(`${line}\n`);

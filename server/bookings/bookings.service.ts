@@ -32,17 +32,17 @@ export interface BookingsService {
 /** Nights booked before acquisition: the seed drawn and committed to, the profile fixed. */
 export function createBookingsService(deps: { models: Models; profiles: ProfilesService; setups: SetupsService; audit: AuditTrail }): BookingsService {
   const { models, profiles, setups, audit } = deps;
-  const { Booking, Run, User, ProfileVersion, Profile } = models;
+  const { Booking, Run, User, ProfileVersion, Profile, Setup } = models;
   const sequelize = Booking.sequelize!;
 
   async function toDtos(records: BookingRecord[], transaction?: Transaction): Promise<BookingDto[]> {
     if (records.length === 0) return [];
     const ids = records.map((record) => record.id);
-    const [runs, people, versions, setupList] = await Promise.all([
+    const [runs, people, versions, setupRecords] = await Promise.all([
       Run.findAll({ where: { bookingId: ids }, order: [['attempt', 'ASC']], transaction }),
       User.findAll({ where: { id: [...new Set(records.map((record) => record.bookedBy))] }, transaction }),
       ProfileVersion.findAll({ where: { id: [...new Set(records.map((record) => record.profileVersionId))] }, transaction }),
-      setups.list(),
+      Setup.findAll({ where: { id: [...new Set(records.map((record) => record.setupId))] }, transaction }),
     ]);
     const profileList = await Profile.findAll({ where: { id: versions.map((version) => version.profileId) }, transaction });
     return records.map((record) => {
@@ -60,7 +60,7 @@ export function createBookingsService(deps: { models: Models; profiles: Profiles
       return {
         id: record.id,
         setupId: record.setupId,
-        setupName: setupList.find((setup) => setup.id === record.setupId)?.name ?? '',
+        setupName: setupRecords.find((setup) => setup.id === record.setupId)?.name ?? '',
         night: record.night,
         windowStart: record.windowStart.toISOString(),
         windowEnd: record.windowEnd.toISOString(),

@@ -4,14 +4,15 @@ import type { IncomingMessage } from 'node:http';
 import { Router, type Request, type RequestHandler } from 'express';
 import { FileStore } from '@tus/file-store';
 import { Server, type Upload } from '@tus/server';
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { RESUMABLE_UPLOAD_PATH, type ApiErrorBody } from '../../shared/api';
 import { HttpError } from '../http/http-error';
 import { validationError } from '../http/validate-body';
 import type { LogStore } from '../storage/log-store';
-import { uploaderKey, type Uploader } from '../upload-tokens/uploader';
+import { uploaderKey } from '../upload-tokens/uploader';
 import type { RunsService } from './runs.service';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
+import { runOfUploadKey } from './upload-keys';
 
 /** A resumable upload nobody finished is thrown away after a week. */
 const ABANDONED_AFTER_MS = 7 * 86_400_000;
@@ -49,14 +50,6 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
   const store = new FileStore({ directory, expirationPeriodInMilliseconds: ABANDONED_AFTER_MS });
   const uploaderOf = (request: IncomingMessage) => (request as Request).uploader!;
   const finishedKey = (id: string) => `resumable:${id}`;
-
-  async function finishedRun(uploaderValue: Uploader, id: string): Promise<number | null> {
-    const [row] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE uploader = :uploader AND idempotency_key = :key', {
-      replacements: { uploader: uploaderKey(uploaderValue), key: finishedKey(id) },
-      type: QueryTypes.SELECT,
-    });
-    return row?.run_id ?? null;
-  }
 
   async function forget(id: string): Promise<void> {
     await store.remove(id).catch(() => undefined);
@@ -110,7 +103,7 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
   // GET is not tus: it tells a client whose last answer was lost which run its finished upload made.
   router.get('/:id', async (request, response, next) => {
     if (request.method === 'HEAD') return next(); // Express routes HEAD to GET handlers; HEAD is tus's
-    const runId = await finishedRun(request.uploader!, String(request.params.id));
+    const runId = await runOfUploadKey(sequelize, uploaderKey(request.uploader!), finishedKey(String(request.params.id)));
     if (runId === null) throw HttpError.notFound(`There is no finished upload ${request.params.id} of yours; ask its offset with HEAD and go on.`);
     response.json(await runs.get(runId));
   });

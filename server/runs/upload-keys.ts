@@ -15,6 +15,15 @@ function drained(request: Request): Promise<void> {
   });
 }
 
+/** The run an uploader's key made, or null (no such key, or its upload is still being received). */
+export async function runOfUploadKey(sequelize: Sequelize, uploader: string, key: string): Promise<number | null> {
+  const [row] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE uploader = :uploader AND idempotency_key = :key', {
+    replacements: { uploader, key },
+    type: QueryTypes.SELECT,
+  });
+  return row?.run_id ?? null;
+}
+
 /** Visible ASCII, 1 to 200 characters: room for a UUID or a client's own scheme. */
 const KEY_PATTERN = /^[\x21-\x7e]{1,200}$/;
 
@@ -54,12 +63,9 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
       return next();
     }
     await drained(request); // the repeat's bytes are not needed, but a client still sending them must not see a broken pipe
-    const [existing] = await sequelize.query<{ run_id: number | null }>('SELECT run_id FROM upload_keys WHERE uploader = :uploader AND idempotency_key = :key', {
-      replacements,
-      type: QueryTypes.SELECT,
-    });
-    if (existing?.run_id) {
-      response.status(200).json(await runs.get(existing.run_id));
+    const existing = await runOfUploadKey(sequelize, uploader, key);
+    if (existing !== null) {
+      response.status(200).json(await runs.get(existing));
       return;
     }
     throw HttpError.conflict('An upload with this Idempotency-Key is still being received; ask again once it has finished.', IDEMPOTENCY_HEADER);

@@ -1,9 +1,9 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { PROJECT_ROOT } from '../../server/config/config';
+import { portAnswers } from '../../server/system/port-answers';
 import { freePort } from './free-port';
 
 /** `npm start` as a lab runs it, in a process group of its own, on free ports and a data folder of its own. */
@@ -52,20 +52,12 @@ export async function startBellkeep(dataDir: string, extra: Record<string, strin
   return { child, output: () => output, baseUrl: `http://127.0.0.1:${port}`, dataDir, ports: [port, pgPort, smtpPort, webPort], waitFor };
 }
 
-function portOpen(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = net.connect({ host: '127.0.0.1', port });
-    socket.once('connect', () => (socket.destroy(), resolve(true)));
-    socket.once('error', () => resolve(false));
-  });
-}
-
 /** Waits until none of the ports answers: every process that served them is gone. */
 export async function untilClosed(ports: number[], timeoutMs = 40_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const open = [];
-    for (const port of ports) if (await portOpen(port)) open.push(port);
+    for (const port of ports) if (await portAnswers('127.0.0.1', port)) open.push(port);
     if (open.length === 0) return;
     if (Date.now() > deadline) throw new Error(`Ports still answering after ${timeoutMs} ms: ${open.join(', ')}`);
     await new Promise((resolve) => setTimeout(resolve, 250));
