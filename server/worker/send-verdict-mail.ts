@@ -23,11 +23,14 @@ export interface VerdictMailDeps {
  */
 export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Promise<void> {
   const { sequelize, models, runs, setups, mailer, audit, publicUrl } = deps;
+  // Read before the transaction takes its pooled connection: a lookup inside it on another
+  // connection would wait for the pool, and ten mail jobs at once would hold all ten and wait forever.
+  const setupId = (await models.Run.findByPk(runId, { attributes: ['setupId'], rejectOnEmpty: true })).setupId;
+  const recipients = await setups.verdictRecipients(setupId);
   const failure = await sequelize.transaction(async (transaction) => {
     await models.Run.findByPk(runId, { transaction, lock: transaction.LOCK.UPDATE });
     if (await models.MailDelivery.findOne({ where: { runId, status: 'sent' }, transaction })) return null;
     const run = await runs.get(runId, transaction);
-    const recipients = await setups.verdictRecipients(run.setupId);
     if (recipients.length === 0) {
       await audit.record({ actorId: null, action: 'run.mail-skipped', targetType: 'run', targetId: runId, details: { reason: 'the setup has no shift leads or recipients' } }, transaction);
       return null;
