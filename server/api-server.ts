@@ -7,6 +7,7 @@ import { createMailer } from './mail/mailer';
 import { createAppMail } from './mail/app-mail';
 import { startAnalysisQueue } from './queue/analysis-queue';
 import { createServices } from './services';
+import { faultLines } from './system/fault-lines';
 
 /** Where the API finds the database and the mail server, both already running. */
 export interface ApiConnections {
@@ -19,6 +20,8 @@ export interface RunningApi {
   report: BootstrapReport;
   /** Seeds the demo history now (when the demo is on and it was not seeded yet), while the API serves. */
   seedHistory(onProgress: (done: number, total: number) => void): Promise<string[]>;
+  /** Records that the worker `pid` on this machine ended unasked (the admins see it); never throws. */
+  recordWorkerEnd(pid: number, how: string): void;
   /** Stops listening, then closes the queue, the mailer and the database. */
   stop(): Promise<void>;
 }
@@ -48,7 +51,9 @@ export async function startApiServer(config: Config, connections: ApiConnections
     const server = app.listen(config.port, config.host);
     await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
     undo.push(() => new Promise<void>((resolve) => server.close(() => resolve())));
-    return { report, seedHistory: (onProgress) => seedHistory(database, config, onProgress), stop };
+    const recordingFailed = faultLines('Worker records');
+    const recordWorkerEnd = (pid: number, how: string) => void services.workers.recordUnaskedEnd(pid, how).catch(recordingFailed);
+    return { report, seedHistory: (onProgress) => seedHistory(database, config, onProgress), recordWorkerEnd, stop };
   } catch (error) {
     await stop();
     throw error;

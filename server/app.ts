@@ -23,6 +23,7 @@ import { setupsRoutes } from './setups/setups.routes';
 import { uploaderGuard } from './upload-tokens/uploader-guard';
 import { uploadTokensRoutes } from './upload-tokens/upload-tokens.routes';
 import { usersRoutes } from './users/users.routes';
+import { workersRoutes } from './workers/workers.routes';
 
 export interface AppDependencies {
   config: Config;
@@ -59,6 +60,7 @@ export function createApp({ config, database, services, jwtSecret, appMail }: Ap
   app.use('/api/bookings', bookingsRoutes({ bookings: services.bookings, setups: services.setups, appMail, guards }));
   app.use('/api/planner', plannerRoutes({ models: database.models, setups: services.setups, profiles: services.profiles, guards }));
   app.use('/api/signing-keys', signingKeysRoutes(services.signingKeys));
+  app.use('/api/workers', workersRoutes(services.workers, guards));
   app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
   app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));
   app.use('/api/runs', runsRoutes({ config, runs: services.runs, logStore: services.logStore, models: database.models, guards, uploader }));

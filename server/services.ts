@@ -14,6 +14,7 @@ import { createLogStore } from './storage/create-log-store';
 import type { LogStore } from './storage/log-store';
 import { createUploadTokensService, type UploadTokensService } from './upload-tokens/upload-tokens.service';
 import { createUsersService, type UsersService } from './users/users.service';
+import { createWorkersService, type WorkersService } from './workers/workers.service';
 
 export interface Services {
   audit: AuditTrail;
@@ -27,6 +28,7 @@ export interface Services {
   signingKeys: SigningKeysService;
   verification: VerificationService;
   reverifications: ReverificationsService;
+  workers: WorkersService;
 }
 
 /** Every service of the app over one database and queue: the API and the worker share them. */
@@ -43,5 +45,6 @@ export function createServices(config: Config, database: Database, queue: Analys
   const signingKeys = createSigningKeysService(sequelize, models, audit, resolveSigningKey(config.signingKey, config.dataDir));
   const verification = createVerificationService(models, logStore, signingKeys);
   const reverifications = createReverificationsService({ sequelize, models, queue, audit });
-  return { audit, logStore, users, profiles, setups, bookings, uploadTokens, runs, signingKeys, verification, reverifications };
+  const workers = createWorkersService(models);
+  return { audit, logStore, users, profiles, setups, bookings, uploadTokens, runs, signingKeys, verification, reverifications, workers };
 }

@@ -77,7 +77,7 @@ async function main(): Promise<void> {
   const { report } = api;
   say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
   if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
-  const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment }, say);
+  const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment }, say, api.recordWorkerEnd);
   stops.push({ what: 'the worker', stop: () => worker.stop() });
   await building;
 

@@ -7,12 +7,14 @@ import { defineRunModels, type RunModels } from '../runs/run.model';
 import { defineSetupModels, type SetupModels } from '../setups/setup.model';
 import { defineUploadTokenModel, type UploadTokenRecord } from '../upload-tokens/upload-token.model';
 import { defineUserModel, type UserModelStatic } from '../users/user.model';
+import { defineWorkerRecordModel, type WorkerRecord } from '../workers/worker-record.model';
 
 export interface Models extends ProfileModels, SetupModels, RunModels, IntegrityModels {
   User: UserModelStatic;
   AuditEvent: ModelStatic<AuditEventRecord>;
   Booking: ModelStatic<BookingRecord>;
   UploadToken: ModelStatic<UploadTokenRecord>;
+  WorkerRecord: ModelStatic<WorkerRecord>;
 }
 
 /** Every Sequelize model of the app, defined in one place. */
@@ -22,6 +24,7 @@ export function defineModels(sequelize: Sequelize): Models {
     AuditEvent: defineAuditEventModel(sequelize),
     Booking: defineBookingModel(sequelize),
     UploadToken: defineUploadTokenModel(sequelize),
+    WorkerRecord: defineWorkerRecordModel(sequelize),
     ...defineProfileModels(sequelize),
     ...defineSetupModels(sequelize),
     ...defineRunModels(sequelize),

@@ -17,10 +17,15 @@ export interface WorkerSupervisor {
 /**
  * Runs one analysis worker process and starts it again whenever it ends without being asked to
  * (killed, crashed, out of memory), after a back-off that doubles while it keeps dying within a
- * minute of starting (1 s, 2 s, 4 s ... 60 s). Each event is one line through `say`. A job the
+ * minute of starting (1 s, 2 s, 4 s ... 60 s). Each event is one line through `say`, and each
+ * end goes to `onUnaskedEnd` (which records it for the admins). A job the
  * dead worker held is handed out again by the queue once its expiry passes.
  */
-export function superviseWorker(environment: Record<string, string>, say: (line: string) => void): WorkerSupervisor {
+export function superviseWorker(
+  environment: Record<string, string>,
+  say: (line: string) => void,
+  onUnaskedEnd: (pid: number, how: string) => void = () => undefined,
+): WorkerSupervisor {
   let child: ChildProcess;
   let startedAt = 0;
   let delay = FIRST_DELAY_MS;
@@ -34,13 +39,15 @@ export function superviseWorker(environment: Record<string, string>, say: (line:
     const pid = child.pid;
     child.once('exit', (code, signal) => {
       if (stopping) return;
+      const how = signal ? `killed (${signal})` : `exit code ${code}`;
+      onUnaskedEnd(pid!, how);
       if (Date.now() - startedAt >= HEALTHY_AFTER_MS) delay = FIRST_DELAY_MS;
       const wait = delay;
       delay = Math.min(delay * 2, LONGEST_DELAY_MS);
       restarts.push(Date.now());
       const recent = recentRestarts();
       say(
-        `Worker ${pid} ended (${signal ?? `exit code ${code}`}); starting another in ${wait / 1000} s` +
+        `Worker ${pid} ended (${how}); starting another in ${wait / 1000} s` +
           (recent > 3 ? ` (${recent} restarts in the last hour: it keeps dying, see its output above)` : ''),
       );
       pending = setTimeout(start, wait);

@@ -27,6 +27,7 @@ export async function startWorker(config: Config, database: Database, queue: Ana
   await services.logStore.prepare();
   // Copies left by this worker's predecessor, if it was killed mid-analysis.
   await removeLeftoverCopies(config.workDir);
+  const presence = await services.workers.announce();
   const analysisDeps = { sequelize, models, logStore: services.logStore, workFolder: config.workDir, queue, audit: services.audit, signingKey: services.signingKeys.current };
   const mailDeps = { sequelize, models, runs: services.runs, setups: services.setups, mailer, audit: services.audit, publicUrl: config.publicUrl };
 
@@ -46,6 +47,8 @@ export async function startWorker(config: Config, database: Database, queue: Ana
       await queue.boss.offWork(ANALYSIS_QUEUE);
       await queue.boss.offWork(REVERIFICATION_QUEUE);
       await queue.boss.offWork(VERDICT_MAIL_QUEUE);
+      // With the database down the record stays open, and reads as silent: nothing to undo.
+      await presence.stop().catch(() => undefined);
     },
   };
 }

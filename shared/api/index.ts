@@ -9,3 +9,4 @@ export * from './roles';
 export * from './runs';
 export * from './setups';
 export * from './users';
+export * from './workers';

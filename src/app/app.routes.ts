@@ -57,6 +57,12 @@ export const routes: Routes = [
         loadChildren: () => import('./users/users.routes').then((m) => m.usersRoutes),
       },
       {
+        path: 'workers',
+        title: 'Analysis workers · Bellkeep',
+        canActivate: [requireRoles(navItem('workers').roles)],
+        loadComponent: () => import('./workers/workers-page').then((m) => m.WorkersPage),
+      },
+      {
         path: 'forbidden',
         title: 'Not allowed · Bellkeep',
         loadComponent: () => import('./status-pages/forbidden').then((m) => m.Forbidden),

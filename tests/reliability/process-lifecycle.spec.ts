@@ -1,7 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import type { LoginResponse, RunDto, SetupDto } from '../../shared/api';
+import type { LoginResponse, RunDto, SetupDto, WorkersOverviewDto } from '../../shared/api';
 import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
 import { writeModelLog } from '../../fixtures/model-log-file';
 import { PROJECT_ROOT } from '../../server/config/config';
@@ -92,6 +92,13 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
         run = await api<RunDto>(started.baseUrl, `/api/runs/${queued.id}`, { token });
       }
       expect(run.deliveries.map((delivery) => delivery.status)).toEqual(['sent']);
+
+      // The admins see the killed worker and the one started in its place.
+      const admin = await api<LoginResponse>(started.baseUrl, '/api/auth/login', { method: 'POST', body: JSON.stringify({ email: 'maren.holt@kestrelfen.example', password: DEMO_PASSWORD }) });
+      const { workers, lostInLastHour } = await api<WorkersOverviewDto>(started.baseUrl, '/api/workers', { token: admin.token });
+      expect(workers.find((worker) => worker.name.endsWith(`:${killedPid}`))).toMatchObject({ condition: 'ended-unasked', endedHow: 'killed (SIGKILL)' });
+      expect(workers.filter((worker) => worker.condition === 'taking-jobs')).toHaveLength(1);
+      expect(lostInLastHour).toBe(1);
     } finally {
       process.kill(-started.child.pid!, 'SIGTERM');
       await untilClosed(started.ports);

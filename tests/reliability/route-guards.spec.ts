@@ -45,6 +45,7 @@ const GUARDED_ROUTES: Record<string, Guard> = {
   'GET /api/users': ADMIN,
   'POST /api/users': ADMIN,
   'PATCH /api/users/:id': ADMIN,
+  'GET /api/workers': ADMIN,
   'GET /api/profiles': SIGNED_IN,
   'GET /api/profiles/:id': SIGNED_IN,
   'POST /api/profiles': ADMIN,

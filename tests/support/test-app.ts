@@ -100,6 +100,10 @@ export async function createTestApp(environment: Record<string, string> = {}): P
     },
     async close() {
       for (const worker of workers) await worker.stop();
+      // pg-boss checks its stopping workers once a second from a timer of its own, which needs
+      // node:timers/promises: once jest has unloaded this file's modules, that check throws into
+      // whichever test file runs next in this jest worker. Let it see them stopped first.
+      if (workers.length > 0) await new Promise((resolve) => setTimeout(resolve, 1_100));
       await queue.stop();
       await appMail.settled();
       mailer.close();

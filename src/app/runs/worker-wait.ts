@@ -1,9 +1,9 @@
-import { WORKER_HEARTBEAT_SECONDS, type RunDto } from '../../../shared/api';
+import { WORKER_HEARTBEAT_SECONDS, WORKER_SILENT_AFTER_BEATS, type RunDto } from '../../../shared/api';
 
 /** A queued run is overdue for a worker after this long. */
 const QUEUED_OVERDUE_MS = 20_000;
-/** A worker missing three heartbeats in a row is taken for gone. */
-const SILENT_AFTER_MS = 3 * WORKER_HEARTBEAT_SECONDS * 1000;
+/** A worker missing a few heartbeats in a row is taken for gone. */
+const SILENT_AFTER_MS = WORKER_SILENT_AFTER_BEATS * WORKER_HEARTBEAT_SECONDS * 1000;
 
 const clock = (iso: string) => new Date(iso).toLocaleTimeString('en-GB');
 

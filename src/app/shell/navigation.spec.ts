@@ -1,8 +1,8 @@
 import { navItem, navItemsFor } from './navigation';
 
 describe('navItemsFor', () => {
-  it('gives an admin the shared pages, the planner and the users page, but not the upload', () => {
-    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users']);
+  it('gives an admin the shared pages, the planner, the users and workers pages, but not the upload', () => {
+    expect(navItemsFor(['admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users', 'workers']);
   });
 
   it('gives an experimentalist the upload and the planner after it, and keeps the users page from them', () => {
@@ -22,6 +22,7 @@ describe('navItemsFor', () => {
       'profiles',
       'audit',
       'users',
+      'workers',
     ]);
   });
 

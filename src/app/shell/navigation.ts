@@ -24,6 +24,7 @@ export const NAV_ITEMS = [
   { id: 'profiles', label: 'Profiles', icon: 'tune', path: '/profiles', roles: ROLES },
   { id: 'audit', label: 'Audit', icon: 'policy', path: '/audit', roles: ['auditor', 'admin'] },
   { id: 'users', label: 'Users', icon: 'group', path: '/users', roles: ['admin'] },
+  { id: 'workers', label: 'Workers', icon: 'memory', path: '/workers', roles: ['admin'] },
 ] as const satisfies readonly NavItem[];
 
 /** Name of one of {@link NAV_ITEMS}. */

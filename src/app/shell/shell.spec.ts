@@ -36,6 +36,9 @@ describe('Shell', () => {
     return Array.from(links, (link) => `${link.getAttribute('data-testid')}: ${link.querySelector('.mat-mdc-list-item-title')?.textContent?.trim()}`);
   }
 
+  /** The workers line asks on a timer (at 0 ms, then every 15 s). */
+  const nextTimer = () => new Promise((resolve) => setTimeout(resolve, 0));
+
   beforeEach(() => localStorage.clear());
 
   it('shows an admin the planner and the users page', async () => {
@@ -48,7 +51,33 @@ describe('Shell', () => {
       'nav-profiles: Profiles',
       'nav-audit: Audit',
       'nav-users: Users',
+      'nav-workers: Workers',
     ]);
+  });
+
+  it('tells an admin, above the page, when the analysis workers need them', async () => {
+    const fixture = await renderFor(['admin']);
+    await nextTimer();
+    const attention = 'Analysis workers ended unasked or went silent 4 times in the last hour: one keeps dying.';
+    TestBed.inject(HttpTestingController).expectOne('/api/workers').flush({ workers: [], takingJobs: 0, lostInLastHour: 4, waitingRuns: 2, attention });
+    await fixture.whenStable();
+    const alert = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="workers-alert"]');
+    expect(alert?.textContent).toContain(attention);
+    expect(alert?.querySelector('a')?.getAttribute('href')).toBe('/workers');
+  });
+
+  it('shows no workers line when all is well, and never asks for it for someone who is no admin', async () => {
+    const admin = await renderFor(['admin']);
+    await nextTimer();
+    TestBed.inject(HttpTestingController).expectOne('/api/workers').flush({ workers: [], takingJobs: 1, lostInLastHour: 0, waitingRuns: 0, attention: null });
+    await admin.whenStable();
+    expect((admin.nativeElement as HTMLElement).querySelector('[data-testid="workers-alert"]')).toBeNull();
+    TestBed.resetTestingModule();
+    localStorage.clear();
+
+    await renderFor(['shift-lead', 'auditor']);
+    await nextTimer();
+    TestBed.inject(HttpTestingController).expectNone('/api/workers');
   });
 
   it('shows a shift lead the planner and hides the users page', async () => {

@@ -14,6 +14,7 @@ import { map } from 'rxjs';
 import { ROLE_LABELS } from '../../../shared/api';
 import { Session } from '../auth/session';
 import { navItemsFor } from './navigation';
+import { WorkersAlert } from '../workers/workers-alert';
 import { ProductMark } from './product-mark';
 
 /** Below this width the side navigation slides over the page instead of sitting beside it. */
@@ -34,6 +35,7 @@ const WIDE_LAYOUT = '(min-width: 1000px)';
     RouterLink,
     RouterLinkActive,
     RouterOutlet,
+    WorkersAlert,
   ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
