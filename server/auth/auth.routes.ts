@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import { z } from 'zod';
 import type { LoginResponse } from '../../shared/api';
 import type { Config } from '../config/config';
@@ -8,6 +7,7 @@ import { validateBody } from '../http/validate-body';
 import { toUserDto } from '../users/user.model';
 import type { UsersService } from '../users/users.service';
 import type { Guards } from './passport';
+import { signInLimits } from './sign-in-limits';
 import { issueToken } from './tokens';
 
 const loginSchema = z.object({
@@ -15,19 +15,11 @@ const loginSchema = z.object({
   password: z.string().min(1, 'is required').max(200),
 });
 
-/** `POST /api/auth/login` (rate limited per client address) and `GET /api/auth/me`. */
+/** `POST /api/auth/login` (limited per client address and per account) and `GET /api/auth/me`. */
 export function authRoutes(config: Config, jwtSecret: string, users: UsersService, guards: Guards): Router {
   const router = Router();
-  const loginLimiter = rateLimit({
-    windowMs: config.loginRateLimit.windowSeconds * 1000,
-    limit: config.loginRateLimit.limit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_request, _response, next) =>
-      next(new HttpError(429, 'rate-limited', 'Too many sign-in attempts from this address; wait a few minutes and try again.')),
-  });
 
-  router.post('/login', loginLimiter, validateBody(loginSchema), async (request, response) => {
+  router.post('/login', validateBody(loginSchema), ...signInLimits(config), async (request, response) => {
     const { email, password } = request.body as z.infer<typeof loginSchema>;
     const user = await users.authenticate(email, password);
     if (!user) throw HttpError.unauthorized('The e-mail or the password is wrong, or the account is deactivated.');

@@ -35,6 +35,8 @@ const environmentSchema = z.object({
   BELLKEEP_BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).default(11),
   /** Sign-in attempts allowed per client address in each window. */
   BELLKEEP_LOGIN_LIMIT: z.coerce.number().int().min(1).default(20),
+  /** Failed sign-ins allowed per account in each window, from any address (then the account waits out the window). */
+  BELLKEEP_LOGIN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(10),
   /** Length of the sign-in rate-limit window, in seconds. */
   BELLKEEP_LOGIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
   /** SMTP URL of the mail transport; when unset, `npm start` runs the local mail catcher. */
@@ -113,7 +115,7 @@ export interface Config {
   signingKey?: string;
   tokenTtlSeconds: number;
   bcryptRounds: number;
-  loginRateLimit: { limit: number; windowSeconds: number };
+  loginRateLimit: { limit: number; accountLimit: number; windowSeconds: number };
   smtpUrl?: string;
   mailFrom: string;
   mailCatcher: { smtpPort: number; webPort: number };
@@ -157,7 +159,7 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
     signingKey: env.BELLKEEP_SIGNING_KEY,
     tokenTtlSeconds: env.BELLKEEP_TOKEN_TTL_SECONDS,
     bcryptRounds: env.BELLKEEP_BCRYPT_ROUNDS,
-    loginRateLimit: { limit: env.BELLKEEP_LOGIN_LIMIT, windowSeconds: env.BELLKEEP_LOGIN_WINDOW_SECONDS },
+    loginRateLimit: { limit: env.BELLKEEP_LOGIN_LIMIT, accountLimit: env.BELLKEEP_LOGIN_ACCOUNT_LIMIT, windowSeconds: env.BELLKEEP_LOGIN_WINDOW_SECONDS },
     smtpUrl: env.BELLKEEP_SMTP_URL,
     mailFrom: env.BELLKEEP_MAIL_FROM,
     mailCatcher: { smtpPort: env.BELLKEEP_MAILCATCHER_SMTP_PORT, webPort: env.BELLKEEP_MAILCATCHER_WEB_PORT },

@@ -349,7 +349,7 @@ describe('the sign-in limit per client address', () => {
   let limited: TestApp;
 
   beforeAll(async () => {
-    limited = await createTestApp({ BELLKEEP_LOGIN_LIMIT: String(LIMIT) });
+    limited = await createTestApp({ BELLKEEP_LOGIN_LIMIT: String(LIMIT), BELLKEEP_LOGIN_ACCOUNT_LIMIT: '1000' });
   });
   afterAll(() => limited.close());
 
@@ -362,6 +362,7 @@ describe('the sign-in limit per client address', () => {
     for (let attempt = 0; attempt < LIMIT; attempt += 1) await signInFrom('203.0.113.10', 'wrong-password').expect(401);
     const refused = await signInFrom('203.0.113.10', DEMO_PASSWORD).expect(429);
     expect((refused.body as ApiErrorBody).error.code).toBe('rate-limited');
+    expect((refused.body as ApiErrorBody).error.message).toMatch(/^Too many sign-in attempts from this address; try again in 15 minutes \(at \d\d:\d\d UTC\)\.$/);
     expect(refused.headers['ratelimit-policy']).toContain(`q=${LIMIT}`);
   });
 
@@ -380,5 +381,31 @@ describe('the sign-in limit per client address', () => {
     for (let attempt = 0; attempt < LIMIT; attempt += 1) await signInFrom(`2001:db8:0:${attempt}::1`, 'wrong-password').expect(401);
     await signInFrom('2001:db8:0:ff::7', DEMO_PASSWORD).expect(429);
     await signInFrom('2001:db8:0:100::1', DEMO_PASSWORD).expect(200);
+  });
+});
+
+describe('the sign-in limit per account', () => {
+  const LIMIT = 4;
+  let limited: TestApp;
+
+  beforeAll(async () => {
+    limited = await createTestApp({ BELLKEEP_LOGIN_LIMIT: '1000', BELLKEEP_LOGIN_ACCOUNT_LIMIT: String(LIMIT) });
+  });
+  afterAll(() => limited.close());
+
+  function signInAs(email: string, password: string, forwardedFor: string) {
+    return request(limited.app).post('/api/auth/login').set('X-Forwarded-For', forwardedFor).send({ email, password });
+  }
+
+  it('refuses an account after its failed sign-ins from many addresses, even with the right password, and says when to try again', async () => {
+    for (let attempt = 0; attempt < LIMIT; attempt += 1) await signInAs('dev.okafor@kestrelfen.example', 'wrong-password', `198.51.100.${attempt + 1}`).expect(401);
+    const refused = await signInAs('Dev.Okafor@kestrelfen.example ', DEMO_PASSWORD, '203.0.113.77').expect(429);
+    expect((refused.body as ApiErrorBody).error.message).toMatch(/^Too many failed sign-ins for this account; try again in 15 minutes \(at \d\d:\d\d UTC\), or ask an admin\.$/);
+  });
+
+  it('counts only failed sign-ins, and each account on its own', async () => {
+    for (let attempt = 0; attempt < LIMIT * 2; attempt += 1) await signInAs('sami.virtanen@kestrelfen.example', DEMO_PASSWORD, '203.0.113.78').expect(200);
+    for (let attempt = 0; attempt < LIMIT - 1; attempt += 1) await signInAs('lucia.brandt@kestrelfen.example', 'wrong-password', '203.0.113.79').expect(401);
+    await signInAs('lucia.brandt@kestrelfen.example', DEMO_PASSWORD, '203.0.113.79').expect(200);
   });
 });

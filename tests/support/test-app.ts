@@ -54,6 +54,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
     BELLKEEP_DATABASE_URL: database.url,
     BELLKEEP_BCRYPT_ROUNDS: '4',
     BELLKEEP_LOGIN_LIMIT: '1000',
+    BELLKEEP_LOGIN_ACCOUNT_LIMIT: '1000',
     BELLKEEP_QUEUE_POLLING_SECONDS: '0.5',
     BELLKEEP_QUEUE_MAINTENANCE_SECONDS: '1',
     BELLKEEP_MAIL_RETRY_SECONDS: '3',
