@@ -14,6 +14,10 @@ const nodeTransform = {
 };
 
 module.exports = {
+  // Server files start their own app on a copy of the database: on a loaded two-core machine that
+  // alone can pass jest's default 5 s, in a hook as in a test. (Jest 30 reads this only here, not
+  // in a project.)
+  testTimeout: 60_000,
   projects: [
     {
       displayName: 'shared',
@@ -25,9 +29,6 @@ module.exports = {
     {
       displayName: 'server',
       testEnvironment: 'node',
-      // Each file starts its own app on a copy of the database: on a loaded two-core machine that
-      // alone can pass jest's default 5 s, in a hook as in a test.
-      testTimeout: 60_000,
       roots: existing('server', 'tests/api'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
