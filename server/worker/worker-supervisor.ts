@@ -47,7 +47,7 @@ export function superviseWorker(
       restarts.push(Date.now());
       const recent = recentRestarts();
       say(
-        `Worker ${pid} ended (${how}); starting another in ${wait / 1000} s` +
+        `Worker ${pid} ended, ${how}; starting another in ${wait / 1000} s` +
           (recent > 3 ? ` (${recent} restarts in the last hour: it keeps dying, see its output above)` : ''),
       );
       pending = setTimeout(start, wait);

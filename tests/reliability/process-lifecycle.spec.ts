@@ -76,7 +76,7 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
       }
       const killedPid = Number(run.analysedBy!.split(':').pop());
       process.kill(killedPid, 'SIGKILL');
-      await started.waitFor(`Worker ${killedPid} ended (SIGKILL); starting another in 1 s`);
+      await started.waitFor(`Worker ${killedPid} ended, killed (SIGKILL); starting another in 1 s`);
 
       for (const deadline = Date.now() + 120_000; !['accepted', 'aborted', 'invalid', 'failed'].includes(run.state); ) {
         if (Date.now() > deadline) throw new Error(`Run ${run.id} still ${run.state}`);

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
+import { RouterLink, RouterLinkActive } from '@angular/router';
 import { catchError, EMPTY, map, of, switchMap } from 'rxjs';
 
 import { Session } from '../auth/session';
@@ -13,10 +13,11 @@ import { WorkersApi } from './workers-api';
  */
 @Component({
   selector: 'bk-workers-alert',
-  imports: [MatIconModule, RouterLink],
+  imports: [MatIconModule, RouterLink, RouterLinkActive],
   template: `
     @if (attention(); as attention) {
-      <p class="bk-workers-alert" role="alert" data-testid="workers-alert">
+      <!-- Not on the workers page itself, which says it in its own words. -->
+      <p class="bk-workers-alert" role="alert" data-testid="workers-alert" routerLinkActive="bk-on-workers-page">
         <mat-icon aria-hidden="true">warning</mat-icon>
         <span>{{ attention }} <a routerLink="/workers">See the workers</a></span>
       </p>
@@ -32,6 +33,12 @@ import { WorkersApi } from './workers-api';
       border-radius: var(--mat-sys-corner-medium);
       background: var(--mat-sys-error-container);
       color: var(--mat-sys-on-error-container);
+    }
+    .bk-on-workers-page {
+      display: none;
+    }
+    mat-icon {
+      flex: none;
     }
     a {
       color: inherit;

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 
-import type { WorkersOverviewDto } from '../../../shared/api';
+import type { WorkerDto, WorkersOverviewDto } from '../../../shared/api';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
 import { WORKER_CONDITION_WORDS } from './worker-words';
 import { WorkersApi } from './workers-api';
@@ -22,6 +22,9 @@ export class WorkersPage {
   private readonly state = toSignal(loaded(inject(WorkersApi).watch()), { initialValue: { status: 'loading' } as Loaded<WorkersOverviewDto> });
   protected readonly overview = computed(() => readyValue(this.state()));
   protected readonly failure = computed(() => failureMessage(this.state()));
-  protected readonly words = WORKER_CONDITION_WORDS;
   protected readonly columns = ['name', 'condition', 'startedAt', 'seenAt', 'endedHow'];
+
+  protected conditionOf(worker: WorkerDto) {
+    return WORKER_CONDITION_WORDS[worker.condition];
+  }
 }
