@@ -31,4 +31,15 @@ export class HttpError extends Error {
   static conflict(message: string, field?: string): HttpError {
     return new HttpError(409, 'conflict', message, field);
   }
+
+  /** 507 Insufficient Storage (RFC 4918, section 11.5): the server's disk is full, which no change to the request mends. */
+  static insufficientStorage(message: string): HttpError {
+    return new HttpError(507, 'insufficient-storage', message);
+  }
+}
+
+/** Whether a file system call failed for a full disk or an exhausted disk quota (POSIX ENOSPC, EDQUOT). */
+export function isDiskFull(error: unknown): boolean {
+  const code = (error as NodeJS.ErrnoException | null | undefined)?.code;
+  return code === 'ENOSPC' || code === 'EDQUOT';
 }

@@ -1,7 +1,9 @@
-import { PassThrough } from 'node:stream';
+import { PassThrough, type Readable } from 'node:stream';
 import type { Request } from 'express';
 import type multer from 'multer';
+import { HttpError, isDiskFull } from '../http/http-error';
 import type { LogStore, ReceivedLog } from '../storage/log-store';
+import { faultLines } from '../system/fault-lines';
 
 /** What the engine adds to multer's file: the received log, hashed, not yet kept. */
 export interface ReceivedUpload extends Express.Multer.File {
@@ -16,6 +18,36 @@ export class LogStoreFailure extends Error {
   }
 }
 
+const diskFaults = faultLines('Archive');
+
+/** What became of an upload's bytes when the disk filled: thrown away, or kept so the upload can go on (tus). */
+type BytesOnFullDisk = 'dropped' | 'kept';
+
+/**
+ * An upload that met a full disk or quota, as a 507 saying what became of its bytes and where to
+ * free space; any other error as it is. The folder is named by its setting, not its path: the
+ * uploader passes the sentence on, and whoever runs the server knows where that is.
+ */
+export function diskFullAnswer(error: unknown, bytes: BytesOnFullDisk): unknown {
+  if (!isDiskFull(error)) return error;
+  diskFaults(error); // in the server's output too: tus answers its errors itself, past the error handler
+  const [became, then] = bytes === 'kept' ? ['the bytes received so far are kept', 'go on with the upload'] : ['the log was not kept', 'upload again'];
+  return HttpError.insufficientStorage(`The archive's disk is full: ${became}; free space in the server's data folder (BELLKEEP_DATA_DIR) and ${then}.`);
+}
+
+/**
+ * Receives an upload's log into the store, for multipart and resumable uploads alike. A full disk
+ * while receiving or keeping it becomes a 507 saying the log was not kept (the store leaves
+ * nothing of a failed receive behind, and a log not kept is dropped by its caller).
+ */
+export async function receiveUpload(store: LogStore, source: Readable): Promise<ReceivedLog> {
+  const notKept = (error: unknown): never => {
+    throw diskFullAnswer(error, 'dropped');
+  };
+  const received = await store.receive(source).catch(notKept);
+  return { ...received, keep: () => received.keep().catch(notKept) };
+}
+
 /**
  * A multer storage engine that hands the uploaded file's stream straight to the log store, which
  * hashes it on the way (nothing held in memory; with S3 nothing on local disk). The stored name
@@ -27,6 +59,10 @@ export function logStoreStorage(store: LogStore): multer.StorageEngine {
   return {
     _handleFile(_request: Request, file: Express.Multer.File, callback: (error?: unknown, info?: Partial<ReceivedUpload>) => void) {
       const source = new PassThrough();
+      // The store pipes the source only after an await (its folder, its bucket); an error before
+      // that (the limit, a broken-off request) would go unhandled and end the process. Its
+      // pipeline still sees the error, as the stream's own.
+      source.on('error', () => undefined);
       file.stream.once('limit', () => {
         file.stream.unpipe(source);
         file.stream.resume();
@@ -34,7 +70,7 @@ export function logStoreStorage(store: LogStore): multer.StorageEngine {
       });
       file.stream.once('error', (error) => source.destroy(error));
       file.stream.pipe(source);
-      store.receive(source).then(
+      receiveUpload(store, source).then(
         (received) => callback(null, { received, size: received.bytes }),
         (error: unknown) => callback(new LogStoreFailure(error)),
       );

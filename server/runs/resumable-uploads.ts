@@ -1,6 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { IncomingMessage } from 'node:http';
+import type { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import { Router, type Request, type RequestHandler } from 'express';
 import { FileStore } from '@tus/file-store';
 import { Server, type Upload } from '@tus/server';
@@ -8,8 +10,9 @@ import type { Sequelize } from 'sequelize';
 import { RESUMABLE_UPLOAD_PATH, type ApiErrorBody } from '../../shared/api';
 import { HttpError } from '../http/http-error';
 import { validationError } from '../http/validate-body';
-import type { LogStore } from '../storage/log-store';
+import type { LogStore, ReceivedLog } from '../storage/log-store';
 import { uploaderKey } from '../upload-tokens/uploader';
+import { diskFullAnswer, receiveUpload } from './log-storage-engine';
 import type { RunsService } from './runs.service';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
 import { runOfUploadKey } from './upload-keys';
@@ -23,6 +26,19 @@ const UPLOADER_KEY = 'bellkeepUploader';
 function tusError(error: HttpError): { status_code: number; body: string } {
   const body: ApiErrorBody = { error: { code: error.code, message: error.message, ...(error.field ? { field: error.field } : {}) } };
   return { status_code: error.status, body: JSON.stringify(body) };
+}
+
+/**
+ * The tus file store, with one change: a failed write rejects with its own error. FileStore 1.x
+ * turns every write error into a bare 500, so a full disk could not say so. As there, the bytes
+ * go to the upload's file at its offset, and what was written before a failure stays.
+ */
+class CauseKeepingFileStore extends FileStore {
+  override async write(readable: IncomingMessage | Readable, id: string, offset: number): Promise<number> {
+    const file = fs.createWriteStream(path.join(this.directory, id), { flags: 'r+', start: offset });
+    await pipeline(readable, file);
+    return offset + file.bytesWritten;
+  }
 }
 
 /** The upload's own fields, from its tus metadata (all values are text, as in a multipart form). */
@@ -47,7 +63,7 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
   const { sequelize, runs, logStore, uploader, limitBytes } = deps;
   const directory = path.join(deps.dataDir, 'resumable-uploads');
   fs.mkdirSync(directory, { recursive: true });
-  const store = new FileStore({ directory, expirationPeriodInMilliseconds: ABANDONED_AFTER_MS });
+  const store = new CauseKeepingFileStore({ directory, expirationPeriodInMilliseconds: ABANDONED_AFTER_MS });
   const uploaderOf = (request: IncomingMessage) => (request as Request).uploader!;
   const finishedKey = (id: string) => `resumable:${id}`;
 
@@ -79,8 +95,9 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
     },
     async onUploadFinish(request, response, upload) {
       const who = uploaderOf(request);
-      const received = await logStore.receive(fs.createReadStream(path.join(directory, upload.id)));
+      let received: ReceivedLog | undefined;
       try {
+        received = await receiveUpload(logStore, fs.createReadStream(path.join(directory, upload.id)));
         const run = await runs.create({ ...fieldsOf(upload), originalName: upload.metadata?.filename ?? '', log: received }, who);
         await sequelize.query('INSERT INTO upload_keys (uploader, idempotency_key, run_id) VALUES (:uploader, :key, :runId)', {
           replacements: { uploader: uploaderKey(who), key: finishedKey(upload.id), runId: run.id },
@@ -89,11 +106,19 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
         return { res: response, status_code: 201, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(run) };
       } catch (error) {
         if (!(error instanceof HttpError)) throw error;
-        await forget(upload.id); // refused for good: the same bytes and fields would be refused again
+        // Refused for good: the same bytes and fields would be refused again. Or the disk is full:
+        // the finished upload holds the very space its copy into the archive needs, and a client
+        // that finds its upload gone starts it again (tus-js-client does).
+        await forget(upload.id);
         throw tusError(error);
       } finally {
-        await received.drop();
+        await received?.drop();
       }
+    },
+    // A full disk while a PATCH writes: a 507 in the API's words; the bytes written so far stay for the upload to go on.
+    onResponseError(request, _response, error) {
+      const answer = diskFullAnswer(error, request.method === 'PATCH' ? 'kept' : 'dropped');
+      return answer instanceof HttpError ? tusError(answer) : undefined;
     },
   });
   void tus.cleanUpExpiredUploads().catch(() => undefined);

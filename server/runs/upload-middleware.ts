@@ -10,7 +10,8 @@ export const LOG_FIELD = 'log';
 /**
  * multer for one log per request, streamed into the log store and hashed (never held in memory),
  * with multer's errors turned into sentences: 413 for a file over the limit, 400 for a wrong field
- * or a body that is no well-formed form (busboy's errors); the log store's own failures stay 500s.
+ * or a body that is no well-formed form (busboy's errors); a full disk is a 507 (see
+ * `diskFullAnswer`), and the log store's other failures stay 500s.
  */
 export function logUpload(store: LogStore, limitBytes: number): RequestHandler {
   const parse = multer({

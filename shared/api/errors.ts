@@ -18,4 +18,5 @@ export type ApiErrorCode =
   | 'conflict'
   | 'rate-limited'
   | 'busy'
+  | 'insufficient-storage'
   | 'internal';

@@ -52,6 +52,8 @@ export interface CaughtMail {
   html: string;
   to: Array<{ address: string }>;
   messageId: string;
+  /** The mail's headers by lower-case name, as the catcher parsed them (`message-id` among them). */
+  headers: Record<string, string>;
 }
 
 /** Every mail in the catcher's inbox. */
