@@ -24,11 +24,12 @@ const apiFaults = faultLines('API');
 
 /**
  * A server error in one line (counted when the same one repeats, as while the database restarts);
- * a programming error also gets its stack, which is what finds it.
+ * an unforeseen error also gets its stack, which is what finds it.
  */
 function reportFault(error: unknown, route: string): void {
   const unreachable = error instanceof Error && /Connection|ECONNREFUSED|57P0/.test(`${error.name} ${oneLine(error)}`);
-  if (unreachable || !(error instanceof Error)) apiFaults(error);
+  // A server error the code words itself (a full archive disk: 507) is a known condition, not a bug.
+  if (unreachable || error instanceof HttpError || !(error instanceof Error)) apiFaults(error);
   else console.error(`API: ${route}: ${error.stack ?? oneLine(error)}`);
 }
 
