@@ -7,6 +7,7 @@ import type { Models } from '../database/models';
 import { validationError } from '../http/validate-body';
 import type { AuditTrail } from './audit-trail';
 import { createAuditQueries, type AuditFilter } from './audit-queries';
+import { checkTrailChain } from './trail-check';
 
 const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
 
@@ -25,7 +26,7 @@ const pageSchema = z.strictObject({
 });
 const exportSchema = z.strictObject(filterShape);
 
-/** `/api/audit`: the system-wide trail for auditors and admins, filtered, paged and exported as CSV. */
+/** `/api/audit`: the system-wide trail for auditors and admins, filtered, paged, exported as CSV and checked against its hash chain. */
 export function auditRoutes(deps: { models: Models; audit: AuditTrail; guards: Guards }): Router {
   const { models, audit, guards } = deps;
   const queries = createAuditQueries(models);
@@ -40,6 +41,10 @@ export function auditRoutes(deps: { models: Models; audit: AuditTrail; guards: G
 
   router.get('/actors', readers, async (_request, response) => {
     response.json(await queries.actors());
+  });
+
+  router.get('/trail-check', readers, async (_request, response) => {
+    response.json(await checkTrailChain(models.AuditEvent.sequelize!));
   });
 
   router.get('/export.csv', readers, async (request, response) => {

@@ -2,6 +2,7 @@ import type { AnalysisResult } from '../../shared/analysis/result';
 import { resultFingerprint } from '../../shared/analysis/node';
 import { formatCount } from '../../shared/format/numbers';
 import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '../../shared/api';
+import { checkTrailChain } from '../audit/trail-check';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
 import { StoredLogCorruptError, StoredLogMissingError, type LogStore } from '../storage/log-store';
@@ -10,7 +11,10 @@ import type { SigningKeysService } from './signing-keys.service';
 import { storedSignature } from './stored-signature';
 
 export interface VerificationService {
-  /** Checks a finished run's stored result against its fingerprint and signature, and its archived file against its SHA-256. */
+  /**
+   * Checks a finished run's stored result against its fingerprint and signature, its archived file
+   * against its SHA-256, and the system trail (which holds the run's history) against its hash chain.
+   */
   verify(runId: number): Promise<VerificationDto>;
 }
 
@@ -54,6 +58,15 @@ export function createVerificationService(models: Models, logStore: LogStore, si
     return { check: 'archive-file', passed: true, detail: `The archived file (${formatCount(bytes)} bytes) still hashes to its SHA-256 ${sha256}.` };
   }
 
+  async function trailCheck(): Promise<VerificationCheckDto> {
+    const trail = await checkTrailChain(models.AuditEvent.sequelize!);
+    if (trail.intact) {
+      return { check: 'system-trail', passed: true, detail: `The system trail’s hash chain holds: all ${formatCount(trail.events)} events are linked in order and each still hashes to its link.` };
+    }
+    const more = trail.problemCount > 1 ? ` ${formatCount(trail.problemCount - 1)} more ${trail.problemCount === 2 ? 'problem is' : 'problems are'} listed under Audit, System trail.` : '';
+    return { check: 'system-trail', passed: false, detail: `The system trail’s hash chain is broken. ${trail.problems[0]}${more}` };
+  }
+
   return {
     async verify(runId) {
       const run = await models.Run.findByPk(runId);
@@ -61,7 +74,7 @@ export function createVerificationService(models: Models, logStore: LogStore, si
       if (!VERDICT_STATES.includes(run.state) || !run.result) {
         throw HttpError.conflict(`Run ${runId} is ${run.state}: only a run with a stored result can be verified.`);
       }
-      const checks = [fingerprintCheck(run.result as unknown as AnalysisResult), await signatureCheck(run), await archiveCheck(run.fileSha256)];
+      const checks = [fingerprintCheck(run.result as unknown as AnalysisResult), await signatureCheck(run), await archiveCheck(run.fileSha256), await trailCheck()];
       return { runId, checkedAt: new Date().toISOString(), intact: checks.every((check) => check.passed), checks };
     },
   };

@@ -60,3 +60,31 @@ export const AUDIT_ACTIONS = [
   'audit.exported',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+/** Problems `GET /api/audit/trail-check` lists at most; `problemCount` tells how many it found. */
+export const TRAIL_CHECK_PROBLEM_LIMIT = 20;
+
+/** The newest link of the trail's hash chain: its place and its SHA-256, hex. */
+export interface TrailChainHeadDto {
+  seq: number;
+  hash: string;
+}
+
+/**
+ * The check of the whole system trail against its hash chain (`GET /api/audit/trail-check`): every
+ * event has its link, every link its event, each link's hash recomputes from its event and the link
+ * before, seq runs 1, 2, 3 ... without a gap, and the head names the last link.
+ */
+export interface TrailCheckDto {
+  /** True only when no problem was found. */
+  intact: boolean;
+  /** Events in the trail now. */
+  events: number;
+  /** As the chain's head records it; null before the first event (or when the head is gone). */
+  head: TrailChainHeadDto | null;
+  checkedAt: string;
+  /** The first problems in chain order, each a sentence naming its link (seq) or event (id). */
+  problems: string[];
+  /** Every problem found, listed or not. */
+  problemCount: number;
+}

@@ -37,7 +37,7 @@ export interface SigningKeyDto {
   retiredAt: string | null;
 }
 
-export const VERIFICATION_CHECKS = ['result-fingerprint', 'signature', 'archive-file'] as const;
+export const VERIFICATION_CHECKS = ['result-fingerprint', 'signature', 'archive-file', 'system-trail'] as const;
 export type VerificationCheck = (typeof VERIFICATION_CHECKS)[number];
 
 /** One check of `GET /api/runs/:id/verification`. */
@@ -48,7 +48,7 @@ export interface VerificationCheckDto {
   detail: string;
 }
 
-/** Whether a stored result and its archived file are still what was signed. */
+/** Whether a stored result and its archived file are still what was signed, and the system trail still what was recorded. */
 export interface VerificationDto {
   runId: number;
   checkedAt: string;

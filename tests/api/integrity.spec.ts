@@ -78,7 +78,7 @@ describe('signed results, integrity checks, re-verification and exports', () => 
 
     const intact = await verification(run.id);
     expect(intact.intact).toBe(true);
-    expect(intact.checks.map((check) => [check.check, check.passed])).toEqual([['result-fingerprint', true], ['signature', true], ['archive-file', true]]);
+    expect(intact.checks.map((check) => [check.check, check.passed])).toEqual([['result-fingerprint', true], ['signature', true], ['archive-file', true], ['system-trail', true]]);
   }, 60_000);
 
   it('the database refuses to change a signed result; a result changed behind its back fails the check, named', async () => {

@@ -37,6 +37,7 @@ const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: 
   { method: 'get', path: '/api/planner/general-attack?qber=0.02', roles: 'any' },
   { method: 'get', path: '/api/audit', roles: ['auditor', 'admin'] },
   { method: 'get', path: '/api/audit/actors', roles: ['auditor', 'admin'] },
+  { method: 'get', path: '/api/audit/trail-check', roles: ['auditor', 'admin'] },
   { method: 'get', path: '/api/audit/export.csv', roles: ['auditor', 'admin'] },
 ];
 

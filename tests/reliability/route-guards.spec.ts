@@ -65,6 +65,7 @@ const GUARDED_ROUTES: Record<string, Guard> = {
   'GET /api/planner/prefill': SIGNED_IN,
   'GET /api/audit': TRAIL_READERS,
   'GET /api/audit/actors': TRAIL_READERS,
+  'GET /api/audit/trail-check': TRAIL_READERS,
   'GET /api/audit/export.csv': TRAIL_READERS,
   'GET /api/runs/:id/verification': SIGNED_IN,
   'GET /api/runs/:id/reverifications': SIGNED_IN,

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { AuditActor, AuditPageDto, AuditQuery, SigningKeyDto } from '../../../shared/api';
+import type { AuditActor, AuditPageDto, AuditQuery, SigningKeyDto, TrailCheckDto } from '../../../shared/api';
 import { FileDownloads } from '../api/download';
 import { queryParams } from '../api/query-params';
 
@@ -23,6 +23,11 @@ export class AuditApi {
   /** The people who appear in the trail (auditor, admin). */
   actors(): Observable<AuditActor[]> {
     return this.http.get<AuditActor[]>('/api/audit/actors');
+  }
+
+  /** Checks the whole trail against its hash chain (auditor, admin). */
+  trailCheck(): Observable<TrailCheckDto> {
+    return this.http.get<TrailCheckDto>('/api/audit/trail-check');
   }
 
   /** Downloads the whole filtered trail as CSV; emits the file's name. */

@@ -20,13 +20,14 @@ import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { trailDetail, trailWords } from '../runs/trail-words';
 import { AuditApi, type AuditFilters } from './audit-api';
 import { ACTION_FAMILIES, TARGET_WORDS, targetWords } from './audit-words';
+import { TrailChainCheck } from './trail-chain-check';
 
 const FIRST_PAGE = { page: 0, pageSize: 50 };
 
 /** How long typing may pause before the trail is asked for again. */
 const TYPING_PAUSE_MILLISECONDS = 300;
 
-/** Everything the system recorded, newest first, narrowed by who, what, on what and when; exported as CSV. */
+/** Everything the system recorded, newest first, narrowed by who, what, on what and when; exported as CSV; checked against its hash chain. */
 @Component({
   selector: 'bk-system-trail',
   imports: [
@@ -41,6 +42,7 @@ const TYPING_PAUSE_MILLISECONDS = 300;
     MatTableModule,
     ReactiveFormsModule,
     RouterLink,
+    TrailChainCheck,
   ],
   templateUrl: './system-trail.html',
   styleUrl: './audit-tab.scss',

@@ -20,6 +20,7 @@ const tampered: VerificationDto = {
     { check: 'result-fingerprint', passed: true, detail: 'The stored result hashes to its recorded fingerprint c07ec07e….' },
     { check: 'signature', passed: true, detail: 'The signature verifies with key 5c1e0a9b7d2f4e38.' },
     { check: 'archive-file', passed: false, detail: 'The archived log now hashes to 41d2…, not to the signed 9f3a….' },
+    { check: 'system-trail', passed: true, detail: 'The system trail’s hash chain holds: all 1 204 events are linked in order and each still hashes to its link.' },
   ],
 };
 
@@ -75,7 +76,8 @@ describe('RunIntegrity', () => {
     expect(archive.querySelector('p')?.textContent).toBe('The archived log now hashes to 41d2…, not to the signed 9f3a….');
     const signatureCheck = host.querySelector('[data-testid="verification-check-signature"]')!;
     expect(signatureCheck.querySelector('.bk-integrity-word')?.textContent?.replace('check_circle', '').trim()).toBe('Intact');
-    expect(text(host, 'verification-outcome')).toMatch(/^gpp_bad ?Failed: 1 of 3 checks failed \(checked 2 Mar 2027, \d\d:15:00\)\.$/);
+    expect(host.querySelector('[data-testid="verification-check-system-trail"] strong')?.textContent).toBe('System trail');
+    expect(text(host, 'verification-outcome')).toMatch(/^gpp_bad ?Failed: 1 of 4 checks failed \(checked 2 Mar 2027, \d\d:15:00\)\.$/);
   });
 
   it('says Intact when every check passed', async () => {
@@ -84,7 +86,7 @@ describe('RunIntegrity', () => {
     http.expectOne('/api/runs/12/verification').flush({ ...tampered, intact: true, checks: tampered.checks.map((check) => ({ ...check, passed: true })) });
     await fixture.whenStable();
     expect(text(host, 'verification-outcome')).toContain('Intact: every check passed');
-    expect(host.querySelectorAll('[data-testid^="verification-check-"]')).toHaveLength(3);
+    expect(host.querySelectorAll('[data-testid^="verification-check-"]')).toHaveLength(4);
   });
 
   it('gives the server’s sentence when the check cannot be made, and checks again on request', async () => {
@@ -100,6 +102,6 @@ describe('RunIntegrity', () => {
     http.expectOne('/api/runs/12/verification').flush(tampered);
     await fixture.whenStable();
     expect(host.querySelector('[role="alert"]')).toBeNull();
-    expect(text(host, 'verification-outcome')).toContain('Failed: 1 of 3 checks failed');
+    expect(text(host, 'verification-outcome')).toContain('Failed: 1 of 4 checks failed');
   });
 });

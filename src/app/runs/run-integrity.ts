@@ -15,11 +15,13 @@ const CHECK_NAMES: Record<VerificationCheck, string> = {
   'result-fingerprint': 'Result fingerprint',
   signature: 'Signature',
   'archive-file': 'Archived log',
+  'system-trail': 'System trail',
 };
 
 /**
  * Whether a stored result is still what the server signed: the signature it carries, and on
- * request a fresh check of the result, the signature and the archived log's bytes.
+ * request a fresh check of the result, the signature, the archived log's bytes and the system
+ * trail's hash chain.
  */
 @Component({
   selector: 'bk-run-integrity',
