@@ -24,6 +24,7 @@ module.exports = {
       testEnvironment: 'node',
       roots: existing('shared', 'fixtures', 'tests/cli', 'tests/soundness'),
       testMatch: ['**/*.spec.ts'],
+      setupFiles: ['<rootDir>/tests/support/property-seed.ts'],
       transform: nodeTransform,
     },
     {

@@ -31,7 +31,7 @@ describe('sign-in and roles in a real browser', () => {
     const requested: string[] = [];
     page.on('request', (pageRequest) => requested.push(pageRequest.url()));
     await signIn(page, 'maren.holt@kestrelfen.example');
-    expect(await navPages(page)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users']);
+    expect(await navPages(page)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users', 'workers']);
 
     await page.getByTestId('nav-users').click();
     await page.waitForURL(`${baseUrl}/users`);
