@@ -18,6 +18,9 @@ module.exports = {
   // alone can pass jest's default 5 s, in a hook as in a test. (Jest 30 reads this only here, not
   // in a project.)
   testTimeout: 60_000,
+  // Two test files at a time on this two-core machine (jest's default would be one): most files
+  // wait on PostgreSQL, HTTP or a browser much of the time, and the whole run takes two thirds as long.
+  maxWorkers: 2,
   projects: [
     {
       displayName: 'shared',

@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiErrorBody } from '../../shared/api';
-import { faultLines, oneLine } from '../system/fault-lines';
+import { faultLines, isDatabaseUnreachable, oneLine } from '../system/fault-lines';
 import { HttpError } from './http-error';
 
 /** Unknown API routes answer in the same JSON shape as every other error. */
@@ -27,9 +27,8 @@ const apiFaults = faultLines('API');
  * an unforeseen error also gets its stack, which is what finds it.
  */
 function reportFault(error: unknown, route: string): void {
-  const unreachable = error instanceof Error && /Connection|ECONNREFUSED|57P0/.test(`${error.name} ${oneLine(error)}`);
-  // A server error the code words itself (a full archive disk: 507) is a known condition, not a bug.
-  if (unreachable || error instanceof HttpError || !(error instanceof Error)) apiFaults(error);
+  // The database away, or a server error the code words itself (a full archive disk: 507): known conditions, not bugs.
+  if (isDatabaseUnreachable(error) || error instanceof HttpError || !(error instanceof Error)) apiFaults(error);
   else console.error(`API: ${route}: ${error.stack ?? oneLine(error)}`);
 }
 
