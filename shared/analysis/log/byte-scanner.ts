@@ -9,6 +9,7 @@ const CR = 13;
 const COMMA = 44;
 const QUOTE = 34;
 const DIGIT_0 = 48;
+const DIGIT_9 = 57;
 const MINUS = 45;
 const PLUS = 43;
 
@@ -103,7 +104,9 @@ export class ByteScanner {
 
   /**
    * Reads lines of `bytes` from `from`; returns where the first incomplete line starts (bytes.length
-   * when none). With `atEnd`, the rest is the last line of the stretch.
+   * when none). With `atEnd`, the rest is the last line of the stretch. A field is read in one
+   * tight loop over its digits (with an optional sign before them); a field holding anything else
+   * is walked to its end and read as NaN, noting a quote.
    */
   private scan(bytes: Uint8Array, from: number, atEnd: boolean): number {
     const length = bytes.length;
@@ -114,66 +117,49 @@ export class ByteScanner {
     while (i < length) {
       const start = i;
       let field = 0;
-      let value = 0;
-      let digits = 0;
-      let negative = false;
-      let signed = false;
-      let bad = false;
       let quoted = false;
       let end = -1;
-      while (i < length) {
-        const c = bytes[i++];
-        const digit = c - DIGIT_0;
-        if (digit >= 0 && digit <= 9) {
-          value = value * 10 + digit;
-          digits++;
-          continue;
+      for (;;) {
+        let c = i < length ? bytes[i] : -1;
+        const negative = c === MINUS;
+        if (negative || c === PLUS) {
+          c = ++i < length ? bytes[i] : -1;
         }
-        if (c === COMMA || c === LF || (c === CR && i < length && bytes[i] === LF)) {
-          if (field < columns) {
-            const target = fieldOfColumn[field];
-            if (target >= 0) {
-              values[target] = bad || digits === 0 ? NaN : negative ? -value : value;
+        let value = 0;
+        const firstDigit = i;
+        while (c >= DIGIT_0 && c <= DIGIT_9) {
+          value = value * 10 + (c - DIGIT_0);
+          c = ++i < length ? bytes[i] : -1;
+        }
+        let number = i > firstDigit ? (negative ? -value : value) : NaN;
+        // Anything after the digits other than a separator makes the field no integer.
+        while (c !== COMMA && c !== LF && !(c === CR && i + 1 < length && bytes[i + 1] === LF)) {
+          if (c < 0 || (c === CR && i + 1 >= length)) {
+            if (!atEnd) {
+              return start;
+            }
+            if (c < 0) {
+              break;
             }
           }
-          field++;
-          if (c === COMMA) {
-            value = 0;
-            digits = 0;
-            negative = false;
-            signed = false;
-            bad = false;
-            continue;
-          }
-          end = i - 1;
-          i = c === CR ? i + 1 : i;
-          break;
+          quoted ||= c === QUOTE;
+          number = NaN;
+          c = ++i < length ? bytes[i] : -1;
         }
-        if (c === CR && i >= length && !atEnd) {
-          return start;
-        }
-        if ((c === MINUS || c === PLUS) && digits === 0 && !signed) {
-          negative = c === MINUS;
-          signed = true;
-          continue;
-        }
-        if (c === QUOTE) {
-          quoted = true;
-        }
-        bad = true;
-      }
-      if (end < 0) {
-        if (!atEnd) {
-          return start;
-        }
-        end = length;
         if (field < columns) {
           const target = fieldOfColumn[field];
           if (target >= 0) {
-            values[target] = bad || digits === 0 ? NaN : negative ? -value : value;
+            values[target] = number;
           }
         }
         field++;
+        if (c === COMMA) {
+          i++;
+          continue;
+        }
+        end = i;
+        i = c === CR ? i + 2 : i + 1;
+        break;
       }
       this.readLine(bytes, start, end, field, quoted);
     }

@@ -65,10 +65,6 @@ export class RecordChecker {
    * written (called only to describe a problem). Returns whether the record is valid.
    */
   accept(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[]): boolean {
-    if (fieldCount !== this.fieldCount) {
-      this.problems.add(line, null, null, `the row has ${fieldCount} fields, the header has ${this.fieldCount}`);
-      return false;
-    }
     const round = values[ROUND];
     const x = values[X];
     const y = values[Y];
@@ -81,9 +77,13 @@ export class RecordChecker {
     const test = this.hasTest ? values[TEST] : 0;
     const inRange =
       round >= 0 && round <= LARGEST_ROUND && (x === 0 || x === 1) && (y === 0 || y === 1 || y === 2) && (a === 0 || a === 1) && (b === 0 || b === 1) && (test === 0 || test === 1);
-    if (!inRange) {
-      return this.describeProblems(line, values, rawFields);
+    // The common case first: a whole, valid row whose round index follows the previous one.
+    if (fieldCount !== this.fieldCount || !inRange || !(round > this.lastRound) || this.first === null) {
+      return this.checkUncommon(line, values, fieldCount, rawFields, inRange);
     }
+    this.gaps += round - this.lastRound - 1;
+    this.lastRound = round;
+    this.lastLine = line;
     const decoded = this.decoded;
     decoded[ROUND] = round;
     decoded[X] = x;
@@ -91,6 +91,26 @@ export class RecordChecker {
     decoded[A] = a;
     decoded[B] = b;
     decoded[TEST] = test;
+    return true;
+  }
+
+  /** A row of the wrong length, with a bad field, or the first row or one out of order. */
+  private checkUncommon(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[], inRange: boolean): boolean {
+    if (fieldCount !== this.fieldCount) {
+      this.problems.add(line, null, null, `the row has ${fieldCount} fields, the header has ${this.fieldCount}`);
+      return false;
+    }
+    if (!inRange) {
+      return this.describeProblems(line, values, rawFields);
+    }
+    const round = values[ROUND];
+    const decoded = this.decoded;
+    decoded[ROUND] = round;
+    decoded[X] = values[X];
+    decoded[Y] = values[Y];
+    decoded[A] = this.plusMinus ? (values[A] === 1 ? 0 : 1) : values[A];
+    decoded[B] = this.plusMinus ? (values[B] === 1 ? 0 : 1) : values[B];
+    decoded[TEST] = this.hasTest ? values[TEST] : 0;
     return this.checkOrder(line, round);
   }
 
