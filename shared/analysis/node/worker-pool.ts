@@ -6,8 +6,8 @@ import { RangeTask } from './range-task';
 import { WorkerReply } from './range-worker';
 import { startTypeScriptWorker } from './typescript-worker';
 
-/** Each thread runs this TypeScript file. */
-const RANGE_WORKER = path.join(__dirname, 'range-worker.ts');
+/** Each thread runs this file: TypeScript beside this one, or JavaScript when this one is compiled. */
+const RANGE_WORKER = path.join(__dirname, `range-worker${path.extname(__filename)}`);
 
 /**
  * A small young generation per thread: the scanner makes little garbage, and V8's default (tens of

@@ -1,0 +1,115 @@
+// Runs a command as compiled JavaScript, so it starts without a TypeScript loader:
+//   node server/cli/run-compiled.js <file.ts under the project> [arguments...]
+//   node server/cli/run-compiled.js --build          (the postinstall step: compile only)
+// The TypeScript of server/, shared/, bench/ and fixtures/ is transpiled file by file with esbuild
+// into dist/server/ (the same tree, so paths next to __dirname still hold), again whenever a source
+// is newer than the last build. Without esbuild (an install without dev dependencies) the command
+// runs through tsx instead. Plain JavaScript: this file is what runs before anything is compiled.
+'use strict';
+const fs = require('node:fs');
+const path = require('node:path');
+
+const ROOT = path.resolve(__dirname, '..', '..');
+const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures'];
+const OUT = path.join(ROOT, 'dist', 'server');
+/** Written last by a build; its time is the build's. */
+const STAMP = path.join(OUT, '.built');
+
+/** The TypeScript files to compile (specs and declarations left out), and the newest change time. */
+function sources() {
+  const files = [];
+  let newest = 0;
+  const walk = (folder) => {
+    for (const entry of fs.readdirSync(folder, { withFileTypes: true })) {
+      const file = path.join(folder, entry.name);
+      if (entry.isDirectory()) {
+        walk(file);
+      } else if (entry.name.endsWith('.ts') && !entry.name.endsWith('.spec.ts') && !entry.name.endsWith('.d.ts')) {
+        files.push(file);
+        newest = Math.max(newest, fs.statSync(file).mtimeMs);
+      }
+    }
+  };
+  SOURCE_FOLDERS.map((folder) => path.join(ROOT, folder)).filter((folder) => fs.existsSync(folder)).forEach(walk);
+  return { files, newest };
+}
+
+function builtAt() {
+  try {
+    return fs.statSync(STAMP).mtimeMs;
+  } catch {
+    return -1;
+  }
+}
+
+/**
+ * Compiles into a folder of its own and moves it into place, so a command starting meanwhile never
+ * sees half a build. Returns false when esbuild is not installed.
+ */
+function build(files) {
+  let esbuild;
+  try {
+    esbuild = require('esbuild');
+  } catch {
+    return false;
+  }
+  const staging = `${OUT}.${process.pid}`;
+  fs.rmSync(staging, { recursive: true, force: true });
+  esbuild.buildSync({ entryPoints: files, outdir: staging, outbase: ROOT, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
+  fs.writeFileSync(path.join(staging, '.built'), '');
+  const old = `${OUT}.old.${process.pid}`;
+  if (fs.existsSync(OUT)) fs.renameSync(OUT, old);
+  fs.renameSync(staging, OUT);
+  fs.rmSync(old, { recursive: true, force: true });
+  return true;
+}
+
+/** Held while one process builds; another waits for it rather than building beside it. */
+const LOCK = `${OUT}.lock`;
+const LOCK_GIVEN_UP_MS = 120_000;
+
+/** Runs `work` holding the build lock; a lock older than two minutes was left by a killed build. */
+function withBuildLock(work) {
+  for (;;) {
+    try {
+      fs.mkdirSync(LOCK, { recursive: false });
+      break;
+    } catch (error) {
+      if (error.code !== 'EEXIST') throw error;
+      const age = Date.now() - (fs.statSync(LOCK, { throwIfNoEntry: false })?.mtimeMs ?? Date.now());
+      if (age > LOCK_GIVEN_UP_MS) fs.rmSync(LOCK, { recursive: true, force: true });
+      else Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 50);
+    }
+  }
+  try {
+    return work();
+  } finally {
+    fs.rmSync(LOCK, { recursive: true, force: true });
+  }
+}
+
+/** Compiles when a source is newer than the build; false when the TypeScript must run as it is. */
+function ensureBuilt() {
+  const { files, newest } = sources();
+  if (builtAt() >= newest) return true;
+  fs.mkdirSync(path.dirname(OUT), { recursive: true });
+  // Another process may have built while this one waited for the lock.
+  return withBuildLock(() => builtAt() >= newest || build(files));
+}
+
+const [target, ...rest] = process.argv.slice(2);
+if (target === '--build') {
+  const { files } = sources();
+  fs.mkdirSync(path.dirname(OUT), { recursive: true });
+  if (!withBuildLock(() => build(files))) process.stderr.write('run-compiled: esbuild is not installed; the commands will run through tsx\n');
+} else if (target === undefined || !target.endsWith('.ts')) {
+  process.stderr.write('usage: node server/cli/run-compiled.js <command.ts> [arguments...] | --build\n');
+  process.exitCode = 2;
+} else {
+  const source = path.resolve(ROOT, target);
+  const compiled = ensureBuilt();
+  // The command reads its arguments from process.argv.slice(2), as when started directly.
+  process.argv = [process.argv[0], source, ...rest];
+  if (!compiled) require('tsx/cjs');
+  require(compiled ? path.join(OUT, path.relative(ROOT, source)).replace(/\.ts$/, '.js') : source);
+}
