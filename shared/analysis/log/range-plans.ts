@@ -44,12 +44,12 @@ export function spanProblem(span: TriggerSpan, records: number, layout: HeaderLa
 
 /**
  * The analysis plan of each stretch from the counting pass and the edge round indices: its first
- * line and record, the trigger at which its selection starts (just after the last round of the
- * stretch before it, so the triggers missing at a seam are drawn once), and for fixed-fraction
- * selection the test rounds chosen before it (by running the selection over the keystream alone),
- * so every stretch decides exactly as one reader of the whole log would.
+ * line and record, and the trigger at which its selection starts (just after the last round of the
+ * stretch before it, so the triggers missing at a seam are drawn once). For fixed-fraction
+ * selection the thread that reads a stretch counts the test rounds chosen before it
+ * (`withTestsBefore`), so every stretch decides exactly as one reader of the whole log would.
  */
-export function planRanges(layout: HeaderLayout, profile: AnalysisProfile, counts: readonly LineCount[], edges: RecordEdges, keystream: KeystreamSource | null): RangePlan[] {
+export function planRanges(layout: HeaderLayout, profile: AnalysisProfile, counts: readonly LineCount[], edges: RecordEdges): RangePlan[] {
   const totalRecords = counts.reduce((sum, count) => sum + count.records, 0);
   const span = triggerSpan(edges, totalRecords);
   const selection = profile.testSelection;
@@ -68,10 +68,6 @@ export function planRanges(layout: HeaderLayout, profile: AnalysisProfile, count
     const trigger = i === 0 ? 0 : edges.previousRounds[i] + 1 - span.firstRound;
     return Number.isSafeInteger(trigger) && trigger >= 0 ? trigger : 0;
   });
-  const testsBefore =
-    selection.mode === 'fixed-fraction' && keystream !== null && counts.length > 1
-      ? testsBeforeTriggers(keystream, span.triggers, totalTests, firstTriggers)
-      : firstTriggers.map(() => 0);
   return counts.map((_, i) => ({
     layout,
     selection,
@@ -79,7 +75,20 @@ export function planRanges(layout: HeaderLayout, profile: AnalysisProfile, count
     firstRecord: firstRecords[i],
     totalRecords,
     span,
-    start: { firstTrigger: firstTriggers[i], totalTriggers: span.triggers, totalTests, testsBefore: testsBefore[i] },
+    start: { firstTrigger: firstTriggers[i], totalTriggers: span.triggers, totalTests, testsBefore: 0 },
     blocks: profile.driftBlocks,
   }));
+}
+
+/**
+ * The plan with the test rounds fixed-fraction selection chooses before its stretch, found by
+ * running the selection over the keystream alone up to the stretch's first trigger (it never
+ * depends on the data). Runs in the thread that reads the stretch, beside the other stretches.
+ */
+export function withTestsBefore(plan: RangePlan, keystream: KeystreamSource | null): RangePlan {
+  if (plan.selection.mode !== 'fixed-fraction' || keystream === null || plan.start.firstTrigger === 0) {
+    return plan;
+  }
+  const [testsBefore] = testsBeforeTriggers(keystream, plan.start.totalTriggers, plan.start.totalTests, [plan.start.firstTrigger]);
+  return { ...plan, start: { ...plan.start, testsBefore } };
 }

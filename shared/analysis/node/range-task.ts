@@ -1,6 +1,7 @@
 import { open } from 'node:fs/promises';
 import { ByteScanner } from '../log/byte-scanner';
 import { RangeAnalysis, RangePlan, RangeSummary } from '../log/range-analysis';
+import { withTestsBefore } from '../log/range-plans';
 import { aesKeystream } from './aes-keystream';
 import { READ_CHUNK_BYTES } from './log-source';
 
@@ -21,11 +22,13 @@ export interface RangeTask {
 /**
  * Runs a task on its byte range, reading the file in chunks into the byte scanner; `onBytes` hears
  * of each chunk read and `cancelled` is asked between chunks. The same function runs in a worker
- * thread or in the caller's.
+ * thread or in the caller's; each counts the fixed-fraction test rounds before its own range.
  */
 export async function runRangeTask(task: RangeTask, onBytes: (bytes: number) => void, cancelled: () => boolean): Promise<RangeSummary> {
-  const analysis = new RangeAnalysis(task.plan, task.seed === null ? null : aesKeystream(task.seed));
-  const scanner = new ByteScanner(task.plan.layout, analysis, task.plan.firstLine);
+  const keystream = task.seed === null ? null : aesKeystream(task.seed);
+  const plan = withTestsBefore(task.plan, keystream);
+  const analysis = new RangeAnalysis(plan, keystream);
+  const scanner = new ByteScanner(plan.layout, analysis, plan.firstLine);
   const file = await open(task.path, 'r');
   try {
     const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);

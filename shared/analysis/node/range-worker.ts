@@ -1,32 +1,35 @@
 import { parentPort } from 'node:worker_threads';
+import { LineCount } from '../log/line-counter';
 import { RangeSummary } from '../log/range-analysis';
-import { RangeTask, runRangeTask } from './range-task';
+import { hashAndCount } from './counting-pass';
+import { ByteRange, RangeTask, runRangeTask } from './range-task';
+
+/** What a range worker is asked to do: count the lines of ranges (the counting pass) or analyse one. */
+export type WorkerJob = { kind: 'count'; path: string; size: number; ranges: ByteRange[] } | { kind: 'analyse'; task: RangeTask };
 
 /** Messages from a range worker to its pool. */
 export type WorkerReply =
   | { type: 'progress'; bytes: number }
-  | { type: 'done'; result: RangeSummary }
+  | { type: 'done'; result: RangeSummary | LineCount[] }
   | { type: 'failed'; message: string };
 
 /** Progress is reported after this many bytes, to keep messages few. */
 const PROGRESS_STEP = 16 * 1024 * 1024;
 
-// Worker thread entry: runs one range task per message, in order.
-parentPort?.on('message', async (task: RangeTask) => {
+// Worker thread entry: runs one job per message, in order.
+parentPort?.on('message', async (job: WorkerJob) => {
   const port = parentPort!;
   let unreported = 0;
+  const onBytes = (bytes: number) => {
+    unreported += bytes;
+    if (unreported >= PROGRESS_STEP) {
+      port.postMessage({ type: 'progress', bytes: unreported } satisfies WorkerReply);
+      unreported = 0;
+    }
+  };
   try {
-    const result = await runRangeTask(
-      task,
-      (bytes) => {
-        unreported += bytes;
-        if (unreported >= PROGRESS_STEP) {
-          port.postMessage({ type: 'progress', bytes: unreported } satisfies WorkerReply);
-          unreported = 0;
-        }
-      },
-      () => false,
-    );
+    const result =
+      job.kind === 'count' ? (await hashAndCount(job.path, job.size, job.ranges, false, () => undefined, () => false)).counts : await runRangeTask(job.task, onBytes, () => false);
     port.postMessage({ type: 'progress', bytes: unreported } satisfies WorkerReply);
     port.postMessage({ type: 'done', result } satisfies WorkerReply);
   } catch (error) {

@@ -77,7 +77,7 @@ export async function readWithCsvParse(source: LogSource, request: AnalysisReque
     return { kind: 'unreadable', input, problems: [badSpan], problemCount: 1 };
   }
   const keystream = request.seed === null ? null : aesKeystream(request.seed);
-  const [plan] = planRanges(logHead.layout, request.profile, [{ lines: 0, records: input.rounds }], edges, keystream);
+  const [plan] = planRanges(logHead.layout, request.profile, [{ lines: 0, records: input.rounds }], edges);
   const analysis = new RangeAnalysis(plan, keystream);
   const values = new Float64Array(ROUND_FIELDS.length);
   const fieldOfColumn = logHead.layout.fieldOfColumn;

@@ -71,7 +71,7 @@ export async function readAsStream(source: LogSource, totalBytes: number | null,
   if (badSpan !== null) {
     return { kind: 'unreadable', input, problems: [badSpan], problemCount: 1 };
   }
-  const [plan] = planRanges(logHead.layout, request.profile, [dataCount], edges, request.seed === null ? null : aesKeystream(request.seed));
+  const [plan] = planRanges(logHead.layout, request.profile, [dataCount], edges);
   const analysis = new RangeAnalysis(plan, request.seed === null ? null : aesKeystream(request.seed));
   const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine);
   const analyseProgress = progressCounter('analysing', totalBytes, listener);

@@ -1,9 +1,10 @@
 import * as path from 'node:path';
 import type { Worker } from 'node:worker_threads';
 import { AnalysisCancelledError } from './analysis-errors';
+import { LineCount } from '../log/line-counter';
 import { RangeSummary } from '../log/range-analysis';
-import { RangeTask } from './range-task';
-import { WorkerReply } from './range-worker';
+import { ByteRange, RangeTask } from './range-task';
+import { WorkerJob, WorkerReply } from './range-worker';
 import { startTypeScriptWorker } from './typescript-worker';
 
 /** Each thread runs this file: TypeScript beside this one, or JavaScript when this one is compiled. */
@@ -15,7 +16,7 @@ const RANGE_WORKER = path.join(__dirname, `range-worker${path.extname(__filename
  */
 const WORKER_LIMITS = { maxYoungGenerationSizeMb: 4 };
 
-/** A fixed set of worker threads, each running range tasks in order; kept for both passes of an analysis. */
+/** A fixed set of worker threads, each running jobs in order; kept for both passes of an analysis. */
 export class WorkerPool {
   private readonly workers: Worker[];
 
@@ -32,7 +33,12 @@ export class WorkerPool {
 
   /** Runs one task per worker (task i on worker i; no more tasks than workers) ; one promise per task, in task order. */
   runAll(tasks: readonly RangeTask[], onBytes: (bytes: number) => void): Promise<RangeSummary>[] {
-    return tasks.map((task, i) => this.run(this.workers[i], task, onBytes));
+    return tasks.map((task, i) => this.run<RangeSummary>(this.workers[i], { kind: 'analyse', task }, onBytes));
+  }
+
+  /** The lines and records of each range of a plain file, counted by the first thread. */
+  countLines(path: string, size: number, ranges: ByteRange[]): Promise<LineCount[]> {
+    return this.run<LineCount[]>(this.workers[0], { kind: 'count', path, size, ranges }, () => undefined);
   }
 
   /** Stops every thread. */
@@ -40,7 +46,7 @@ export class WorkerPool {
     await Promise.all(this.workers.map((worker) => worker.terminate()));
   }
 
-  private run(worker: Worker, task: RangeTask, onBytes: (bytes: number) => void): Promise<RangeSummary> {
+  private run<Result extends RangeSummary | LineCount[]>(worker: Worker, job: WorkerJob, onBytes: (bytes: number) => void): Promise<Result> {
     return new Promise((resolve, reject) => {
       const settle = () => {
         worker.off('message', onMessage);
@@ -54,7 +60,7 @@ export class WorkerPool {
         }
         settle();
         if (reply.type === 'done') {
-          resolve(reply.result);
+          resolve(reply.result as Result);
         } else {
           reject(new Error(reply.message));
         }
@@ -70,7 +76,7 @@ export class WorkerPool {
       worker.on('message', onMessage);
       worker.once('error', onError);
       worker.once('exit', onExit);
-      worker.postMessage(task);
+      worker.postMessage(job);
     });
   }
 }
