@@ -110,7 +110,7 @@ export class RangeAnalysis {
     this.nextRound = round + 1;
     const isTest = this.selector.next(decoded[TEST]);
     this.validRecords++;
-    this.testRounds += isTest ? 1 : 0;
+    this.testRounds += isTest;
     this.tally.add(index, round, decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
   }
 

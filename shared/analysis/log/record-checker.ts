@@ -75,8 +75,9 @@ export class RecordChecker {
       b = b === 1 ? 0 : b === -1 ? 1 : NaN;
     }
     const test = this.hasTest ? values[TEST] : 0;
-    const inRange =
-      round >= 0 && round <= LARGEST_ROUND && (x === 0 || x === 1) && (y === 0 || y === 1 || y === 2) && (a === 0 || a === 1) && (b === 0 || b === 1) && (test === 0 || test === 1);
+    // Each value is an integer or NaN, so a range check is the whole check; written as bounds, whose
+    // outcome the processor predicts, rather than as a choice among values, which it cannot.
+    const inRange = round >= 0 && round <= LARGEST_ROUND && x >= 0 && x <= 1 && y >= 0 && y <= 2 && a >= 0 && a <= 1 && b >= 0 && b <= 1 && test >= 0 && test <= 1;
     // The common case first: a whole, valid row whose round index follows the previous one.
     if (fieldCount !== this.fieldCount || !inRange || !(round > this.lastRound) || this.first === null) {
       return this.checkUncommon(line, values, fieldCount, rawFields, inRange);

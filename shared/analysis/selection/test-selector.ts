@@ -8,8 +8,12 @@ import { UniformStream } from './uniform-stream';
  * decision, so a missing round drawn for testing can be counted against the run.
  */
 export interface TestSelector {
-  /** Whether the next trigger's round is a test round; `logMark` is the log's own `test` value (0 or 1, or NaN if absent). */
-  next(logMark: number): boolean;
+  /**
+   * 1 when the next trigger's round is a test round, else 0 (a number, so callers count and index
+   * with it without a branch the processor would mispredict half the time); `logMark` is the log's
+   * own `test` value (0 or 1, or NaN if absent).
+   */
+  next(logMark: number): number;
   /**
    * Passes over `count` triggers whose rounds are missing from the log; returns how many of them
    * were drawn for testing. With the log's own marking the marks went with the rounds, so every
@@ -39,7 +43,7 @@ export function fixedFractionTests(fraction: number, totalRounds: number): numbe
 function skipBy(selector: TestSelector, count: number): number {
   let tests = 0;
   for (let i = 0; i < count; i++) {
-    tests += selector.next(NaN) ? 1 : 0;
+    tests += selector.next(NaN);
   }
   return tests;
 }
@@ -61,12 +65,10 @@ class FixedFractionSelector implements TestSelector {
     this.remainingTriggers = start.totalTriggers - start.firstTrigger;
   }
 
-  next(): boolean {
-    const chosen = this.uniforms.next() < this.remainingTests / this.remainingTriggers;
+  next(): number {
+    const chosen = Number(this.uniforms.next() < this.remainingTests / this.remainingTriggers);
     this.remainingTriggers--;
-    if (chosen) {
-      this.remainingTests--;
-    }
+    this.remainingTests -= chosen;
     return chosen;
   }
 
@@ -82,8 +84,8 @@ class BernoulliSelector implements TestSelector {
     private readonly probability: number,
   ) {}
 
-  next(): boolean {
-    return this.uniforms.next() < this.probability;
+  next(): number {
+    return Number(this.uniforms.next() < this.probability);
   }
 
   skip(count: number): number {
@@ -93,8 +95,8 @@ class BernoulliSelector implements TestSelector {
 
 /** The lab's own marking, the `test` column. */
 class LogMarkSelector implements TestSelector {
-  next(logMark: number): boolean {
-    return logMark === 1;
+  next(logMark: number): number {
+    return Number(logMark === 1);
   }
 
   skip(count: number): number {

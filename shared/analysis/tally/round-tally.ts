@@ -24,8 +24,8 @@ export interface TallyCounts {
  * test statistics of each stationarity block.
  */
 export class RoundTally {
-  private readonly test = new Float64Array(COUNT_CELLS);
-  private readonly generation = new Float64Array(COUNT_CELLS);
+  /** Generation rounds in cells 0..23, test rounds in 24..47: a test round is counted COUNT_CELLS further on. */
+  private readonly cells = new Float64Array(2 * COUNT_CELLS);
   private readonly blockStats: Float64Array;
   private readonly blockRounds: Float64Array;
   private block: number;
@@ -42,20 +42,24 @@ export class RoundTally {
     this.nextBlockStart = firstRoundOfBlock(this.block + 1, totalRounds, blocks);
   }
 
-  /** Adds round `index` (log order) with its round number, settings, outcomes and selection. */
-  add(index: number, round: number, x: number, y: number, a: number, b: number, isTest: boolean): void {
+  /**
+   * Adds round `index` (log order) with its round number, settings, outcomes and selection (`isTest`
+   * 1 or 0). Written without branches on the values: settings and selection are random, and a
+   * branch on them would be mispredicted about every other round.
+   */
+  add(index: number, round: number, x: number, y: number, a: number, b: number, isTest: number): void {
     while (index >= this.nextBlockStart) {
       this.block++;
       this.nextBlockStart = firstRoundOfBlock(this.block + 1, this.totalRounds, this.blocks);
     }
     // countCell(x, y, a, b), written out: this runs once per round.
-    (isTest ? this.test : this.generation)[((x * 3 + y) * 2 + a) * 2 + b]++;
+    this.cells[isTest * COUNT_CELLS + ((x * 3 + y) * 2 + a) * 2 + b]++;
     const rounds = this.block * 2;
     if (Number.isNaN(this.blockRounds[rounds])) {
       this.blockRounds[rounds] = round;
     }
     this.blockRounds[rounds + 1] = round;
-    if (!isTest) {
+    if (isTest === 0) {
       return;
     }
     const stats = this.block * 4;
@@ -70,6 +74,11 @@ export class RoundTally {
 
   /** The counts so far. */
   counts(): TallyCounts {
-    return { test: Array.from(this.test), generation: Array.from(this.generation), blockStats: Array.from(this.blockStats), blockRounds: Array.from(this.blockRounds) };
+    return {
+      test: Array.from(this.cells.subarray(COUNT_CELLS)),
+      generation: Array.from(this.cells.subarray(0, COUNT_CELLS)),
+      blockStats: Array.from(this.blockStats),
+      blockRounds: Array.from(this.blockRounds),
+    };
   }
 }
