@@ -1,26 +1,23 @@
-import { createWriteStream } from 'node:fs';
+import { createReadStream, createWriteStream } from 'node:fs';
 import { once } from 'node:events';
-import { Writable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
 import { createGzip } from 'node:zlib';
-import { acquireRun } from '../fixtures/device-model';
 import { FIXTURE_SEED, steadyPair } from '../fixtures/fixture-set';
+import { modelLogChunks } from './pipeline/model-log-chunks';
 
-/** Writes a log of `rounds` rounds from the Kestrel Fen model to `path`, gzip-compressed when asked. */
-export async function writeBenchLog(path: string, rounds: number, gzip: boolean): Promise<void> {
+/** Writes a plain log of `rounds` rounds of the Kestrel Fen model to `path`. */
+export async function writeBenchLog(path: string, rounds: number): Promise<void> {
   const file = createWriteStream(path);
-  const gzipper = gzip ? createGzip() : null;
-  gzipper?.pipe(file);
-  const out: Writable = gzipper ?? file;
-  const lines: string[] = ['round,x,y,a,b'];
-  for (const r of acquireRun({ ...steadyPair, rounds }, FIXTURE_SEED)) {
-    lines.push(`${r.round},${r.x},${r.y},${r.a},${r.b}`);
-    if (lines.length === 65_536) {
-      if (!out.write(lines.join('\n') + '\n')) {
-        await once(out, 'drain');
-      }
-      lines.length = 0;
+  for (const chunk of modelLogChunks({ ...steadyPair, rounds }, FIXTURE_SEED)) {
+    if (!file.write(chunk)) {
+      await once(file, 'drain');
     }
   }
-  out.end(lines.length > 0 ? lines.join('\n') + '\n' : '');
+  file.end();
   await once(file, 'finish');
+}
+
+/** Writes the gzip (default level, as `gzip` does) of the file at `plain` to `path`. */
+export async function gzipBenchLog(plain: string, path: string): Promise<void> {
+  await pipeline(createReadStream(plain, { highWaterMark: 1 << 20 }), createGzip(), createWriteStream(path));
 }

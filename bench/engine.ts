@@ -2,51 +2,105 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
-import { writeBenchLog } from './bench-log';
+import { parseArgs } from 'node:util';
+import { gzipBenchLog, writeBenchLog } from './bench-log';
 
-// `npm run bench`: rounds per second and peak memory of the engine, of the csv-parse reference
-// pipeline and of a plain python3 csv script, on plain and gzip logs of 10^6 and 10^7 rounds,
-// generated into a temporary folder and deleted afterwards.
+// `npm run bench [-- --rounds 1e7,1e8 --repeat 5 --references-up-to 1e7]`: for each size, a plain
+// and a gzip log of the Kestrel Fen model, generated into a temporary folder and deleted after.
+// On each: the engine (complete analysis, compiled, a fresh process per run), a numpy loadtxt +
+// bincount script and a python3 csv script, in this process tree one after the other, and for
+// gzip the decompression alone. Medians of the runs; peak memory the largest; ratios to the engine.
 
 interface Measurement {
   seconds: number;
   peakMB: number;
   rounds: number;
+  /** The whole process, start-up included. */
+  processSeconds: number;
 }
 
-const ROOT = path.resolve(__dirname, '..');
-const SIZES = [1_000_000, 10_000_000];
-const REFERENCE_UP_TO = 10_000_000;
+const { values: options } = parseArgs({ options: { rounds: { type: 'string', default: '1e7,1e8' }, repeat: { type: 'string', default: '3' }, 'references-up-to': { type: 'string', default: '1e7' } } });
+const SIZES = options.rounds.split(',').map(Number);
+const REPEAT = Number(options.repeat);
+const REFERENCES_UP_TO = Number(options['references-up-to']);
+const COMPILED = __filename.endsWith('.js');
+/** The project root, from bench/ or from its compiled copy in dist/server/bench/. */
+const ROOT = path.resolve(__dirname, COMPILED ? '../../..' : '..');
 
-function measure(command: string, args: string[]): Measurement {
-  return JSON.parse(execFileSync(command, args, { cwd: ROOT, encoding: 'utf8', maxBuffer: 1 << 20 })) as Measurement;
+/** A node script of this folder, compiled or not as this one is. */
+function nodeScript(name: string): [string, string[]] {
+  return [process.execPath, [...(COMPILED ? [] : ['--import', 'tsx']), path.join(__dirname, `${name}${path.extname(__filename)}`)]];
 }
 
-function row(what: string, file: string, m: Measurement): string {
-  const rate = (m.rounds / m.seconds / 1e6).toFixed(2);
-  return `${what.padEnd(22)} ${path.basename(file).padEnd(16)} ${String(m.rounds).padStart(9)} rounds ${m.seconds.toFixed(2).padStart(7)} s ${rate.padStart(7)} M rounds/s  peak ${m.peakMB.toFixed(0).padStart(5)} MB`;
+function measureOnce(command: string, args: string[]): Measurement {
+  const started = process.hrtime.bigint();
+  const printed = execFileSync(command, args, { cwd: ROOT, encoding: 'utf8', maxBuffer: 1 << 20 });
+  const processSeconds = Number(process.hrtime.bigint() - started) / 1e9;
+  return { ...(JSON.parse(printed) as Omit<Measurement, 'processSeconds'>), processSeconds };
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const middle = Math.floor(sorted.length / 2);
+  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+}
+
+/** `REPEAT` runs: median times, largest peak memory. */
+function measure([command, args]: [string, string[]]): Measurement {
+  const runs = Array.from({ length: REPEAT }, () => measureOnce(command, args));
+  return { seconds: median(runs.map((run) => run.seconds)), processSeconds: median(runs.map((run) => run.processSeconds)), peakMB: Math.max(...runs.map((run) => run.peakMB)), rounds: runs[0].rounds };
+}
+
+function row(what: string, m: Measurement, rounds: number, comparison: string): string {
+  const rate = m.rounds > 0 ? `${(rounds / m.seconds / 1e6).toFixed(1).padStart(6)} M rounds/s` : ' '.repeat(17);
+  return `  ${what.padEnd(22)} ${m.seconds.toFixed(3).padStart(8)} s  (process ${m.processSeconds.toFixed(2).padStart(6)} s)  ${rate}  peak ${m.peakMB.toFixed(0).padStart(5)} MB  ${comparison}`;
 }
 
 async function main(): Promise<void> {
   const folder = mkdtempSync(path.join(tmpdir(), 'bellkeep-bench-'));
-  const tsx = path.join(ROOT, 'node_modules/.bin/tsx');
+  const results: object[] = [];
+  process.stdout.write(`engine bench: medians of ${REPEAT} runs each; numpy and csv scripts up to ${REFERENCES_UP_TO} rounds\n`);
   try {
     for (const rounds of SIZES) {
-      for (const gzip of [false, true]) {
-        const file = path.join(folder, `log-${rounds}${gzip ? '.csv.gz' : '.csv'}`);
-        await writeBenchLog(file, rounds, gzip);
+      const plain = path.join(folder, `log-${rounds}.csv`);
+      const gzip = `${plain}.gz`;
+      process.stderr.write(`generating ${rounds} rounds\n`);
+      await writeBenchLog(plain, rounds);
+      await gzipBenchLog(plain, gzip);
+      for (const file of [plain, gzip]) {
+        const compressed = file === gzip;
         process.stdout.write(`\n${path.basename(file)}: ${(statSync(file).size / 1e6).toFixed(1)} MB\n`);
-        process.stdout.write(row('engine', file, measure(tsx, [path.join(__dirname, 'measure-engine.ts'), file, 'fast'])) + '\n');
-        if (rounds <= REFERENCE_UP_TO) {
-          process.stdout.write(row('csv-parse pipeline', file, measure(tsx, [path.join(__dirname, 'measure-engine.ts'), file, 'reference'])) + '\n');
+        const engine = measure(withArgs(nodeScript('measure-engine'), file, 'fast'));
+        if (engine.rounds !== rounds) throw new Error(`the engine read ${engine.rounds} rounds of ${rounds}`);
+        process.stdout.write(`${row('engine', engine, rounds, '')}\n`);
+        const result: Record<string, unknown> = { rounds, file: path.basename(file), bytes: statSync(file).size, engine };
+        if (compressed) {
+          const gunzip = measure(withArgs(nodeScript('measure-gunzip'), file));
+          process.stdout.write(`${row('decompression alone', gunzip, rounds, `engine ${(engine.seconds / gunzip.seconds).toFixed(2)}x its time`)}\n`);
+          result['gunzip'] = gunzip;
         }
-        process.stdout.write(row('python3 csv script', file, measure('python3', [path.join(__dirname, 'count_rounds.py'), file])) + '\n');
-        rmSync(file);
+        if (rounds > REFERENCES_UP_TO) {
+          process.stdout.write(`  (numpy and csv scripts skipped above ${REFERENCES_UP_TO} rounds: minutes each; --references-up-to raises it)\n`);
+        } else {
+          for (const [name, script] of [['numpy loadtxt', 'numpy_loadtxt.py'], ['python3 csv', 'count_rounds.py']] as const) {
+            const reference = measure(['python3', [path.join(ROOT, 'bench', script), file]]);
+            process.stdout.write(`${row(name, reference, rounds, `engine ${(reference.seconds / engine.seconds).toFixed(1)}x faster`)}\n`);
+            result[name] = reference;
+          }
+        }
+        results.push(result);
       }
+      rmSync(plain);
+      rmSync(gzip);
     }
   } finally {
     rmSync(folder, { recursive: true, force: true });
   }
+  process.stdout.write(`\n${JSON.stringify({ bench: 'engine', repeat: REPEAT, results })}\n`);
+}
+
+function withArgs([command, args]: [string, string[]], ...more: string[]): [string, string[]] {
+  return [command, [...args, ...more]];
 }
 
 void main();

@@ -1,7 +1,8 @@
 import { analyseLog } from '../shared/analysis/node';
 
-// One measurement in a fresh process (so peak memory is its own): `tsx bench/measure-engine.ts
-// <log> <fast|reference>` prints {seconds, peakMB, rounds, verdict} as JSON.
+// One measurement in a fresh process (so peak memory is its own): `node dist/server/bench/measure-engine.js
+// <log> <fast|reference>` prints {seconds, peakMB, rounds, verdict} as JSON; seconds from before the
+// analysis to its result, so process start-up is not in it (the bench times that apart).
 async function main(): Promise<void> {
   const [log, reader] = process.argv.slice(2);
   const started = process.hrtime.bigint();
