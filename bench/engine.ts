@@ -24,8 +24,8 @@ const SIZES = options.rounds.split(',').map(Number);
 const REPEAT = Number(options.repeat);
 const REFERENCES_UP_TO = Number(options['references-up-to']);
 const COMPILED = __filename.endsWith('.js');
-/** The project root, from bench/ or from its compiled copy in dist/server/bench/. */
-const ROOT = path.resolve(__dirname, COMPILED ? '../../..' : '..');
+/** The project root, from bench/ or from the bundles in dist/server/. */
+const ROOT = path.resolve(__dirname, COMPILED ? '../..' : '..');
 
 /** A node script of this folder, compiled or not as this one is. */
 function nodeScript(name: string): [string, string[]] {

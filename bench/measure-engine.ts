@@ -1,6 +1,6 @@
 import { analyseLog } from '../shared/analysis/node';
 
-// One measurement in a fresh process (so peak memory is its own): `node dist/server/bench/measure-engine.js
+// One measurement in a fresh process (so peak memory is its own): `node dist/server/measure-engine.js
 // <log> <fast|reference>` prints {seconds, peakMB, rounds, verdict} as JSON; seconds from before the
 // analysis to its result, so process start-up is not in it (the bench times that apart).
 async function main(): Promise<void> {

@@ -3,7 +3,7 @@ import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { createGunzip } from 'node:zlib';
 
-// Decompression alone, the floor for a gzip log: `node dist/server/bench/measure-gunzip.js <log.gz>`
+// Decompression alone, the floor for a gzip log: `node dist/server/measure-gunzip.js <log.gz>`
 // streams the file through zlib to nowhere, with the engine's chunk sizes, and prints
 // {seconds, peakMB, rounds: 0} as JSON.
 async function main(): Promise<void> {

@@ -1,37 +1,49 @@
 // Runs a command as compiled JavaScript, so it starts without a TypeScript loader:
-//   node server/cli/run-compiled.js <file.ts under the project> [arguments...]
+//   node server/cli/run-compiled.js <command file.ts> [arguments...]
 //   node server/cli/run-compiled.js --build          (the postinstall step: compile only)
-// The TypeScript of server/, shared/, bench/ and fixtures/ is transpiled file by file with esbuild
-// into dist/server/ (the same tree, so paths next to __dirname still hold), again whenever a source
-// is newer than the last build. Without esbuild (an install without dev dependencies) the command
-// runs through tsx instead. Plain JavaScript: this file is what runs before anything is compiled.
+// Each command, and the engine's range worker, is bundled by esbuild (its packages included: one
+// file loads faster than a hundred) into dist/server/<name>.js, all in one folder, so a bundle
+// finds the range worker's bundle beside itself as the TypeScript finds range-worker.ts. The
+// bundles are made again whenever a source or the lock file is newer than the last build. Without
+// esbuild (an install without dev dependencies) the command runs through tsx instead. Plain
+// JavaScript: this file is what runs before anything is compiled.
 'use strict';
 const fs = require('node:fs');
 const path = require('node:path');
 
 const ROOT = path.resolve(__dirname, '..', '..');
 const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures'];
+/** The bundles: command file → bundle name. */
+const ENTRIES = {
+  'server/cli/analyse.ts': 'analyse',
+  'server/cli/verify.ts': 'verify',
+  'server/cli/plan.ts': 'plan',
+  'server/cli/keylength.ts': 'keylength',
+  'shared/analysis/node/range-worker.ts': 'range-worker',
+  'bench/engine.ts': 'bench-engine',
+  'bench/measure-engine.ts': 'measure-engine',
+  'bench/measure-gunzip.ts': 'measure-gunzip',
+  'bench/keylength.ts': 'bench-keylength',
+};
 const OUT = path.join(ROOT, 'dist', 'server');
 /** Written last by a build; its time is the build's. */
 const STAMP = path.join(OUT, '.built');
 
-/** The TypeScript files to compile (specs and declarations left out), and the newest change time. */
-function sources() {
-  const files = [];
-  let newest = 0;
+/** The newest change time of the TypeScript sources (specs left out) and of the lock file. */
+function newestSource() {
+  let newest = fs.statSync(path.join(ROOT, 'package-lock.json'), { throwIfNoEntry: false })?.mtimeMs ?? 0;
   const walk = (folder) => {
     for (const entry of fs.readdirSync(folder, { withFileTypes: true })) {
       const file = path.join(folder, entry.name);
       if (entry.isDirectory()) {
         walk(file);
-      } else if (entry.name.endsWith('.ts') && !entry.name.endsWith('.spec.ts') && !entry.name.endsWith('.d.ts')) {
-        files.push(file);
+      } else if (entry.name.endsWith('.ts') && !entry.name.endsWith('.spec.ts')) {
         newest = Math.max(newest, fs.statSync(file).mtimeMs);
       }
     }
   };
   SOURCE_FOLDERS.map((folder) => path.join(ROOT, folder)).filter((folder) => fs.existsSync(folder)).forEach(walk);
-  return { files, newest };
+  return newest;
 }
 
 function builtAt() {
@@ -46,7 +58,7 @@ function builtAt() {
  * Compiles into a folder of its own and moves it into place, so a command starting meanwhile never
  * sees half a build. Returns false when esbuild is not installed.
  */
-function build(files) {
+function build() {
   let esbuild;
   try {
     esbuild = require('esbuild');
@@ -55,7 +67,8 @@ function build(files) {
   }
   const staging = `${OUT}.${process.pid}`;
   fs.rmSync(staging, { recursive: true, force: true });
-  esbuild.buildSync({ entryPoints: files, outdir: staging, outbase: ROOT, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
+  const entryPoints = Object.fromEntries(Object.entries(ENTRIES).map(([file, name]) => [name, path.join(ROOT, file)]));
+  esbuild.buildSync({ entryPoints, outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
   fs.writeFileSync(path.join(staging, '.built'), '');
   const old = `${OUT}.old.${process.pid}`;
   if (fs.existsSync(OUT)) fs.renameSync(OUT, old);
@@ -90,20 +103,19 @@ function withBuildLock(work) {
 
 /** Compiles when a source is newer than the build; false when the TypeScript must run as it is. */
 function ensureBuilt() {
-  const { files, newest } = sources();
+  const newest = newestSource();
   if (builtAt() >= newest) return true;
   fs.mkdirSync(path.dirname(OUT), { recursive: true });
   // Another process may have built while this one waited for the lock.
-  return withBuildLock(() => builtAt() >= newest || build(files));
+  return withBuildLock(() => builtAt() >= newest || build());
 }
 
 const [target, ...rest] = process.argv.slice(2);
 if (target === '--build') {
-  const { files } = sources();
   fs.mkdirSync(path.dirname(OUT), { recursive: true });
-  if (!withBuildLock(() => build(files))) process.stderr.write('run-compiled: esbuild is not installed; the commands will run through tsx\n');
-} else if (target === undefined || !target.endsWith('.ts')) {
-  process.stderr.write('usage: node server/cli/run-compiled.js <command.ts> [arguments...] | --build\n');
+  if (!withBuildLock(build)) process.stderr.write('run-compiled: esbuild is not installed; the commands will run through tsx\n');
+} else if (!(target in ENTRIES)) {
+  process.stderr.write(`usage: node server/cli/run-compiled.js <command.ts> [arguments...] | --build\ncommands: ${Object.keys(ENTRIES).join(', ')}\n`);
   process.exitCode = 2;
 } else {
   const source = path.resolve(ROOT, target);
@@ -111,5 +123,5 @@ if (target === '--build') {
   // The command reads its arguments from process.argv.slice(2), as when started directly.
   process.argv = [process.argv[0], source, ...rest];
   if (!compiled) require('tsx/cjs');
-  require(compiled ? path.join(OUT, path.relative(ROOT, source)).replace(/\.ts$/, '.js') : source);
+  require(compiled ? path.join(OUT, `${ENTRIES[target]}.js`) : source);
 }
