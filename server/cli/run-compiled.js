@@ -26,7 +26,7 @@ const ENTRIES = {
   'bench/keylength.ts': 'bench-keylength',
 };
 const OUT = path.join(ROOT, 'dist', 'server');
-/** Written last by a build; its time is the build's. */
+/** Written last by a build, with the time the build began. */
 const STAMP = path.join(OUT, '.built');
 
 /** The newest change time of the TypeScript sources (specs left out) and of the lock file. */
@@ -66,10 +66,13 @@ function build() {
     return false;
   }
   const staging = `${OUT}.${process.pid}`;
+  const started = new Date();
   fs.rmSync(staging, { recursive: true, force: true });
   const entryPoints = Object.fromEntries(Object.entries(ENTRIES).map(([file, name]) => [name, path.join(ROOT, file)]));
   esbuild.buildSync({ entryPoints, outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
+  // Dated when the build began, so a source saved during the build is newer than it.
   fs.writeFileSync(path.join(staging, '.built'), '');
+  fs.utimesSync(path.join(staging, '.built'), started, started);
   const old = `${OUT}.old.${process.pid}`;
   if (fs.existsSync(OUT)) fs.renameSync(OUT, old);
   fs.renameSync(staging, OUT);
