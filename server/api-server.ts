@@ -47,7 +47,7 @@ export async function startApiServer(config: Config, connections: ApiConnections
     const queue = await startAnalysisQueue(connections.databaseUrl, database.sequelize, config.queue);
     undo.push(() => queue.stop());
     const services = createServices(config, database, queue);
-    const app = createApp({ config, database, services, jwtSecret, appMail: createAppMail(mailer, config.publicUrl) });
+    const app = createApp({ config, database, services, jwtSecret, appMail: createAppMail(mailer, config.publicUrl), queue });
     const server = app.listen(config.port, config.host);
     await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
     undo.push(() => new Promise<void>((resolve) => server.close(() => resolve())));

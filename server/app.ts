@@ -10,12 +10,15 @@ import { RESUMABLE_UPLOAD_PATH } from '../shared/api';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { healthRoutes } from './http/health.routes';
 import { refuseNulCharacters } from './http/refuse-nul';
 import { runIntegrityRoutes } from './integrity/integrity.routes';
 import { signingKeysRoutes } from './integrity/signing-keys.routes';
 import type { AppMail } from './mail/app-mail';
+import { metricsRoutes } from './metrics/metrics.routes';
 import { plannerRoutes } from './planner/planner.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
+import type { AnalysisQueue } from './queue/analysis-queue';
 import { resumableUploads } from './runs/resumable-uploads';
 import { runsRoutes } from './runs/runs.routes';
 import type { Services } from './services';
@@ -31,13 +34,14 @@ export interface AppDependencies {
   services: Services;
   jwtSecret: string;
   appMail: AppMail;
+  queue: AnalysisQueue;
 }
 
 /**
  * Builds the Express app: configuration, middleware, one router per resource, the built Angular
  * app, and the one error handler last. It does not listen: start.ts does, tests use supertest.
  */
-export function createApp({ config, database, services, jwtSecret, appMail }: AppDependencies): Express {
+export function createApp({ config, database, services, jwtSecret, appMail, queue }: AppDependencies): Express {
   const app = express();
   const guards = createGuards(jwtSecret, services.users);
 
@@ -48,9 +52,7 @@ export function createApp({ config, database, services, jwtSecret, appMail }: Ap
   app.use('/api', express.json({ limit: '100kb' }));
   app.use('/api', refuseNulCharacters);
 
-  app.get('/api/health', (_request, response) => {
-    response.json({ status: 'ok' });
-  });
+  app.use('/api', healthRoutes({ database, queue, logStore: services.logStore }));
   app.use('/api/auth', authRoutes(config, jwtSecret, services.users, guards));
   app.use('/api/users', usersRoutes(services.users, guards, appMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));
@@ -69,6 +71,7 @@ export function createApp({ config, database, services, jwtSecret, appMail }: Ap
     resumableUploads({ sequelize: database.sequelize, runs: services.runs, logStore: services.logStore, uploader, dataDir: config.dataDir, limitBytes: config.uploadLimitBytes }),
   );
   app.use('/api', apiNotFound);
+  app.use(metricsRoutes({ sequelize: database.sequelize, guards, scrapeToken: config.metricsToken }));
 
   serveBuiltApp(app, config.appDir);
   app.use(errorHandler);

@@ -41,6 +41,8 @@ const environmentSchema = z.object({
   BELLKEEP_LOGIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
   /** SMTP URL of the mail transport; when unset, `npm start` runs the local mail catcher. */
   BELLKEEP_SMTP_URL: z.string().optional(),
+  /** Bearer token a Prometheus scraper sends for `GET /metrics` (admins may read it signed in). */
+  BELLKEEP_METRICS_TOKEN: z.string().min(32, 'must be at least 32 characters').optional(),
   /** Sender of Bellkeep's e-mails. */
   BELLKEEP_MAIL_FROM: z.string().default('Bellkeep <bellkeep@kestrelfen.example>'),
   /** SMTP port of the local mail catcher. */
@@ -117,6 +119,8 @@ export interface Config {
   bcryptRounds: number;
   loginRateLimit: { limit: number; accountLimit: number; windowSeconds: number };
   smtpUrl?: string;
+  /** Bearer token of the Prometheus scraper for `GET /metrics`. */
+  metricsToken?: string;
   mailFrom: string;
   mailCatcher: { smtpPort: number; webPort: number };
   /** Where archived logs live (see server/storage/). */
@@ -161,6 +165,7 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
     bcryptRounds: env.BELLKEEP_BCRYPT_ROUNDS,
     loginRateLimit: { limit: env.BELLKEEP_LOGIN_LIMIT, accountLimit: env.BELLKEEP_LOGIN_ACCOUNT_LIMIT, windowSeconds: env.BELLKEEP_LOGIN_WINDOW_SECONDS },
     smtpUrl: env.BELLKEEP_SMTP_URL,
+    metricsToken: env.BELLKEEP_METRICS_TOKEN,
     mailFrom: env.BELLKEEP_MAIL_FROM,
     mailCatcher: { smtpPort: env.BELLKEEP_MAILCATCHER_SMTP_PORT, webPort: env.BELLKEEP_MAILCATCHER_WEB_PORT },
     storage: storageConfig(env),

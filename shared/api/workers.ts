@@ -33,3 +33,17 @@ export interface WorkersOverviewDto {
   /** A sentence for the admins when something needs them (a worker keeps dying, none takes jobs), else null. */
   attention: string | null;
 }
+
+/** One part's answer to `GET /api/ready`. */
+export interface ReadinessCheckDto {
+  part: string;
+  ready: boolean;
+  /** Why it is not ready, in one line; null when it is. */
+  problem: string | null;
+}
+
+/** `GET /api/ready`: 200 when every part answers, 503 naming the one that does not. */
+export interface ReadinessDto {
+  status: 'ready' | 'not-ready';
+  checks: ReadinessCheckDto[];
+}

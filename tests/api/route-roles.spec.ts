@@ -39,6 +39,8 @@ const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: 
   { method: 'get', path: '/api/audit/actors', roles: ['auditor', 'admin'] },
   { method: 'get', path: '/api/audit/trail-check', roles: ['auditor', 'admin'] },
   { method: 'get', path: '/api/audit/export.csv', roles: ['auditor', 'admin'] },
+  { method: 'get', path: '/api/workers', roles: ['admin'] },
+  { method: 'get', path: '/metrics', roles: ['admin'] },
 ];
 
 /** One demo person holding exactly this single role. */

@@ -10,6 +10,7 @@ import { createTestApp, type TestApp } from '../support/test-app';
 const PUBLIC_ROUTES: Record<string, string> = {
   'POST /api/auth/login': 'signing in is how one gets a token; limited per address (tested below)',
   'GET /api/health': 'the liveness probe of the lab’s monitoring; it says "ok" and nothing else',
+  'GET /api/ready': 'the readiness probe of a load balancer; it names the parts that answer or not, and nothing of the data',
   'GET /api/signing-keys': 'public keys, published so that partner labs can check exported reports',
   'GET /{*path}': 'index.html of the web app for its client-side routes; it holds no data',
 };
@@ -46,6 +47,7 @@ const GUARDED_ROUTES: Record<string, Guard> = {
   'POST /api/users': ADMIN,
   'PATCH /api/users/:id': ADMIN,
   'GET /api/workers': ADMIN,
+  'GET /metrics': ADMIN,
   'GET /api/profiles': SIGNED_IN,
   'GET /api/profiles/:id': SIGNED_IN,
   'POST /api/profiles': ADMIN,

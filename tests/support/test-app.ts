@@ -73,7 +73,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
   const services = createServices(config, database, queue);
   // As `npm start` does on bootstrap: the key results are signed with is listed before any run.
   await services.signingKeys.register();
-  const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, appMail });
+  const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, appMail, queue });
   const workers: RunningWorker[] = [];
   return {
     app,
