@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { startApiServer } from './api-server';
 import { loadConfig } from './config/config';
+import { configureLog } from './system/log';
 
 /**
  * `npm run api`: the API alone, for a machine that only serves. It starts no PostgreSQL, mail
@@ -12,6 +13,7 @@ import { loadConfig } from './config/config';
  */
 async function main(): Promise<void> {
   const config = loadConfig();
+  configureLog(config.log);
   if (!config.databaseUrl) throw new Error('Set BELLKEEP_DATABASE_URL: the API alone runs no database of its own.');
   if (!config.smtpUrl) throw new Error('Set BELLKEEP_SMTP_URL: the API mails welcome letters and runs no mail catcher of its own.');
   const api = await startApiServer(config, { databaseUrl: config.databaseUrl, smtpUrl: config.smtpUrl }, { history: true });

@@ -11,6 +11,7 @@ import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { healthRoutes } from './http/health.routes';
+import { requestLog } from './http/request-log';
 import { refuseNulCharacters } from './http/refuse-nul';
 import { runIntegrityRoutes } from './integrity/integrity.routes';
 import { signingKeysRoutes } from './integrity/signing-keys.routes';
@@ -49,6 +50,7 @@ export function createApp({ config, database, services, jwtSecret, appMail, queu
   // One proxy hop (a lab's reverse proxy) may set the client address used by the rate limit.
   app.set('trust proxy', 'loopback');
   app.use(helmet());
+  app.use(requestLog());
   app.use('/api', express.json({ limit: '100kb' }));
   app.use('/api', refuseNulCharacters);
 

@@ -6,6 +6,7 @@ import { startPostgresCluster } from './database/postgres-cluster';
 import { startMailCatcher } from './mail/mail-catcher';
 import { startStorageBackend } from './storage/storage-backend';
 import { appBuildIsStale, buildApp, startDevServer } from './system/angular-build';
+import { configureLog } from './system/log';
 import { portAnswers } from './system/port-answers';
 import { withProgress } from './system/progress-lines';
 import { superviseWorker } from './worker/worker-supervisor';
@@ -64,6 +65,11 @@ async function main(): Promise<void> {
     say(`Mail catcher SMTP 127.0.0.1:${config.mailCatcher.smtpPort}, inbox ${catcher.inboxUrl}`);
   }
 
+  // The terminal stays for people; the structured log (every request, job and mail, by request id) goes to a file.
+  const logFile = config.log.file ?? path.join(config.dataDir, 'logs', 'bellkeep.log');
+  configureLog({ level: config.log.level, file: logFile });
+  say(`Log          ${logFile} (JSON lines, ${config.log.level} and above)`);
+
   const archive = await startStorageBackend(config);
   stops.push({ what: 'the archive', stop: () => archive.stop() });
   say(`Archive      ${archive.description}`);
@@ -77,7 +83,7 @@ async function main(): Promise<void> {
   const { report } = api;
   say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
   if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
-  const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, ...archive.workerEnvironment }, say, api.recordWorkerEnd);
+  const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, BELLKEEP_LOG_FILE: logFile, ...archive.workerEnvironment }, say, api.recordWorkerEnd);
   stops.push({ what: 'the worker', stop: () => worker.stop() });
   await building;
 

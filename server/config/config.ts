@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import { LOG_LEVELS, type LogOptions } from '../system/log';
 
 /** Root of the repository: every default path is relative to it. */
 export const PROJECT_ROOT = path.resolve(__dirname, '..', '..');
@@ -41,6 +42,10 @@ const environmentSchema = z.object({
   BELLKEEP_LOGIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
   /** SMTP URL of the mail transport; when unset, `npm start` runs the local mail catcher. */
   BELLKEEP_SMTP_URL: z.string().optional(),
+  /** How much the structured log says (pino's levels). */
+  BELLKEEP_LOG_LEVEL: z.enum(LOG_LEVELS).default('info'),
+  /** A file the structured log appends to; standard output when unset (`npm start` sets its own under the data folder). */
+  BELLKEEP_LOG_FILE: z.string().optional(),
   /** Bearer token a Prometheus scraper sends for `GET /metrics` (admins may read it signed in). */
   BELLKEEP_METRICS_TOKEN: z.string().min(32, 'must be at least 32 characters').optional(),
   /** Sender of Bellkeep's e-mails. */
@@ -119,6 +124,8 @@ export interface Config {
   bcryptRounds: number;
   loginRateLimit: { limit: number; accountLimit: number; windowSeconds: number };
   smtpUrl?: string;
+  /** The structured log: its level, and a file to append to instead of standard output. */
+  log: LogOptions;
   /** Bearer token of the Prometheus scraper for `GET /metrics`. */
   metricsToken?: string;
   mailFrom: string;
@@ -165,6 +172,7 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
     bcryptRounds: env.BELLKEEP_BCRYPT_ROUNDS,
     loginRateLimit: { limit: env.BELLKEEP_LOGIN_LIMIT, accountLimit: env.BELLKEEP_LOGIN_ACCOUNT_LIMIT, windowSeconds: env.BELLKEEP_LOGIN_WINDOW_SECONDS },
     smtpUrl: env.BELLKEEP_SMTP_URL,
+    log: { level: env.BELLKEEP_LOG_LEVEL, file: env.BELLKEEP_LOG_FILE },
     metricsToken: env.BELLKEEP_METRICS_TOKEN,
     mailFrom: env.BELLKEEP_MAIL_FROM,
     mailCatcher: { smtpPort: env.BELLKEEP_MAILCATCHER_SMTP_PORT, webPort: env.BELLKEEP_MAILCATCHER_WEB_PORT },

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ApiErrorBody } from '../../shared/api';
 import { faultLines, isDatabaseUnreachable, oneLine } from '../system/fault-lines';
+import { log } from '../system/log';
 import { HttpError } from './http-error';
 
 /** Unknown API routes answer in the same JSON shape as every other error. */
@@ -30,6 +31,7 @@ function reportFault(error: unknown, route: string): void {
   // The database away, or a server error the code words itself (a full archive disk: 507): known conditions, not bugs.
   if (isDatabaseUnreachable(error) || error instanceof HttpError || !(error instanceof Error)) apiFaults(error);
   else console.error(`API: ${route}: ${error.stack ?? oneLine(error)}`);
+  log.error({ route, error: oneLine(error), stack: error instanceof Error ? error.stack : undefined }, 'server error');
 }
 
 function toHttpError(error: unknown): HttpError {

@@ -1,5 +1,7 @@
 import { ROLE_LABELS, type BookingDto, type UserDto } from '../../shared/api';
 import type { Mailer, OutgoingMail } from './mailer';
+import { faultLines, oneLine } from '../system/fault-lines';
+import { log } from '../system/log';
 
 /** The mails the API sends itself (the verdict mail is the worker's). */
 export interface AppMail {
@@ -17,10 +19,14 @@ export interface AppMail {
  */
 export function createAppMail(mailer: Mailer, publicUrl: string): AppMail {
   const pending = new Set<Promise<unknown>>();
+  const mailFaults = faultLines('Mail');
   const send = (mail: OutgoingMail) => {
     const delivery = mailer
       .send(mail)
-      .catch((error: unknown) => console.error(`Mail “${mail.subject}” to ${mail.to} failed:`, error))
+      .catch((error: unknown) => {
+        mailFaults(error);
+        log.warn({ subject: mail.subject, error: oneLine(error) }, 'mail failed');
+      })
       .finally(() => pending.delete(delivery));
     pending.add(delivery);
   };

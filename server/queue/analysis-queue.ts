@@ -1,19 +1,25 @@
 import PgBoss from 'pg-boss';
 import type { Sequelize, Transaction } from 'sequelize';
 import { faultLines } from '../system/fault-lines';
+import { currentRequestId } from '../system/log';
 
-/** Queue of analyses: one job per run, payload `{ runId }`. */
+/** Queue of analyses: one job per run, payload `{ runId, requestId }`. */
 export const ANALYSIS_QUEUE = 'run-analysis';
-/** Queue of verdict mails: one job per finished run, payload `{ runId }`. */
+/** Queue of verdict mails: one job per finished run, payload `{ runId, requestId }`. */
 export const VERDICT_MAIL_QUEUE = 'verdict-mail';
-/** Queue of re-verifications: one job per request, payload `{ reverificationId }`. */
+/** Queue of re-verifications: one job per request, payload `{ reverificationId, requestId }`. */
 export const REVERIFICATION_QUEUE = 'run-reverification';
 
-export interface RunJob {
+/** Every job carries the id of the request it serves, so its logs can be followed from the request. */
+interface TracedJob {
+  requestId?: string;
+}
+
+export interface RunJob extends TracedJob {
   runId: number;
 }
 
-export interface ReverificationJob {
+export interface ReverificationJob extends TracedJob {
   reverificationId: number;
 }
 
@@ -72,13 +78,13 @@ export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequeli
   return {
     boss,
     async enqueueAnalysis(runId, transaction) {
-      await boss.send(ANALYSIS_QUEUE, { runId } satisfies RunJob, { db: inTransaction(transaction) });
+      await boss.send(ANALYSIS_QUEUE, { runId, requestId: currentRequestId() } satisfies RunJob, { db: inTransaction(transaction) });
     },
     async enqueueVerdictMail(runId, transaction) {
-      await boss.send(VERDICT_MAIL_QUEUE, { runId } satisfies RunJob, { db: inTransaction(transaction) });
+      await boss.send(VERDICT_MAIL_QUEUE, { runId, requestId: currentRequestId() } satisfies RunJob, { db: inTransaction(transaction) });
     },
     async enqueueReverification(reverificationId, transaction) {
-      await boss.send(REVERIFICATION_QUEUE, { reverificationId } satisfies ReverificationJob, { db: inTransaction(transaction) });
+      await boss.send(REVERIFICATION_QUEUE, { reverificationId, requestId: currentRequestId() } satisfies ReverificationJob, { db: inTransaction(transaction) });
     },
     stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }),
   };

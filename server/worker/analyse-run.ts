@@ -9,6 +9,7 @@ import { signStatement } from '../integrity/signed-statement';
 import type { SigningKey } from '../integrity/signing-key';
 import type { AnalysisQueue } from '../queue/analysis-queue';
 import type { LogStore } from '../storage/log-store';
+import { log } from '../system/log';
 import { analyseArchivedRun } from './analyse-archived-run';
 
 /** Progress is written to the run when it has moved by this much (a fraction of the whole). */
@@ -37,7 +38,8 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
   if (!run || FINISHED_STATES.includes(run.state)) return;
 
   const worker = `${os.hostname()}:${process.pid}`;
-  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt: new Date(), heartbeatAt: new Date(), error: null }, { where: { id: runId } });
+  const startedAt = new Date();
+  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt, heartbeatAt: startedAt, error: null }, { where: { id: runId } });
   await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1, worker } });
 
   let written = 0;
@@ -87,6 +89,8 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
     );
     await queue.enqueueVerdictMail(runId, transaction);
   });
+  const seconds = (signedAt.getTime() - startedAt.getTime()) / 1000;
+  log.info({ runId, verdict: result.verdict, bytes: result.input.bytes, seconds, bytesPerSecond: Math.round(result.input.bytes / seconds) }, 'analysis finished');
 }
 
 async function finishAsFailed(runId: number, error: unknown, { models, audit, sequelize }: AnalyseRunDeps): Promise<void> {

@@ -1,4 +1,5 @@
 import { loadConfig } from '../config/config';
+import { configureLog } from '../system/log';
 import { openDatabase } from '../database/sequelize';
 import { createMailer } from '../mail/mailer';
 import { startAnalysisQueue } from '../queue/analysis-queue';
@@ -16,6 +17,7 @@ import { endOnUnhandledFaults } from '../system/fault-lines';
 async function main(): Promise<void> {
   endOnUnhandledFaults(`Worker ${process.pid}`);
   const config = loadConfig();
+  configureLog(config.log);
   if (!config.databaseUrl) throw new Error('Set BELLKEEP_DATABASE_URL: a worker shares the database of the API.');
   if (!config.smtpUrl) throw new Error('Set BELLKEEP_SMTP_URL: a worker mails the verdicts.');
   const database = openDatabase(config.databaseUrl);

@@ -3,6 +3,7 @@ import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import type { Mailer } from '../mail/mailer';
 import { composeVerdictMail } from '../mail/verdict-mail';
+import { log } from '../system/log';
 import type { RunsService } from '../runs/runs.service';
 import type { SetupsService } from '../setups/setups.service';
 
@@ -39,10 +40,12 @@ export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Pro
       const messageId = await mailer.send({ ...composeVerdictMail(run, publicUrl, recipients), messageId: `<run-${runId}-verdict@bellkeep>` });
       await models.MailDelivery.create({ runId, recipients, status: 'sent', messageId, error: null }, { transaction });
       await audit.record({ actorId: null, action: 'run.mail-sent', targetType: 'run', targetId: runId, details: { recipients, messageId } }, transaction);
+      log.info({ runId, recipients: recipients.length, messageId }, 'verdict mail sent');
       return null;
     } catch (error) {
       const message = error instanceof Error ? error.message : String(error);
       await models.MailDelivery.create({ runId, recipients, status: 'failed', messageId: null, error: message }, { transaction });
+      log.warn({ runId, recipients: recipients.length, error: message }, 'verdict mail failed; the queue tries again');
       return error;
     }
   });
