@@ -56,7 +56,7 @@ function builtAt() {
 
 /**
  * Compiles into a folder of its own and moves it into place, so a command starting meanwhile never
- * sees half a build. Returns false when esbuild is not installed.
+ * sees half a build. Returns false when esbuild is not installed or the build fails.
  */
 function build() {
   let esbuild;
@@ -69,7 +69,14 @@ function build() {
   const started = new Date();
   fs.rmSync(staging, { recursive: true, force: true });
   const entryPoints = Object.fromEntries(Object.entries(ENTRIES).map(([file, name]) => [name, path.join(ROOT, file)]));
-  esbuild.buildSync({ entryPoints, outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
+  try {
+    esbuild.buildSync({ entryPoints, outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
+  } catch (error) {
+    // A failed build never stops an install or a command: the TypeScript still runs through tsx.
+    fs.rmSync(staging, { recursive: true, force: true });
+    process.stderr.write(`run-compiled: the build failed (${error.message.split('\n')[0]}); running through tsx\n`);
+    return false;
+  }
   // Dated when the build began, so a source saved during the build is newer than it.
   fs.writeFileSync(path.join(staging, '.built'), '');
   fs.utimesSync(path.join(staging, '.built'), started, started);
@@ -116,7 +123,7 @@ function ensureBuilt() {
 const [target, ...rest] = process.argv.slice(2);
 if (target === '--build') {
   fs.mkdirSync(path.dirname(OUT), { recursive: true });
-  if (!withBuildLock(build)) process.stderr.write('run-compiled: esbuild is not installed; the commands will run through tsx\n');
+  if (!withBuildLock(build)) process.stderr.write('run-compiled: no build; the commands will run through tsx\n');
 } else if (!(target in ENTRIES)) {
   process.stderr.write(`usage: node server/cli/run-compiled.js <command.ts> [arguments...] | --build\ncommands: ${Object.keys(ENTRIES).join(', ')}\n`);
   process.exitCode = 2;
