@@ -12,7 +12,8 @@ import { configureLog } from './system/log';
  * and stops on SIGINT or SIGTERM.
  */
 async function main(): Promise<void> {
-  const config = loadConfig();
+  // A production API seeds no demo lab unless BELLKEEP_DEMO=true asks (npm start's default is the demo).
+  const config = loadConfig({ BELLKEEP_DEMO: 'false', ...process.env });
   configureLog(config.log);
   if (!config.databaseUrl) throw new Error('Set BELLKEEP_DATABASE_URL: the API alone runs no database of its own.');
   if (!config.smtpUrl) throw new Error('Set BELLKEEP_SMTP_URL: the API mails welcome letters and runs no mail catcher of its own.');
