@@ -32,18 +32,25 @@ export class DamagedGzipError extends Error {}
  */
 export async function decodeLog(raw: AsyncIterable<Uint8Array>, onRaw: (chunk: Uint8Array) => void): Promise<DecodedLog> {
   const iterator = raw[Symbol.asyncIterator]();
-  let first = await iterator.next();
-  while (!first.done && first.value.length === 0) {
-    first = await iterator.next();
+  // The magic bytes may come in pieces of one byte: the head is joined until it holds them.
+  let head = new Uint8Array(0);
+  let ended = false;
+  while (head.length < GZIP_MAGIC.length && !ended) {
+    const next = await iterator.next();
+    ended = next.done === true;
+    if (!ended && next.value.length > 0) {
+      head = head.length === 0 ? next.value : Buffer.concat([head, next.value]);
+    }
   }
-  const head = first.done ? new Uint8Array(0) : first.value;
   const gzip = GZIP_MAGIC.every((byte, i) => head[i] === byte);
   async function* rawChunks(): AsyncGenerator<Uint8Array> {
-    if (first.done) {
+    if (head.length > 0) {
+      onRaw(head);
+      yield head;
+    }
+    if (ended) {
       return;
     }
-    onRaw(head);
-    yield head;
     for (let next = await iterator.next(); !next.done; next = await iterator.next()) {
       onRaw(next.value);
       yield next.value;
