@@ -18,6 +18,8 @@ const PUBLIC_ROUTES: Record<string, string> = {
 /** Middleware (by mount path and function name) that answers nothing of its own but a refusal or a public file. */
 const PASS_THROUGH: Record<string, string> = {
   '/ helmetMiddleware': 'sets security headers on every answer, then passes the request on',
+  '/ result': 'pino-http: gives the request its id and logs it once answered, then passes the request on',
+  '/ inContext': 'runs the rest of the request in its request id’s context, then passes the request on',
   '/api jsonParser': 'parses a JSON body, then passes the request on',
   '/api refuseNulCharacters': 'refuses a NUL character in the query or a JSON body (400), or passes the request on',
   '/api apiNotFound': 'the 404 of an API path that no route has',
