@@ -28,7 +28,9 @@ export async function startBellkeepProcess(
   profileFolder: string | undefined,
 ): Promise<BellkeepProcess> {
   const profiling = profileFolder === undefined ? [] : ['--cpu-prof', `--cpu-prof-dir=${profileFolder}`];
-  const child = spawn(process.execPath, [...profiling, '--import', 'tsx', path.join(PROJECT_ROOT, entry)], {
+  // The worker runs compiled, as `npm start` runs it; the API loads its TypeScript migrations through tsx.
+  const launch = entry === 'server/worker/main.ts' ? [path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), entry] : ['--import', 'tsx', path.join(PROJECT_ROOT, entry)];
+  const child = spawn(process.execPath, [...profiling, ...launch], {
     cwd: PROJECT_ROOT,
     env: { ...process.env, ...environment },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -1,7 +1,7 @@
 // Runs a command as compiled JavaScript, so it starts without a TypeScript loader:
 //   node server/cli/run-compiled.js <command file.ts> [arguments...]
 //   node server/cli/run-compiled.js --build          (the postinstall step: compile only)
-// Each command, and the engine's range worker, is bundled by esbuild (its packages included: one
+// Each command, the analysis worker process and the engine's range worker are bundled by esbuild (its packages included: one
 // file loads faster than a hundred) into dist/server/<name>.js, all in one folder, so a bundle
 // finds the range worker's bundle beside itself as the TypeScript finds range-worker.ts. The
 // bundles are made again whenever a source or the lock file is newer than the last build. Without
@@ -25,6 +25,15 @@ const ENTRIES = {
   'bench/measure-gunzip.ts': 'measure-gunzip',
   'bench/keylength.ts': 'bench-keylength',
 };
+/**
+ * Long-running processes, bundled from our own sources only: their packages (Sequelize, pg-boss,
+ * nodemailer...) load from node_modules as usual, since some of them require modules by computed
+ * names a bundle cannot see.
+ */
+const PROCESS_ENTRIES = {
+  'server/worker/main.ts': 'worker',
+};
+const ALL_ENTRIES = { ...ENTRIES, ...PROCESS_ENTRIES };
 const OUT = path.join(ROOT, 'dist', 'server');
 /** Written last by a build, with the time the build began. */
 const STAMP = path.join(OUT, '.built');
@@ -68,9 +77,11 @@ function build() {
   const staging = `${OUT}.${process.pid}`;
   const started = new Date();
   fs.rmSync(staging, { recursive: true, force: true });
-  const entryPoints = Object.fromEntries(Object.entries(ENTRIES).map(([file, name]) => [name, path.join(ROOT, file)]));
+  const entryPoints = (entries) => Object.fromEntries(Object.entries(entries).map(([file, name]) => [name, path.join(ROOT, file)]));
+  const common = { outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' };
   try {
-    esbuild.buildSync({ entryPoints, outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' });
+    esbuild.buildSync({ ...common, entryPoints: entryPoints(ENTRIES) });
+    esbuild.buildSync({ ...common, entryPoints: entryPoints(PROCESS_ENTRIES), packages: 'external' });
   } catch (error) {
     // A failed build never stops an install or a command: the TypeScript still runs through tsx.
     fs.rmSync(staging, { recursive: true, force: true });
@@ -124,8 +135,8 @@ const [target, ...rest] = process.argv.slice(2);
 if (target === '--build') {
   fs.mkdirSync(path.dirname(OUT), { recursive: true });
   if (!withBuildLock(build)) process.stderr.write('run-compiled: no build; the commands will run through tsx\n');
-} else if (!(target in ENTRIES)) {
-  process.stderr.write(`usage: node server/cli/run-compiled.js <command.ts> [arguments...] | --build\ncommands: ${Object.keys(ENTRIES).join(', ')}\n`);
+} else if (!(target in ALL_ENTRIES)) {
+  process.stderr.write(`usage: node server/cli/run-compiled.js <command.ts> [arguments...] | --build\ncommands: ${Object.keys(ALL_ENTRIES).join(', ')}\n`);
   process.exitCode = 2;
 } else {
   const source = path.resolve(ROOT, target);
@@ -133,5 +144,5 @@ if (target === '--build') {
   // The command reads its arguments from process.argv.slice(2), as when started directly.
   process.argv = [process.argv[0], source, ...rest];
   if (!compiled) require('tsx/cjs');
-  require(compiled ? path.join(OUT, `${ENTRIES[target]}.js`) : source);
+  require(compiled ? path.join(OUT, `${ALL_ENTRIES[target]}.js`) : source);
 }

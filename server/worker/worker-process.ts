@@ -7,12 +7,13 @@ export const TAKING_JOBS = 'is taking analysis jobs';
 
 /**
  * An analysis worker as a process of its own (what `npm start` runs beside the API, and what a
- * test spawns): an analysis keeps both cores busy and must not slow the API down. Node runs the
- * TypeScript through tsx's loader in the same process, so the child's pid is the worker's own.
+ * test spawns): an analysis keeps both cores busy and must not slow the API down. It runs the
+ * worker's compiled bundle (server/cli/run-compiled.js builds it when a source is newer) in the
+ * same process, so the child's pid is the worker's own.
  * `environment` adds to this process's environment. Its output goes on to this process's.
  */
 export function spawnWorkerProcess(environment: Record<string, string>): ChildProcess {
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'server', 'worker', 'main.ts')], {
+  const child = spawn(process.execPath, [path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), 'server/worker/main.ts'], {
     cwd: PROJECT_ROOT,
     env: { ...process.env, ...environment },
     stdio: ['ignore', 'pipe', 'inherit'],
