@@ -75,8 +75,8 @@ const environmentSchema = z.object({
   BELLKEEP_ANALYSIS_EXPIRE_SECONDS: z.coerce.number().int().min(1).default(3600),
   /** Seconds between the queue's looks for expired jobs. */
   BELLKEEP_QUEUE_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).default(30),
-  /** Seconds between a worker's looks for new jobs. */
-  BELLKEEP_QUEUE_POLLING_SECONDS: z.coerce.number().min(0.5).default(1),
+  /** Seconds between a worker's looks for new jobs: half of it, on average, between an upload and its analysis (0.5 is pg-boss's least). */
+  BELLKEEP_QUEUE_POLLING_SECONDS: z.coerce.number().min(0.5).default(0.5),
   /** Seconds between retries of a verdict mail the mail server refused. */
   BELLKEEP_MAIL_RETRY_SECONDS: z.coerce.number().int().min(1).default(30),
   /** Whether to load the demo lab (people, later setups and runs) on start. */
