@@ -33,7 +33,7 @@ module.exports = {
     {
       displayName: 'server',
       testEnvironment: 'node',
-      roots: existing('server', 'tests/api'),
+      roots: existing('server', 'local-stack', 'tests/api'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
       globalSetup: '<rootDir>/tests/support/database-setup.ts',

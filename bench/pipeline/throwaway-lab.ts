@@ -4,10 +4,10 @@ import os from 'node:os';
 import path from 'node:path';
 import { loadConfig } from '../../server/config/config';
 import { bootstrapDatabase } from '../../server/database/bootstrap';
-import { startPostgresCluster } from '../../server/database/postgres-cluster';
+import { startPostgresCluster } from '../../local-stack/postgres-cluster';
 import { openDatabase } from '../../server/database/sequelize';
-import { startMailCatcher } from '../../server/mail/mail-catcher';
-import { FAKE_S3_CREDENTIALS, startS3Fake } from '../../server/storage/s3-fake';
+import { startMailCatcher } from '../../local-stack/mail-catcher';
+import { FAKE_S3_CREDENTIALS, startS3Fake } from '../../local-stack/s3-fake';
 import { freePort } from '../../tests/support/free-port';
 import type { StorageMode } from './options';
 

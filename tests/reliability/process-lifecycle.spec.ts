@@ -25,7 +25,7 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
     const started = await startBellkeep(dataFolder());
     await started.waitFor('Bellkeep is running');
 
-    const second = spawnSync(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'server', 'start.ts')], {
+    const second = spawnSync(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'local-stack', 'start.ts')], {
       cwd: PROJECT_ROOT,
       encoding: 'utf8',
       env: { ...process.env, BELLKEEP_DATA_DIR: started.dataDir, BELLKEEP_PORT: String(started.ports[0]), BELLKEEP_PG_PORT: String(started.ports[1]) },

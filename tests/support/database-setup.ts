@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import PgBoss from 'pg-boss';
 import { migrate } from '../../server/database/migrate';
-import { startPostgresCluster, type RunningCluster } from '../../server/database/postgres-cluster';
+import { startPostgresCluster, type RunningCluster } from '../../local-stack/postgres-cluster';
 import { openDatabase } from '../../server/database/sequelize';
 import { freePort } from './free-port';
 

@@ -22,7 +22,7 @@ export async function startBellkeep(dataDir: string, extra: Record<string, strin
   const appDir = path.join(dataDir, 'app');
   fs.mkdirSync(appDir, { recursive: true });
   fs.writeFileSync(path.join(appDir, 'index.html'), '<!doctype html><title>Bellkeep</title>');
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'server', 'start.ts')], {
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(PROJECT_ROOT, 'local-stack', 'start.ts')], {
     cwd: PROJECT_ROOT,
     detached: true,
     stdio: ['ignore', 'pipe', 'pipe'],

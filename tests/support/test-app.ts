@@ -7,12 +7,12 @@ import type { LoginResponse } from '../../shared/api';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config/config';
 import { seedDemo } from '../../server/database/migrate';
-import { startMailCatcher, type MailCatcher } from '../../server/mail/mail-catcher';
+import { startMailCatcher, type MailCatcher } from '../../local-stack/mail-catcher';
 import { createMailer, type Mailer } from '../../server/mail/mailer';
 import { createAppMail, type AppMail } from '../../server/mail/app-mail';
 import { startAnalysisQueue, type AnalysisQueue } from '../../server/queue/analysis-queue';
 import { createServices, type Services } from '../../server/services';
-import { startStorageBackend, type StorageBackend } from '../../server/storage/storage-backend';
+import { startStorageBackend, type StorageBackend } from '../../local-stack/storage-backend';
 import { startWorker, type RunningWorker } from '../../server/worker/worker';
 import { freePort } from './free-port';
 

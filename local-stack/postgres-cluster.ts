@@ -3,7 +3,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { Client } from 'pg';
-import { installDebianPackage } from '../system/debian-package';
+import { installDebianPackage } from './debian-package';
 
 /** Where Debian's postgresql packages put the server binaries (not on PATH). */
 const DEBIAN_POSTGRES_ROOT = '/usr/lib/postgresql';

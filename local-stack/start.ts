@@ -1,15 +1,15 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { startApiServer } from './api-server';
-import { loadConfig } from './config/config';
-import { startPostgresCluster } from './database/postgres-cluster';
-import { startMailCatcher } from './mail/mail-catcher';
-import { startStorageBackend } from './storage/storage-backend';
-import { appBuildIsStale, buildApp, startDevServer } from './system/angular-build';
-import { configureLog } from './system/log';
-import { portAnswers } from './system/port-answers';
-import { withProgress } from './system/progress-lines';
-import { superviseWorker } from './worker/worker-supervisor';
+import { startApiServer } from '../server/api-server';
+import { loadConfig } from '../server/config/config';
+import { startPostgresCluster } from './postgres-cluster';
+import { startMailCatcher } from './mail-catcher';
+import { startStorageBackend } from './storage-backend';
+import { appBuildIsStale, buildApp, startDevServer } from '../server/system/angular-build';
+import { configureLog } from '../server/system/log';
+import { portAnswers } from '../server/system/port-answers';
+import { withProgress } from '../server/system/progress-lines';
+import { superviseWorker } from '../server/worker/worker-supervisor';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
 
 /**
