@@ -44,6 +44,11 @@ export class LineCounter {
     }
   }
 
+  /** The complete lines so far (a line still without its line break left out). */
+  peek(): LineCount {
+    return { lines: this.lines, records: this.records };
+  }
+
   /** The totals, counting a last line that lacks a line break. */
   finish(): LineCount {
     if (this.pending > 0) {
