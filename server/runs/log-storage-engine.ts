@@ -1,13 +1,20 @@
-import { PassThrough, type Readable } from 'node:stream';
+import { PassThrough, pipeline, type Readable } from 'node:stream';
+import type { LogCensus } from '../../shared/analysis/log/log-census';
 import type { Request } from 'express';
 import type multer from 'multer';
 import { HttpError, isDiskFull } from '../http/http-error';
 import type { LogStore, ReceivedLog } from '../storage/log-store';
 import { faultLines } from '../system/fault-lines';
+import { CensusTap } from './census-tap';
 
-/** What the engine adds to multer's file: the received log, hashed, not yet kept. */
+/** An uploaded log, received and hashed, not yet kept, with the census taken on the way (null when none could be). */
+export interface ReceivedRunLog extends ReceivedLog {
+  census: LogCensus | null;
+}
+
+/** What the engine adds to multer's file: the received log. */
 export interface ReceivedUpload extends Express.Multer.File {
-  received: ReceivedLog;
+  received: ReceivedRunLog;
 }
 
 /** The log store failed to take an upload's bytes: the server's fault (disk, bucket), never the form's. */
@@ -36,16 +43,20 @@ export function diskFullAnswer(error: unknown, bytes: BytesOnFullDisk): unknown 
 }
 
 /**
- * Receives an upload's log into the store, for multipart and resumable uploads alike. A full disk
- * while receiving or keeping it becomes a 507 saying the log was not kept (the store leaves
- * nothing of a failed receive behind, and a log not kept is dropped by its caller).
+ * Receives an upload's log into the store, for multipart and resumable uploads alike, taking its
+ * census on the way (CensusTap). A full disk while receiving or keeping it becomes a 507 saying the
+ * log was not kept (the store leaves nothing of a failed receive behind, and a log not kept is
+ * dropped by its caller).
  */
-export async function receiveUpload(store: LogStore, source: Readable): Promise<ReceivedLog> {
+export async function receiveUpload(store: LogStore, source: Readable): Promise<ReceivedRunLog> {
   const notKept = (error: unknown): never => {
     throw diskFullAnswer(error, 'dropped');
   };
-  const received = await store.receive(source).catch(notKept);
-  return { ...received, keep: () => received.keep().catch(notKept) };
+  const tap = new CensusTap();
+  // A source that fails destroys the tap with its error, so the store's own pipeline fails too.
+  pipeline(source, tap, () => undefined);
+  const received = await store.receive(tap).catch(notKept);
+  return { ...received, census: tap.census, keep: () => received.keep().catch(notKept) };
 }
 
 /**

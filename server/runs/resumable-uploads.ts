@@ -10,9 +10,9 @@ import type { Sequelize } from 'sequelize';
 import { RESUMABLE_UPLOAD_PATH, type ApiErrorBody } from '../../shared/api';
 import { HttpError } from '../http/http-error';
 import { validationError } from '../http/validate-body';
-import type { LogStore, ReceivedLog } from '../storage/log-store';
+import type { LogStore } from '../storage/log-store';
 import { uploaderKey } from '../upload-tokens/uploader';
-import { diskFullAnswer, receiveUpload } from './log-storage-engine';
+import { diskFullAnswer, receiveUpload, type ReceivedRunLog } from './log-storage-engine';
 import type { RunsService } from './runs.service';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
 import { runOfUploadKey } from './upload-keys';
@@ -95,7 +95,7 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
     },
     async onUploadFinish(request, response, upload) {
       const who = uploaderOf(request);
-      let received: ReceivedLog | undefined;
+      let received: ReceivedRunLog | undefined;
       try {
         received = await receiveUpload(logStore, fs.createReadStream(path.join(directory, upload.id)));
         const run = await runs.create({ ...fieldsOf(upload), originalName: upload.metadata?.filename ?? '', log: received }, who);

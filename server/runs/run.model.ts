@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
 import type { RunState, Verdict } from '../../shared/api';
+import type { LogCensus } from '../../shared/analysis/log/log-census';
 
 export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAttributes<RunRecord>> {
   declare id: CreationOptional<number>;
@@ -42,6 +43,8 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
 export class ArchiveFileRecord extends Model<InferAttributes<ArchiveFileRecord>, InferCreationAttributes<ArchiveFileRecord>> {
   declare sha256: string;
   declare bytes: number;
+  /** Taken while the upload streamed in, so the analysis needs no counting pass; null for files archived without one. */
+  declare census: CreationOptional<LogCensus | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -112,6 +115,7 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
     {
       sha256: { type: DataTypes.CHAR(64), primaryKey: true },
       bytes: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue('bytes')); } },
+      census: { type: DataTypes.JSONB },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
     },
     { sequelize, tableName: 'archive_files', modelName: 'ArchiveFile', updatedAt: false },

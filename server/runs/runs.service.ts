@@ -10,7 +10,8 @@ import type { AnalysisQueue } from '../queue/analysis-queue';
 import type { ProfileVersionRecord } from '../profiles/profile.model';
 import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';
-import type { LogStore, ReceivedLog } from '../storage/log-store';
+import type { LogStore } from '../storage/log-store';
+import type { ReceivedRunLog } from './log-storage-engine';
 import { storedSignature } from '../integrity/stored-signature';
 import { uploaderInTrail, type Uploader } from '../upload-tokens/uploader';
 import type { RunRecord } from './run.model';
@@ -28,8 +29,8 @@ export interface NewRun {
   /** Required when the booking has a log already: why this one replaces it. */
   replacementReason?: string;
   originalName: string;
-  /** The uploaded bytes, received and hashed; kept under their SHA-256 here once the run is valid. */
-  log: ReceivedLog;
+  /** The uploaded bytes, received and hashed, with their census; kept under their SHA-256 here once the run is valid. */
+  log: ReceivedRunLog;
 }
 
 export interface RunFilter {
@@ -221,12 +222,13 @@ export function createRunsService(deps: {
 
     async create(newRun, uploader) {
       const setup = await uploadSetup(newRun, uploader);
-      const { sha256, bytes } = newRun.log;
+      const { sha256, bytes, census } = newRun.log;
       const { isNew: fileWasNew } = await newRun.log.keep();
       try {
         const id = await sequelize.transaction(async (transaction) => {
           const { booking, profileVersion } = await bookingAndProfile(newRun, setup, transaction);
-          await models.ArchiveFile.findOrCreate({ where: { sha256 }, defaults: { sha256, bytes }, transaction });
+          const [file] = await models.ArchiveFile.findOrCreate({ where: { sha256 }, defaults: { sha256, bytes, census }, transaction });
+          if (file.census === null && census !== null) await file.update({ census }, { transaction });
           const earlier = await models.Run.findOne({ where: { fileSha256: sha256 }, order: [['id', 'ASC']], transaction });
           const place = booking ? await bookedPlace(booking, newRun, earlier, transaction) : unbookedPlace(newRun, earlier);
           const trail = uploaderInTrail(uploader);

@@ -43,11 +43,14 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
   await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1, worker } });
 
   let written = 0;
+  let counted = false;
   let pendingWrite: Promise<unknown> = Promise.resolve();
   const onProgress = ({ phase, bytesRead, totalBytes }: AnalysisProgress) => {
     if (!totalBytes) return;
-    // Two passes over the file: the count fills the first half of the bar, the analysis the second.
-    const progress = Math.min(1, (phase === 'counting' ? 0 : 0.5) + (0.5 * bytesRead) / totalBytes);
+    // With a counting pass the count fills the first half of the bar and the analysis the second;
+    // with the upload's census the analysis alone fills it.
+    counted ||= phase === 'counting';
+    const progress = counted ? Math.min(1, (phase === 'counting' ? 0 : 0.5) + (0.5 * bytesRead) / totalBytes) : Math.min(1, bytesRead / totalBytes);
     if (progress - written < PROGRESS_STEP) return;
     written = progress;
     // Progress is a courtesy: a write lost while the database restarts must not end the analysis.

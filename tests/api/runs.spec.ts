@@ -43,6 +43,9 @@ describe('the runs pipeline through the API', () => {
     const direct = await analyseLog({ path: fixtureLog('accepted-run.csv') }, { profile: (await testApp.services.profiles.findVersion(run.profileVersionId)).parameters, seed: queued.seed });
     expect(run.result).toEqual(JSON.parse(JSON.stringify(direct)));
     const result = run.result as unknown as AnalysisResult;
+    // The upload took the log's census on the way (the header is a record of its text too).
+    const archived = await testApp.database.models.ArchiveFile.findByPk(queued.file.sha256);
+    expect(archived!.census).toMatchObject({ decodedBytes: fs.statSync(fixtureLog('accepted-run.csv')).size, records: result.input.rounds + 1, marks: [] });
 
     const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ACCEPT · Fen link · run ${run.id} · unbooked`);
     expect(mail.to.map((to) => to.address).sort()).toEqual(['ada.reyes@kestrelfen.example', 'lucia.brandt@kestrelfen.example', 'night-desk@kestrelfen.example']);

@@ -47,6 +47,11 @@ export class ByteScanner {
     this.line = firstLine;
   }
 
+  /** The number the next line will have: lines read so far = nextLine − the first line's number. */
+  get nextLine(): number {
+    return this.line;
+  }
+
   /** Reads the complete lines of `chunk` (after any line carried from the previous chunk). */
   push(chunk: Uint8Array): void {
     let from = 0;

@@ -34,7 +34,12 @@ export class LogCensusTaker {
   private readonly marks: CensusMark[] = [];
   private bytes = 0;
   /** Offset from which the next mark's line start is sought. */
-  private nextMark = CENSUS_MARK_BYTES;
+  private nextMark: number;
+
+  /** `markBytes`: text between marks (tests take small logs with many marks). */
+  constructor(private readonly markBytes = CENSUS_MARK_BYTES) {
+    this.nextMark = markBytes;
+  }
 
   push(chunk: Uint8Array): void {
     let from = 0;
@@ -47,7 +52,7 @@ export class LogCensusTaker {
       from = newline + 1;
       const { lines, records } = this.counter.peek();
       this.marks.push({ offset: this.bytes + from, linesBefore: lines, recordsBefore: records });
-      this.nextMark = this.bytes + from + CENSUS_MARK_BYTES;
+      this.nextMark = this.bytes + from + this.markBytes;
     }
     this.counter.push(from === 0 ? chunk : chunk.subarray(from));
     this.bytes += chunk.length;

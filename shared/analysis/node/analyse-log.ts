@@ -7,6 +7,7 @@ import { ProgressListener } from './analysis-progress';
 import { resolveRequest } from './analysis-request';
 import { sealResult } from './fingerprint';
 import { LogSource, sourceBytes } from './log-source';
+import { StoredCensus } from './census-ranges';
 import { readByRanges, threadsFor } from './ranged-reading';
 import { ReadOutcome } from './read-outcome';
 import { readWithCsvParse } from './reference-reading';
@@ -28,6 +29,13 @@ export interface AnalyseOptions {
   onProgress?: ProgressListener;
   /** Cancels the analysis; the promise then rejects with `AnalysisCancelledError`. */
   signal?: AbortSignal;
+  /**
+   * The census taken when the log was uploaded (plain files of two threads or more): the analysis
+   * is then one pass. It is checked against the bytes; one that does not fit is told to
+   * `onCensusMismatch` and the log is read again with a counting pass (same result either way).
+   */
+  census?: StoredCensus;
+  onCensusMismatch?: (reason: string) => void;
 }
 
 const GZIP_MAGIC = [0x1f, 0x8b];
@@ -47,7 +55,8 @@ export async function analyseLog(source: LogSource, options: AnalyseOptions = {}
     }
     const head = 'path' in source && totalBytes !== null ? await readHead(source.path) : null;
     if (head !== null && totalBytes !== null && 'path' in source && !GZIP_MAGIC.every((byte, i) => head[i] === byte)) {
-      return readByRanges(source.path, totalBytes, head, request, threadsFor(totalBytes, options.threads), options.onProgress, options.signal);
+      const census = options.census && { stored: options.census, onMismatch: options.onCensusMismatch ?? (() => undefined) };
+      return readByRanges(source.path, totalBytes, head, request, threadsFor(totalBytes, options.threads), options.onProgress, options.signal, census);
     }
     return readAsStream(source, totalBytes, request, options.onProgress, cancelled);
   });

@@ -3,4 +3,5 @@ export type { AnalyseOptions } from './analyse-log';
 export { AnalysisCancelledError, AnalysisRequestError } from './analysis-errors';
 export type { AnalysisProgress, ProgressListener } from './analysis-progress';
 export type { LogSource } from './log-source';
+export type { StoredCensus } from './census-ranges';
 export { resultFingerprint } from './fingerprint';

@@ -19,12 +19,17 @@ export interface RangeTask {
   seed: string | null;
 }
 
+/** What reading a byte range gives: its summary, and the lines it held (blank ones too). */
+export interface RangeReading extends RangeSummary {
+  lines: number;
+}
+
 /**
  * Runs a task on its byte range, reading the file in chunks into the byte scanner; `onBytes` hears
  * of each chunk read and `cancelled` is asked between chunks. The same function runs in a worker
  * thread or in the caller's; each counts the fixed-fraction test rounds before its own range.
  */
-export async function runRangeTask(task: RangeTask, onBytes: (bytes: number) => void, cancelled: () => boolean): Promise<RangeSummary> {
+export async function runRangeTask(task: RangeTask, onBytes: (bytes: number) => void, cancelled: () => boolean): Promise<RangeReading> {
   const keystream = task.seed === null ? null : aesKeystream(task.seed);
   const plan = withTestsBefore(task.plan, keystream);
   const analysis = new RangeAnalysis(plan, keystream);
@@ -45,5 +50,5 @@ export async function runRangeTask(task: RangeTask, onBytes: (bytes: number) => 
     await file.close();
   }
   scanner.finish();
-  return analysis.summary();
+  return { ...analysis.summary(), lines: scanner.nextLine - plan.firstLine };
 }

@@ -1,16 +1,15 @@
 import { parentPort } from 'node:worker_threads';
 import { LineCount } from '../log/line-counter';
-import { RangeSummary } from '../log/range-analysis';
 import { hashAndCount } from './counting-pass';
-import { ByteRange, RangeTask, runRangeTask } from './range-task';
+import { ByteRange, RangeReading, RangeTask, runRangeTask } from './range-task';
 
-/** What a range worker is asked to do: count the lines of ranges (the counting pass) or analyse one. */
-export type WorkerJob = { kind: 'count'; path: string; size: number; ranges: ByteRange[] } | { kind: 'analyse'; task: RangeTask };
+/** What a range worker is asked to do: count the lines of ranges (the counting pass), hash a whole file, or analyse a range. */
+export type WorkerJob = { kind: 'count'; path: string; size: number; ranges: ByteRange[] } | { kind: 'hash'; path: string; size: number } | { kind: 'analyse'; task: RangeTask };
 
 /** Messages from a range worker to its pool. */
 export type WorkerReply =
   | { type: 'progress'; bytes: number }
-  | { type: 'done'; result: RangeSummary | LineCount[] }
+  | { type: 'done'; result: RangeReading | LineCount[] | string }
   | { type: 'failed'; message: string };
 
 /** Progress is reported after this many bytes, to keep messages few. */
@@ -29,7 +28,11 @@ parentPort?.on('message', async (job: WorkerJob) => {
   };
   try {
     const result =
-      job.kind === 'count' ? (await hashAndCount(job.path, job.size, job.ranges, false, () => undefined, () => false)).counts : await runRangeTask(job.task, onBytes, () => false);
+      job.kind === 'count'
+        ? (await hashAndCount(job.path, job.size, job.ranges, false, () => undefined, () => false)).counts
+        : job.kind === 'hash'
+          ? (await hashAndCount(job.path, job.size, [], true, () => undefined, () => false)).sha256
+          : await runRangeTask(job.task, onBytes, () => false);
     port.postMessage({ type: 'progress', bytes: unreported } satisfies WorkerReply);
     port.postMessage({ type: 'done', result } satisfies WorkerReply);
   } catch (error) {

@@ -3,8 +3,11 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { gzipSync } from 'node:zlib';
+import { createHash } from 'node:crypto';
+import { LogCensusTaker } from '../log/log-census';
 import { AnalysisResult } from '../result';
 import { analyseLog } from './analyse-log';
+import { StoredCensus } from './census-ranges';
 
 /**
  * One field value: mostly valid, sometimes quoted, sometimes broken in one of the ways logs break.
@@ -89,6 +92,13 @@ function chunked(bytes: Buffer, size: number) {
   };
 }
 
+/** The census an upload would store for these bytes, with a mark every `markBytes` or so. */
+function censusOf(bytes: Buffer, markBytes: number): StoredCensus {
+  const taker = new LogCensusTaker(markBytes);
+  for (let at = 0; at < bytes.length; at += 1000) taker.push(bytes.subarray(at, at + 1000));
+  return { sha256: createHash('sha256').update(bytes).digest('hex'), census: taker.finish() };
+}
+
 /** A result without what describes the file as stored (a gzip file differs there, and so in its fingerprint). */
 function analysisOf(result: AnalysisResult) {
   const { input, fingerprint: _fingerprint, ...analysis } = result;
@@ -136,5 +146,32 @@ describe('the fast reader agrees with csv-parse', () => {
 
   it('gives the same result when two worker threads read the halves of a log', async () => {
     await fc.assert(fc.asyncProperty(randomLog(1, 600), agree(2, false)), { numRuns: 6 });
+  });
+
+  it('gives the same result in one pass with the census taken at upload, and the same again when a census does not fit the bytes', async () => {
+    await fc.assert(
+      fc.asyncProperty(randomLog(1, 600), fc.integer({ min: 64, max: 4096 }), fc.integer({ min: 2, max: 3 }), async (generated, markBytes, threads) => {
+        const bytes = render(generated);
+        const file = path.join(scratch, `log-${n++}.csv`);
+        writeFileSync(file, bytes);
+        const options = { seed: generated.seed, profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 }, threads };
+        const reference = await analyseLog({ path: file }, { ...options, reader: 'reference' });
+        const census = censusOf(bytes, markBytes);
+        const misfits: string[] = [];
+        const onCensusMismatch = (reason: string) => misfits.push(reason);
+        expect(await analyseLog({ path: file }, { ...options, census, onCensusMismatch })).toEqual(reference);
+        expect(misfits).toEqual([]);
+        // A census one record off, or taken of other bytes: told, and the log counted again. (A log
+        // without rounds, or whose span is refused, is refused before its ranges are read, which
+        // proves nothing of its census.)
+        const refusedUnread = reference.input.rounds === 0 || reference.errors.some((problem) => problem.message.includes('trigger counter'));
+        for (const lying of [{ ...census, census: { ...census.census, records: census.census.records + 1 } }, { ...census, sha256: '0'.repeat(64) }]) {
+          misfits.length = 0;
+          expect(await analyseLog({ path: file }, { ...options, census: lying, onCensusMismatch })).toEqual(reference);
+          if (!refusedUnread) expect(misfits).toHaveLength(1);
+        }
+      }),
+      { numRuns: 12 },
+    );
   });
 });

@@ -2,8 +2,7 @@ import * as path from 'node:path';
 import type { Worker } from 'node:worker_threads';
 import { AnalysisCancelledError } from './analysis-errors';
 import { LineCount } from '../log/line-counter';
-import { RangeSummary } from '../log/range-analysis';
-import { ByteRange, RangeTask } from './range-task';
+import { ByteRange, RangeReading, RangeTask } from './range-task';
 import { WorkerJob, WorkerReply } from './range-worker';
 import { startTypeScriptWorker } from './typescript-worker';
 
@@ -32,8 +31,13 @@ export class WorkerPool {
   }
 
   /** Runs one task per worker (task i on worker i; no more tasks than workers) ; one promise per task, in task order. */
-  runAll(tasks: readonly RangeTask[], onBytes: (bytes: number) => void): Promise<RangeSummary>[] {
-    return tasks.map((task, i) => this.run<RangeSummary>(this.workers[i], { kind: 'analyse', task }, onBytes));
+  runAll(tasks: readonly RangeTask[], onBytes: (bytes: number) => void): Promise<RangeReading>[] {
+    return tasks.map((task, i) => this.run<RangeReading>(this.workers[i], { kind: 'analyse', task }, onBytes));
+  }
+
+  /** The SHA-256 (FIPS 180-4) of a whole file, taken by the last thread while the others analyse. */
+  hash(path: string, size: number): Promise<string> {
+    return this.run<string>(this.workers[this.workers.length - 1], { kind: 'hash', path, size }, () => undefined);
   }
 
   /** The lines and records of each range of a plain file, counted by the first thread. */
@@ -46,7 +50,7 @@ export class WorkerPool {
     await Promise.all(this.workers.map((worker) => worker.terminate()));
   }
 
-  private run<Result extends RangeSummary | LineCount[]>(worker: Worker, job: WorkerJob, onBytes: (bytes: number) => void): Promise<Result> {
+  private run<Result extends RangeReading | LineCount[] | string>(worker: Worker, job: WorkerJob, onBytes: (bytes: number) => void): Promise<Result> {
     return new Promise((resolve, reject) => {
       const settle = () => {
         worker.off('message', onMessage);
