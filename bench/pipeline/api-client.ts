@@ -15,8 +15,6 @@ export interface VerdictWatch {
   run: RunDto;
   /** Progress above 0: the engine reads the file (with S3, after the working copy is down). */
   readingAt: number | null;
-  /** Progress at or past 1/2: the counting pass is done, the analysis pass runs. */
-  countedAt: number | null;
   finishedAt: number;
 }
 
@@ -39,13 +37,11 @@ export async function signIn(apiUrl: string, credentials: LoginRequest): Promise
     async waitForVerdict(id, timeoutMs) {
       const deadline = performance.now() + timeoutMs;
       let readingAt: number | null = null;
-      let countedAt: number | null = null;
       for (;;) {
         const found = await run(id);
         const seenAt = performance.now();
-        if (FINISHED_STATES.includes(found.state)) return { run: found, readingAt, countedAt, finishedAt: seenAt };
+        if (FINISHED_STATES.includes(found.state)) return { run: found, readingAt, finishedAt: seenAt };
         if (found.progress > 0) readingAt ??= seenAt;
-        if (found.progress >= 0.5) countedAt ??= seenAt;
         if (seenAt > deadline) throw new Error(`Run ${id} is still ${found.state} (progress ${found.progress}) after ${timeoutMs / 1000} s.`);
         await new Promise((resolve) => setTimeout(resolve, POLL_INTERVAL_MS));
       }

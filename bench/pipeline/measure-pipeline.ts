@@ -24,10 +24,11 @@ export interface PipelineMeasurement {
   analysisSeconds: number;
   /**
    * The same span in stages as the polls saw them (each to within a 200 ms poll and a 3 % progress
-   * step): the 201 to the first byte read (queue, and with S3 the working copy), the counting
-   * pass, the analysis pass. Null when a stage passed between two polls.
+   * step): the 201 to the first byte read (queue, and with S3 the working copy), then the engine's
+   * reading to the stored verdict (one pass with the upload's census, else a counting pass and an
+   * analysis pass). Null when a stage passed between two polls.
    */
-  stages: { toReadingSeconds: number | null; countingSeconds: number | null; analysingSeconds: number | null };
+  stages: { toReadingSeconds: number | null; readingSeconds: number | null };
   apiPeakMB: number;
   workerPeakMB: number;
   /** The same high-water marks when both had started, before the upload: what the runtime and modules take. */
@@ -71,7 +72,7 @@ export async function measurePipeline(
     const setupId = await client.setupId(DEMO_SETUPS[0].name);
     const upload = await uploadStreamedLog(apiUrl, client.token, { setupId: String(setupId) }, chunks);
     say(`[${storage}] run ${upload.run.id} created after ${seconds(upload.startedAt, upload.answeredAt).toFixed(1)} s; waiting for its verdict`);
-    const { run, readingAt, countedAt, finishedAt } = await client.waitForVerdict(upload.run.id, VERDICT_TIMEOUT_MS);
+    const { run, readingAt, finishedAt } = await client.waitForVerdict(upload.run.id, VERDICT_TIMEOUT_MS);
 
     return {
       storage,
@@ -83,8 +84,7 @@ export async function measurePipeline(
       analysisSeconds: seconds(Date.parse(run.startedAt!), Date.parse(run.finishedAt!)),
       stages: {
         toReadingSeconds: readingAt === null ? null : seconds(upload.answeredAt, readingAt),
-        countingSeconds: readingAt === null || countedAt === null ? null : seconds(readingAt, countedAt),
-        analysingSeconds: countedAt === null ? null : seconds(countedAt, finishedAt),
+        readingSeconds: readingAt === null ? null : seconds(readingAt, finishedAt),
       },
       apiPeakMB: api.peakMemoryMB(),
       workerPeakMB: worker.peakMemoryMB(),
