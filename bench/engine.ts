@@ -1,15 +1,17 @@
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, statSync } from 'node:fs';
+import { mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { parseArgs } from 'node:util';
-import { gzipBenchLog, writeBenchLog } from './bench-log';
+import { censusOfBenchLog, gzipBenchLog, writeBenchLog } from './bench-log';
 
 // `npm run bench [-- --rounds 1e7,1e8 --repeat 5 --references-up-to 1e7]`: for each size, a plain
 // and a gzip log of the Kestrel Fen model, generated into a temporary folder and deleted after.
 // On each: the engine (complete analysis, compiled, a fresh process per run), a numpy loadtxt +
 // bincount script and a python3 csv script, in this process tree one after the other, and for
-// gzip the decompression alone. Medians of the runs; peak memory the largest; ratios to the engine.
+// gzip the decompression alone; for plain logs the engine again with the census an upload stores
+// (one pass, as the worker reads an archived log). Medians of the runs; peak memory the largest;
+// ratios to the engine.
 
 interface Measurement {
   seconds: number;
@@ -74,6 +76,15 @@ async function main(): Promise<void> {
         if (engine.rounds !== rounds) throw new Error(`the engine read ${engine.rounds} rounds of ${rounds}`);
         process.stdout.write(`${row('engine', engine, rounds, '')}\n`);
         const result: Record<string, unknown> = { rounds, file: path.basename(file), bytes: statSync(file).size, engine };
+        let withCensus: Measurement | null = null;
+        if (!compressed) {
+          const censusFile = `${file}.census.json`;
+          writeFileSync(censusFile, JSON.stringify(await censusOfBenchLog(file)));
+          withCensus = measure(withArgs(nodeScript('measure-engine'), file, 'census', censusFile));
+          process.stdout.write(`${row("engine, upload's census", withCensus, rounds, `${(engine.seconds / withCensus.seconds).toFixed(2)}x faster than without`)}\n`);
+          result['engineWithCensus'] = withCensus;
+          rmSync(censusFile);
+        }
         if (compressed) {
           const gunzip = measure(withArgs(nodeScript('measure-gunzip'), file));
           process.stdout.write(`${row('decompression alone', gunzip, rounds, `engine ${(engine.seconds / gunzip.seconds).toFixed(2)}x its time`)}\n`);
@@ -84,7 +95,8 @@ async function main(): Promise<void> {
         } else {
           for (const [name, script] of [['numpy loadtxt', 'numpy_loadtxt.py'], ['python3 csv', 'count_rounds.py']] as const) {
             const reference = measure(['python3', [path.join(ROOT, 'bench', script), file]]);
-            process.stdout.write(`${row(name, reference, rounds, `engine ${(reference.seconds / engine.seconds).toFixed(1)}x faster`)}\n`);
+            const censusRatio = withCensus === null ? '' : `, with the census ${(reference.seconds / withCensus.seconds).toFixed(1)}x`;
+            process.stdout.write(`${row(name, reference, rounds, `engine ${(reference.seconds / engine.seconds).toFixed(1)}x faster${censusRatio}`)}\n`);
             result[name] = reference;
           }
         }
