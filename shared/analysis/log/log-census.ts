@@ -1,4 +1,5 @@
 import { LineCounter } from './line-counter';
+import { LastLineKeeper } from './record-edges';
 
 /** Decoded bytes between two marks of a census, about: a mark is the first line start after each multiple. */
 export const CENSUS_MARK_BYTES = 16 * 1024 * 1024;
@@ -20,9 +21,22 @@ export interface LogCensus {
   records: number;
   /** About every CENSUS_MARK_BYTES of text: a line start, with the lines and records before it. */
   marks: CensusMark[];
+  /**
+   * The last non-blank line (base64 of its bytes, without its line break; null when none, or longer
+   * than LONGEST_CENSUS_LINE): a gzip log's last round index, which one pass needs before it reads a round.
+   */
+  lastLine: string | null;
 }
 
+/** Longest last line a census keeps; a round record is a few dozen bytes. */
+export const LONGEST_CENSUS_LINE = 4096;
+
 const LF = 10;
+
+/** The bytes of a census's last line, or null when it kept none. */
+export function censusLastLine(census: LogCensus): Uint8Array | null {
+  return census.lastLine === null ? null : Uint8Array.from(atob(census.lastLine), (character) => character.charCodeAt(0));
+}
 
 /**
  * Builds a census from the decoded bytes, chunk by chunk, with the line counter's rules (so its
@@ -31,6 +45,7 @@ const LF = 10;
  */
 export class LogCensusTaker {
   private readonly counter = new LineCounter();
+  private readonly lastLine = new LastLineKeeper();
   private readonly marks: CensusMark[] = [];
   private bytes = 0;
   /** Offset from which the next mark's line start is sought. */
@@ -55,12 +70,15 @@ export class LogCensusTaker {
       this.nextMark = this.bytes + from + this.markBytes;
     }
     this.counter.push(from === 0 ? chunk : chunk.subarray(from));
+    this.lastLine.push(chunk);
     this.bytes += chunk.length;
   }
 
   /** The census of everything pushed. */
   finish(): LogCensus {
     const { lines, records } = this.counter.finish();
-    return { decodedBytes: this.bytes, lines, records, marks: this.marks.filter((mark) => mark.offset < this.bytes) };
+    const last = this.lastLine.finish();
+    const lastLine = last === null || last.length > LONGEST_CENSUS_LINE ? null : btoa(String.fromCharCode(...last));
+    return { decodedBytes: this.bytes, lines, records, marks: this.marks.filter((mark) => mark.offset < this.bytes), lastLine };
   }
 }

@@ -30,8 +30,8 @@ export interface AnalyseOptions {
   /** Cancels the analysis; the promise then rejects with `AnalysisCancelledError`. */
   signal?: AbortSignal;
   /**
-   * The census taken when the log was uploaded (plain files of two threads or more): the analysis
-   * is then one pass. It is checked against the bytes; one that does not fit is told to
+   * The census taken when the log was uploaded: the analysis is then one pass (plain files read by
+   * two threads or more, gzip files and streams). It is checked against the bytes; one that does not fit is told to
    * `onCensusMismatch` and the log is read again with a counting pass (same result either way).
    */
   census?: StoredCensus;
@@ -54,11 +54,11 @@ export async function analyseLog(source: LogSource, options: AnalyseOptions = {}
       return readWithCsvParse(source, request);
     }
     const head = 'path' in source && totalBytes !== null ? await readHead(source.path) : null;
+    const census = options.census && { stored: options.census, onMismatch: options.onCensusMismatch ?? (() => undefined) };
     if (head !== null && totalBytes !== null && 'path' in source && !GZIP_MAGIC.every((byte, i) => head[i] === byte)) {
-      const census = options.census && { stored: options.census, onMismatch: options.onCensusMismatch ?? (() => undefined) };
       return readByRanges(source.path, totalBytes, head, request, threadsFor(totalBytes, options.threads), options.onProgress, options.signal, census);
     }
-    return readAsStream(source, totalBytes, request, options.onProgress, cancelled);
+    return readAsStream(source, totalBytes, request, options.onProgress, cancelled, census);
   });
   if (cancelled()) {
     throw new AnalysisCancelledError();

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { ByteScanner } from '../log/byte-scanner';
 import { HEAD_BYTES, LogHead, readLogHead } from '../log/log-head';
 import { LineCounter } from '../log/line-counter';
+import { censusLastLine } from '../log/log-census';
 import { RangeAnalysis } from '../log/range-analysis';
 import { planRanges, spanProblem, triggerSpan } from '../log/range-plans';
 import { firstRecordLine, LastLineKeeper, roundOfLine } from '../log/record-edges';
@@ -11,13 +12,24 @@ import { progressCounter, ProgressListener } from './analysis-progress';
 import { DamagedGzipError, decodeLog } from './decoded-log';
 import { LogSource, openSource } from './log-source';
 import { NO_ROUNDS, ReadOutcome } from './read-outcome';
+import type { CensusUse } from './ranged-reading';
 
 /**
  * Reads a log as a stream, in order, in the caller's thread: gzip files (which cannot be split)
- * and streams. The counting pass hashes the raw bytes, keeps the head and counts the lines; the
- * analysis pass decodes again and scans everything after the header.
+ * and streams. With a census taken at upload, one pass (see `readOnceWithCensus`); otherwise, or
+ * when the census does not fit, two: the counting pass hashes the raw bytes, keeps the head and
+ * counts the lines; the analysis pass decodes again and scans everything after the header.
  */
-export async function readAsStream(source: LogSource, totalBytes: number | null, request: AnalysisRequest, listener: ProgressListener | undefined, cancelled: () => boolean): Promise<ReadOutcome> {
+export async function readAsStream(
+  source: LogSource,
+  totalBytes: number | null,
+  request: AnalysisRequest,
+  listener: ProgressListener | undefined,
+  cancelled: () => boolean,
+  census?: CensusUse,
+): Promise<ReadOutcome> {
+  const once = census ? await readOnceWithCensus(source, totalBytes, request, listener, cancelled, census) : null;
+  if (once !== null) return once;
   const hash = createHash('sha256');
   let bytes = 0;
   const countProgress = progressCounter('counting', totalBytes, listener);
@@ -89,4 +101,99 @@ export async function readAsStream(source: LogSource, totalBytes: number | null,
   }
   scanner.finish();
   return { kind: 'read', input, summary: analysis.summary() };
+}
+
+/**
+ * One pass with the census: the raw bytes are hashed and decoded once (gzip decompression in
+ * libuv's threads beside the scanner), the counts and the last round index taken from the census
+ * so the selection and the blocks can start at the first round. Afterwards the census is checked
+ * against what was read (the hash, the decoded bytes, lines, records and the last line); null
+ * when it does not fit (told to `onMismatch`) or the log is refused before its rounds (no census
+ * needed for that), so the caller reads the log with two passes.
+ */
+async function readOnceWithCensus(
+  source: LogSource,
+  totalBytes: number | null,
+  request: AnalysisRequest,
+  listener: ProgressListener | undefined,
+  cancelled: () => boolean,
+  { stored, onMismatch }: CensusUse,
+): Promise<ReadOutcome | null> {
+  const { census } = stored;
+  const rounds = census.records - 1;
+  const lastLine = censusLastLine(census);
+  if (rounds < 1 || lastLine === null) return null;
+  const hash = createHash('sha256');
+  let bytes = 0;
+  const progress = progressCounter('analysing', totalBytes, listener);
+  const decoded = await decodeLog(openSource(source), (chunk) => {
+    hash.update(chunk);
+    bytes += chunk.length;
+    progress(chunk.length);
+  });
+  const chunks = decoded.chunks[Symbol.asyncIterator]();
+  const early: Uint8Array[] = [];
+  let headLength = 0;
+  let ended = false;
+  try {
+    while (headLength < HEAD_BYTES && !ended) {
+      const next = await chunks.next();
+      ended = next.done === true;
+      if (!ended) {
+        early.push(next.value);
+        headLength += next.value.length;
+      }
+    }
+  } catch (error) {
+    if (error instanceof DamagedGzipError) return null;
+    throw error;
+  }
+  const head = Buffer.concat(early).subarray(0, HEAD_BYTES);
+  const logHead = readLogHead(head, ended && headLength < HEAD_BYTES, request.mapping, request.profile.testSelection.mode === 'from-log');
+  const edges = logHead.ok && { firstRound: roundOfLine(firstRecordLine(head.subarray(logHead.dataOffset)), logHead.layout), lastRound: roundOfLine(lastLine, logHead.layout), previousRounds: [NaN] };
+  if (!logHead.ok || !edges || spanProblem(triggerSpan(edges, rounds), rounds, logHead.layout) !== null) {
+    await chunks.return?.();
+    return null;
+  }
+  const [plan] = planRanges(logHead.layout, request.profile, [{ lines: census.lines - 1, records: rounds }], edges);
+  const analysis = new RangeAnalysis(plan, request.seed === null ? null : aesKeystream(request.seed));
+  const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine);
+  const keeper = new LastLineKeeper();
+  let decodedBytes = 0;
+  let skip = logHead.dataOffset;
+  const take = (chunk: Uint8Array) => {
+    decodedBytes += chunk.length;
+    keeper.push(chunk);
+    const data = skip > 0 ? chunk.subarray(Math.min(skip, chunk.length)) : chunk;
+    skip -= chunk.length - data.length;
+    if (data.length > 0) scanner.push(data);
+  };
+  try {
+    early.forEach(take);
+    for (let next = await chunks.next(); !next.done && !cancelled(); next = await chunks.next()) take(next.value);
+  } catch (error) {
+    if (error instanceof DamagedGzipError) return null;
+    throw error;
+  }
+  scanner.finish();
+  const summary = analysis.summary();
+  const sha256 = hash.digest('hex');
+  const input = { sha256, bytes, rounds, compression: decoded.gzip ? ('gzip' as const) : ('none' as const) };
+  if (cancelled()) return { kind: 'read', input, summary };
+  const read = { decodedBytes, lines: scanner.nextLine - plan.firstLine + 1, records: summary.records + 1, lastLine: keeper.finish() };
+  const misfit =
+    sha256 !== stored.sha256
+      ? `it was taken of bytes hashing to ${stored.sha256}, the log hashes to ${sha256}`
+      : read.decodedBytes !== census.decodedBytes || read.lines !== census.lines || read.records !== census.records
+        ? `the log holds ${read.decodedBytes} bytes of text, ${read.lines} lines and ${read.records} records, the census says ${census.decodedBytes}, ${census.lines} and ${census.records}`
+        : !sameBytes(read.lastLine, lastLine)
+          ? 'its last line is not the log\'s'
+          : null;
+  if (misfit === null) return { kind: 'read', input, summary };
+  onMismatch(misfit);
+  return null;
+}
+
+function sameBytes(a: Uint8Array | null, b: Uint8Array): boolean {
+  return a !== null && a.length === b.length && a.every((byte, i) => byte === b[i]);
 }
