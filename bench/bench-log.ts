@@ -1,11 +1,12 @@
-import { createHash } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
 import { once } from 'node:events';
+import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { createGzip } from 'node:zlib';
 import { FIXTURE_SEED, steadyPair } from '../fixtures/fixture-set';
-import { LogCensusTaker } from '../shared/analysis/log/log-census';
 import type { StoredCensus } from '../shared/analysis/node';
+import { CensusTap } from '../server/runs/census-tap';
+import { DigestStream } from '../server/storage/digest-stream';
 import { modelLogChunks } from './pipeline/model-log-chunks';
 
 /** Writes a plain log of `rounds` rounds of the Kestrel Fen model to `path`. */
@@ -21,15 +22,12 @@ export async function writeBenchLog(path: string, rounds: number): Promise<void>
 }
 
 /** Writes the gzip (default level, as `gzip` does) of the file at `plain` to `path`. */
-/** The census an upload of this plain log would store (see server/runs/census-tap.ts), with its SHA-256. */
+/** The census an upload of this log (plain or gzip) would store, taken the same way, with its SHA-256. */
 export async function censusOfBenchLog(path: string): Promise<StoredCensus> {
-  const taker = new LogCensusTaker();
-  const hash = createHash('sha256');
-  for await (const chunk of createReadStream(path, { highWaterMark: 1 << 20 }) as AsyncIterable<Buffer>) {
-    taker.push(chunk);
-    hash.update(chunk);
-  }
-  return { sha256: hash.digest('hex'), census: taker.finish() };
+  const tap = new CensusTap();
+  const digest = new DigestStream();
+  await pipeline(createReadStream(path, { highWaterMark: 1 << 20 }), tap, digest, new Writable({ write: (_chunk, _encoding, done) => done() }));
+  return { sha256: digest.sha256, census: tap.census! };
 }
 
 export async function gzipBenchLog(plain: string, path: string): Promise<void> {
