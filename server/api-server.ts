@@ -7,6 +7,7 @@ import { createMailer } from './mail/mailer';
 import { createAppMail } from './mail/app-mail';
 import { startAnalysisQueue } from './queue/analysis-queue';
 import { createServices } from './services';
+import { drain, type Lifecycle } from './http/drain';
 import { faultLines } from './system/fault-lines';
 
 /** Where the API finds the database and the mail server, both already running. */
@@ -22,7 +23,7 @@ export interface RunningApi {
   seedHistory(onProgress: (done: number, total: number) => void): Promise<string[]>;
   /** Records that the worker `pid` on this machine ended unasked (the admins see it); never throws. */
   recordWorkerEnd(pid: number, how: string): void;
-  /** Stops listening, then closes the queue, the mailer and the database. */
+  /** Stops listening and drains the requests in flight (BELLKEEP_DRAIN_SECONDS), then closes the queue, the mailer and the database. */
   stop(): Promise<void>;
 }
 
@@ -47,10 +48,11 @@ export async function startApiServer(config: Config, connections: ApiConnections
     const queue = await startAnalysisQueue(connections.databaseUrl, database.sequelize, config.queue);
     undo.push(() => queue.stop());
     const services = createServices(config, database, queue);
-    const app = createApp({ config, database, services, jwtSecret, appMail: createAppMail(mailer, config.publicUrl), queue });
+    const lifecycle: Lifecycle = { draining: false };
+    const app = createApp({ config, database, services, jwtSecret, appMail: createAppMail(mailer, config.publicUrl), queue, lifecycle });
     const server = app.listen(config.port, config.host);
     await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
-    undo.push(() => new Promise<void>((resolve) => server.close(() => resolve())));
+    undo.push(() => drain(server, lifecycle, config.drainSeconds));
     const recordingFailed = faultLines('Worker records');
     const recordWorkerEnd = (pid: number, how: string) => void services.workers.recordUnaskedEnd(pid, how).catch(recordingFailed);
     return { report, seedHistory: (onProgress) => seedHistory(database, config, onProgress), recordWorkerEnd, stop };

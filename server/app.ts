@@ -10,6 +10,7 @@ import { RESUMABLE_UPLOAD_PATH } from '../shared/api';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import type { Lifecycle } from './http/drain';
 import { healthRoutes } from './http/health.routes';
 import { requestLog } from './http/request-log';
 import { refuseNulCharacters } from './http/refuse-nul';
@@ -36,13 +37,15 @@ export interface AppDependencies {
   jwtSecret: string;
   appMail: AppMail;
   queue: AnalysisQueue;
+  /** Whether the API is stopping (readiness says so); tests leave it out. */
+  lifecycle?: Lifecycle;
 }
 
 /**
  * Builds the Express app: configuration, middleware, one router per resource, the built Angular
  * app, and the one error handler last. It does not listen: start.ts does, tests use supertest.
  */
-export function createApp({ config, database, services, jwtSecret, appMail, queue }: AppDependencies): Express {
+export function createApp({ config, database, services, jwtSecret, appMail, queue, lifecycle = { draining: false } }: AppDependencies): Express {
   const app = express();
   const guards = createGuards(jwtSecret, services.users);
 
@@ -54,7 +57,7 @@ export function createApp({ config, database, services, jwtSecret, appMail, queu
   app.use('/api', express.json({ limit: '100kb' }));
   app.use('/api', refuseNulCharacters);
 
-  app.use('/api', healthRoutes({ database, queue, logStore: services.logStore }));
+  app.use('/api', healthRoutes({ database, queue, logStore: services.logStore, lifecycle }));
   app.use('/api/auth', authRoutes(config, jwtSecret, services.users, guards));
   app.use('/api/users', usersRoutes(services.users, guards, appMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));

@@ -42,6 +42,8 @@ const environmentSchema = z.object({
   BELLKEEP_LOGIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
   /** SMTP URL of the mail transport; when unset, `npm start` runs the local mail catcher. */
   BELLKEEP_SMTP_URL: z.string().optional(),
+  /** Seconds a stopping API lets the requests in flight finish before it closes their connections. */
+  BELLKEEP_DRAIN_SECONDS: z.coerce.number().min(0).default(15),
   /** How much the structured log says (pino's levels). */
   BELLKEEP_LOG_LEVEL: z.enum(LOG_LEVELS).default('info'),
   /** A file the structured log appends to; standard output when unset (`npm start` sets its own under the data folder). */
@@ -126,6 +128,8 @@ export interface Config {
   smtpUrl?: string;
   /** The structured log: its level, and a file to append to instead of standard output. */
   log: LogOptions;
+  /** Seconds a stopping API waits for the requests in flight (see server/http/drain.ts). */
+  drainSeconds: number;
   /** Bearer token of the Prometheus scraper for `GET /metrics`. */
   metricsToken?: string;
   mailFrom: string;
@@ -173,6 +177,7 @@ export function loadConfig(environment: NodeJS.ProcessEnv = process.env): Config
     loginRateLimit: { limit: env.BELLKEEP_LOGIN_LIMIT, accountLimit: env.BELLKEEP_LOGIN_ACCOUNT_LIMIT, windowSeconds: env.BELLKEEP_LOGIN_WINDOW_SECONDS },
     smtpUrl: env.BELLKEEP_SMTP_URL,
     log: { level: env.BELLKEEP_LOG_LEVEL, file: env.BELLKEEP_LOG_FILE },
+    drainSeconds: env.BELLKEEP_DRAIN_SECONDS,
     metricsToken: env.BELLKEEP_METRICS_TOKEN,
     mailFrom: env.BELLKEEP_MAIL_FROM,
     mailCatcher: { smtpPort: env.BELLKEEP_MAILCATCHER_SMTP_PORT, webPort: env.BELLKEEP_MAILCATCHER_WEB_PORT },

@@ -4,6 +4,7 @@ import type { Database } from '../database/sequelize';
 import { ANALYSIS_QUEUE, type AnalysisQueue } from '../queue/analysis-queue';
 import type { LogStore } from '../storage/log-store';
 import { oneLine } from '../system/fault-lines';
+import type { Lifecycle } from './drain';
 
 /** A part that does not answer within this long is taken for down. */
 const PART_TIMEOUT_MS = 2_000;
@@ -25,10 +26,10 @@ async function withinTimeout(work: Promise<unknown>): Promise<void> {
 /**
  * `/api/health`: the process lives (for a supervisor that restarts it). `/api/ready`: the parts a
  * request needs answer (the database, the job queue, the archive), 200 or 503 naming the part
- * that does not (for a load balancer that sends no traffic meanwhile). Both public and say
+ * that does not (for a load balancer that sends no traffic meanwhile), and 503 while the API stops. Both public and say
  * nothing about the data; a part's error is worded in one line without addresses of its own.
  */
-export function healthRoutes(deps: { database: Database; queue: AnalysisQueue; logStore: LogStore }): Router {
+export function healthRoutes(deps: { database: Database; queue: AnalysisQueue; logStore: LogStore; lifecycle: Lifecycle }): Router {
   const router = Router();
   router.get('/health', (_request, response) => {
     response.json({ status: 'ok' });
@@ -49,6 +50,7 @@ export function healthRoutes(deps: { database: Database; queue: AnalysisQueue; l
         }
       }),
     );
+    if (deps.lifecycle.draining) checks.push({ part: 'process', ready: false, problem: 'stopping: finishing the requests in flight' });
     const ready = checks.every((check) => check.ready);
     const body: ReadinessDto = { status: ready ? 'ready' : 'not-ready', checks };
     response.status(ready ? 200 : 503).json(body);

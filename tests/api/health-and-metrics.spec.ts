@@ -1,5 +1,7 @@
 import fs from 'node:fs';
+import express from 'express';
 import request from 'supertest';
+import { healthRoutes } from '../../server/http/health.routes';
 import type { ReadinessDto, RunDto } from '../../shared/api';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
@@ -30,6 +32,14 @@ describe('health, readiness and metrics', () => {
       status: 'ready',
       checks: ['database', 'queue', 'archive'].map((part) => ({ part, ready: true, problem: null })),
     });
+  });
+
+  it('is not ready while it stops, so a load balancer sends no more', async () => {
+    const { database, queue, services } = testApp;
+    const stopping = express().use('/api', healthRoutes({ database, queue, logStore: services.logStore, lifecycle: { draining: true } }));
+    const ready = (await request(stopping).get('/api/ready').expect(503)).body as ReadinessDto;
+    expect(ready.checks.filter((check) => !check.ready)).toEqual([{ part: 'process', ready: false, problem: 'stopping: finishing the requests in flight' }]);
+    await request(stopping).get('/api/health').expect(200);
   });
 
   it('lets in a scraper with the token and a signed-in admin, and nobody else', async () => {
