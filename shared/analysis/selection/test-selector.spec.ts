@@ -64,4 +64,20 @@ describe('test selection', () => {
       { numRuns: 40 },
     );
   });
+
+  it('counts the tests before stretches as a trigger-by-trigger reader does, across the keystream fetches (8192 triggers each)', () => {
+    const rounds = 100_003;
+    const keystream = aesKeystream(seedOf(11));
+    const totalTests = fixedFractionTests(0.3, rounds);
+    const reader = createTestSelector({ mode: 'fixed-fraction', fraction: 0.3 }, keystream, { firstTrigger: 0, totalTriggers: rounds, totalTests, testsBefore: 0 });
+    const cuts = [0, 1, 8191, 8192, 8193, 16_385, 50_001, 99_999, rounds];
+    const expected: number[] = [];
+    let chosenSoFar = 0;
+    for (let trigger = 0; trigger <= rounds; trigger++) {
+      if (cuts.includes(trigger)) expected.push(chosenSoFar);
+      if (trigger < rounds) chosenSoFar += reader.next(NaN);
+    }
+    expect(testsBeforeTriggers(aesKeystream(seedOf(11)), rounds, totalTests, cuts)).toEqual(expected);
+    expect(expected[expected.length - 1]).toBe(totalTests);
+  });
 });
