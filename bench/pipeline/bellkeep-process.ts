@@ -28,9 +28,8 @@ export async function startBellkeepProcess(
   profileFolder: string | undefined,
 ): Promise<BellkeepProcess> {
   const profiling = profileFolder === undefined ? [] : ['--cpu-prof', `--cpu-prof-dir=${profileFolder}`];
-  // The worker runs compiled, as `npm start` runs it; the API loads its TypeScript migrations through tsx.
-  const launch = entry === 'server/worker/main.ts' ? [path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), entry] : ['--import', 'tsx', path.join(PROJECT_ROOT, entry)];
-  const child = spawn(process.execPath, [...profiling, ...launch], {
+  // Compiled, as `npm run api` and `npm run worker` run them.
+  const child = spawn(process.execPath, [...profiling, path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), entry], {
     cwd: PROJECT_ROOT,
     env: { ...process.env, ...environment },
     stdio: ['ignore', 'pipe', 'pipe'],

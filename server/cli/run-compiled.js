@@ -12,7 +12,7 @@ const fs = require('node:fs');
 const path = require('node:path');
 
 const ROOT = path.resolve(__dirname, '..', '..');
-const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures'];
+const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures', 'migrations', 'seeders'];
 /** The bundles: command file → bundle name. */
 const ENTRIES = {
   'server/cli/analyse.ts': 'analyse',
@@ -32,7 +32,21 @@ const ENTRIES = {
  */
 const PROCESS_ENTRIES = {
   'server/worker/main.ts': 'worker',
+  'server/api-main.ts': 'api',
+  'server/planner/general-plan-thread-entry.ts': 'general-plan-thread-entry',
 };
+
+/** The migrations and seeders the compiled API applies, as `<folder>/<name>.js` beside it (see server/database/migrate.ts). */
+function schemaEntries() {
+  const entries = {};
+  for (const folder of ['migrations', 'seeders', 'seeders/history']) {
+    const files = fs.existsSync(path.join(ROOT, folder)) ? fs.readdirSync(path.join(ROOT, folder)) : [];
+    for (const name of files.filter((file) => file.endsWith('.ts') && !file.endsWith('.spec.ts') && !file.endsWith('.d.ts'))) {
+      entries[`${folder}/${name.slice(0, -'.ts'.length)}`] = path.join(ROOT, folder, name);
+    }
+  }
+  return entries;
+}
 const ALL_ENTRIES = { ...ENTRIES, ...PROCESS_ENTRIES };
 const OUT = path.join(ROOT, 'dist', 'server');
 /** Written last by a build, with the time the build began. */
@@ -81,7 +95,7 @@ function build() {
   const common = { outdir: staging, bundle: true, format: 'cjs', platform: 'node', target: 'node20', logLevel: 'error' };
   try {
     esbuild.buildSync({ ...common, entryPoints: entryPoints(ENTRIES) });
-    esbuild.buildSync({ ...common, entryPoints: entryPoints(PROCESS_ENTRIES), packages: 'external' });
+    esbuild.buildSync({ ...common, entryPoints: { ...entryPoints(PROCESS_ENTRIES), ...schemaEntries() }, packages: 'external' });
   } catch (error) {
     // A failed build never stops an install or a command: the TypeScript still runs through tsx.
     fs.rmSync(staging, { recursive: true, force: true });

@@ -49,11 +49,19 @@ export async function seedDemoHistory(sequelize: Sequelize, extras: Required<Pic
   return applyFolder(sequelize, 'seeders/history', 'SequelizeDataHistory', extras);
 }
 
+/**
+ * Compiled (this file bundled into dist/server/), the folders' compiled copies beside it are
+ * applied; each keeps the name of its TypeScript file, so a database migrated either way is
+ * recorded the same.
+ */
+const COMPILED = __filename.endsWith('.js');
+
 async function applyFolder(sequelize: Sequelize, folder: string, storageTable: string, extras: SeederExtras = {}): Promise<string[]> {
   const umzug = new Umzug({
     migrations: {
-      glob: [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],
-      resolve: ({ name, path: file }) => {
+      glob: COMPILED ? [`${folder}/*.js`, { cwd: __dirname }] : [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],
+      resolve: ({ name: fileName, path: file }) => {
+        const name = fileName.replace(/\.js$/, '.ts');
         // eslint-disable-next-line @typescript-eslint/no-require-imports
         const migration = require(file!) as MigrationModule;
         const inTransaction = (step: (context: SeederContext) => Promise<void>) => () =>

@@ -4,7 +4,8 @@ import type { GeneralAttackPlanDto } from '../../shared/api';
 import { PlanInputError } from '../../shared/planner/plan-rounds';
 import type { ThreadReply, ThreadTask } from './general-plan-thread-entry';
 
-const ENTRY = path.join(__dirname, 'general-plan-thread-entry.ts');
+/** The thread's file: TypeScript beside this one, or JavaScript when this one is compiled (dist/server/). */
+const ENTRY = path.join(__dirname, `general-plan-thread-entry${path.extname(__filename)}`);
 
 /**
  * The general-attack plan in a worker thread of its own: dozens of key-length optimisations take
