@@ -5,6 +5,7 @@ import { provideRouter } from '@angular/router';
 
 import type { RunPageDto, RunSummaryDto } from '../../../shared/api';
 import { FinishedRuns } from './finished-runs';
+import { settle } from '../../testing/settle';
 
 const night: RunSummaryDto = {
   id: 12,
@@ -38,12 +39,6 @@ describe('FinishedRuns', () => {
   let fixture: ComponentFixture<FinishedRuns>;
   let host: HTMLElement;
 
-  async function settle(milliseconds = 0): Promise<void> {
-    fixture.detectChanges();
-    await jest.advanceTimersByTimeAsync(milliseconds);
-    fixture.detectChanges();
-  }
-
   const runRequests = (): TestRequest[] => http.match((request) => request.url === '/api/runs');
 
   async function type(field: string, value: string): Promise<void> {
@@ -51,7 +46,7 @@ describe('FinishedRuns', () => {
     input.value = value;
     input.dispatchEvent(new Event('input'));
     // Past the pause the list waits for while someone types.
-    await settle(400);
+    await settle(fixture, 400);
   }
 
   beforeEach(async () => {
@@ -60,7 +55,7 @@ describe('FinishedRuns', () => {
     http = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(FinishedRuns);
     host = fixture.nativeElement as HTMLElement;
-    await settle();
+    await settle(fixture);
     http.expectOne('/api/setups').flush([]);
     http.expectOne('/api/profiles').flush([]);
   });
@@ -75,7 +70,7 @@ describe('FinishedRuns', () => {
     expect(first.request.params.get('finished')).toBe('true');
     expect(first.request.params.get('page')).toBe('0');
     first.flush(pageOf([night]));
-    await settle();
+    await settle(fixture);
 
     const row = host.querySelector('[data-testid="audit-run-row-12"]')!;
     const hashes = Array.from(row.querySelectorAll('code'), (code) => ({ shown: code.textContent?.trim(), title: code.getAttribute('title') }));
@@ -89,14 +84,14 @@ describe('FinishedRuns', () => {
 
   it('says under each night how its run was booked: nothing for a first log, the attempt of a replacement, "unbooked"', async () => {
     runRequests()[0].flush(pageOf([night, { ...night, id: 13, attempt: 2 }, { ...night, id: 14, bookingId: null, attempt: null }]));
-    await settle();
+    await settle(fixture);
     const noteOf = (id: number) => host.querySelector(`[data-testid="booking-note-${id}"]`)?.textContent?.trim() ?? null;
     expect([noteOf(12), noteOf(13), noteOf(14)]).toEqual([null, 'attempt 2', 'unbooked']);
   });
 
   it('says what is wrong with a hash prefix and keeps the list until it is right', async () => {
     runRequests()[0].flush(pageOf([night]));
-    await settle();
+    await settle(fixture);
 
     await type('sha256', '9f3');
     expect(host.querySelector('mat-error')?.textContent?.trim()).toBe('Give at least 4 hexadecimal digits.');
@@ -112,7 +107,7 @@ describe('FinishedRuns', () => {
     expect(search.request.params.get('sha256')).toBe('9f3a');
     expect(search.request.params.get('finished')).toBe('true');
     search.flush(pageOf([night]));
-    await settle();
+    await settle(fixture);
     expect(host.querySelector('[data-testid="audit-run-row-12"]')).not.toBeNull();
   });
 });

@@ -1,12 +1,12 @@
 import { Component } from '@angular/core';
 import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter, Router } from '@angular/router';
 
 import type { Role } from '../../../shared/api';
 import { requireRoles, requireSignIn } from './role-guard';
-import { Session } from './session';
+import { signInAs } from '../../testing/sign-in-as';
 
 @Component({ template: '' })
 class Blank {}
@@ -14,16 +14,7 @@ class Blank {}
 describe('role guards', () => {
   let router: Router;
 
-  function signInAs(roles: Role[]): void {
-    TestBed.inject(Session).signIn({ email: 'cleo.vance@kestrelfen.example', password: 'x' }).subscribe();
-    TestBed.inject(HttpTestingController)
-      .expectOne('/api/auth/login')
-      .flush({
-        token: 'token-cleo',
-        expiresAt: '2027-01-01T00:00:00Z',
-        user: { id: 9, email: 'cleo.vance@kestrelfen.example', name: 'Cleo Vance', roles, active: true, createdAt: '2026-09-01T00:00:00Z' },
-      });
-  }
+  const signInAsCleo = (roles: Role[]) => signInAs(roles, { id: 9, name: 'Cleo Vance', email: 'cleo.vance@kestrelfen.example' });
 
   beforeEach(() => {
     localStorage.clear();
@@ -55,25 +46,25 @@ describe('role guards', () => {
   });
 
   it('lets a user with the role open the page', async () => {
-    signInAs(['admin']);
+    signInAsCleo(['admin']);
     await router.navigateByUrl('/users');
     expect(router.url).toBe('/users');
   });
 
   it('lets a user with any one of the allowed roles open the page', async () => {
-    signInAs(['experimentalist', 'auditor']);
+    signInAsCleo(['experimentalist', 'auditor']);
     await router.navigateByUrl('/trail');
     expect(router.url).toBe('/trail');
   });
 
   it('refuses a user without the role and names the roles that may open it', async () => {
-    signInAs(['experimentalist']);
+    signInAsCleo(['experimentalist']);
     await router.navigateByUrl('/trail');
     expect(router.url).toBe('/forbidden?page=%2Ftrail&roles=admin,auditor');
   });
 
   it('lets any signed-in user open pages without a role check', async () => {
-    signInAs(['shift-lead']);
+    signInAsCleo(['shift-lead']);
     await router.navigateByUrl('/');
     expect(router.url).toBe('/');
   });

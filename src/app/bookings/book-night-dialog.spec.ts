@@ -14,8 +14,8 @@ import { provideRouter } from '@angular/router';
 
 import type { BookingDto, ProfileDto, Role, SetupDto } from '../../../shared/api';
 import { formatCount } from '../../../shared/format/numbers';
-import { Session } from '../auth/session';
 import { BookNightDialog, type BookNightData } from './book-night-dialog';
+import { signInAs, SOMEONE } from '../../testing/sign-in-as';
 
 /** Somewhere for the dialog to open from. */
 @Component({ template: '' })
@@ -80,12 +80,7 @@ describe('BookNightDialog', () => {
   });
 
   async function openAs(id: number, roles: Role[], plannedRounds: number | null = 2_000_000): Promise<MatDialogHarness> {
-    TestBed.inject(Session).signIn({ email: 'someone@kestrelfen.example', password: 'fen-demo-2026' }).subscribe();
-    http.expectOne('/api/auth/login').flush({
-      token: 'token',
-      expiresAt: '2027-03-16T18:00:00Z',
-      user: { id, email: 'someone@kestrelfen.example', name: 'Someone', roles, active: true, createdAt: '2026-10-01T08:00:00Z' },
-    });
+    signInAs(roles, { ...SOMEONE, id });
     fixture = TestBed.createComponent(Host);
     loader = TestbedHarnessEnvironment.documentRootLoader(fixture);
     TestBed.inject(MatDialog).open<BookNightDialog, BookNightData>(BookNightDialog, { data: { setup, plannedRounds } });

@@ -1,12 +1,10 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
 import { ApplicationRef } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 
 import type { ProfileDto } from '../../../shared/api';
 import { parseProfile } from '../../../shared/analysis/profile';
+import { configureDialogTestBed } from '../../testing/dialog-test-bed';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 
 const nightly: ProfileDto = {
@@ -34,16 +32,7 @@ describe('ProfileDialog', () => {
   const close = jest.fn();
 
   function open(data: ProfileDialogData): HTMLElement {
-    TestBed.configureTestingModule({
-      providers: [
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-        { provide: MAT_DIALOG_DATA, useValue: data },
-        { provide: MatDialogRef, useValue: { close } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    http = configureDialogTestBed(data, close);
     const fixture = TestBed.createComponent(ProfileDialog);
     fixture.detectChanges();
     return fixture.nativeElement as HTMLElement;

@@ -5,8 +5,9 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter, Router } from '@angular/router';
 
 import type { Role, RunPageDto, RunSummaryDto } from '../../../shared/api';
-import { Session } from '../auth/session';
 import { RunList } from './run-list';
+import { signInAs } from '../../testing/sign-in-as';
+import { settle } from '../../testing/settle';
 
 const night: RunSummaryDto = {
   id: 31,
@@ -43,26 +44,15 @@ describe('RunList', () => {
   let fixture: ComponentFixture<RunList>;
   let host: HTMLElement;
 
-  async function settle(milliseconds = 0): Promise<void> {
-    fixture.detectChanges();
-    await jest.advanceTimersByTimeAsync(milliseconds);
-    fixture.detectChanges();
-  }
-
   const runRequests = (): TestRequest[] => http.match((request) => request.url === '/api/runs');
   const text = () => host.textContent!.replace(/\s+/g, ' ');
 
   /** Signs in with `roles` and opens the list; its setups (and for an admin, users) answered empty. */
   async function openAs(roles: Role[]): Promise<void> {
-    TestBed.inject(Session).signIn({ email: 'someone@kestrelfen.example', password: 'fen-demo-2026' }).subscribe();
-    http.expectOne('/api/auth/login').flush({
-      token: 'token',
-      expiresAt: '2027-03-16T18:00:00Z',
-      user: { id: 7, email: 'someone@kestrelfen.example', name: 'Someone', roles, active: true, createdAt: '2026-10-01T08:00:00Z' },
-    });
+    signInAs(roles);
     fixture = TestBed.createComponent(RunList);
     host = fixture.nativeElement as HTMLElement;
-    await settle();
+    await settle(fixture);
     http.expectOne('/api/setups').flush([]);
     if (roles.includes('admin')) http.expectOne('/api/users').flush([]);
   }
@@ -91,7 +81,7 @@ describe('RunList', () => {
     const [first] = runRequests();
     expect(['page', 'pageSize', 'sort', 'direction'].map((name) => first.request.params.get(name))).toEqual(['0', '25', 'createdAt', 'desc']);
     first.flush(pageOf([night]));
-    await settle();
+    await settle(fixture);
 
     const row = host.querySelector<HTMLElement>('[data-testid="run-row-31"]')!;
     expect(row.textContent).toContain('#31');
@@ -105,32 +95,32 @@ describe('RunList', () => {
   it('asks again from the first page with a filter, and says when no run matches, with a way back', async () => {
     await openAs(['experimentalist']);
     runRequests()[0].flush(pageOf([night], 60));
-    await settle();
+    await settle(fixture);
 
     const from = host.querySelector<HTMLInputElement>('input[formcontrolname="from"]')!;
     from.value = '2026-12-01';
     from.dispatchEvent(new Event('input'));
-    await settle();
+    await settle(fixture);
     const [filtered] = runRequests();
     expect(filtered.request.params.get('from')).toBe('2026-12-01');
     expect(filtered.request.params.get('page')).toBe('0');
     filtered.flush(pageOf([]));
-    await settle();
+    await settle(fixture);
     expect(host.querySelector('[data-testid="runs-empty"]')!.textContent).toContain('No run matches these filters.');
 
     Array.from(host.querySelectorAll<HTMLButtonElement>('[data-testid="runs-empty"] button')).find((button) => button.textContent!.includes('Clear filters'))!.click();
-    await settle();
+    await settle(fixture);
     const [cleared] = runRequests();
     expect(cleared.request.params.has('from')).toBe(false);
     cleared.flush(pageOf([night]));
-    await settle();
+    await settle(fixture);
     expect(host.querySelector('[data-testid="run-row-31"]')).not.toBeNull();
   });
 
   it('tells an experimentalist with no runs yet to upload the first night, and someone else who does', async () => {
     await openAs(['experimentalist']);
     runRequests()[0].flush(pageOf([]));
-    await settle();
+    await settle(fixture);
     expect(text()).toContain("Upload the first night's log to get a verdict.");
 
     TestBed.resetTestingModule();
@@ -138,20 +128,20 @@ describe('RunList', () => {
     http = TestBed.inject(HttpTestingController);
     await openAs(['auditor']);
     runRequests()[0].flush(pageOf([]));
-    await settle();
+    await settle(fixture);
     expect(text()).toContain('Experimentalists upload the nightly logs');
   });
 
   it('says when the runs cannot be loaded, and tries again on request', async () => {
     await openAs(['shift-lead']);
     runRequests()[0].flush({ error: { code: 'unavailable', message: 'The database does not answer.' } }, { status: 503, statusText: 'Service Unavailable' });
-    await settle();
+    await settle(fixture);
     expect(host.querySelector('[role="alert"]')!.textContent).toContain('The runs could not be loaded.');
 
     Array.from(host.querySelectorAll<HTMLButtonElement>('[role="alert"] button')).find((button) => button.textContent!.includes('Try again'))!.click();
-    await settle();
+    await settle(fixture);
     runRequests()[0].flush(pageOf([night]));
-    await settle();
+    await settle(fixture);
     expect(host.querySelector('[data-testid="run-row-31"]')).not.toBeNull();
   });
 });

@@ -3,8 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
 import type { ReverificationDto, Role } from '../../../shared/api';
-import { Session } from '../auth/session';
 import { RunReverifications } from './run-reverifications';
+import { signInAs } from '../../testing/sign-in-as';
 
 const LIST = '/api/runs/12/reverifications';
 
@@ -51,12 +51,7 @@ describe('RunReverifications', () => {
   }
 
   async function showAs(roles: Role[]): Promise<HTMLElement> {
-    TestBed.inject(Session).signIn({ email: 'sami.virtanen@kestrelfen.example', password: 'x' }).subscribe();
-    http.expectOne('/api/auth/login').flush({
-      token: 'token-sami',
-      expiresAt: '2027-03-02T18:00:00Z',
-      user: { id: 5, email: 'sami.virtanen@kestrelfen.example', name: 'Sami Virtanen', roles, active: true, createdAt: '2026-10-01T08:00:00Z' },
-    });
+    signInAs(roles, { id: 5, name: 'Sami Virtanen', email: 'sami.virtanen@kestrelfen.example' });
     fixture = TestBed.createComponent(RunReverifications);
     fixture.componentRef.setInput('runId', 12);
     await settle();

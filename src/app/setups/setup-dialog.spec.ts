@@ -1,12 +1,10 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { MatSelectHarness } from '@angular/material/select/testing';
 
 import type { ProfileDto, SetupDto, UserDto } from '../../../shared/api';
+import { configureDialogTestBed } from '../../testing/dialog-test-bed';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';
 
 const heronReach: SetupDto = {
@@ -40,16 +38,7 @@ describe('SetupDialog', () => {
 
   async function open(data: SetupDialogData): Promise<void> {
     close.mockReset();
-    TestBed.configureTestingModule({
-      providers: [
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-        { provide: MAT_DIALOG_DATA, useValue: data },
-        { provide: MatDialogRef, useValue: { close } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    http = configureDialogTestBed(data, close);
     fixture = TestBed.createComponent(SetupDialog);
     host = fixture.nativeElement as HTMLElement;
     fixture.detectChanges();

@@ -11,8 +11,8 @@ import { provideRouter } from '@angular/router';
 
 import type { BookingDto, CreatedUploadTokenDto, Role, SetupDto, UploadTokenDto } from '../../../shared/api';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
-import { Session } from '../auth/session';
 import { SetupPage } from './setup-page';
+import { signInAs } from '../../testing/sign-in-as';
 
 const setup: SetupDto = {
   id: 2,
@@ -101,12 +101,7 @@ describe('SetupPage', () => {
 
   /** Signs in as `name` with `roles` and opens setup 2 with its bookings. */
   async function openAs(id: number, name: string, roles: Role[], bookings: BookingDto[] = [booked, awaiting]): Promise<void> {
-    TestBed.inject(Session).signIn({ email: 'someone@kestrelfen.example', password: 'fen-demo-2026' }).subscribe();
-    http.expectOne('/api/auth/login').flush({
-      token: 'token',
-      expiresAt: '2027-03-16T18:00:00Z',
-      user: { id, email: 'someone@kestrelfen.example', name, roles, active: true, createdAt: '2026-10-01T08:00:00Z' },
-    });
+    signInAs(roles, { id, name, email: 'someone@kestrelfen.example' });
     fixture = TestBed.createComponent(SetupPage);
     fixture.componentRef.setInput('id', '2');
     loader = TestbedHarnessEnvironment.loader(fixture);

@@ -7,6 +7,7 @@ import { provideRouter, Router } from '@angular/router';
 import type { Role } from '../../../shared/api';
 import { Session } from '../auth/session';
 import { Shell } from './shell';
+import { signInAs } from '../../testing/sign-in-as';
 
 describe('Shell', () => {
   async function renderFor(roles: Role[]): Promise<ComponentFixture<Shell>> {
@@ -18,14 +19,7 @@ describe('Shell', () => {
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
     });
-    TestBed.inject(Session).signIn({ email: 'noor.achterberg@kestrelfen.example', password: 'x' }).subscribe();
-    TestBed.inject(HttpTestingController)
-      .expectOne('/api/auth/login')
-      .flush({
-        token: 'token-noor',
-        expiresAt: '2027-01-01T00:00:00Z',
-        user: { id: 5, email: 'noor.achterberg@kestrelfen.example', name: 'Noor Achterberg', roles, active: true, createdAt: '2026-08-20T00:00:00Z' },
-      });
+    signInAs(roles, { id: 5, name: 'Noor Achterberg', email: 'noor.achterberg@kestrelfen.example' });
     const fixture = TestBed.createComponent(Shell);
     await fixture.whenStable();
     return fixture;

@@ -5,9 +5,9 @@ import type { HttpRequest, HttpResponse, HttpStack } from 'tus-js-client';
 
 import type { RunDto } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
-import { Session } from '../auth/session';
 import { RESUMABLE_HTTP_STACK, ResumableUploads, type UploadProgress } from './resumable-uploads';
 import type { LogUpload } from './upload-metadata';
+import { signInAs } from '../../testing/sign-in-as';
 
 // The package's "browser" build, which the app's build picks; jest would take its Node build.
 jest.mock('tus-js-client', () => jest.requireActual('tus-js-client/lib.es5/browser/index.js'));
@@ -112,12 +112,7 @@ describe('ResumableUploads', () => {
     server = new FakeTus();
     TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), { provide: RESUMABLE_HTTP_STACK, useValue: server }] });
     http = TestBed.inject(HttpTestingController);
-    TestBed.inject(Session).signIn({ email: 'dev.okafor@kestrelfen.example', password: 'fen-demo-2026' }).subscribe();
-    http.expectOne('/api/auth/login').flush({
-      token: 'token-dev',
-      expiresAt: '2027-03-16T18:00:00Z',
-      user: { id: 9, email: 'dev.okafor@kestrelfen.example', name: 'Dev Okafor', roles: ['experimentalist'], active: true, createdAt: '2026-10-01T08:00:00Z' },
-    });
+    signInAs(['experimentalist'], { id: 9, name: 'Dev Okafor', email: 'dev.okafor@kestrelfen.example' });
   });
 
   afterEach(() => {
