@@ -125,4 +125,11 @@ describe('SetupDialog', () => {
     expect(close).not.toHaveBeenCalled();
     expect(host.querySelector<HTMLButtonElement>('button[type="submit"]')!.disabled).toBe(false);
   });
+
+  it('closes with no result on Cancel, so the list behind it does nothing', async () => {
+    await open({ setup: heronReach });
+    Array.from(host.ownerDocument.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent!.trim() === 'Cancel')!.click();
+    expect(close).toHaveBeenCalledTimes(1);
+    expect(close.mock.calls[0][0]).toBeUndefined();
+  });
 });
