@@ -18,7 +18,7 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
     { label: 'File SHA-256', value: input.sha256, mono: true },
     { label: 'Size', value: `${formatCount(input.bytes)} bytes, ${input.compression === 'gzip' ? 'gzip-compressed' : 'not compressed'}` },
     { label: 'Rounds read', value: formatCount(input.rounds) },
-    { label: 'Column mapping', value: `${ROUND_FIELDS.map((field) => `${field} ← “${headerNameOf(field, input.mapping)}”`).join(', ')}; outcomes written ${input.mapping.outcomes}` },
+    { label: 'Column mapping', value: mappingLine(result) },
     { label: 'Selection seed', value: report.seed, mono: true },
     { label: 'Test-round selection', value: selectionLine(result) },
     ...(selection === null ? [] : [{ label: 'Test and generation rounds', value: `${formatCount(selection.testRounds)} test, ${formatCount(selection.generationRounds)} generation` }]),
@@ -30,6 +30,16 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
     { label: 'Analysis finished', value: formatInstant(run.finishedAt) },
     ...(run.duplicateOf === null ? [] : [{ label: 'Same bytes as', value: `run ${run.duplicateOf}` }]),
   ]);
+}
+
+/**
+ * The columns the analysis read, by their header names. The `test` column is named only when the
+ * profile takes the log's own marks, the one case where a log must have it.
+ */
+function mappingLine(result: AnalysisResult): string {
+  const { mapping } = result.input;
+  const read = ROUND_FIELDS.filter((field) => field !== 'test' || result.profile.testSelection.mode === 'from-log');
+  return `${read.map((field) => `${field} ← “${headerNameOf(field, mapping)}”`).join(', ')}; outcomes written ${mapping.outcomes}`;
 }
 
 /** How the test rounds were chosen, in words. */

@@ -130,6 +130,12 @@ describe('the PDF report of a run', () => {
       expect(text).toContain(`≥ ${threshold}`);
     });
 
+    it('names the columns read, leaving out a test column the profile does not read', () => {
+      expect(accepted.profile.testSelection.mode).not.toBe('from-log');
+      expect(text).toContain('round ← “round”, x ← “x”, y ← “y”, a ← “a”, b ← “b”; outcomes written 0/1');
+      expect(text).not.toContain('test ←');
+    });
+
     it('records the file hash, the fingerprint and the seed', () => {
       expect(text).toContain(accepted.input.sha256);
       expect(text).toContain(accepted.fingerprint);
