@@ -51,8 +51,15 @@ describe('previewLog', () => {
 
   it('refuses a header without a mapped column, naming it and the columns there are', () => {
     const preview = previewLog(sampleOf(millLane), { columns: {}, outcomes: '0/1' }, false);
-    expect(preview).toEqual({ ok: false, message: expect.stringContaining('the header has no column "round" for the round index') });
+    expect(preview).toEqual({ ok: false, cause: 'mapping', message: expect.stringContaining('the header has no column "round" for the round index') });
     expect(preview.ok || preview.message).toContain('RoundNo, Marked, SetNorth');
+  });
+
+  it('says when the file itself is no round log, empty or binary, rather than blaming the mapping', () => {
+    const mapping = { columns: {}, outcomes: '0/1' as const };
+    expect(previewLog(sampleOf(''), mapping, false)).toEqual({ ok: false, cause: 'file', message: expect.stringContaining('the file is empty') });
+    const binary: LogSample = { head: Uint8Array.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x14]), complete: true, compressed: false };
+    expect(previewLog(binary, mapping, false)).toEqual({ ok: false, cause: 'file', message: expect.stringContaining('looks binary') });
   });
 
   it('asks for the test column when the profile takes the test rounds from the log', () => {

@@ -24,8 +24,11 @@ export interface PreviewRow {
   readonly problems: string[];
 }
 
-/** The preview under a mapping: the rows, or why the header cannot be used. */
-export type LogPreview = { ok: true; columns: string[]; rows: PreviewRow[] } | { ok: false; message: string };
+/**
+ * The preview under a mapping: the rows, or why they cannot be read: the file itself (empty, binary,
+ * no header line) or a header that does not fit the mapping.
+ */
+export type LogPreview = { ok: true; columns: string[]; rows: PreviewRow[] } | { ok: false; cause: 'file' | 'mapping'; message: string };
 
 /** Rows the preview shows. */
 export const PREVIEW_ROWS = 12;
@@ -133,7 +136,8 @@ function outcomeEncoding(sample: LogSample, names: string[], outcomeColumns: (st
 export function previewLog(sample: LogSample, mapping: ColumnMapping, needsTestColumn: boolean, rows = PREVIEW_ROWS): LogPreview {
   const head = readLogHead(sample.head, sample.complete, mapping, needsTestColumn);
   if (!head.ok) {
-    return { ok: false, message: head.problem.message };
+    // A header that does not fit the mapping names the column it looked for; the file's own problems name none.
+    return { ok: false, cause: head.problem.column === null ? 'file' : 'mapping', message: head.problem.message };
   }
   const { layout } = head;
   const problems = new ProblemList();
