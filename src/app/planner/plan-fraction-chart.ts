@@ -17,7 +17,7 @@ const BEST_DATASET = 2;
   imports: [BaseChartDirective],
   template: `
     <div class="bk-plan-canvas">
-      <canvas baseChart [type]="'line'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
+      <canvas baseChart [type]="'line'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
     </div>
     <p class="bk-plan-star" aria-hidden="true">✱ {{ bestNote() }}</p>
   `,
@@ -31,18 +31,20 @@ export class PlanFractionChart {
   /** The whole plan. */
   readonly plan = input.required<PlanDto>();
 
+  /** Whether some test fraction gives a positive key at this N: else there is no best one to mark. */
+  private readonly anyKey = computed(() => this.plan().bestTestFraction.expectedFiniteKeyBits > 0);
+
   protected readonly summary = computed(() => {
     const { bestTestFraction: best, at } = this.plan();
-    return (
-      `Expected finite key against the test fraction at N = ${formatCount(at.rounds)}. ` +
-      `Most key at ${formatPercent(best.testFraction, 1)} tested: ${formatCount(best.expectedFiniteKeyBits)} bits; ` +
-      `the planned ${formatPercent(at.testFraction, 1)} gives ${formatCount(at.expectedFiniteKeyBits)} bits.`
-    );
+    const most = this.anyKey() ? `Most key at ${formatPercent(best.testFraction, 1)} tested: ${formatCount(best.expectedFiniteKeyBits)} bits; ` : 'No test fraction gives a positive key; ';
+    return `Expected finite key against the test fraction at N = ${formatCount(at.rounds)}. ${most}the planned ${formatPercent(at.testFraction, 1)} gives ${formatCount(at.expectedFiniteKeyBits)} bits.`;
   });
 
   protected readonly bestNote = computed(() => {
     const best = this.plan().bestTestFraction;
-    return `The most key: ${formatPercent(best.testFraction, 1)} tested, ${formatCount(best.expectedFiniteKeyBits)} bits.`;
+    return this.anyKey()
+      ? `The most key: ${formatPercent(best.testFraction, 1)} tested, ${formatCount(best.expectedFiniteKeyBits)} bits.`
+      : `No test fraction gives a positive key at N = ${formatCount(this.plan().at.rounds)}: no most-key fraction to mark.`;
   });
 
   protected readonly data = computed<ChartData<'line', { x: number; y: number }[]>>(() => {
@@ -73,7 +75,7 @@ export class PlanFractionChart {
         },
         {
           label: `Best: ${formatPercent(best.testFraction, 1)}`,
-          data: [{ x: best.testFraction, y: best.expectedFiniteKeyBits }],
+          data: this.anyKey() ? [{ x: best.testFraction, y: best.expectedFiniteKeyBits }] : [],
           yAxisID: 'bits',
           showLine: false,
           pointStyle: 'star',
@@ -99,7 +101,7 @@ export class PlanFractionChart {
     };
   });
 
-  protected readonly options: ChartOptions<'line'> = {
+  protected readonly options = computed<ChartOptions<'line'>>(() => ({
     responsive: true,
     maintainAspectRatio: false,
     animation: false,
@@ -119,8 +121,11 @@ export class PlanFractionChart {
     },
     scales: {
       x: { type: 'linear', min: 0, max: 1, title: { display: true, text: 'Test fraction' }, ticks: { callback: percentTick } },
-      bits: { type: 'linear', position: 'left', beginAtZero: true, title: { display: true, text: 'Key bits' }, ticks: { callback: (value) => formatCount(Number(value)) } },
+      // With no key anywhere the axis would count 0 to 1 bit in fifths: it shows its zero alone.
+      bits: this.anyKey()
+        ? { type: 'linear', position: 'left', beginAtZero: true, title: { display: true, text: 'Key bits' }, ticks: { callback: (value) => formatCount(Number(value)) } }
+        : { type: 'linear', position: 'left', min: 0, max: 1, title: { display: true, text: 'Key bits (none)' }, ticks: { callback: (value) => (Number(value) === 0 ? '0' : '') } },
       pass: { type: 'linear', position: 'right', min: 0, max: 1, title: { display: true, text: 'Pass probability' }, grid: { display: false }, ticks: { callback: percentTick } },
     },
-  };
+  }));
 }
