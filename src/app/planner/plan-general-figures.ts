@@ -49,7 +49,7 @@ import { formatProbability } from './pass-look';
           <dd data-testid="plan-general-pass">
             @if (plan.at; as at) {
               {{ probability(at.passProbability) }}
-              <span class="bk-plan-note">CHSH against ω_thr alone: {{ probability(at.chshPassProbability) }}</span>
+              <span class="bk-plan-note">{{ passNote(at) }}</span>
             } @else {
               Computing…
             }
@@ -110,6 +110,15 @@ export class PlanGeneralFigures {
       ? 'This profile judges by the general model: this is the key to quote.'
       : 'This profile judges by collective attacks: shown beside that estimate for comparison.',
   );
+  /**
+   * What the pass probability is made of: the CHSH criterion against ω_thr alone, and when the
+   * profile requires a positive key and none is possible at this N, that this alone fails the run.
+   */
+  protected passNote(at: GeneralKeyPoint): string {
+    const chsh = `CHSH against ω_thr alone: ${formatProbability(at.chshPassProbability)}`;
+    return this.profile().requirePositiveKey && at.bits <= 0 ? `${chsh}; but the profile requires a positive key, and none is possible at this N` : `${chsh}; the error rate and the test-round count as in the collective plan`;
+  }
+
   protected readonly noBudget = `No N up to ${formatScientific(SEARCH_LIMIT)} rounds gives one.`;
 
   protected gamma(point: GeneralKeyPoint): string {
