@@ -1,19 +1,8 @@
 import { Op, type WhereOptions } from 'sequelize';
-import type { AuditActor, AuditEventDto, AuditPageDto, AuditTargetType } from '../../shared/api';
+import type { AuditActor, AuditEventDto, AuditFilter, AuditPageDto, AuditQuery } from '../../shared/api';
 import type { Models } from '../database/models';
 import type { AuditEventRecord } from './audit-event.model';
 import { toAuditEventDtos } from './audit-event-dto';
-
-export interface AuditFilter {
-  actorId?: number;
-  /** Exact, or a family when it ends in a dot. */
-  action?: string;
-  targetType?: AuditTargetType;
-  targetId?: string;
-  /** Inclusive dates, UTC. */
-  from?: string;
-  to?: string;
-}
 
 /** Reads of the whole trail, newest first. */
 export function createAuditQueries(models: Models) {
@@ -32,7 +21,7 @@ export function createAuditQueries(models: Models) {
   const order: [string, string][] = [['id', 'DESC']];
 
   return {
-    async page(filter: AuditFilter & { page: number; pageSize: number }): Promise<AuditPageDto> {
+    async page(filter: AuditQuery): Promise<AuditPageDto> {
       const { rows, count } = await models.AuditEvent.findAndCountAll({ where: where(filter), order, limit: filter.pageSize, offset: filter.page * filter.pageSize });
       return { items: await toAuditEventDtos(rows, models), total: count, page: filter.page, pageSize: filter.pageSize };
     },

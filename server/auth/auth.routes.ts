@@ -1,6 +1,5 @@
 import { Router } from 'express';
-import { z } from 'zod';
-import type { LoginResponse } from '../../shared/api';
+import { loginRequestSchema, type LoginResponse } from '../../shared/api';
 import type { Config } from '../config/config';
 import { HttpError } from '../http/http-error';
 import { validateBody } from '../http/validate-body';
@@ -10,17 +9,12 @@ import type { Guards } from './passport';
 import { signInLimits } from './sign-in-limits';
 import { issueToken } from './tokens';
 
-const loginSchema = z.object({
-  email: z.string().trim().min(1, 'is required').max(320),
-  password: z.string().min(1, 'is required').max(200),
-});
-
 /** `POST /api/auth/login` (limited per client address and per account) and `GET /api/auth/me`. */
 export function authRoutes(config: Config, jwtSecret: string, users: UsersService, guards: Guards): Router {
   const router = Router();
 
-  router.post('/login', validateBody(loginSchema), ...signInLimits(config), async (request, response) => {
-    const { email, password } = request.body as z.infer<typeof loginSchema>;
+  router.post('/login', validateBody(loginRequestSchema), ...signInLimits(config), async (request, response) => {
+    const { email, password } = request.body;
     const user = await users.authenticate(email, password);
     if (!user) throw HttpError.unauthorized('The e-mail or the password is wrong, or the account is deactivated.');
     const { token, expiresAt } = issueToken(user.id, jwtSecret, config.tokenTtlSeconds);

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
+import type { AnalysisResult } from '../../shared/analysis/result';
 import type { FieldDifference, ReverificationState } from '../../shared/api';
 
 export class SigningKeyRecord extends Model<InferAttributes<SigningKeyRecord>, InferCreationAttributes<SigningKeyRecord>> {
@@ -19,7 +20,7 @@ export class ReverificationRecord extends Model<InferAttributes<ReverificationRe
   declare storedEngineVersion: string;
   declare newFingerprint: CreationOptional<string | null>;
   declare newEngineVersion: CreationOptional<string | null>;
-  declare result: CreationOptional<Record<string, unknown> | null>;
+  declare result: CreationOptional<AnalysisResult | null>;
   declare differences: CreationOptional<FieldDifference[]>;
   declare differenceCount: CreationOptional<number>;
   declare attempts: CreationOptional<number>;

@@ -1,8 +1,7 @@
 import { pipeline } from 'node:stream/promises';
 import { Router, type Response } from 'express';
-import { z } from 'zod';
 import type { AnalysisResult } from '../../shared/analysis/result';
-import { EXPORT_FORMATS, type ExportFormat, type RunReportDto } from '../../shared/api';
+import { exportFormatSchema, reverificationRequestSchema, type ExportFormat, type RunReportDto } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Guards } from '../auth/passport';
 import { HttpError } from '../http/http-error';
@@ -13,8 +12,6 @@ import { buildRunReport, type RunReportDeps } from '../reports/run-report';
 import type { ReverificationsService } from './reverifications.service';
 import type { VerificationService } from './verification.service';
 
-const exportFormat = z.enum(EXPORT_FORMATS, { error: `must be one of ${EXPORT_FORMATS.join(', ')}` });
-
 /** File names of the exports: from the run id only. */
 const EXPORT_FILE: Record<ExportFormat, (runId: number) => string> = {
   json: (runId) => `bellkeep-run-${runId}.json`,
@@ -22,10 +19,6 @@ const EXPORT_FILE: Record<ExportFormat, (runId: number) => string> = {
   'counts.csv': (runId) => `bellkeep-run-${runId}-counts.csv`,
   'blocks.csv': (runId) => `bellkeep-run-${runId}-blocks.csv`,
 };
-
-const reverificationSchema = z.strictObject({
-  seed: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits').optional(),
-});
 
 /**
  * `/api/runs/:id/...` for auditing: the integrity check, re-verifications (auditors and admins
@@ -43,8 +36,8 @@ export function runIntegrityRoutes(deps: RunReportDeps & { verification: Verific
     response.json(await reverifications.list(idParameter(request, 'run')));
   });
 
-  router.post('/:id/reverifications', guards.requireRole('auditor', 'admin'), validateBody(reverificationSchema), async (request, response) => {
-    const { seed } = request.body as z.infer<typeof reverificationSchema>;
+  router.post('/:id/reverifications', guards.requireRole('auditor', 'admin'), validateBody(reverificationRequestSchema), async (request, response) => {
+    const { seed } = request.body;
     if (seed !== undefined && !request.user!.roles.includes('admin')) {
       throw HttpError.forbidden('Only an admin re-analyses a log with another seed; an auditor re-verifies it as recorded.');
     }
@@ -53,7 +46,7 @@ export function runIntegrityRoutes(deps: RunReportDeps & { verification: Verific
 
   router.get('/:id/export/:format', guards.requireSignIn, async (request, response) => {
     const runId = idParameter(request, 'run');
-    const format = exportFormat.safeParse(request.params['format']);
+    const format = exportFormatSchema.safeParse(request.params['format']);
     if (!format.success) throw HttpError.badRequest(`The export format ${JSON.stringify(request.params['format'])} ${format.error.issues[0].message}.`, 'format');
     const report = await buildRunReport(runId, request.user!.name, deps);
     await audit.record({ actorId: request.user!.id, action: 'run.exported', targetType: 'run', targetId: runId, details: { format: format.data, fingerprint: report.result.fingerprint } });

@@ -48,7 +48,7 @@ export function createReverificationsService(deps: { sequelize: Sequelize; model
           throw HttpError.conflict(`Run ${runId} is ${run.state}: only a run with a stored result can be re-verified.`);
         }
         const record = await models.Reverification.create(
-          { runId, requestedBy: actorId, seed: seed ?? null, storedFingerprint: String(run.result['fingerprint']), storedEngineVersion: String(run.result['engineVersion']) },
+          { runId, requestedBy: actorId, seed: seed ?? null, storedFingerprint: run.result.fingerprint, storedEngineVersion: run.result.engineVersion },
           { transaction },
         );
         await audit.record({ actorId, action: 'run.reverification-requested', targetType: 'run', targetId: runId, details: { reverificationId: record.id, ...(seed ? { seed } : {}) } }, transaction);

@@ -7,7 +7,7 @@ export function storedSignature(run: RunRecord): ResultSignatureDto | null {
   return {
     algorithm: 'Ed25519',
     keyId: run.signingKeyId.trim(),
-    statement: { runId: run.id, fileSha256: run.fileSha256, fingerprint: String(run.result['fingerprint']), signedAt: run.signedAt.toISOString() },
+    statement: { runId: run.id, fileSha256: run.fileSha256, fingerprint: run.result.fingerprint, signedAt: run.signedAt.toISOString() },
     signature: run.signature,
   };
 }

@@ -74,7 +74,7 @@ export function createVerificationService(models: Models, logStore: LogStore, si
       if (!VERDICT_STATES.includes(run.state) || !run.result) {
         throw HttpError.conflict(`Run ${runId} is ${run.state}: only a run with a stored result can be verified.`);
       }
-      const checks = [fingerprintCheck(run.result as unknown as AnalysisResult), await signatureCheck(run), await archiveCheck(run.fileSha256), await trailCheck()];
+      const checks = [fingerprintCheck(run.result), await signatureCheck(run), await archiveCheck(run.fileSha256), await trailCheck()];
       return { runId, checkedAt: new Date().toISOString(), intact: checks.every((check) => check.passed), checks };
     },
   };

@@ -20,7 +20,7 @@ function finishedRun(result: AnalysisResult): RunDto {
     duplicateOf: null, signedOff: false, fileSha256: result.input.sha256, fingerprint: result.fingerprint,
     file: { sha256: result.input.sha256, bytes: result.input.bytes, originalName: 'fen-link-2025-03-13.csv' },
     seed: SEED, mapping: null, notes: '', error: null, attempts: 1, analysedBy: 'test:1', startedAt: '2025-03-14T05:02:12.000Z', heartbeatAt: '2025-03-14T05:03:40.000Z',
-    result: result as unknown as Record<string, unknown>, signature: null, signOff: null, deliveries: [],
+    result, signature: null, signOff: null, deliveries: [],
     bookingId: null, attempt: null, replayOf: null, booking: null,
   };
 }

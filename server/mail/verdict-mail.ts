@@ -20,7 +20,8 @@ const VERDICT_WORDS = { ACCEPT: 'ACCEPT: the key may be kept', ABORT: 'ABORT: no
  * link straight to the run's sign-off.
  */
 export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: string[]): OutgoingMail & { html: string } {
-  const result = run.result as unknown as AnalysisResult;
+  const result = run.result;
+  if (!result) throw new Error(`Run ${run.id} has no result to mail.`);
   const verdict = result.verdict;
   const messagesOf = (status: CheckResult['status']) => result.checks.filter((check) => check.status === status).map((check) => check.message);
   const booking = bookingWords(run);

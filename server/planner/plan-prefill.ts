@@ -15,7 +15,7 @@ export async function planPrefill(setupId: number, deps: { models: Models; setup
   const setup = await deps.setups.get(setupId);
   const profileVersion = await deps.profiles.latestVersionOf(setup.defaultProfileId);
   const runs = await deps.models.Run.findAll({ where: { setupId, state: 'accepted' }, order: [['id', 'DESC']], limit: POOLED_RUNS });
-  const results = runs.map((run) => run.result as unknown as AnalysisResult).filter((result) => result.chsh && result.qber && result.counts);
+  const results = runs.flatMap((run) => (run.result ? [run.result] : [])).filter((result) => result.chsh && result.qber && result.counts);
   const sum = (value: (result: AnalysisResult) => number) => results.reduce((total, result) => total + value(result), 0);
   // Count tables are nested counts[x][y][a][b]: the x = 0 half is table[0].
   const xZero = (table: number[][][][]) => table[0].flat(2).reduce((total, count) => total + count, 0);

@@ -1,31 +1,15 @@
 import { Router, type Request } from 'express';
-import { z } from 'zod';
+import { planPrefillQuerySchema, planQuerySchema } from '../../shared/api';
 import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
 import { planRounds, PlanInputError, type PlanInput } from '../../shared/planner/plan-rounds';
 import type { Guards } from '../auth/passport';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
-import { validationError } from '../http/validate-body';
+import { validQuery } from '../http/validate-body';
 import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';
 import { planGeneralAttackInThread } from './general-plan-thread';
 import { planPrefill } from './plan-prefill';
-
-const number = (what: string) => z.coerce.number({ error: `must be ${what}` }).refine(Number.isFinite, { error: `must be ${what}` });
-const id = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
-
-const planQuerySchema = z
-  .strictObject({
-    winFraction: number('a win fraction').optional(),
-    chshValue: number('a CHSH value').optional(),
-    qber: number('an error rate'),
-    profileVersionId: id('a profile version'),
-    rounds: number('a round count').optional(),
-    trialRate: number('rounds per second').optional(),
-    xZeroProbability: number('a probability').optional(),
-    testFraction: number('a fraction').optional(),
-  })
-  .refine((query) => (query.winFraction === undefined) !== (query.chshValue === undefined), { error: 'give winFraction or chshValue, one of them', path: ['winFraction'] });
 
 /** General-attack plans computed at once; each holds a core for seconds. */
 const GENERAL_PLANS_AT_ONCE = 2;
@@ -55,9 +39,7 @@ export function plannerRoutes(deps: { models: Models; setups: SetupsService; pro
 
   /** The planner input of a request's query, with its profile version's parameters. */
   async function planInputOf(request: Request): Promise<PlanInput> {
-    const query = planQuerySchema.safeParse(request.query);
-    if (!query.success) throw validationError(query.error);
-    const { winFraction, chshValue, qber, profileVersionId, rounds, trialRate, xZeroProbability, testFraction } = query.data;
+    const { winFraction, chshValue, qber, profileVersionId, rounds, trialRate, xZeroProbability, testFraction } = validQuery(planQuerySchema, request);
     const version = await profiles.findVersion(profileVersionId).catch((error: unknown) => {
       throw error instanceof HttpError && error.status === 404 ? HttpError.badRequest(error.message, 'profileVersionId') : error;
     });
@@ -88,9 +70,7 @@ export function plannerRoutes(deps: { models: Models; setups: SetupsService; pro
   });
 
   router.get('/prefill', guards.requireSignIn, async (request, response) => {
-    const query = z.strictObject({ setupId: id('a setup') }).safeParse(request.query);
-    if (!query.success) throw validationError(query.error);
-    response.json(await planPrefill(query.data.setupId, deps));
+    response.json(await planPrefill(validQuery(planPrefillQuerySchema, request).setupId, deps));
   });
 
   return router;

@@ -1,4 +1,3 @@
-import type { AnalysisResult } from '../../shared/analysis/result';
 import { RUN_REPORT_FORMAT, VERDICT_STATES, type RunReportDto } from '../../shared/api';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
@@ -48,7 +47,7 @@ export async function buildRunReport(runId: number, exportedBy: string, deps: Ru
     profile: { profileId: version.profileId, versionId: version.id, name: run.profileName, version: version.version, parameters: version.parameters },
     mapping: run.mapping,
     seed: run.seed,
-    result: run.result as unknown as AnalysisResult,
+    result: run.result,
     signature: run.signature,
     publicKey: run.signature ? await deps.signingKeys.find(run.signature.keyId) : null,
     signOff: run.signOff,

@@ -1,4 +1,5 @@
 import { QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
+import type { AnalysisResult } from '../../shared/analysis/result';
 import type { MailDeliveryDto, ResultSignatureDto, RunDto, RunSummaryDto, SignOffDto } from '../../shared/api';
 
 /** One row of the runs query in runs.service.ts: the run joined with the names it shows. */
@@ -73,7 +74,7 @@ export interface RunDetails {
   analysedBy: string | null;
   startedAt: Date | null;
   heartbeatAt: Date | null;
-  result: Record<string, unknown> | null;
+  result: AnalysisResult | null;
   signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
   deliveries: MailDeliveryDto[];

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
+import type { AnalysisResult } from '../../shared/analysis/result';
 import type { RunState, Verdict } from '../../shared/api';
 import type { LogCensus } from '../../shared/analysis/log/log-census';
 
@@ -27,7 +28,7 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
   /** The worker of the latest attempt, `host:pid`. */
   declare analysedBy: CreationOptional<string | null>;
   declare verdict: CreationOptional<Verdict | null>;
-  declare result: CreationOptional<Record<string, unknown> | null>;
+  declare result: CreationOptional<AnalysisResult | null>;
   declare error: CreationOptional<string | null>;
   /** The Ed25519 signature over the stored result (see server/integrity), set with the result. */
   declare signingKeyId: CreationOptional<string | null>;

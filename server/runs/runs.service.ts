@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunPageDto, type RunSortKey, type RunState, type SetupDto, type SignOffDto, type Verdict } from '../../shared/api';
+import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunListQuery, type RunPageDto, type RunSortKey, type RunState, type SetupDto, type SignOffDto, type Verdict } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { BookingRecord } from '../bookings/booking.model';
 import type { BookingsService } from '../bookings/bookings.service';
@@ -33,26 +33,6 @@ export interface NewRun {
   log: ReceivedRunLog;
 }
 
-export interface RunFilter {
-  setupId?: number;
-  state?: RunState;
-  verdict?: Verdict;
-  /** Inclusive bounds on the acquisition date (or the upload date when none was given), YYYY-MM-DD. */
-  from?: string;
-  to?: string;
-  uploadedBy?: number;
-  profileVersionId?: number;
-  /** Hex prefixes of the file's SHA-256 and of the result's fingerprint. */
-  sha256?: string;
-  fingerprint?: string;
-  /** Only runs whose analysis has ended. */
-  finished?: boolean;
-  sort: RunSortKey;
-  direction: 'asc' | 'desc';
-  page: number;
-  pageSize: number;
-}
-
 export interface RunsService {
   create(run: NewRun, uploader: Uploader): Promise<RunDto>;
   /**
@@ -61,7 +41,7 @@ export interface RunsService {
    * without a reason. A resumable upload asks this when it is created.
    */
   refuseEarly(run: Omit<NewRun, 'log' | 'originalName'>, uploader: Uploader): Promise<void>;
-  list(filter: RunFilter): Promise<RunPageDto>;
+  list(filter: RunListQuery): Promise<RunPageDto>;
   get(id: number, transaction?: Transaction): Promise<RunDto>;
   signOff(id: number, comment: string, actor: { id: number; name: string }): Promise<SignOffDto>;
 }

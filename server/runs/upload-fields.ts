@@ -1,8 +1,6 @@
 import { z } from 'zod';
 import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
-
-export const isoDate = z.iso.date({ error: 'must be a date as YYYY-MM-DD' });
-export const positiveId = (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
+import { isoDate, queryId as positiveId } from '../../shared/api';
 
 /** The fields of an upload besides the log: the multipart form's, or a resumable upload's metadata. */
 export const uploadFieldsSchema = z.strictObject({

@@ -82,7 +82,7 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
   const { keyId, signature } = signStatement({ runId, fileSha256: run.fileSha256, fingerprint: result.fingerprint, signedAt: signedAt.toISOString() }, signingKey);
   await sequelize.transaction(async (transaction) => {
     const [stored] = await models.Run.update(
-      { state, verdict: result.verdict, result: result as unknown as Record<string, unknown>, progress: 1, finishedAt: signedAt, signingKeyId: keyId, signedAt, signature },
+      { state, verdict: result.verdict, result, progress: 1, finishedAt: signedAt, signingKeyId: keyId, signedAt, signature },
       { where: { id: runId, state: 'analysing' }, transaction },
     );
     if (stored === 0) return;

@@ -40,7 +40,7 @@ export async function reverifyRun(reverificationId: number, deps: ReverifyRunDep
       state: result.fingerprint === record.storedFingerprint ? 'reproduced' : 'differs',
       newFingerprint: result.fingerprint,
       newEngineVersion: result.engineVersion,
-      result: result as unknown as Record<string, unknown>,
+      result,
       differences: differences.slice(0, KEPT_DIFFERENCES),
       differenceCount: differences.length,
     };

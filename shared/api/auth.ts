@@ -1,15 +1,21 @@
-import type { UserDto } from './users';
+import { z } from 'zod';
+import { userSchema } from './users';
 
 /** Body of `POST /api/auth/login`. */
-export interface LoginRequest {
-  email: string;
-  password: string;
-}
+export const loginRequestSchema = z
+  .object({
+    email: z.string().trim().min(1, 'is required').max(320),
+    password: z.string().min(1, 'is required').max(200),
+  })
+  .meta({ id: 'LoginRequest' });
+export type LoginRequest = z.infer<typeof loginRequestSchema>;
 
 /** Answer of `POST /api/auth/login`: a bearer token for the `Authorization` header. */
-export interface LoginResponse {
-  token: string;
-  /** When the token stops working, ISO 8601. */
-  expiresAt: string;
-  user: UserDto;
-}
+export const loginResponseSchema = z
+  .object({
+    token: z.string(),
+    expiresAt: z.string().meta({ description: 'When the token stops working, ISO 8601.' }),
+    user: userSchema,
+  })
+  .meta({ id: 'LoginResponse' });
+export type LoginResponse = z.infer<typeof loginResponseSchema>;

@@ -1,89 +1,104 @@
-import type { Verdict, RunState } from './runs';
+import { z } from 'zod';
+import { bodyId, isoDate, isoDateTime, queryId } from './query-fields';
+import { runStateSchema, verdictSchema } from './run-states';
 
 /** One upload of a booked night: attempt 1 is the first log, later attempts are replacements. */
-export interface BookingAttemptDto {
-  runId: number;
-  attempt: number;
-  state: RunState;
-  verdict: Verdict | null;
-  /** Why the log was replaced (empty for attempt 1). */
-  replacementReason: string;
-  createdAt: string;
-}
+export const bookingAttemptSchema = z
+  .object({
+    runId: z.number().int(),
+    attempt: z.number().int(),
+    state: runStateSchema,
+    verdict: verdictSchema.nullable(),
+    replacementReason: z.string().meta({ description: 'Why the log was replaced (empty for attempt 1).' }),
+    createdAt: z.string(),
+  })
+  .meta({ id: 'BookingAttemptDto' });
+export type BookingAttemptDto = z.infer<typeof bookingAttemptSchema>;
 
 /**
  * A night booked before acquisition. The seed was drawn at booking and only its commitment,
  * SHA-256 of the seed's 64 hex characters, is shown until a log is in; then `seed` reveals it.
  */
-export interface BookingDto {
-  id: number;
-  setupId: number;
-  setupName: string;
-  /** The night, YYYY-MM-DD (the acquisition date of its runs). */
-  night: string;
-  windowStart: string;
-  windowEnd: string;
-  plannedRounds: number;
-  profileVersionId: number;
-  profileName: string;
-  profileVersion: number;
-  /** Why a shift lead or admin chose a profile other than the setup's (empty otherwise). */
-  profileReason: string;
-  seedCommitment: string;
-  /** Null until the first log of the booking is in. */
-  seed: string | null;
-  bookedBy: string;
-  createdAt: string;
-  attempts: BookingAttemptDto[];
-}
+export const bookingSchema = z
+  .object({
+    id: z.number().int(),
+    setupId: z.number().int(),
+    setupName: z.string(),
+    night: z.string().meta({ description: 'The night, YYYY-MM-DD (the acquisition date of its runs).' }),
+    windowStart: z.string(),
+    windowEnd: z.string(),
+    plannedRounds: z.number().int(),
+    profileVersionId: z.number().int(),
+    profileName: z.string(),
+    profileVersion: z.number().int(),
+    profileReason: z.string().meta({ description: "Why a shift lead or admin chose a profile other than the setup's (empty otherwise)." }),
+    seedCommitment: z.string(),
+    seed: z.string().nullable().meta({ description: 'Null until the first log of the booking is in.' }),
+    bookedBy: z.string(),
+    createdAt: z.string(),
+    attempts: z.array(bookingAttemptSchema),
+  })
+  .meta({ id: 'BookingDto' });
+export type BookingDto = z.infer<typeof bookingSchema>;
 
 /** Body of `POST /api/bookings`. */
-export interface BookNightRequest {
-  setupId: number;
-  night: string;
-  /** ISO date-times; the window may not start more than an hour in the past. */
-  windowStart: string;
-  windowEnd: string;
-  plannedRounds: number;
-  /** Only a shift lead of the setup or an admin may choose another profile, with `profileReason`. */
-  profileVersionId?: number;
-  profileReason?: string;
-}
+export const bookNightRequestSchema = z
+  .strictObject({
+    setupId: bodyId('a setup'),
+    night: isoDate,
+    windowStart: isoDateTime.meta({ description: 'The window may not start more than an hour in the past.' }),
+    windowEnd: isoDateTime,
+    plannedRounds: z.number({ error: 'must be a number of rounds' }).int().positive().max(Number.MAX_SAFE_INTEGER),
+    profileVersionId: bodyId('a profile version').optional().meta({ description: 'Only a shift lead of the setup or an admin may choose another profile, with `profileReason`.' }),
+    profileReason: z.string().max(2000).optional(),
+  })
+  .meta({ id: 'BookNightRequest' });
+export type BookNightRequest = z.infer<typeof bookNightRequestSchema>;
+
+/** Query of `GET /api/bookings`. */
+export const bookingListQuerySchema = z.strictObject({ setupId: queryId('a setup').optional() });
+export type BookingListQuery = z.infer<typeof bookingListQuerySchema>;
 
 /** How a run came to its seed: under a booking, or unbooked (seed drawn after the data existed). */
-export interface RunBookingDto {
-  bookingId: number;
-  night: string;
-  seedCommitment: string;
-  attempt: number;
-  replacementReason: string;
-  /** Every attempt of the booking, this one included, in order. */
-  attempts: BookingAttemptDto[];
-}
+export const runBookingSchema = z
+  .object({
+    bookingId: z.number().int(),
+    night: z.string(),
+    seedCommitment: z.string(),
+    attempt: z.number().int(),
+    replacementReason: z.string(),
+    attempts: z.array(bookingAttemptSchema).meta({ description: 'Every attempt of the booking, this one included, in order.' }),
+  })
+  .meta({ id: 'RunBookingDto' });
+export type RunBookingDto = z.infer<typeof runBookingSchema>;
 
 /** An upload token of the acquisition computer, as listed (never the token itself). */
-export interface UploadTokenDto {
-  id: number;
-  setupId: number;
-  name: string;
-  createdBy: string;
-  createdAt: string;
-  expiresAt: string;
-  revokedAt: string | null;
-  lastUsedAt: string | null;
-}
+export const uploadTokenSchema = z
+  .object({
+    id: z.number().int(),
+    setupId: z.number().int(),
+    name: z.string(),
+    createdBy: z.string(),
+    createdAt: z.string(),
+    expiresAt: z.string(),
+    revokedAt: z.string().nullable(),
+    lastUsedAt: z.string().nullable(),
+  })
+  .meta({ id: 'UploadTokenDto' });
+export type UploadTokenDto = z.infer<typeof uploadTokenSchema>;
 
 /** Answer of `POST /api/setups/:id/upload-tokens`: the token, shown this once. */
-export interface CreatedUploadTokenDto extends UploadTokenDto {
-  token: string;
-}
+export const createdUploadTokenSchema = uploadTokenSchema.extend({ token: z.string() }).meta({ id: 'CreatedUploadTokenDto' });
+export type CreatedUploadTokenDto = z.infer<typeof createdUploadTokenSchema>;
 
 /** Body of `POST /api/setups/:id/upload-tokens`. */
-export interface CreateUploadTokenRequest {
-  name: string;
-  /** Days until it expires, 1 to 366. */
-  validDays: number;
-}
+export const createUploadTokenRequestSchema = z
+  .strictObject({
+    name: z.string().trim().min(1, 'is required: name the computer that will use it').max(120),
+    validDays: z.number({ error: 'must be a number of days' }).int().min(1, 'must be at least 1 day').max(366, 'must be at most 366 days'),
+  })
+  .meta({ id: 'CreateUploadTokenRequest' });
+export type CreateUploadTokenRequest = z.infer<typeof createUploadTokenRequestSchema>;
 
 /** The prefix every upload token starts with, so it is never mistaken for a sign-in token. */
 export const UPLOAD_TOKEN_PREFIX = 'bkup_';

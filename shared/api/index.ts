@@ -5,6 +5,7 @@ export * from './errors';
 export * from './integrity';
 export * from './planner';
 export * from './profiles';
+export * from './query-fields';
 export * from './roles';
 export * from './runs';
 export * from './setups';

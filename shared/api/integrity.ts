@@ -1,101 +1,73 @@
+import { z } from 'zod';
 import type { RunBookingDto } from './bookings';
 import type { AnalysisResult } from '../analysis/result';
+import type { ResultSignatureDto, SigningKeyDto } from './integrity-signature';
 import type { SignOffDto } from './runs';
 
-/**
- * What the server signs when it stores a result. The signed bytes are
- * `SIGNED_STATEMENT_PREFIX + canonicalJson(statement)` in UTF-8 (see `signedStatementBytes`).
- */
-export interface SignedStatement {
-  runId: number;
-  /** SHA-256 of the archived log, hex. */
-  fileSha256: string;
-  /** The result's fingerprint, hex. */
-  fingerprint: string;
-  /** When it was signed, ISO 8601 in UTC. */
-  signedAt: string;
-}
-
-/** A stored result's signature. */
-export interface ResultSignatureDto {
-  algorithm: 'Ed25519';
-  /** Names the public key: the first 16 hex digits of the SHA-256 of its raw 32 bytes. */
-  keyId: string;
-  statement: SignedStatement;
-  /** The 64-byte Ed25519 signature, base64. */
-  signature: string;
-}
-
-/** A public key the server signs (or signed) results with. */
-export interface SigningKeyDto {
-  keyId: string;
-  algorithm: 'Ed25519';
-  /** SubjectPublicKeyInfo, PEM: what `openssl pkey -pubin` reads. */
-  publicKeyPem: string;
-  createdAt: string;
-  /** Set once another key took over; results it signed still verify with it. */
-  retiredAt: string | null;
-}
+export * from './integrity-signature';
 
 export const VERIFICATION_CHECKS = ['result-fingerprint', 'signature', 'archive-file', 'system-trail'] as const;
 export type VerificationCheck = (typeof VERIFICATION_CHECKS)[number];
 
 /** One check of `GET /api/runs/:id/verification`. */
-export interface VerificationCheckDto {
-  check: VerificationCheck;
-  passed: boolean;
-  /** A sentence saying what was compared and what was found. */
-  detail: string;
-}
+export const verificationCheckSchema = z
+  .object({
+    check: z.enum(VERIFICATION_CHECKS),
+    passed: z.boolean(),
+    detail: z.string().meta({ description: 'A sentence saying what was compared and what was found.' }),
+  })
+  .meta({ id: 'VerificationCheckDto' });
+export type VerificationCheckDto = z.infer<typeof verificationCheckSchema>;
 
 /** Whether a stored result and its archived file are still what was signed, and the system trail still what was recorded. */
-export interface VerificationDto {
-  runId: number;
-  checkedAt: string;
-  /** True only when every check passed. */
-  intact: boolean;
-  checks: VerificationCheckDto[];
-}
+export const verificationSchema = z
+  .object({
+    runId: z.number().int(),
+    checkedAt: z.string(),
+    intact: z.boolean().meta({ description: 'True only when every check passed.' }),
+    checks: z.array(verificationCheckSchema),
+  })
+  .meta({ id: 'VerificationDto' });
+export type VerificationDto = z.infer<typeof verificationSchema>;
 
 export const REVERIFICATION_STATES = ['queued', 'analysing', 'reproduced', 'differs', 'failed'] as const;
 export type ReverificationState = (typeof REVERIFICATION_STATES)[number];
 
 /** A field where a re-analysis disagrees with the stored result (`path` as `chsh.winFraction`). */
-export interface FieldDifference {
-  path: string;
-  stored: unknown;
-  recomputed: unknown;
-}
+export const fieldDifferenceSchema = z.object({ path: z.string(), stored: z.unknown(), recomputed: z.unknown() }).meta({ id: 'FieldDifference' });
+export type FieldDifference = z.infer<typeof fieldDifferenceSchema>;
 
 /** A re-analysis of a finished run's archived file, kept beside (never over) the original result. */
-export interface ReverificationDto {
-  id: number;
-  runId: number;
-  requestedBy: string;
-  /** Another seed than the run's, when an admin asked for one: a fresh draw of test rounds that never replaces the verdict. */
-  seed: string | null;
-  state: ReverificationState;
-  storedFingerprint: string;
-  storedEngineVersion: string;
-  newFingerprint: string | null;
-  newEngineVersion: string | null;
-  /** Empty unless `differs`; at most the first 50. */
-  differences: FieldDifference[];
-  /** All differing fields. */
-  differenceCount: number;
-  error: string | null;
-  createdAt: string;
-  finishedAt: string | null;
-}
+export const reverificationSchema = z
+  .object({
+    id: z.number().int(),
+    runId: z.number().int(),
+    requestedBy: z.string(),
+    seed: z.string().nullable().meta({ description: "Another seed than the run's, when an admin asked for one: a fresh draw of test rounds that never replaces the verdict." }),
+    state: z.enum(REVERIFICATION_STATES),
+    storedFingerprint: z.string(),
+    storedEngineVersion: z.string(),
+    newFingerprint: z.string().nullable(),
+    newEngineVersion: z.string().nullable(),
+    differences: z.array(fieldDifferenceSchema).meta({ description: 'Empty unless `differs`; at most the first 50.' }),
+    differenceCount: z.number().int().meta({ description: 'All differing fields.' }),
+    error: z.string().nullable(),
+    createdAt: z.string(),
+    finishedAt: z.string().nullable(),
+  })
+  .meta({ id: 'ReverificationDto' });
+export type ReverificationDto = z.infer<typeof reverificationSchema>;
 
 /** Body of `POST /api/runs/:id/reverifications`: empty, or (admins only) another seed, 64 hex digits. */
-export interface ReverificationRequest {
-  seed?: string;
-}
+export const reverificationRequestSchema = z
+  .strictObject({ seed: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits').optional() })
+  .meta({ id: 'ReverificationRequest' });
+export type ReverificationRequest = z.infer<typeof reverificationRequestSchema>;
 
 /** The formats of `GET /api/runs/:id/export/:format`. */
 export const EXPORT_FORMATS = ['json', 'pdf', 'counts.csv', 'blocks.csv'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+export const exportFormatSchema = z.enum(EXPORT_FORMATS, { error: `must be one of ${EXPORT_FORMATS.join(', ')}` });
 
 export const RUN_REPORT_FORMAT = 'bellkeep.run-report';
 

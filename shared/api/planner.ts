@@ -1,3 +1,6 @@
+import { z } from 'zod';
+import { queryId, queryNumber } from './query-fields';
+
 /**
  * The round-budget planner's answer (`GET /api/planner`, `npm run plan`, the planner screen), all
  * computed by `planRounds` in shared/planner from the engine's own functions.
@@ -72,35 +75,37 @@ export interface PlanDto {
   cautions: string[];
 }
 
-/** Query of `GET /api/planner`: the device as expected, a profile version, and the round budget. */
-export interface PlanQuery {
-  winFraction?: number;
-  /** Alternative to `winFraction`: the expected CHSH value S. */
-  chshValue?: number;
-  qber: number;
-  profileVersionId: number;
-  /** When absent, the plan is made at the smallest budget giving both a key and a likely pass. */
-  rounds?: number;
-  trialRate?: number;
-  xZeroProbability?: number;
-  /** Needed when the profile takes its test rounds from the log's marking. */
-  testFraction?: number;
-}
+/** Query of `GET /api/planner` and `/general-attack`: the device as expected, a profile version, and the round budget. */
+export const planQuerySchema = z
+  .strictObject({
+    winFraction: queryNumber('a win fraction').optional(),
+    chshValue: queryNumber('a CHSH value').optional().meta({ description: 'Alternative to `winFraction`: the expected CHSH value S.' }),
+    qber: queryNumber('an error rate'),
+    profileVersionId: queryId('a profile version'),
+    rounds: queryNumber('a round count').optional().meta({ description: 'When absent, the plan is made at the smallest budget giving both a key and a likely pass.' }),
+    trialRate: queryNumber('rounds per second').optional(),
+    xZeroProbability: queryNumber('a probability').optional(),
+    testFraction: queryNumber('a fraction').optional().meta({ description: "Needed when the profile takes its test rounds from the log's marking." }),
+  })
+  .refine((query) => (query.winFraction === undefined) !== (query.chshValue === undefined), { error: 'give winFraction or chshValue, one of them', path: ['winFraction'] });
+export type PlanQuery = z.infer<typeof planQuerySchema>;
+
+/** Query of `GET /api/planner/prefill`. */
+export const planPrefillQuerySchema = z.strictObject({ setupId: queryId('a setup') });
 
 /** `GET /api/planner/prefill?setupId=`: what a setup's recent accepted runs did. */
-export interface PlanPrefillDto {
-  setupId: number;
-  /** The setup's default profile, latest version. */
-  profileVersionId: number;
-  /** Accepted runs pooled (the latest ones, at most 10), newest first. */
-  runIds: number[];
-  /** Pooled over their test rounds; null without accepted runs. */
-  winFraction: number | null;
-  qber: number | null;
-  xZeroProbability: number | null;
-  /** Their median round count. */
-  rounds: number | null;
-}
+export const planPrefillSchema = z
+  .object({
+    setupId: z.number().int(),
+    profileVersionId: z.number().int().meta({ description: "The setup's default profile, latest version." }),
+    runIds: z.array(z.number().int()).meta({ description: 'Accepted runs pooled (the latest ones, at most 10), newest first.' }),
+    winFraction: z.number().nullable().meta({ description: 'Pooled over their test rounds; null without accepted runs.' }),
+    qber: z.number().nullable(),
+    xZeroProbability: z.number().nullable(),
+    rounds: z.number().nullable().meta({ description: 'Their median round count.' }),
+  })
+  .meta({ id: 'PlanPrefillDto' });
+export type PlanPrefillDto = z.infer<typeof planPrefillSchema>;
 
 /** What the general-attack key length is planned with. */
 export interface GeneralPlanSettingsDto {

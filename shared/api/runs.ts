@@ -1,133 +1,159 @@
-import type { RunBookingDto } from './bookings';
-import type { ResultSignatureDto } from './integrity';
+import { z } from 'zod';
+import type { AnalysisResult } from '../analysis/result';
+import { runBookingSchema } from './bookings';
+import { resultSignatureSchema } from './integrity-signature';
+import { isoDate, paging, queryId } from './query-fields';
+import { RUN_STATES, VERDICTS, runStateSchema, verdictSchema } from './run-states';
 
-/** Where a run is in its life. */
-export const RUN_STATES = ['queued', 'analysing', 'accepted', 'aborted', 'invalid', 'failed'] as const;
-export type RunState = (typeof RUN_STATES)[number];
+export * from './run-states';
 
 /** How often the worker analysing a run says it is alive. */
 export const WORKER_HEARTBEAT_SECONDS = 10;
 
-/** States after which nothing more happens to a run's result. */
-export const FINISHED_STATES: readonly RunState[] = ['accepted', 'aborted', 'invalid', 'failed'];
-
-export const VERDICTS = ['ACCEPT', 'ABORT', 'INVALID'] as const;
-export type Verdict = (typeof VERDICTS)[number];
-
-/** The state a run ends in for each verdict. */
-export const STATE_OF_VERDICT = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' } as const satisfies Record<Verdict, RunState>;
-
-/** States of a run whose verdict is in (and which a shift lead may sign off). */
-export const VERDICT_STATES: readonly RunState[] = Object.values(STATE_OF_VERDICT);
+/**
+ * The engine's result exactly as the `analyse` command prints it (`AnalysisResult` of
+ * shared/analysis/result.ts). Its shape is the engine's to define and version (`engineVersion`),
+ * so the contract names the fields every version has and leaves the rest open.
+ */
+export const analysisResultSchema = z
+  .custom<AnalysisResult>((value) => typeof value === 'object' && value !== null && typeof (value as { fingerprint?: unknown }).fingerprint === 'string')
+  .meta({
+    id: 'AnalysisResult',
+    description: "The analysis engine's result (shared/analysis/result.ts), as `npm run analyse` prints it; the engine's version is in `engineVersion`.",
+    type: 'object',
+    required: ['engineVersion', 'verdict', 'fingerprint', 'checks', 'blocks'],
+    properties: {
+      engineVersion: { type: 'string' },
+      verdict: { enum: [...VERDICTS] },
+      fingerprint: { type: 'string', description: 'SHA-256 of the canonical JSON of everything else, hex.' },
+      checks: { type: 'array' },
+      blocks: { type: 'array' },
+    },
+  });
 
 /** A shift lead's sign-off of a finished run. */
-export interface SignOffDto {
-  userId: number;
-  userName: string;
-  comment: string;
-  createdAt: string;
-}
+export const signOffSchema = z
+  .object({ userId: z.number().int(), userName: z.string(), comment: z.string(), createdAt: z.string() })
+  .meta({ id: 'SignOffDto' });
+export type SignOffDto = z.infer<typeof signOffSchema>;
+
+const nullableNumber = (description: string) => z.number().nullable().meta({ description });
 
 /** A run as lists show it. */
-export interface RunSummaryDto {
-  id: number;
-  setupId: number;
-  setupName: string;
-  profileVersionId: number;
-  profileName: string;
-  profileVersion: number;
-  state: RunState;
-  /** Fraction of the file read by the analysis, 0..1. */
-  progress: number;
-  verdict: Verdict | null;
-  /** CHSH win fraction and its acceptance threshold, when analysed. */
-  winFraction: number | null;
-  winThreshold: number | null;
-  qber: number | null;
-  /** CHSH value S and the finite key estimate (collective attacks), when analysed. */
-  chshValue: number | null;
-  finiteKeyBits: number | null;
-  uploadedBy: string;
-  acquiredOn: string | null;
-  createdAt: string;
-  finishedAt: string | null;
-  /** Set when the same bytes were uploaded before: the earlier run. */
-  duplicateOf: number | null;
-  /** The booking the run belongs to; null: unbooked, its seed drawn after the data existed. */
-  bookingId: number | null;
-  /** Attempt k of its booking (k > 1: a replacement); null when unbooked. */
-  attempt: number | null;
-  /** Set when these bytes were uploaded before under another booking or night: that run. */
-  replayOf: number | null;
-  signedOff: boolean;
-  /** SHA-256 of the archived log, hex. */
-  fileSha256: string;
-  /** The result's fingerprint, when analysed. */
-  fingerprint: string | null;
-}
+export const runSummarySchema = z
+  .object({
+    id: z.number().int(),
+    setupId: z.number().int(),
+    setupName: z.string(),
+    profileVersionId: z.number().int(),
+    profileName: z.string(),
+    profileVersion: z.number().int(),
+    state: runStateSchema,
+    progress: z.number().meta({ description: 'Fraction of the file read by the analysis, 0..1.' }),
+    verdict: verdictSchema.nullable(),
+    winFraction: nullableNumber('CHSH win fraction, when analysed.'),
+    winThreshold: nullableNumber("The CHSH criterion's acceptance threshold, when analysed."),
+    qber: z.number().nullable(),
+    chshValue: nullableNumber('CHSH value S, when analysed.'),
+    finiteKeyBits: nullableNumber('The finite key estimate (collective attacks), when analysed.'),
+    uploadedBy: z.string(),
+    acquiredOn: z.string().nullable(),
+    createdAt: z.string(),
+    finishedAt: z.string().nullable(),
+    duplicateOf: nullableNumber('Set when the same bytes were uploaded before: the earlier run.'),
+    bookingId: nullableNumber('The booking the run belongs to; null: unbooked, its seed drawn after the data existed.'),
+    attempt: nullableNumber('Attempt k of its booking (k > 1: a replacement); null when unbooked.'),
+    replayOf: nullableNumber('Set when these bytes were uploaded before under another booking or night: that run.'),
+    signedOff: z.boolean(),
+    fileSha256: z.string().meta({ description: 'SHA-256 of the archived log, hex.' }),
+    fingerprint: z.string().nullable().meta({ description: "The result's fingerprint, when analysed." }),
+  })
+  .meta({ id: 'RunSummaryDto' });
+export type RunSummaryDto = z.infer<typeof runSummarySchema>;
 
 /** One attempt to mail a run's verdict. */
-export interface MailDeliveryDto {
-  recipients: string[];
-  status: 'sent' | 'failed';
-  messageId: string | null;
-  error: string | null;
-  attemptedAt: string;
-}
+export const mailDeliverySchema = z
+  .object({ recipients: z.array(z.string()), status: z.enum(['sent', 'failed']), messageId: z.string().nullable(), error: z.string().nullable(), attemptedAt: z.string() })
+  .meta({ id: 'MailDeliveryDto' });
+export type MailDeliveryDto = z.infer<typeof mailDeliverySchema>;
 
 /** A run in full: `result` is the engine's JSON exactly as the `analyse` command prints it. */
-export interface RunDto extends RunSummaryDto {
-  file: { sha256: string; bytes: number; originalName: string };
-  seed: string;
-  mapping: Record<string, unknown> | null;
-  notes: string;
-  error: string | null;
-  /** Analysis attempts so far (more than one: a worker stopped or died and the job was retried). */
-  attempts: number;
-  /** The worker of the latest attempt, `host:pid`. */
-  analysedBy: string | null;
-  startedAt: string | null;
-  /** The analysing worker's last sign of life (every WORKER_HEARTBEAT_SECONDS). */
-  heartbeatAt: string | null;
-  result: Record<string, unknown> | null;
-  /** The server's signature over the stored result, when analysed. */
-  signature: ResultSignatureDto | null;
-  signOff: SignOffDto | null;
-  deliveries: MailDeliveryDto[];
-  /** The booking, its commitment and every attempt; null when unbooked. */
-  booking: RunBookingDto | null;
-}
+export const runSchema = runSummarySchema
+  .extend({
+    file: z.object({ sha256: z.string(), bytes: z.number().int(), originalName: z.string() }),
+    seed: z.string(),
+    mapping: z.record(z.string(), z.unknown()).nullable(),
+    notes: z.string(),
+    error: z.string().nullable(),
+    attempts: z.number().int().meta({ description: 'Analysis attempts so far (more than one: a worker stopped or died and the job was retried).' }),
+    analysedBy: z.string().nullable().meta({ description: 'The worker of the latest attempt, `host:pid`.' }),
+    startedAt: z.string().nullable(),
+    heartbeatAt: z.string().nullable().meta({ description: "The analysing worker's last sign of life (every WORKER_HEARTBEAT_SECONDS)." }),
+    result: analysisResultSchema.nullable(),
+    signature: resultSignatureSchema.nullable().meta({ description: "The server's signature over the stored result, when analysed." }),
+    signOff: signOffSchema.nullable(),
+    deliveries: z.array(mailDeliverySchema),
+    booking: runBookingSchema.nullable().meta({ description: 'The booking, its commitment and every attempt; null when unbooked.' }),
+  })
+  .meta({ id: 'RunDto' });
+export type RunDto = z.infer<typeof runSchema>;
 
 /** A page of runs. */
-export interface RunPageDto {
-  items: RunSummaryDto[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export const runPageSchema = z
+  .object({ items: z.array(runSummarySchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() })
+  .meta({ id: 'RunPageDto' });
+export type RunPageDto = z.infer<typeof runPageSchema>;
 
 /** Sort keys of `GET /api/runs`. */
 export const RUN_SORT_KEYS = ['createdAt', 'acquiredOn', 'setup', 'state', 'verdict', 'winFraction'] as const;
 export type RunSortKey = (typeof RUN_SORT_KEYS)[number];
 
-/**
- * Filters of `GET /api/runs` beyond setup, state, verdict, dates and uploader: `profileVersionId`,
- * `sha256` and `fingerprint` (hex prefixes of at least 4 digits) and `finished=true`.
- */
+/** Hex prefixes of `GET /api/runs` (`sha256`, `fingerprint`) have at least this many digits. */
 export const RUN_SEARCH_MIN_PREFIX = 4;
 
+const hexPrefix = z
+  .string()
+  .regex(new RegExp(`^[0-9a-fA-F]{${RUN_SEARCH_MIN_PREFIX},64}$`), `must be ${RUN_SEARCH_MIN_PREFIX} to 64 hexadecimal digits`)
+  .transform((hex) => hex.toLowerCase());
+
+/** The filters, sort and page of `GET /api/runs`. */
+export const runListQuerySchema = z.strictObject({
+  ...paging(25, 200),
+  sort: z.enum(RUN_SORT_KEYS).default('createdAt'),
+  direction: z.enum(['asc', 'desc']).default('desc'),
+  setupId: queryId('a setup').optional(),
+  state: z.enum(RUN_STATES).optional(),
+  verdict: z.enum(VERDICTS).optional(),
+  from: isoDate.optional().meta({ description: 'YYYY-MM-DD, inclusive.' }),
+  to: isoDate.optional(),
+  uploadedBy: queryId('a user').optional(),
+  profileVersionId: queryId('a profile version').optional(),
+  sha256: hexPrefix.optional().meta({ description: "A hex prefix of the log's SHA-256." }),
+  fingerprint: hexPrefix.optional().meta({ description: "A hex prefix of the result's fingerprint." }),
+  finished: z
+    .enum(['true', 'false'], { error: 'must be true or false' })
+    .transform((flag) => flag === 'true')
+    .optional()
+    .meta({ description: 'Only runs whose analysis has ended (with a verdict or failed).' }),
+});
+export type RunListQuery = z.infer<typeof runListQuerySchema>;
+
 /** Body of `POST /api/runs/:id/sign-off` (a shift lead of the run's setup). */
-export interface SignOffRequest {
-  comment: string;
-}
+export const signOffRequestSchema = z
+  .strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) })
+  .meta({ id: 'SignOffRequest' });
+export type SignOffRequest = z.infer<typeof signOffRequestSchema>;
 
 /** One line of the audit trail. */
-export interface AuditEventDto {
-  id: number;
-  actor: string | null;
-  action: string;
-  targetType: string;
-  targetId: string;
-  details: Record<string, unknown>;
-  createdAt: string;
-}
+export const auditEventSchema = z
+  .object({
+    id: z.number().int(),
+    actor: z.string().nullable(),
+    action: z.string(),
+    targetType: z.string(),
+    targetId: z.string(),
+    details: z.record(z.string(), z.unknown()),
+    createdAt: z.string(),
+  })
+  .meta({ id: 'AuditEventDto' });
+export type AuditEventDto = z.infer<typeof auditEventSchema>;

@@ -1,33 +1,38 @@
+import { z } from 'zod';
+
 /** A shift lead assigned to a setup. */
-export interface SetupShiftLeadDto {
-  id: number;
-  name: string;
-  email: string;
-}
+export const setupShiftLeadSchema = z.object({ id: z.number().int(), name: z.string(), email: z.string() }).meta({ id: 'SetupShiftLeadDto' });
+export type SetupShiftLeadDto = z.infer<typeof setupShiftLeadSchema>;
 
 /** One two-station experiment. */
-export interface SetupDto {
-  id: number;
-  name: string;
-  description: string;
-  stationALabel: string;
-  stationBLabel: string;
-  defaultProfileId: number;
-  defaultProfileName: string;
-  shiftLeads: SetupShiftLeadDto[];
-  /** Further addresses that get the verdict mail. */
-  extraRecipients: string[];
-  createdAt: string;
-}
+export const setupSchema = z
+  .object({
+    id: z.number().int(),
+    name: z.string(),
+    description: z.string(),
+    stationALabel: z.string(),
+    stationBLabel: z.string(),
+    defaultProfileId: z.number().int(),
+    defaultProfileName: z.string(),
+    shiftLeads: z.array(setupShiftLeadSchema),
+    extraRecipients: z.array(z.string()).meta({ description: 'Further addresses that get the verdict mail.' }),
+    createdAt: z.string(),
+  })
+  .meta({ id: 'SetupDto' });
+export type SetupDto = z.infer<typeof setupSchema>;
+
+const label = z.string().trim().min(1, 'is required').max(120);
 
 /** Body of `POST /api/setups` and `PUT /api/setups/:id` (admin). */
-export interface SaveSetupRequest {
-  name: string;
-  description?: string;
-  stationALabel: string;
-  stationBLabel: string;
-  defaultProfileId: number;
-  /** Users holding the shift-lead role. */
-  shiftLeadIds: number[];
-  extraRecipients?: string[];
-}
+export const saveSetupRequestSchema = z
+  .strictObject({
+    name: label,
+    description: z.string().trim().max(2000).optional(),
+    stationALabel: label,
+    stationBLabel: label,
+    defaultProfileId: z.number({ error: 'must be a profile id' }).int().positive(),
+    shiftLeadIds: z.array(z.number().int().positive(), { error: 'must be a list of user ids' }).max(50).meta({ description: 'Users holding the shift-lead role.' }),
+    extraRecipients: z.array(z.string().trim().pipe(z.email('is not an e-mail address'))).max(50).optional(),
+  })
+  .meta({ id: 'SaveSetupRequest' });
+export type SaveSetupRequest = z.infer<typeof saveSetupRequestSchema>;

@@ -1,30 +1,39 @@
-import type { Role } from './roles';
+import { z } from 'zod';
+import { ROLES } from './roles';
 
 /** A user as the API returns it: never the password hash. */
-export interface UserDto {
-  id: number;
-  email: string;
-  name: string;
-  roles: Role[];
-  /** Whether the user may sign in; a deactivated user's tokens stop working at once. */
-  active: boolean;
-  createdAt: string;
-}
-
-/** Body of `POST /api/users` (admin). */
-export interface CreateUserRequest {
-  email: string;
-  name: string;
-  password: string;
-  roles: Role[];
-}
-
-/** Body of `PATCH /api/users/:id` (admin): each field optional, at least one given. */
-export interface UpdateUserRequest {
-  name?: string;
-  roles?: Role[];
-  active?: boolean;
-}
+export const userSchema = z
+  .object({
+    id: z.number().int(),
+    email: z.string(),
+    name: z.string(),
+    roles: z.array(z.enum(ROLES)),
+    active: z.boolean().meta({ description: "Whether the user may sign in; a deactivated user's tokens stop working at once." }),
+    createdAt: z.string(),
+  })
+  .meta({ id: 'UserDto' });
+export type UserDto = z.infer<typeof userSchema>;
 
 /** Shortest password an admin may set (common practice, no source). */
 export const MIN_PASSWORD_LENGTH = 10;
+
+const rolesField = z.array(z.enum(ROLES)).min(1, 'needs at least one role');
+const personName = z.string().trim().min(1, 'is required').max(200);
+
+/** Body of `POST /api/users` (admin). */
+export const createUserRequestSchema = z
+  .strictObject({
+    email: z.string().trim().max(320).pipe(z.email('is not an e-mail address')),
+    name: personName,
+    password: z.string().min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`).max(200),
+    roles: rolesField,
+  })
+  .meta({ id: 'CreateUserRequest' });
+export type CreateUserRequest = z.infer<typeof createUserRequestSchema>;
+
+/** Body of `PATCH /api/users/:id` (admin): each field optional, at least one given. */
+export const updateUserRequestSchema = z
+  .strictObject({ name: personName.optional(), roles: rolesField.optional(), active: z.boolean().optional() })
+  .refine((body) => Object.keys(body).length > 0, 'give at least one of name, roles, active')
+  .meta({ id: 'UpdateUserRequest' });
+export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;

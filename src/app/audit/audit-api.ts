@@ -2,12 +2,9 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { AuditActor, AuditPageDto, AuditQuery, SigningKeyDto, TrailCheckDto } from '../../../shared/api';
+import type { AuditActor, AuditFilter, AuditPageDto, AuditQuery, SigningKeyDto, TrailCheckDto } from '../../../shared/api';
 import { FileDownloads } from '../api/download';
 import { queryParams } from '../api/query-params';
-
-/** The trail's filters without its paging: what the CSV export takes. */
-export type AuditFilters = Omit<AuditQuery, 'page' | 'pageSize'>;
 
 /** The client of the API's audit area and of the public signing keys. */
 @Injectable({ providedIn: 'root' })
@@ -31,7 +28,7 @@ export class AuditApi {
   }
 
   /** Downloads the whole filtered trail as CSV; emits the file's name. */
-  exportTrail(filters: AuditFilters): Observable<string> {
+  exportTrail(filters: AuditFilter): Observable<string> {
     return this.downloads.save('/api/audit/export.csv', 'audit-trail.csv', queryParams(filters));
   }
 

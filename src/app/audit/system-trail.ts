@@ -14,11 +14,11 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { catchError, debounceTime, map, of, switchMap } from 'rxjs';
 
-import { AUDIT_TARGET_TYPES, type AuditPageDto, type AuditQuery, type AuditTargetType } from '../../../shared/api';
+import { AUDIT_TARGET_TYPES, type AuditFilter, type AuditPageDto, type AuditQuery, type AuditTargetType } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded, pageContents, type Loaded } from '../api/loaded';
 import { trailDetail, trailWords } from '../runs/trail-words';
-import { AuditApi, type AuditFilters } from './audit-api';
+import { AuditApi } from './audit-api';
 import { ACTION_FAMILIES, TARGET_WORDS, targetWords } from './audit-words';
 import { TrailChainCheck } from './trail-chain-check';
 
@@ -72,10 +72,10 @@ export class SystemTrail {
       debounceTime(TYPING_PAUSE_MILLISECONDS),
       map(() => this.chosenFilters()),
     ),
-    { initialValue: {} as AuditFilters },
+    { initialValue: {} as AuditFilter },
   );
   /** Back to the first page whenever the filters change. */
-  private readonly paging = linkedSignal<AuditFilters, typeof FIRST_PAGE>({
+  private readonly paging = linkedSignal<AuditFilter, typeof FIRST_PAGE>({
     source: this.chosen,
     computation: (_chosen, previous) => ({ page: 0, pageSize: previous?.value.pageSize ?? FIRST_PAGE.pageSize }),
   });
@@ -120,9 +120,9 @@ export class SystemTrail {
     });
   }
 
-  private chosenFilters(): AuditFilters {
+  private chosenFilters(): AuditFilter {
     const { actorId, action, targetType, targetId, from, to } = this.filters.getRawValue();
-    const chosen: AuditFilters = { actorId: actorId ?? undefined, action: action ?? undefined, targetType: targetType ?? undefined, targetId: targetId?.trim(), from: from ?? undefined, to: to ?? undefined };
+    const chosen: AuditFilter = { actorId: actorId ?? undefined, action: action ?? undefined, targetType: targetType ?? undefined, targetId: targetId?.trim(), from: from ?? undefined, to: to ?? undefined };
     return Object.fromEntries(Object.entries(chosen).filter(([, value]) => value !== undefined && value !== ''));
   }
 }

@@ -8,7 +8,6 @@ import { ActivatedRoute, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
 
 import type { AuditEventDto, RunDto, SetupDto, SignOffDto } from '../../../shared/api';
-import type { AnalysisResult } from '../../../shared/analysis/result';
 import { formatCount, formatFixed, formatScientific } from '../../../shared/format/numbers';
 import { loaded, type Loaded } from '../api/loaded';
 import { SetupsApi } from '../setups/setups-api';
@@ -89,7 +88,7 @@ export class RunPage {
     const live = this.live();
     return live.status === 'failed' ? live.message : '';
   });
-  protected readonly result = computed(() => (this.run()?.result ?? null) as AnalysisResult | null);
+  protected readonly result = computed(() => this.run()?.result ?? null);
   protected readonly analysed = computed(() => {
     const result = this.result();
     return result !== null && result.chsh !== null && result.qber !== null && result.key !== null && result.counts !== null ? result : null;

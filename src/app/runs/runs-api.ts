@@ -10,11 +10,9 @@ import {
   type ReverificationRequest,
   type ReverificationState,
   type RunDto,
+  type RunListQuery,
   type RunPageDto,
-  type RunSortKey,
-  type RunState,
   type SignOffDto,
-  type Verdict,
   type VerificationDto,
 } from '../../../shared/api';
 import { FileDownloads } from '../api/download';
@@ -31,26 +29,8 @@ export function isReverificationRunning(reverification: ReverificationDto): bool
   return RUNNING_REVERIFICATION_STATES.includes(reverification.state);
 }
 
-/** The filters, sort and page of the run list, as `GET /api/runs` takes them. */
-export interface RunQuery {
-  page: number;
-  pageSize: number;
-  sort: RunSortKey;
-  direction: 'asc' | 'desc';
-  setupId?: number | null;
-  state?: RunState | null;
-  verdict?: Verdict | null;
-  /** YYYY-MM-DD, inclusive. */
-  from?: string | null;
-  to?: string | null;
-  uploadedBy?: number | null;
-  /** Only runs whose analysis has ended (with a verdict or failed). */
-  finished?: boolean | null;
-  profileVersionId?: number | null;
-  /** Hex prefixes (at least `RUN_SEARCH_MIN_PREFIX` digits) of the log's SHA-256 and of the result's fingerprint. */
-  sha256?: string | null;
-  fingerprint?: string | null;
-}
+/** The filters, sort and page of the run list (`RunListQuery`, the API's contract); a cleared filter is null. */
+export type RunQuery = { [Key in keyof RunListQuery]: undefined extends RunListQuery[Key] ? RunListQuery[Key] | null : RunListQuery[Key] };
 
 /** The client of the API's runs area. */
 @Injectable({ providedIn: 'root' })

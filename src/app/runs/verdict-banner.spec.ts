@@ -1,10 +1,11 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
+import type { AnalysisResult } from '../../../shared/analysis/result';
 import type { RunDto } from '../../../shared/api';
 import { VerdictBanner } from './verdict-banner';
 
-/** A run with only what the banner reads. */
-function runWith(changes: Partial<RunDto>): RunDto {
+/** A run with only what the banner reads, its result too. */
+function runWith(changes: Omit<Partial<RunDto>, 'result'> & { result?: Partial<AnalysisResult> | null }): RunDto {
   return { id: 7, state: 'queued', progress: 0, error: null, result: null, ...changes } as RunDto;
 }
 

@@ -3,7 +3,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
 import type { RunDto } from '../../../shared/api';
-import type { AnalysisResult } from '../../../shared/analysis/result';
 import { formatCount } from '../../../shared/format/numbers';
 import { lookOfState } from './verdict-look';
 import { workerWait } from './worker-wait';
@@ -39,7 +38,7 @@ export class VerdictBanner {
   protected readonly percent = computed(() => Math.round(this.run().progress * 100));
   /** Recomputed with each poll of the pending run, which brings a new run object. */
   protected readonly waiting = computed(() => workerWait(this.run(), Date.now()));
-  protected readonly result = computed(() => this.run().result as AnalysisResult | null);
+  protected readonly result = computed(() => this.run().result);
   protected readonly problems = computed(() => this.result()?.errors.slice(0, LISTED_PROBLEMS) ?? []);
   protected readonly moreProblems = computed(() => {
     const result = this.result();

@@ -1,4 +1,4 @@
-import type { RunState, Verdict } from '../../../shared/api';
+import { STATE_OF_VERDICT, type RunState, type Verdict } from '../../../shared/api';
 
 /** The tone of a run's state: names the `bk-tone-*` class and the `--bk-*` colour. */
 export type VerdictTone = 'accept' | 'abort' | 'invalid' | 'pending';
@@ -20,9 +20,6 @@ const LOOKS: Record<RunState, VerdictLook> = {
   invalid: { word: 'INVALID', icon: 'error', tone: 'invalid' },
   failed: { word: 'Analysis failed', icon: 'sync_problem', tone: 'invalid' },
 };
-
-/** The state each verdict leaves a run in. */
-const STATE_OF_VERDICT: Record<Verdict, RunState> = { ACCEPT: 'accepted', ABORT: 'aborted', INVALID: 'invalid' };
 
 /** The look of a run in `state`. */
 export function lookOfState(state: RunState): VerdictLook {
