@@ -9,9 +9,9 @@ import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words'
 import { missingRoundsWords } from '../reports/missing-rounds-words';
 import { mailHtml, mailText, type MailBlock } from './mail-blocks';
 import type { OutgoingMail } from './mailer';
+import { verdictSentence } from '../../shared/format/verdict-sentence';
 
 /** Words of each verdict in the mail's subject and first line. */
-const VERDICT_WORDS = { ACCEPT: 'ACCEPT: the key may be kept', ABORT: 'ABORT: no key may be kept', INVALID: 'INVALID: the log could not be analysed' } as const;
 
 /**
  * The verdict mail of a finished run: subject with verdict, setup and run number (and the attempt
@@ -29,8 +29,8 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
   const blocks: MailBlock[] = [
     {
       kind: 'lead',
-      headline: `Run ${run.id} on ${run.setupName}: ${VERDICT_WORDS[verdict]}.`,
-      detail: `Acquired ${run.acquiredOn ?? 'on an unrecorded date'}; profile ${run.profileName} v${run.profileVersion}; uploaded by ${run.uploadedBy}.`,
+      headline: `Run ${run.id} on ${run.setupName}: ${verdict}.`,
+      detail: `${verdictSentence(result)} Acquired ${run.acquiredOn ?? 'on an unrecorded date'}; profile ${run.profileName} v${run.profileVersion}; uploaded by ${run.uploadedBy}.`,
     },
     ...listUnlessEmpty(`${booking.state}:`, [booking.headline, ...booking.details]),
     ...(run.notes.trim() ? [{ kind: 'paragraph', text: `Uploader’s notes: ${run.notes.trim()}` } as const] : []),

@@ -1,13 +1,14 @@
 import type { AnalysisResult, Verdict } from '../../shared/analysis/result';
 import { formatCount } from '../../shared/format/numbers';
+import { verdictSentence } from '../../shared/format/verdict-sentence';
 import { bullets, ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';
 import { TONE, TYPE } from './pdf-style';
 
-/** The tone and the sentence under each verdict's word. */
-const VERDICT_LOOK: Record<Verdict, { tone: string; sentence: string }> = {
-  ACCEPT: { tone: TONE.accept, sentence: 'Both tests and every blocking check hold: the raw key of this run may be kept.' },
-  ABORT: { tone: TONE.abort, sentence: 'The run failed its tests: no key may be kept from it.' },
-  INVALID: { tone: TONE.invalid, sentence: 'The log could not be read as a round log, so no round was tested.' },
+/** The tone of each verdict's word (the sentence under it is the app's and the mail's: `verdictSentence`). */
+const VERDICT_TONE: Record<Verdict, string> = {
+  ACCEPT: TONE.accept,
+  ABORT: TONE.abort,
+  INVALID: TONE.invalid,
 };
 
 /** How many problems of an unreadable log the report lists. */
@@ -19,14 +20,14 @@ const SYMBOL = 30;
 /** The verdict as a large word beside its drawn symbol, the sentence that says what it means, and why. */
 export function writeVerdict(doc: PDFKit.PDFDocument, result: AnalysisResult): void {
   const { left, width } = textColumn(doc);
-  const look = VERDICT_LOOK[result.verdict];
+  const tone = VERDICT_TONE[result.verdict];
   ensureSpace(doc, SYMBOL + 40);
   const top = doc.y + 6;
-  doc.rect(left, top, 3, SYMBOL).fill(look.tone);
-  drawSymbol(doc, result.verdict, left + 12, top, look.tone);
+  doc.rect(left, top, 3, SYMBOL).fill(tone);
+  drawSymbol(doc, result.verdict, left + 12, top, tone);
   const textLeft = left + 12 + SYMBOL + 10;
-  useType(doc, 'bold', TYPE.verdict, look.tone).text(result.verdict, textLeft, top - 1, { width: width - textLeft + left, lineBreak: false });
-  useType(doc, 'body', TYPE.body).text(look.sentence, textLeft, top + TYPE.verdict + 1, { width: width - textLeft + left });
+  useType(doc, 'bold', TYPE.verdict, tone).text(result.verdict, textLeft, top - 1, { width: width - textLeft + left, lineBreak: false });
+  useType(doc, 'body', TYPE.body).text(verdictSentence(result), textLeft, top + TYPE.verdict + 1, { width: width - textLeft + left });
   doc.y = Math.max(doc.y, top + SYMBOL) + 6;
   if (result.reasons.length > 0) {
     useType(doc, 'bold', TYPE.body).text('Why', left, doc.y, { width });

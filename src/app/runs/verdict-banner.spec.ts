@@ -21,12 +21,27 @@ describe('VerdictBanner', () => {
 
   const text = (host: HTMLElement, testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.replace(/\s+/g, ' ').trim();
 
+  /** An accepted run whose collective key has `bits`. */
+  const acceptedWith = (bits: number) =>
+    runWith({
+      state: 'accepted',
+      verdict: 'ACCEPT',
+      result: { verdict: 'ACCEPT', reasons: [], errors: [], errorCount: 0, key: { finiteKeyBits: bits, generalAttackBits: null } as AnalysisResult['key'], security: { model: 'collective' } as AnalysisResult['security'] },
+    });
+
   it('says ACCEPT with its icon and no reasons', async () => {
-    const host = await show(runWith({ state: 'accepted', verdict: 'ACCEPT', result: { reasons: [], errors: [], errorCount: 0 } }));
+    const host = await show(acceptedWith(41_250));
     expect(text(host, 'verdict-word')).toBe('ACCEPT');
+    expect(host.querySelector('.bk-banner-headline')?.textContent).toBe('Every acceptance criterion and blocking check holds: the raw key of this run may be kept.');
     expect(host.querySelector('.bk-banner-icon')?.textContent).toBe('verified');
     expect(host.querySelector('section')?.classList).toContain('bk-banner-accept');
     expect(host.querySelector('[data-testid="verdict-reasons"]')).toBeNull();
+  });
+
+  it('says of an ACCEPT with no key at this size that none is kept', async () => {
+    const host = await show(acceptedWith(0));
+    expect(text(host, 'verdict-word')).toBe('ACCEPT');
+    expect(host.querySelector('.bk-banner-headline')?.textContent).toContain('but no key can be extracted from a run of this size: none is kept.');
   });
 
   it('says ABORT and lists every reason', async () => {
@@ -34,7 +49,7 @@ describe('VerdictBanner', () => {
       'The CHSH win fraction 0.798711 is below the threshold 0.823553 (ω_Q − 0.03).',
       'The error rate on the key setting 0.061000 is above the tolerance 0.05.',
     ];
-    const host = await show(runWith({ state: 'aborted', verdict: 'ABORT', result: { reasons, errors: [], errorCount: 0 } }));
+    const host = await show(runWith({ state: 'aborted', verdict: 'ABORT', result: { verdict: 'ABORT', reasons, errors: [], errorCount: 0 } }));
     expect(text(host, 'verdict-word')).toBe('ABORT');
     expect(host.querySelector('.bk-banner-icon')?.textContent).toBe('block');
     expect(Array.from(host.querySelectorAll('[data-testid="verdict-reasons"] li'), (item) => item.textContent?.trim())).toEqual(reasons);
@@ -42,7 +57,7 @@ describe('VerdictBanner', () => {
 
   it('says INVALID and lists the first problems of the log with how many more there are', async () => {
     const errors = Array.from({ length: 6 }, (_, i) => ({ line: 6 + i, column: i === 0 ? null : 'x', value: i === 0 ? null : '7', message: i === 0 ? 'the row has 4 fields, the header has 5' : 'the station A setting must be 0 or 1' }));
-    const host = await show(runWith({ state: 'invalid', verdict: 'INVALID', result: { reasons: ['The log has 8 problems.'], errors, errorCount: 8 } }));
+    const host = await show(runWith({ state: 'invalid', verdict: 'INVALID', result: { verdict: 'INVALID', reasons: ['The log has 8 problems.'], errors, errorCount: 8 } }));
     expect(text(host, 'verdict-word')).toBe('INVALID');
     const problems = Array.from(host.querySelectorAll('[data-testid="log-problems"] li'), (item) => item.textContent?.replace(/\s+/g, ' ').trim());
     expect(problems).toHaveLength(5);

@@ -4,10 +4,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 
 import type { RunDto } from '../../../shared/api';
 import { formatCount } from '../../../shared/format/numbers';
+import { verdictSentence } from '../../../shared/format/verdict-sentence';
 import { lookOfState } from './verdict-look';
 import { workerWait } from './worker-wait';
 
-/** The sentence under each state's word. */
+/** The sentence under the word of a state without a result; a verdict's is the one the mail and the PDF say (`verdictSentence`). */
 const HEADLINES: Record<RunDto['state'], string> = {
   queued: 'The log is archived and waits for an analysis worker.',
   analysing: 'The log is being read and the test rounds audited.',
@@ -33,7 +34,10 @@ export class VerdictBanner {
   readonly run = input.required<RunDto>();
 
   protected readonly look = computed(() => lookOfState(this.run().state));
-  protected readonly headline = computed(() => HEADLINES[this.run().state]);
+  protected readonly headline = computed(() => {
+    const { state, result } = this.run();
+    return result === null ? HEADLINES[state] : verdictSentence(result);
+  });
   protected readonly pending = computed(() => this.run().state === 'queued' || this.run().state === 'analysing');
   protected readonly percent = computed(() => Math.round(this.run().progress * 100));
   /** Recomputed with each poll of the pending run, which brings a new run object. */
