@@ -10,8 +10,8 @@ import { censusOfBenchLog, gzipBenchLog, writeBenchLog } from './bench-log';
 // On each: the engine (complete analysis, compiled, a fresh process per run), a numpy loadtxt +
 // bincount script and a python3 csv script, in this process tree one after the other, and for
 // gzip the decompression alone; the engine again with the census an upload stores (one pass, as
-// the worker reads an archived log). Medians of the runs; peak memory the largest;
-// ratios to the engine.
+// the worker reads an archived log), and without its row kernel (the byte scanner alone: what the
+// kernel buys). Medians of the runs; peak memory the largest; ratios to the engine.
 
 interface Measurement {
   seconds: number;
@@ -76,6 +76,9 @@ async function main(): Promise<void> {
         if (engine.rounds !== rounds) throw new Error(`the engine read ${engine.rounds} rounds of ${rounds}`);
         process.stdout.write(`${row('engine', engine, rounds, '')}\n`);
         const result: Record<string, unknown> = { rounds, file: path.basename(file), bytes: statSync(file).size, engine };
+        const scannerAlone = measure(withArgs(nodeScript('measure-engine'), file, 'scanner'));
+        process.stdout.write(`${row('engine, no row kernel', scannerAlone, rounds, `the kernel makes it ${(scannerAlone.seconds / engine.seconds).toFixed(2)}x faster`)}\n`);
+        result['engineWithoutKernel'] = scannerAlone;
         const censusFile = `${file}.census.json`;
         writeFileSync(censusFile, JSON.stringify(await censusOfBenchLog(file)));
         const withCensus = measure(withArgs(nodeScript('measure-engine'), file, 'census', censusFile));

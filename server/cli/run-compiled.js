@@ -5,14 +5,19 @@
 // file loads faster than a hundred) into dist/server/<name>.js, all in one folder, so a bundle
 // finds the range worker's bundle beside itself as the TypeScript finds range-worker.ts. The
 // bundles are made again whenever a source or the lock file is newer than the last build. Without
-// esbuild (an install without dev dependencies) the command runs through tsx instead. Plain
-// JavaScript: this file is what runs before anything is compiled.
+// esbuild (an install without dev dependencies) the command runs through tsx instead. The engine's
+// row kernel (wasm/row-kernel.ts, AssemblyScript) is compiled to dist/server/row-kernel.wasm beside
+// them; without it the engine reads with its TypeScript scanner alone. Plain JavaScript: this file is
+// what runs before anything is compiled.
 'use strict';
 const fs = require('node:fs');
 const path = require('node:path');
 
 const ROOT = path.resolve(__dirname, '..', '..');
-const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures', 'migrations', 'seeders'];
+const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures', 'migrations', 'seeders', 'wasm'];
+/** The row kernel's source and its compiled module (found there by shared/analysis/node/wasm-row-kernel.ts). */
+const KERNEL_SOURCE = path.join(ROOT, 'wasm', 'row-kernel.ts');
+const KERNEL_NAME = 'row-kernel.wasm';
 /** The bundles: command file → bundle name. */
 const ENTRIES = {
   'server/cli/analyse.ts': 'analyse',
@@ -102,6 +107,7 @@ function build() {
     process.stderr.write(`run-compiled: the build failed (${error.message.split('\n')[0]}); running through tsx\n`);
     return false;
   }
+  buildKernel(staging);
   // Dated when the build began, so a source saved during the build is newer than it.
   fs.writeFileSync(path.join(staging, '.built'), '');
   fs.utimesSync(path.join(staging, '.built'), started, started);
@@ -110,6 +116,28 @@ function build() {
   fs.renameSync(staging, OUT);
   fs.rmSync(old, { recursive: true, force: true });
   return true;
+}
+
+/**
+ * Compiles the row kernel into `staging` with the AssemblyScript compiler (some seconds), or keeps
+ * the last build's when its source has not changed since. Without the compiler, or when it fails,
+ * there is no kernel, and the engine reads without it.
+ */
+function buildKernel(staging) {
+  const built = path.join(OUT, KERNEL_NAME);
+  const builtTime = fs.statSync(built, { throwIfNoEntry: false })?.mtimeMs ?? -1;
+  if (builtTime >= fs.statSync(KERNEL_SOURCE).mtimeMs) {
+    fs.copyFileSync(built, path.join(staging, KERNEL_NAME));
+    return;
+  }
+  const { execFileSync } = require('node:child_process');
+  const options = ['-O3', '--runtime', 'stub', '--noAssert', '--memoryBase', '262144', '--initialMemory', '5'];
+  const compiler = path.join(ROOT, 'node_modules', 'assemblyscript', 'bin', 'asc.js');
+  try {
+    execFileSync(process.execPath, [compiler, KERNEL_SOURCE, ...options, '-o', path.join(staging, KERNEL_NAME)], { stdio: ['ignore', 'ignore', 'pipe'] });
+  } catch (error) {
+    process.stderr.write(`run-compiled: no row kernel (${String(error.message).split('\n')[0]}); the engine reads without it\n`);
+  }
 }
 
 /** Held while one process builds; another waits for it rather than building beside it. */

@@ -3,6 +3,7 @@ import { HeaderLayout } from './header-layout';
 import { parseIntegerField } from './integer-field';
 import { RangeAnalysis } from './range-analysis';
 import { ROUND_FIELDS } from './round-fields';
+import { RowKernel } from './row-kernel';
 
 const LF = 10;
 const CR = 13;
@@ -21,7 +22,8 @@ export const MAX_LINE_BYTES = 1 << 20;
  * dropped), fields at commas, and reading integers digit by digit without making strings. A line
  * that contains a quote is handed to the RFC 4180 line splitter instead, so quoting follows the same
  * rules as the reference reader (csv-parse). Chunks may cut lines anywhere: the cut line is carried
- * to the next chunk. Blank lines are skipped, like csv-parse's `skip_empty_lines`.
+ * to the next chunk. Blank lines are skipped, like csv-parse's `skip_empty_lines`. With a row kernel,
+ * the kernel reads the common rows and this loop only the lines it stops at.
  */
 export class ByteScanner {
   private readonly values = new Float64Array(ROUND_FIELDS.length);
@@ -42,6 +44,7 @@ export class ByteScanner {
     private readonly layout: HeaderLayout,
     private readonly analysis: RangeAnalysis,
     firstLine: number,
+    private readonly kernel: RowKernel | null = null,
   ) {
     this.fieldOfColumn = Int8Array.from(layout.fieldOfColumn);
     this.line = firstLine;
@@ -109,12 +112,41 @@ export class ByteScanner {
 
   /**
    * Reads lines of `bytes` from `from`; returns where the first incomplete line starts (bytes.length
-   * when none). With `atEnd`, the rest is the last line of the stretch. A one-digit field is read
+   * when none). With `atEnd`, the rest is the last line of the stretch.
+   */
+  private scan(bytes: Uint8Array, from: number, atEnd: boolean): number {
+    const kernel = this.kernel;
+    if (kernel === null) {
+      return this.scanLines(bytes, from, atEnd, false);
+    }
+    kernel.load(bytes.subarray(from));
+    let i = from;
+    while (i < bytes.length) {
+      const stop = this.analysis.takeRows(kernel, i - from, this.line) + from;
+      const rows = kernel.rowCount;
+      if (rows > 0) {
+        this.line += rows;
+        i = stop;
+        continue;
+      }
+      // A line the kernel does not read: this loop reads it, or keeps it for the next chunk.
+      const next = this.scanLines(bytes, i, atEnd, true);
+      if (next === i) {
+        return i;
+      }
+      i = next;
+    }
+    return bytes.length;
+  }
+
+  /**
+   * Reads lines of `bytes` from `from` (just one with `oneLine`); returns where the first incomplete
+   * line starts, or where it stopped after one line, or bytes.length. A one-digit field is read
    * with its separator in one step; another field in one tight loop over its digits (with an
    * optional sign before them); a field holding anything else is walked to its end and read as NaN,
    * noting a quote.
    */
-  private scan(bytes: Uint8Array, from: number, atEnd: boolean): number {
+  private scanLines(bytes: Uint8Array, from: number, atEnd: boolean, oneLine: boolean): number {
     const length = bytes.length;
     const fieldOfColumn = this.fieldOfColumn;
     const columns = fieldOfColumn.length;
@@ -181,6 +213,9 @@ export class ByteScanner {
         break;
       }
       this.readLine(bytes, start, end, field, quoted);
+      if (oneLine) {
+        return i;
+      }
     }
     return length;
   }

@@ -6,7 +6,8 @@ import { HeaderLayout } from './header-layout';
 import { LogProblem, ProblemList } from './log-problem';
 import { TriggerSpan } from './range-plans';
 import { RecordChecker, RoundMark } from './record-checker';
-import { FIELD } from './round-fields';
+import { FIELD, ROUND_FIELDS } from './round-fields';
+import { ROW_CELL_MASK, ROW_TEST_SHIFT, RowKernel } from './row-kernel';
 
 // Field indices as module constants for the per-record path (see record-checker.ts).
 const ROUND = FIELD.round;
@@ -15,6 +16,9 @@ const Y = FIELD.y;
 const A = FIELD.a;
 const B = FIELD.b;
 const TEST = FIELD.test;
+
+/** A kernel row's fields as written are asked for only to describe a bad field, and it has none. */
+const noFieldsNeeded = (): string[] => [];
 
 /** Everything needed to analyse one stretch (byte range) of a log. Plain data, so it can go to a worker. */
 export interface RangePlan {
@@ -74,6 +78,10 @@ export class RangeAnalysis {
   private validRecords = 0;
   private testRounds = 0;
   private missingTestRounds = 0;
+  /** A row rebuilt from its kernel code, for `accept`. */
+  private readonly rowValues = new Float64Array(ROUND_FIELDS.length);
+  private readonly fieldCount: number;
+  private readonly plusMinus: boolean;
   /** The round index whose trigger the selector decides next. */
   private nextRound: number;
   private readonly lastRound: number;
@@ -85,6 +93,8 @@ export class RangeAnalysis {
     this.index = plan.firstRecord;
     this.nextRound = plan.span.firstRound + plan.start.firstTrigger;
     this.lastRound = plan.span.lastRound;
+    this.fieldCount = plan.layout.fieldCount;
+    this.plusMinus = plan.layout.outcomes === '±1';
   }
 
   /**
@@ -112,6 +122,85 @@ export class RangeAnalysis {
     this.validRecords++;
     this.testRounds += isTest;
     this.tally.add(index, round, decoded[X], decoded[Y], decoded[A], decoded[B], isTest);
+  }
+
+  /**
+   * Consecutive records read by the row kernel (see `RowKernel`), from line `firstLine`: whole rows
+   * with every field in range, each given by its round index and code. What `accept` does, without
+   * rebuilding the row unless its round index does not follow the previous one.
+   */
+  acceptRows(firstLine: number, count: number, rounds: Float64Array, codes: Uint8Array): void {
+    const checker = this.checker;
+    const selector = this.selector;
+    const tally = this.tally;
+    for (let k = 0; k < count; k++) {
+      const round = rounds[k];
+      const code = codes[k];
+      if (!checker.acceptFollowing(firstLine + k, round)) {
+        this.accept(firstLine + k, this.rebuiltRow(round, code), this.fieldCount, noFieldsNeeded);
+        continue;
+      }
+      const index = this.index++;
+      this.records++;
+      if (round < this.nextRound || !(round <= this.lastRound)) {
+        continue;
+      }
+      if (round > this.nextRound) {
+        this.missingTestRounds += selector.skip(round - this.nextRound);
+      }
+      this.nextRound = round + 1;
+      const isTest = selector.next(code >> ROW_TEST_SHIFT);
+      this.validRecords++;
+      this.testRounds += isTest;
+      tally.addCell(index, round, code & ROW_CELL_MASK, isTest);
+    }
+  }
+
+  /**
+   * Lets the row kernel read common rows of its loaded bytes from `from` (line `firstLine`) and
+   * take them itself, from this analysis's state, which then takes back what they added. Where the
+   * kernel takes none (the stretch's first row, a row out of order, a long gap, a block's end) the
+   * one row it reads is accepted here. Returns where the kernel stopped; the rows: `kernel.rowCount`.
+   */
+  takeRows(kernel: RowKernel, from: number, firstLine: number): number {
+    const step = kernel.step(from, {
+      selection: this.selector.bulk(),
+      lastRound: this.checker.lastTaken,
+      nextRound: this.nextRound,
+      spanLastRound: this.lastRound,
+      recordsLeftInBlock: this.tally.recordsLeftInBlock(this.index),
+    });
+    const rows = kernel.rowCount;
+    if (rows === 0) {
+      const stop = kernel.read(from, 1);
+      this.acceptRows(firstLine, kernel.rowCount, kernel.rounds, kernel.codes);
+      return stop;
+    }
+    this.checker.acceptRun(step.lastRound, firstLine + rows - 1, step.gaps);
+    this.selector.settle(step.uniformsUsed, step.remainingTests, step.remainingTriggers);
+    this.tally.addRun(step.cellCounts, step.blockFirstRound, step.blockLastRound, step.blockStats);
+    this.index += rows;
+    this.records += rows;
+    this.validRecords += rows;
+    this.testRounds += step.testRounds;
+    this.missingTestRounds += step.missingTestRounds;
+    this.nextRound = step.nextRound;
+    return step.stop;
+  }
+
+  /** The values as written of a row the kernel read (outcomes ±1 written back as +1 / −1). */
+  private rebuiltRow(round: number, code: number): Float64Array {
+    const values = this.rowValues;
+    const cell = code & ROW_CELL_MASK;
+    const a = (cell >> 1) & 1;
+    const b = cell & 1;
+    values[ROUND] = round;
+    values[X] = Math.floor(cell / 12);
+    values[Y] = Math.floor(cell / 4) % 3;
+    values[A] = this.plusMinus ? 1 - 2 * a : a;
+    values[B] = this.plusMinus ? 1 - 2 * b : b;
+    values[TEST] = code >> ROW_TEST_SHIFT;
+    return values;
   }
 
   /** One record whose quoting could not be read. */

@@ -95,6 +95,32 @@ export class RecordChecker {
     return true;
   }
 
+  /**
+   * The common case of `accept` for a row already read whole and in range (by the row kernel): when
+   * its round index follows the previous one, takes it and returns true; else leaves it to `accept`.
+   */
+  acceptFollowing(line: number, round: number): boolean {
+    if (!(round > this.lastRound) || this.first === null) {
+      return false;
+    }
+    this.gaps += round - this.lastRound - 1;
+    this.lastRound = round;
+    this.lastLine = line;
+    return true;
+  }
+
+  /** The last round index taken, or NaN before the first (a row must be above it to follow). */
+  get lastTaken(): number {
+    return this.first === null ? NaN : this.lastRound;
+  }
+
+  /** Takes a run of following rows checked elsewhere (the row kernel): the last one's round index and line, the gaps among them. */
+  acceptRun(lastRound: number, lastLine: number, gaps: number): void {
+    this.gaps += gaps;
+    this.lastRound = lastRound;
+    this.lastLine = lastLine;
+  }
+
   /** A row of the wrong length, with a bad field, or the first row or one out of order. */
   private checkUncommon(line: number, values: Float64Array, fieldCount: number, rawFields: () => string[], inRange: boolean): boolean {
     if (fieldCount !== this.fieldCount) {

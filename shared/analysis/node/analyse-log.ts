@@ -23,8 +23,11 @@ export interface AnalyseOptions {
   seed?: string;
   /** Threads for a plain file; default both cores for files of 16 MiB and more, else one. */
   threads?: number;
-  /** `fast` (default): the byte scanner; `reference`: csv-parse, for checking the fast reader and for the benchmark. */
-  reader?: 'fast' | 'reference';
+  /**
+   * `fast` (default): the byte scanner with the row kernel; `scanner`: the byte scanner alone;
+   * `reference`: csv-parse. The last two are for checking the fast reader and for the benchmark.
+   */
+  reader?: 'fast' | 'scanner' | 'reference';
   /** Hears of progress, bytes read of total, per pass (fast reader). */
   onProgress?: ProgressListener;
   /** Cancels the analysis; the promise then rejects with `AnalysisCancelledError`. */
@@ -46,7 +49,7 @@ const GZIP_MAGIC = [0x1f, 0x8b];
  * `AnalysisRequestError` (bad profile, mapping or seed; unreadable file) or `AnalysisCancelledError`.
  */
 export async function analyseLog(source: LogSource, options: AnalyseOptions = {}): Promise<AnalysisResult> {
-  const request = resolveRequest(options.profile, options.mapping, options.seed);
+  const request = resolveRequest(options.profile, options.mapping, options.seed, options.reader !== 'scanner');
   const cancelled = () => options.signal?.aborted === true;
   const totalBytes = await sourceBytes(source);
   const outcome = await withIoErrors(source, async (): Promise<ReadOutcome> => {

@@ -3,6 +3,7 @@ import { ByteScanner } from '../log/byte-scanner';
 import { RangeAnalysis, RangePlan, RangeSummary } from '../log/range-analysis';
 import { withTestsBefore } from '../log/range-plans';
 import { aesKeystream } from './aes-keystream';
+import { createRowKernel } from './wasm-row-kernel';
 import { READ_CHUNK_BYTES } from './log-source';
 
 /** A byte range of a plain (uncompressed) log file: [start, end). */
@@ -17,6 +18,8 @@ export interface RangeTask {
   range: ByteRange;
   plan: RangePlan;
   seed: string | null;
+  /** Whether the common rows go to the row kernel. */
+  rowKernel: boolean;
 }
 
 /** What reading a byte range gives: its summary, and the lines it held (blank ones too). */
@@ -33,7 +36,7 @@ export async function runRangeTask(task: RangeTask, onBytes: (bytes: number) => 
   const keystream = task.seed === null ? null : aesKeystream(task.seed);
   const plan = withTestsBefore(task.plan, keystream);
   const analysis = new RangeAnalysis(plan, keystream);
-  const scanner = new ByteScanner(plan.layout, analysis, plan.firstLine);
+  const scanner = new ByteScanner(plan.layout, analysis, plan.firstLine, task.rowKernel ? createRowKernel(plan.layout) : null);
   const file = await open(task.path, 'r');
   try {
     const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);

@@ -111,7 +111,7 @@ async function analyseRanges(
   const badSpan = spanProblem(triggerSpan(edges, rounds), rounds, logHead.layout);
   if (badSpan !== null) return unreadable([badSpan]);
   const plans = planRanges(logHead.layout, request.profile, counts, edges);
-  const tasks: RangeTask[] = ranges.map((range, i) => ({ path, range, plan: plans[i], seed: request.seed }));
+  const tasks: RangeTask[] = ranges.map((range, i) => ({ path, range, plan: plans[i], seed: request.seed, rowKernel: request.rowKernel }));
   const onBytes = progressCounter('analysing', size, listener);
   onBytes(logHead.dataOffset); // the header, read before this pass
   const [own, ...others] = tasks;

@@ -44,6 +44,7 @@ const randomLog = (brokenWeight: number, maxRows: number) => fc.record({
   rows: fc.array(row(brokenWeight), { minLength: 1, maxLength: maxRows }),
   finalNewline: fc.boolean(),
   mode: fc.constantFrom('fixed-fraction', 'bernoulli'),
+  outcomes: fc.constantFrom('0/1', '±1'),
   seed: fc.uint8Array({ minLength: 32, maxLength: 32 }).map((bytes) => Buffer.from(bytes).toString('hex')),
   chunk: fc.integer({ min: 1, max: 64 }),
 });
@@ -54,7 +55,7 @@ function render(generated: Log): Buffer {
   let round = 0;
   const lines = generated.rows.map((r) => {
     round = Math.max(round + r.step, 0);
-    const values: Record<string, string> = { round: String(round), x: r.x, y: r.y, a: r.a, b: r.b, note: r.extra };
+    const values: Record<string, string> = { round: String(round), x: r.x, y: r.y, a: outcome(r.a, generated.outcomes), b: outcome(r.b, generated.outcomes), note: r.extra };
     const fields = generated.order.map((name) => values[name]);
     const text =
       r.shape === 'blank' ? '' : r.shape === 'space' ? ' ' : r.shape === 'short' ? fields.slice(1).join(',') : r.shape === 'long' ? [...fields, '0'].join(',') : fields.join(',');
@@ -62,6 +63,12 @@ function render(generated: Log): Buffer {
   });
   const body = lines.map((line, i) => line.text + (i < lines.length - 1 || generated.finalNewline ? line.end : '')).join('');
   return Buffer.from(`${generated.bom ? '\ufeff' : ''}${generated.order.join(',')}\n${body}`);
+}
+
+/** An outcome as a log writes it: 0 and 1 as they are, or as +1 (written "1") and −1 with `±1`; anything else unchanged. */
+function outcome(value: string, outcomes: string): string {
+  if (outcomes === '0/1') return value;
+  return value.replace(/^("?)1("?)$/, '$1-1$2').replace(/^("?)0("?)$/, '$11$2');
 }
 
 /** The round index of each record (non-blank row) of a generated log. */
@@ -108,7 +115,7 @@ function analysisOf(result: AnalysisResult) {
 // A hundred random logs per property: seconds of work, more when the machine runs other suites too.
 jest.setTimeout(60_000);
 
-describe('the fast reader agrees with csv-parse', () => {
+describe('the fast reader (byte scanner with and without the row kernel) agrees with csv-parse', () => {
   let scratch: string;
   beforeAll(() => {
     scratch = mkdtempSync(path.join(tmpdir(), 'bellkeep-agree-'));
@@ -120,12 +127,14 @@ describe('the fast reader agrees with csv-parse', () => {
     const bytes = render(generated);
     const file = path.join(scratch, `log-${n++}.csv`);
     writeFileSync(file, bytes);
-    const options = { seed: generated.seed, profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 } };
+    const options = { seed: generated.seed, mapping: { outcomes: generated.outcomes }, profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 } };
     const reference = await analyseLog({ path: file }, { ...options, reader: 'reference' });
     const fast = await analyseLog({ path: file }, { ...options, threads });
+    const scannerAlone = await analyseLog({ path: file }, { ...options, threads, reader: 'scanner' });
     const streamed = await analyseLog(chunked(bytes, generated.chunk), options);
     const zipped = await analyseLog(chunked(gzipSync(bytes), generated.chunk), options);
     expect(fast).toEqual(reference);
+    expect(scannerAlone).toEqual(reference);
     expect(streamed).toEqual(reference);
     expect(analysisOf(zipped)).toEqual(analysisOf(reference));
     // Valid rows are readable unless there are none (only blank lines), or more of their span is
@@ -154,7 +163,7 @@ describe('the fast reader agrees with csv-parse', () => {
         const bytes = render(generated);
         const file = path.join(scratch, `log-${n++}.csv`);
         writeFileSync(file, bytes);
-        const options = { seed: generated.seed, profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 }, threads };
+        const options = { seed: generated.seed, mapping: { outcomes: generated.outcomes }, profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 }, threads };
         const reference = await analyseLog({ path: file }, { ...options, reader: 'reference' });
         const census = censusOf(bytes, markBytes);
         const misfits: string[] = [];

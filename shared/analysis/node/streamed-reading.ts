@@ -7,6 +7,7 @@ import { RangeAnalysis } from '../log/range-analysis';
 import { planRanges, spanProblem, triggerSpan } from '../log/range-plans';
 import { firstRecordLine, LastLineKeeper, roundOfLine } from '../log/record-edges';
 import { aesKeystream } from './aes-keystream';
+import { createRowKernel } from './wasm-row-kernel';
 import { AnalysisRequest } from './analysis-request';
 import { progressCounter, ProgressListener } from './analysis-progress';
 import { DamagedGzipError, decodeLog } from './decoded-log';
@@ -85,7 +86,7 @@ export async function readAsStream(
   }
   const [plan] = planRanges(logHead.layout, request.profile, [dataCount], edges);
   const analysis = new RangeAnalysis(plan, request.seed === null ? null : aesKeystream(request.seed));
-  const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine);
+  const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine, request.rowKernel ? createRowKernel(logHead.layout) : null);
   const analyseProgress = progressCounter('analysing', totalBytes, listener);
   const analysing = await decodeLog(openSource(source), (chunk) => analyseProgress(chunk.length));
   let skip = logHead.dataOffset;
@@ -157,7 +158,7 @@ async function readOnceWithCensus(
   }
   const [plan] = planRanges(logHead.layout, request.profile, [{ lines: census.lines - 1, records: rounds }], edges);
   const analysis = new RangeAnalysis(plan, request.seed === null ? null : aesKeystream(request.seed));
-  const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine);
+  const scanner = new ByteScanner(logHead.layout, analysis, plan.firstLine, request.rowKernel ? createRowKernel(logHead.layout) : null);
   const keeper = new LastLineKeeper();
   let decodedBytes = 0;
   let skip = logHead.dataOffset;

@@ -20,6 +20,23 @@ export interface TestSelector {
    * missing round counts as a test round (the conservative reading).
    */
   skip(count: number): number;
+  /** The state a bulk reader (the row kernel) decides the next triggers from, by the same rule. */
+  bulk(): BulkSelection;
+  /** Takes back the state after a bulk reader used `uniformsUsed` of the uniform numbers. */
+  settle(uniformsUsed: number, remainingTests: number, remainingTriggers: number): void;
+}
+
+/** What a bulk reader needs to take test decisions itself. */
+export interface BulkSelection {
+  /** 0 fixed-fraction, 1 Bernoulli, 2 the log's marking. */
+  mode: 0 | 1 | 2;
+  /** Fixed-fraction: tests and triggers left in the span (Algorithm S's n − chosen and N − i). */
+  remainingTests: number;
+  remainingTriggers: number;
+  /** Bernoulli: γ. */
+  probability: number;
+  /** The next triggers' uniform numbers (none for the log's marking). */
+  uniforms: Float64Array;
 }
 
 /** Where a stretch of the log starts among the triggers, and the totals fixed-fraction selection needs. */
@@ -75,6 +92,16 @@ class FixedFractionSelector implements TestSelector {
   skip(count: number): number {
     return skipBy(this, count);
   }
+
+  bulk(): BulkSelection {
+    return { mode: 0, remainingTests: this.remainingTests, remainingTriggers: this.remainingTriggers, probability: NaN, uniforms: this.uniforms.pending() };
+  }
+
+  settle(uniformsUsed: number, remainingTests: number, remainingTriggers: number): void {
+    this.uniforms.advance(uniformsUsed);
+    this.remainingTests = remainingTests;
+    this.remainingTriggers = remainingTriggers;
+  }
 }
 
 /** Each trigger independently with probability γ: trigger i is a test round when u_i < γ. */
@@ -91,6 +118,14 @@ class BernoulliSelector implements TestSelector {
   skip(count: number): number {
     return skipBy(this, count);
   }
+
+  bulk(): BulkSelection {
+    return { mode: 1, remainingTests: NaN, remainingTriggers: NaN, probability: this.probability, uniforms: this.uniforms.pending() };
+  }
+
+  settle(uniformsUsed: number): void {
+    this.uniforms.advance(uniformsUsed);
+  }
 }
 
 /** The lab's own marking, the `test` column. */
@@ -102,7 +137,17 @@ class LogMarkSelector implements TestSelector {
   skip(count: number): number {
     return count;
   }
+
+  bulk(): BulkSelection {
+    return { mode: 2, remainingTests: NaN, remainingTriggers: NaN, probability: NaN, uniforms: NO_UNIFORMS };
+  }
+
+  settle(): void {
+    // Nothing to take back: the marks are in the log.
+  }
 }
+
+const NO_UNIFORMS = new Float64Array(0);
 
 /** The selector of a profile's mode for a stretch of the log. */
 export function createTestSelector(selection: TestSelection, keystream: KeystreamSource | null, start: SelectionStart): TestSelector {

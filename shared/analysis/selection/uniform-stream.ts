@@ -41,6 +41,19 @@ export class UniformStream {
     return this.uniforms[this.offset++];
   }
 
+  /** The numbers fetched and not used yet (one at least), for a reader that takes many at once and then calls `advance`. */
+  pending(): Float64Array {
+    if (this.offset === ROUNDS_PER_REFILL) {
+      this.refill();
+    }
+    return this.uniforms.subarray(this.offset);
+  }
+
+  /** Passes over `count` of the pending numbers, used by a bulk reader. */
+  advance(count: number): void {
+    this.offset += count;
+  }
+
   private refill(): void {
     const bytes = this.keystream(this.nextBlock, BLOCKS_PER_REFILL);
     const uniforms = this.uniforms;
