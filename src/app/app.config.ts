@@ -7,8 +7,10 @@ import {
   provideZonelessChangeDetection,
 } from '@angular/core';
 import { MatIconRegistry } from '@angular/material/icon';
+import { MatPaginatorIntl } from '@angular/material/paginator';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 
+import { PageWords } from './api/page-words';
 import { routes } from './app.routes';
 import { authInterceptor } from './auth/auth-interceptor';
 import { Session } from './auth/session';
@@ -19,6 +21,7 @@ export const appConfig: ApplicationConfig = {
     provideZonelessChangeDetection(),
     provideHttpClient(withInterceptors([authInterceptor])),
     provideRouter(routes, withComponentInputBinding()),
+    { provide: MatPaginatorIntl, useClass: PageWords },
     // mat-icon would otherwise use the `material-icons` class, which we do not ship.
     provideAppInitializer(() => {
       inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');
