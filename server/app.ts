@@ -18,6 +18,7 @@ import { runIntegrityRoutes } from './integrity/integrity.routes';
 import { signingKeysRoutes } from './integrity/signing-keys.routes';
 import type { AppMail } from './mail/app-mail';
 import { metricsRoutes } from './metrics/metrics.routes';
+import { openApiRoutes } from './openapi/openapi.routes';
 import { plannerRoutes } from './planner/planner.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
 import type { AnalysisQueue } from './queue/analysis-queue';
@@ -58,6 +59,7 @@ export function createApp({ config, database, services, jwtSecret, appMail, queu
   app.use('/api', refuseNulCharacters);
 
   app.use('/api', healthRoutes({ database, queue, logStore: services.logStore, lifecycle }));
+  app.use('/api', openApiRoutes());
   app.use('/api/auth', authRoutes(config, jwtSecret, services.users, guards));
   app.use('/api/users', usersRoutes(services.users, guards, appMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));

@@ -89,9 +89,10 @@ export const runSchema = runSummarySchema
     analysedBy: z.string().nullable().meta({ description: 'The worker of the latest attempt, `host:pid`.' }),
     startedAt: z.string().nullable(),
     heartbeatAt: z.string().nullable().meta({ description: "The analysing worker's last sign of life (every WORKER_HEARTBEAT_SECONDS)." }),
-    result: analysisResultSchema.nullable(),
+    // A union, not .nullable(): the OpenAPI generator drops the null of a nullable named schema.
+    result: z.union([analysisResultSchema, z.null()]),
     signature: resultSignatureSchema.nullable().meta({ description: "The server's signature over the stored result, when analysed." }),
-    signOff: signOffSchema.nullable(),
+    signOff: z.union([signOffSchema, z.null()]),
     deliveries: z.array(mailDeliverySchema),
     booking: runBookingSchema.nullable().meta({ description: 'The booking, its commitment and every attempt; null when unbooked.' }),
   })

@@ -63,6 +63,11 @@ describe('role checks on the server', () => {
     expect(response.body).toEqual([expect.objectContaining({ algorithm: 'Ed25519', publicKeyPem: expect.stringContaining('BEGIN PUBLIC KEY') })]);
   });
 
+  it.each(['/api/openapi.json', '/api/reference'])('serves %s to anyone, signed in or not (it describes the API and holds no data)', async (path) => {
+    await request(testApp.app).get(path).expect(200);
+    await request(testApp.app).get(path).set('Authorization', `Bearer ${tokens.get('auditor')}`).expect(200);
+  });
+
   describe.each(PROTECTED_ROUTES)('$method $path', ({ method, path, roles }) => {
     it('answers 401 without a token', async () => {
       await request(testApp.app)[method](path).expect(401);

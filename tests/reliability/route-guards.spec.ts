@@ -12,6 +12,9 @@ const PUBLIC_ROUTES: Record<string, string> = {
   'GET /api/health': 'the liveness probe of the lab’s monitoring; it says "ok" and nothing else',
   'GET /api/ready': 'the readiness probe of a load balancer; it names the parts that answer or not, and nothing of the data',
   'GET /api/signing-keys': 'public keys, published so that partner labs can check exported reports',
+  'GET /api/openapi.json': 'the OpenAPI document: it describes the API, and holds no data',
+  'GET /api/reference': 'the page that shows the OpenAPI document',
+  'GET /api/reference/:file': 'the reference page’s script, styles and font (a fixed list of files)',
   'GET /{*path}': 'index.html of the web app for its client-side routes; it holds no data',
 };
 
@@ -222,6 +225,8 @@ describe('every API route refuses whoever its guard does not let in', () => {
   it('answers the public API routes without a token', async () => {
     await request(testApp.app).get('/api/health').expect(200);
     await request(testApp.app).get('/api/signing-keys').expect(200);
+    await request(testApp.app).get('/api/openapi.json').expect(200);
+    await request(testApp.app).get('/api/reference').expect(200);
     await request(testApp.app).post('/api/auth/login').send({ email: 'sami.virtanen@kestrelfen.example', password: DEMO_PASSWORD }).expect(200);
   });
 

@@ -1,0 +1,128 @@
+import { z } from 'zod';
+import {
+  bookingListQuerySchema,
+  bookingSchema,
+  bookNightRequestSchema,
+  createdUploadTokenSchema,
+  createProfileRequestSchema,
+  createProfileVersionRequestSchema,
+  createUploadTokenRequestSchema,
+  planPrefillQuerySchema,
+  planPrefillSchema,
+  planQuerySchema,
+  profileSchema,
+  saveSetupRequestSchema,
+  setupSchema,
+  uploadTokenSchema,
+  workersOverviewSchema,
+} from '../../shared/api';
+import type { Operation } from './operation';
+
+const NO_SETUP = { 404: 'No such setup.' };
+
+/** The plans are interfaces of shared/api/planner.ts, computed by shared/planner: named here, not spelled out. */
+const planAnswer = (name: string) => z.looseObject({}).meta({ description: `\`${name}\` of shared/api/planner.ts.` });
+const NO_PROFILE = { 404: 'No such profile.' };
+
+/** The lab's setups, acceptance profiles, booked nights and their upload tokens, the planner and the workers. */
+export const LAB_OPERATIONS: Operation[] = [
+  { method: 'get', path: '/api/setups', summary: 'List the setups', tags: ['Setups'], access: 'signed-in', response: z.array(setupSchema) },
+  { method: 'get', path: '/api/setups/{id}', summary: 'One setup', tags: ['Setups'], access: 'signed-in', response: setupSchema, errors: NO_SETUP },
+  { method: 'post', path: '/api/setups', summary: 'Make a setup', tags: ['Setups'], access: ['admin'], body: saveSetupRequestSchema, status: 201, response: setupSchema, errors: { 409: 'A setup of this name exists.' } },
+  { method: 'put', path: '/api/setups/{id}', summary: 'Change a setup', tags: ['Setups'], access: ['admin'], body: saveSetupRequestSchema, response: setupSchema, errors: { ...NO_SETUP, 409: 'A setup of this name exists.' } },
+  {
+    method: 'get',
+    path: '/api/setups/{id}/upload-tokens',
+    summary: "List a setup's upload tokens (never the tokens themselves)",
+    tags: ['Upload tokens'],
+    access: ['admin', 'shift-lead'],
+    description: 'A shift lead sees the tokens of the setups they lead only (403 for another).',
+    response: z.array(uploadTokenSchema),
+    errors: NO_SETUP,
+  },
+  {
+    method: 'post',
+    path: '/api/setups/{id}/upload-tokens',
+    summary: 'Make an upload token for the acquisition computer',
+    description:
+      'The answer holds the token (`bkup_` and 32 random bytes, base64url) this once; the server keeps only its SHA-256. The acquisition computer sends it as `Authorization: Bearer bkup_…` to `POST /api/runs` or the resumable uploads, and nowhere else.',
+    tags: ['Upload tokens'],
+    access: ['admin', 'shift-lead'],
+    body: createUploadTokenRequestSchema,
+    status: 201,
+    response: createdUploadTokenSchema,
+    errors: NO_SETUP,
+  },
+  {
+    method: 'post',
+    path: '/api/setups/{id}/upload-tokens/{tokenId}/revoke',
+    summary: 'Revoke an upload token',
+    tags: ['Upload tokens'],
+    access: ['admin', 'shift-lead'],
+    response: uploadTokenSchema,
+    errors: { 404: 'The setup has no such token.', 409: 'The token was revoked already.' },
+  },
+  { method: 'get', path: '/api/profiles', summary: 'List the acceptance profiles with their versions', tags: ['Profiles'], access: 'signed-in', response: z.array(profileSchema) },
+  { method: 'get', path: '/api/profiles/{id}', summary: 'One acceptance profile', tags: ['Profiles'], access: 'signed-in', response: profileSchema, errors: NO_PROFILE },
+  {
+    method: 'post',
+    path: '/api/profiles',
+    summary: 'Make a profile with its first version',
+    tags: ['Profiles'],
+    access: ['admin'],
+    body: createProfileRequestSchema,
+    status: 201,
+    response: profileSchema,
+    errors: { 409: 'A profile of this name exists.' },
+  },
+  {
+    method: 'post',
+    path: '/api/profiles/{id}/versions',
+    summary: 'Write a new version of a profile',
+    description: 'Versions are fixed once written: editing a profile writes a new one.',
+    tags: ['Profiles'],
+    access: ['admin'],
+    body: createProfileVersionRequestSchema,
+    status: 201,
+    response: profileSchema,
+    errors: NO_PROFILE,
+  },
+  {
+    method: 'post',
+    path: '/api/bookings',
+    summary: 'Book a night before acquisition',
+    description:
+      'Draws the seed now and shows only its commitment, SHA-256 of its 64 hex characters, until a log of the booking is in. The shift leads get a booking mail. Choosing another profile than the setup’s needs a shift lead of the setup or an admin, and a `profileReason`.',
+    tags: ['Bookings'],
+    access: ['experimentalist', 'shift-lead', 'admin'],
+    body: bookNightRequestSchema,
+    status: 201,
+    response: bookingSchema,
+    errors: { 404: 'No such setup or profile version.', 409: 'The night is booked already.' },
+  },
+  { method: 'get', path: '/api/bookings', summary: 'List the booked nights', tags: ['Bookings'], access: 'signed-in', query: bookingListQuerySchema, response: z.array(bookingSchema) },
+  { method: 'get', path: '/api/bookings/{id}', summary: 'One booked night with its attempts', tags: ['Bookings'], access: 'signed-in', response: bookingSchema, errors: { 404: 'No such booking.' } },
+  {
+    method: 'get',
+    path: '/api/planner',
+    summary: 'Plan the round budget of a night',
+    description: 'Computed by the same code as the planner screen.',
+    tags: ['Planner'],
+    access: 'signed-in',
+    query: planQuerySchema,
+    response: planAnswer('PlanDto'),
+  },
+  {
+    method: 'get',
+    path: '/api/planner/general-attack',
+    summary: 'Plan the key length against general attacks over N and γ',
+    description: 'Seconds of computing, in a thread of its own, two at a time.',
+    tags: ['Planner'],
+    access: 'signed-in',
+    query: planQuerySchema,
+    response: planAnswer('GeneralAttackPlanDto'),
+    errors: { 503: 'Two plans are being computed already; ask again after `Retry-After` seconds.' },
+  },
+  { method: 'get', path: '/api/planner/prefill', summary: "Starting values from a setup's recent accepted runs", tags: ['Planner'], access: 'signed-in', query: planPrefillQuerySchema, response: planPrefillSchema, errors: NO_SETUP },
+  { method: 'get', path: '/api/workers', summary: 'The analysis workers: who takes jobs, who died, what waits', tags: ['Operations'], access: ['admin'], response: workersOverviewSchema },
+];
