@@ -5,7 +5,8 @@ const QUEUED_OVERDUE_MS = 20_000;
 /** A worker missing a few heartbeats in a row is taken for gone. */
 const SILENT_AFTER_MS = WORKER_SILENT_AFTER_BEATS * WORKER_HEARTBEAT_SECONDS * 1000;
 
-const clock = (iso: string) => new Date(iso).toLocaleTimeString('en-GB');
+/** A time of day with its zone, as every time on screen. */
+const clock = (iso: string) => new Date(iso).toLocaleTimeString('en-GB', { timeZoneName: 'short' });
 
 /**
  * Why a pending run is still waiting, when it waits for a worker rather than on one: nobody took

@@ -159,8 +159,8 @@ describe('SetupPage', () => {
       await openAsLead();
       const [live, revoked] = rowText('[data-testid="upload-tokens"]');
       // The state cell starts with its icon's ligature name, then the word.
-      expect(live).toMatch(/^North Hall acquisition PC made by Lucia Brandt, 10 Jan 2027 \| keyIn use \| 15 Mar 2027, \d\d:\d0 \| 10 Jan 2099 \| Revoke$/);
-      expect(revoked).toMatch(/^Old laptop .* \| key_offRevoked 1 Feb 2027, \d\d:00 \| Never \| 10 Jan 2099 \| $/);
+      expect(live).toMatch(/^North Hall acquisition PC made by Lucia Brandt, 10 Jan 2027 \| keyIn use \| 15 Mar 2027, \d\d:\d0 GMT[+-]\d+(:\d\d)? \| 10 Jan 2099 \| Revoke$/);
+      expect(revoked).toMatch(/^Old laptop .* \| key_offRevoked 1 Feb 2027, \d\d:00 GMT[+-]\d+(:\d\d)? \| Never \| 10 Jan 2099 \| $/);
     });
 
     it('shows a new token once, with a copy button and the warning, then lists it', async () => {
