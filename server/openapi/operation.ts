@@ -16,7 +16,7 @@ export interface Operation {
   description?: string;
   tags: string[];
   access: Access;
-  query?: z.ZodObject | z.ZodType;
+  query?: z.ZodObject;
   body?: z.ZodType;
   /** The body's media type: JSON unless said. */
   bodyType?: 'application/json' | 'multipart/form-data';
@@ -69,6 +69,7 @@ export function registerOperation(registry: OpenAPIRegistry, operation: Operatio
     ...invalid,
     ...accessErrors(operation.access),
     ...operation.errors,
+    500: 'A fault of the server; it is logged with the request id (`X-Request-Id`).',
   };
   registry.registerPath({
     method: operation.method,
@@ -80,7 +81,7 @@ export function registerOperation(registry: OpenAPIRegistry, operation: Operatio
     'x-bellkeep-access': operation.access,
     request: {
       ...(params && { params }),
-      ...(operation.query && { query: operation.query as z.ZodObject }),
+      ...(operation.query && { query: operation.query }),
       ...(operation.headers && { headers: operation.headers }),
       ...(operation.body && { body: { required: true, content: { [operation.bodyType ?? 'application/json']: { schema: operation.body } } } }),
     },
@@ -89,5 +90,5 @@ export function registerOperation(registry: OpenAPIRegistry, operation: Operatio
       ...(operation.alsoAnswers && { [operation.alsoAnswers.status]: jsonAnswer(operation.alsoAnswers.description, operation.alsoAnswers.response) }),
       ...Object.fromEntries(Object.entries(errors).map(([code, reason]) => [code, errorResponse(reason)])),
     },
-  } as RouteConfig);
+  });
 }

@@ -1,5 +1,20 @@
 import request from 'supertest';
-import { ROLES, type ApiErrorBody, type BookingDto, type CreatedUploadTokenDto, type Role, type RunDto, type SetupDto, type UserDto } from '../../shared/api';
+import {
+  auditFilterSchema,
+  auditQuerySchema,
+  bookingListQuerySchema,
+  planPrefillQuerySchema,
+  planQuerySchema,
+  ROLES,
+  runListQuerySchema,
+  type ApiErrorBody,
+  type BookingDto,
+  type CreatedUploadTokenDto,
+  type Role,
+  type RunDto,
+  type SetupDto,
+  type UserDto,
+} from '../../shared/api';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
 import { forgedToken, unsignedToken } from '../support/forged-tokens';
 import { endpointKey, listEndpoints, type Endpoint } from '../support/route-list';
@@ -266,21 +281,19 @@ describe('every API route refuses whoever its guard does not let in', () => {
 
 /** The planner's query (both plans read it); `base` is a valid plan, so each parameter is refused on its own. */
 const PLAN_QUERY = {
-  parameters: ['winFraction', 'chshValue', 'qber', 'profileVersionId', 'rounds', 'trialRate', 'xZeroProbability', 'testFraction'],
+  parameters: Object.keys(planQuerySchema.shape),
   base: { qber: '0.02', winFraction: '0.84', profileVersionId: '1' },
 };
 
-/** The query parameters of each route that reads its query string, as its schema lists them; `base` makes the rest valid. */
+/** The query parameters of each route that reads its query string, from its contract in shared/api; `base` makes the rest valid. */
 const QUERY_PARAMETERS: Record<string, { parameters: readonly string[]; base?: Record<string, string> }> = {
-  'GET /api/runs': {
-    parameters: ['page', 'pageSize', 'sort', 'direction', 'setupId', 'state', 'verdict', 'from', 'to', 'uploadedBy', 'profileVersionId', 'sha256', 'fingerprint', 'finished'],
-  },
-  'GET /api/audit': { parameters: ['actorId', 'action', 'targetType', 'targetId', 'from', 'to', 'page', 'pageSize'] },
-  'GET /api/audit/export.csv': { parameters: ['actorId', 'action', 'targetType', 'targetId', 'from', 'to'] },
-  'GET /api/bookings': { parameters: ['setupId'] },
+  'GET /api/runs': { parameters: Object.keys(runListQuerySchema.shape) },
+  'GET /api/audit': { parameters: Object.keys(auditQuerySchema.shape) },
+  'GET /api/audit/export.csv': { parameters: Object.keys(auditFilterSchema.shape) },
+  'GET /api/bookings': { parameters: Object.keys(bookingListQuerySchema.shape) },
   'GET /api/planner': PLAN_QUERY,
   'GET /api/planner/general-attack': PLAN_QUERY,
-  'GET /api/planner/prefill': { parameters: ['setupId'] },
+  'GET /api/planner/prefill': { parameters: Object.keys(planPrefillQuerySchema.shape) },
 };
 
 /** SQL's quotes, comment, LIKE wildcards and escape, injections, text outside ASCII, and values far too long. */
