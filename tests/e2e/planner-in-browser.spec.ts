@@ -25,7 +25,7 @@ describe('the planner in a real browser', () => {
     await page.getByLabel('Expected win fraction').fill('0.84');
     await page.getByLabel('Expected QBER (%)').fill('2');
     await page.getByLabel('Rounds (N)').fill('2e7');
-    await page.getByLabel('Trial rate (rounds/s)').fill('10000');
+    await page.getByLabel('Rounds per second').fill('10000');
 
     const plan = planRounds({ device: { winFraction: 0.84, qber: 0.02, trialRate: 10_000 }, profile: version.parameters, rounds: 20_000_000 });
     await page.getByTestId('plan-key-bits').filter({ hasText: formatCount(plan.at.expectedFiniteKeyBits) }).waitFor();

@@ -70,7 +70,7 @@ export class PlanFigures {
     const { acquisitionSeconds, rounds } = this.at();
     const trialRate = this.plan().device.trialRate;
     return acquisitionSeconds === null || trialRate === null
-      ? 'Give the trial rate to see how long the night must be.'
+      ? 'Give the rounds per second to see how long the night must be.'
       : `${formatCount(rounds)} rounds${timeAtRate(acquisitionSeconds, trialRate)}`;
   });
 
@@ -88,7 +88,7 @@ export class PlanFigures {
       : `This profile version tests ${planned}; testing another share needs a new version of the profile.`;
   });
 
-  /** A smallest budget, with the time it takes when the trial rate is known. */
+  /** A smallest budget, with the time it takes when the rounds per second are known. */
   protected budget(rounds: number | null): string {
     if (rounds === null) return `No N up to ${formatScientific(this.plan().searchLimit)} rounds reaches it.`;
     const trialRate = this.plan().device.trialRate;

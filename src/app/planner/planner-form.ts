@@ -47,7 +47,7 @@ export const FIELD_LABELS: Readonly<Record<PlannerField, string>> = {
   profileVersionId: 'Profile version',
   rounds: 'Rounds (N)',
   testFractionPercent: 'Test fraction (%)',
-  trialRate: 'Trial rate (rounds/s)',
+  trialRate: 'Rounds per second',
 };
 
 /** The label of the input behind each field `planRounds` may refuse. */
