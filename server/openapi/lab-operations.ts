@@ -7,9 +7,11 @@ import {
   createProfileRequestSchema,
   createProfileVersionRequestSchema,
   createUploadTokenRequestSchema,
+  generalAttackPlanSchema,
   planPrefillQuerySchema,
   planPrefillSchema,
   planQuerySchema,
+  planSchema,
   profileSchema,
   saveSetupRequestSchema,
   setupSchema,
@@ -20,8 +22,6 @@ import type { Operation } from './operation';
 
 const NO_SETUP = { 404: 'No such setup.' };
 
-/** The plans are interfaces of shared/api/planner.ts, computed by shared/planner: named here, not spelled out. */
-const planAnswer = (name: string) => z.looseObject({}).meta({ description: `\`${name}\` of shared/api/planner.ts.` });
 const NO_PROFILE = { 404: 'No such profile.' };
 
 /** The lab's setups, acceptance profiles, booked nights and their upload tokens, the planner and the workers. */
@@ -110,7 +110,7 @@ export const LAB_OPERATIONS: Operation[] = [
     tags: ['Planner'],
     access: 'signed-in',
     query: planQuerySchema,
-    response: planAnswer('PlanDto'),
+    response: planSchema,
   },
   {
     method: 'get',
@@ -120,7 +120,7 @@ export const LAB_OPERATIONS: Operation[] = [
     tags: ['Planner'],
     access: 'signed-in',
     query: planQuerySchema,
-    response: planAnswer('GeneralAttackPlanDto'),
+    response: generalAttackPlanSchema,
     errors: { 503: 'Two plans are being computed already; ask again after `Retry-After` seconds.' },
   },
   { method: 'get', path: '/api/planner/prefill', summary: "Starting values from a setup's recent accepted runs", tags: ['Planner'], access: 'signed-in', query: planPrefillQuerySchema, response: planPrefillSchema, errors: NO_SETUP },
