@@ -28,6 +28,7 @@ const ENTRIES = {
   'bench/engine.ts': 'bench-engine',
   'bench/measure-engine.ts': 'measure-engine',
   'bench/measure-gunzip.ts': 'measure-gunzip',
+  'bench/measure-parts.ts': 'measure-parts',
   'bench/keylength.ts': 'bench-keylength',
 };
 /**
