@@ -6,7 +6,7 @@ export const AUDIT_TARGET_TYPES = ['run', 'user', 'profile', 'setup', 'booking',
 export type AuditTargetType = (typeof AUDIT_TARGET_TYPES)[number];
 
 /** What the system-wide trail can be narrowed to (`GET /api/audit/export.csv`; `GET /api/audit` pages it). */
-export const auditFilterSchema = z.strictObject({
+export const auditFilterSchema = /* @__PURE__ */ z.strictObject({
   actorId: z.coerce.number({ error: 'must be a user id' }).int().positive({ error: 'must be a user id' }).optional(),
   action: z
     .string()
@@ -17,19 +17,19 @@ export const auditFilterSchema = z.strictObject({
   targetId: z.string().max(64, 'must be at most 64 characters').optional(),
   from: isoDate.optional().meta({ description: 'Inclusive dates, YYYY-MM-DD (UTC).' }),
   to: isoDate.optional(),
-});
+}).meta({ description: 'The trail narrowed to an actor, an action, a target and dates.' });
 export type AuditFilter = z.infer<typeof auditFilterSchema>;
 
 /** The filters of the trail with its page (`GET /api/audit`). */
-export const auditQuerySchema = auditFilterSchema.extend(paging(50, 500));
+export const auditQuerySchema = /* @__PURE__ */ auditFilterSchema.extend(paging(50, 500)).meta({ description: 'The filtered trail, a page at a time.' });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
 /** Someone who appears in the trail, as `GET /api/audit/actors` lists them for the actor filter. */
-export const auditActorSchema = z.object({ id: z.number().int(), name: z.string() }).meta({ id: 'AuditActor' });
+export const auditActorSchema = /* @__PURE__ */ z.object({ id: z.number().int(), name: z.string() }).meta({ id: 'AuditActor' });
 export type AuditActor = z.infer<typeof auditActorSchema>;
 
 /** A page of the trail, newest first. */
-export const auditPageSchema = z
+export const auditPageSchema = /* @__PURE__ */ z
   .object({ items: z.array(auditEventSchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() })
   .meta({ id: 'AuditPageDto' });
 export type AuditPageDto = z.infer<typeof auditPageSchema>;
@@ -68,7 +68,7 @@ export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 export const TRAIL_CHECK_PROBLEM_LIMIT = 20;
 
 /** The newest link of the trail's hash chain: its place and its SHA-256, hex. */
-export const trailChainHeadSchema = z.object({ seq: z.number().int(), hash: z.string() }).meta({ id: 'TrailChainHeadDto' });
+export const trailChainHeadSchema = /* @__PURE__ */ z.object({ seq: z.number().int(), hash: z.string() }).meta({ id: 'TrailChainHeadDto' });
 export type TrailChainHeadDto = z.infer<typeof trailChainHeadSchema>;
 
 /**
@@ -76,7 +76,7 @@ export type TrailChainHeadDto = z.infer<typeof trailChainHeadSchema>;
  * event has its link, every link its event, each link's hash recomputes from its event and the link
  * before, seq runs 1, 2, 3 ... without a gap, and the head names the last link.
  */
-export const trailCheckSchema = z
+export const trailCheckSchema = /* @__PURE__ */ z
   .object({
     intact: z.boolean().meta({ description: 'True only when no problem was found.' }),
     events: z.number().int().meta({ description: 'Events in the trail now.' }),

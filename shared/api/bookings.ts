@@ -3,7 +3,7 @@ import { bodyId, isoDate, isoDateTime, queryId } from './query-fields';
 import { runStateSchema, verdictSchema } from './run-states';
 
 /** One upload of a booked night: attempt 1 is the first log, later attempts are replacements. */
-export const bookingAttemptSchema = z
+export const bookingAttemptSchema = /* @__PURE__ */ z
   .object({
     runId: z.number().int(),
     attempt: z.number().int(),
@@ -19,7 +19,7 @@ export type BookingAttemptDto = z.infer<typeof bookingAttemptSchema>;
  * A night booked before acquisition. The seed was drawn at booking and only its commitment,
  * SHA-256 of the seed's 64 hex characters, is shown until a log is in; then `seed` reveals it.
  */
-export const bookingSchema = z
+export const bookingSchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     setupId: z.number().int(),
@@ -42,7 +42,7 @@ export const bookingSchema = z
 export type BookingDto = z.infer<typeof bookingSchema>;
 
 /** Body of `POST /api/bookings`. */
-export const bookNightRequestSchema = z
+export const bookNightRequestSchema = /* @__PURE__ */ z
   .strictObject({
     setupId: bodyId('a setup'),
     night: isoDate,
@@ -56,11 +56,11 @@ export const bookNightRequestSchema = z
 export type BookNightRequest = z.infer<typeof bookNightRequestSchema>;
 
 /** Query of `GET /api/bookings`. */
-export const bookingListQuerySchema = z.strictObject({ setupId: queryId('a setup').optional() });
+export const bookingListQuerySchema = /* @__PURE__ */ z.strictObject({ setupId: queryId('a setup').optional() }).meta({ description: 'The bookings of one setup, or of all.' });
 export type BookingListQuery = z.infer<typeof bookingListQuerySchema>;
 
 /** How a run came to its seed: under a booking, or unbooked (seed drawn after the data existed). */
-export const runBookingSchema = z
+export const runBookingSchema = /* @__PURE__ */ z
   .object({
     bookingId: z.number().int(),
     night: z.string(),
@@ -73,7 +73,7 @@ export const runBookingSchema = z
 export type RunBookingDto = z.infer<typeof runBookingSchema>;
 
 /** An upload token of the acquisition computer, as listed (never the token itself). */
-export const uploadTokenSchema = z
+export const uploadTokenSchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     setupId: z.number().int(),
@@ -88,11 +88,11 @@ export const uploadTokenSchema = z
 export type UploadTokenDto = z.infer<typeof uploadTokenSchema>;
 
 /** Answer of `POST /api/setups/:id/upload-tokens`: the token, shown this once. */
-export const createdUploadTokenSchema = uploadTokenSchema.extend({ token: z.string() }).meta({ id: 'CreatedUploadTokenDto' });
+export const createdUploadTokenSchema = /* @__PURE__ */ uploadTokenSchema.extend({ token: z.string() }).meta({ id: 'CreatedUploadTokenDto' });
 export type CreatedUploadTokenDto = z.infer<typeof createdUploadTokenSchema>;
 
 /** Body of `POST /api/setups/:id/upload-tokens`. */
-export const createUploadTokenRequestSchema = z
+export const createUploadTokenRequestSchema = /* @__PURE__ */ z
   .strictObject({
     name: z.string().trim().min(1, 'is required: name the computer that will use it').max(120),
     validDays: z.number({ error: 'must be a number of days' }).int().min(1, 'must be at least 1 day').max(366, 'must be at most 366 days'),

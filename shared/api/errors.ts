@@ -4,7 +4,7 @@ export const API_ERROR_CODES = ['validation', 'unauthorized', 'forbidden', 'not-
 export type ApiErrorCode = (typeof API_ERROR_CODES)[number];
 
 /** The one JSON shape of every API error. */
-export const apiErrorBodySchema = z
+export const apiErrorBodySchema = /* @__PURE__ */ z
   .object({
     error: z.object({
       code: z.enum(API_ERROR_CODES).meta({ description: 'Stable machine-readable kind, e.g. `validation`, `unauthorized`, `forbidden`, `not-found`.' }),

@@ -4,7 +4,7 @@ import { z } from 'zod';
  * What the server signs when it stores a result. The signed bytes are
  * `SIGNED_STATEMENT_PREFIX + canonicalJson(statement)` in UTF-8 (see `signedStatementBytes`).
  */
-export const signedStatementSchema = z
+export const signedStatementSchema = /* @__PURE__ */ z
   .object({
     runId: z.number().int(),
     fileSha256: z.string().meta({ description: 'SHA-256 of the archived log, hex.' }),
@@ -15,7 +15,7 @@ export const signedStatementSchema = z
 export type SignedStatement = z.infer<typeof signedStatementSchema>;
 
 /** A stored result's signature. */
-export const resultSignatureSchema = z
+export const resultSignatureSchema = /* @__PURE__ */ z
   .object({
     algorithm: z.literal('Ed25519'),
     keyId: z.string().meta({ description: 'Names the public key: the first 16 hex digits of the SHA-256 of its raw 32 bytes.' }),
@@ -26,7 +26,7 @@ export const resultSignatureSchema = z
 export type ResultSignatureDto = z.infer<typeof resultSignatureSchema>;
 
 /** A public key the server signs (or signed) results with. */
-export const signingKeySchema = z
+export const signingKeySchema = /* @__PURE__ */ z
   .object({
     keyId: z.string(),
     algorithm: z.literal('Ed25519'),

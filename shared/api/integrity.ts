@@ -10,7 +10,7 @@ export const VERIFICATION_CHECKS = ['result-fingerprint', 'signature', 'archive-
 export type VerificationCheck = (typeof VERIFICATION_CHECKS)[number];
 
 /** One check of `GET /api/runs/:id/verification`. */
-export const verificationCheckSchema = z
+export const verificationCheckSchema = /* @__PURE__ */ z
   .object({
     check: z.enum(VERIFICATION_CHECKS),
     passed: z.boolean(),
@@ -20,7 +20,7 @@ export const verificationCheckSchema = z
 export type VerificationCheckDto = z.infer<typeof verificationCheckSchema>;
 
 /** Whether a stored result and its archived file are still what was signed, and the system trail still what was recorded. */
-export const verificationSchema = z
+export const verificationSchema = /* @__PURE__ */ z
   .object({
     runId: z.number().int(),
     checkedAt: z.string(),
@@ -34,11 +34,11 @@ export const REVERIFICATION_STATES = ['queued', 'analysing', 'reproduced', 'diff
 export type ReverificationState = (typeof REVERIFICATION_STATES)[number];
 
 /** A field where a re-analysis disagrees with the stored result (`path` as `chsh.winFraction`). */
-export const fieldDifferenceSchema = z.object({ path: z.string(), stored: z.unknown(), recomputed: z.unknown() }).meta({ id: 'FieldDifference' });
+export const fieldDifferenceSchema = /* @__PURE__ */ z.object({ path: z.string(), stored: z.unknown(), recomputed: z.unknown() }).meta({ id: 'FieldDifference' });
 export type FieldDifference = z.infer<typeof fieldDifferenceSchema>;
 
 /** A re-analysis of a finished run's archived file, kept beside (never over) the original result. */
-export const reverificationSchema = z
+export const reverificationSchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     runId: z.number().int(),
@@ -59,7 +59,7 @@ export const reverificationSchema = z
 export type ReverificationDto = z.infer<typeof reverificationSchema>;
 
 /** Body of `POST /api/runs/:id/reverifications`: empty, or (admins only) another seed, 64 hex digits. */
-export const reverificationRequestSchema = z
+export const reverificationRequestSchema = /* @__PURE__ */ z
   .strictObject({ seed: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits').optional() })
   .meta({ id: 'ReverificationRequest' });
 export type ReverificationRequest = z.infer<typeof reverificationRequestSchema>;
@@ -67,7 +67,7 @@ export type ReverificationRequest = z.infer<typeof reverificationRequestSchema>;
 /** The formats of `GET /api/runs/:id/export/:format`. */
 export const EXPORT_FORMATS = ['json', 'pdf', 'counts.csv', 'blocks.csv'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
-export const exportFormatSchema = z.enum(EXPORT_FORMATS, { error: `must be one of ${EXPORT_FORMATS.join(', ')}` });
+export const exportFormatSchema = /* @__PURE__ */ z.enum(EXPORT_FORMATS, { error: `must be one of ${EXPORT_FORMATS.join(', ')}` }).meta({ description: 'The formats of an export.' });
 
 export const RUN_REPORT_FORMAT = 'bellkeep.run-report';
 

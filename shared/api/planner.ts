@@ -7,10 +7,10 @@ import { queryId, queryNumber } from './query-fields';
  */
 
 /** A number with its meaning. */
-const described = (description: string) => z.number().meta({ description });
+const described = /* @__NO_SIDE_EFFECTS__ */ (description: string) => z.number().meta({ description });
 
 /** What the planner assumes of tonight's devices. */
-export const planDeviceSchema = z
+export const planDeviceSchema = /* @__PURE__ */ z
   .object({
     winFraction: described('Expected CHSH win fraction ω (S = 8ω − 4).'),
     qber: described('Expected error rate on the key setting.'),
@@ -21,7 +21,7 @@ export const planDeviceSchema = z
 export type PlanDevice = z.infer<typeof planDeviceSchema>;
 
 /** The expected run at one round budget N. */
-export const planPointSchema = z
+export const planPointSchema = /* @__PURE__ */ z
   .object({
     rounds: z.number(),
     testFraction: described("Share of the rounds tested (the profile's, or the planner's own for `from-log`)."),
@@ -46,13 +46,13 @@ export const planPointSchema = z
 export type PlanPoint = z.infer<typeof planPointSchema>;
 
 /** The expected finite key at one test fraction, for the chosen N. */
-export const testFractionPointSchema = z
+export const testFractionPointSchema = /* @__PURE__ */ z
   .object({ testFraction: z.number(), expectedFiniteKeyBits: z.number(), passProbability: z.number() })
   .meta({ id: 'TestFractionPoint' });
 export type TestFractionPoint = z.infer<typeof testFractionPointSchema>;
 
 /** The whole plan. */
-export const planSchema = z
+export const planSchema = /* @__PURE__ */ z
   .object({
     device: planDeviceSchema,
     at: planPointSchema.meta({ description: 'The plan at the chosen N.' }),
@@ -68,7 +68,7 @@ export const planSchema = z
 export type PlanDto = z.infer<typeof planSchema>;
 
 /** Query of `GET /api/planner` and `/general-attack`: the device as expected, a profile version, and the round budget. */
-export const planQuerySchema = z
+export const planQuerySchema = /* @__PURE__ */ z
   .strictObject({
     winFraction: queryNumber('a win fraction').optional(),
     chshValue: queryNumber('a CHSH value').optional().meta({ description: 'Alternative to `winFraction`: the expected CHSH value S.' }),
@@ -83,10 +83,10 @@ export const planQuerySchema = z
 export type PlanQuery = z.infer<typeof planQuerySchema>;
 
 /** Query of `GET /api/planner/prefill`. */
-export const planPrefillQuerySchema = z.strictObject({ setupId: queryId('a setup') });
+export const planPrefillQuerySchema = /* @__PURE__ */ z.strictObject({ setupId: queryId('a setup') }).meta({ description: 'The setup whose runs fill the plan in.' });
 
 /** `GET /api/planner/prefill?setupId=`: what a setup's recent accepted runs did. */
-export const planPrefillSchema = z
+export const planPrefillSchema = /* @__PURE__ */ z
   .object({
     setupId: z.number().int(),
     profileVersionId: z.number().int().meta({ description: "The setup's default profile, latest version." }),
@@ -100,7 +100,7 @@ export const planPrefillSchema = z
 export type PlanPrefillDto = z.infer<typeof planPrefillSchema>;
 
 /** What the general-attack key length is planned with. */
-export const generalPlanSettingsSchema = z
+export const generalPlanSettingsSchema = /* @__PURE__ */ z
   .object({
     source: z.enum(['profile', 'device']).meta({ description: "`profile`: the profile's own settings; `device`: a protocol designed for the expected device." }),
     soundness: z.number(),
@@ -112,7 +112,7 @@ export const generalPlanSettingsSchema = z
 export type GeneralPlanSettingsDto = z.infer<typeof generalPlanSettingsSchema>;
 
 /** The general-attack key at one round budget and test probability. */
-export const generalKeyPointSchema = z
+export const generalKeyPointSchema = /* @__PURE__ */ z
   .object({
     rounds: described('Log rounds N.'),
     testProbability: described('The probability γ that a round is tested.'),
@@ -130,7 +130,7 @@ export const generalKeyPointSchema = z
 export type GeneralKeyPoint = z.infer<typeof generalKeyPointSchema>;
 
 /** `GET /api/planner/general-attack`: the key length against general attacks over N and γ. */
-export const generalAttackPlanSchema = z
+export const generalAttackPlanSchema = /* @__PURE__ */ z
   .object({
     settings: generalPlanSettingsSchema,
     at: generalKeyPointSchema.meta({ description: 'At the chosen N and γ.' }),

@@ -15,7 +15,7 @@ export const WORKER_HEARTBEAT_SECONDS = 10;
  * shared/analysis/result.ts). Its shape is the engine's to define and version (`engineVersion`),
  * so the contract names the fields every version has and leaves the rest open.
  */
-export const analysisResultSchema = z
+export const analysisResultSchema = /* @__PURE__ */ z
   .custom<AnalysisResult>((value) => typeof value === 'object' && value !== null && typeof (value as { fingerprint?: unknown }).fingerprint === 'string')
   .meta({
     id: 'AnalysisResult',
@@ -24,7 +24,7 @@ export const analysisResultSchema = z
     required: ['engineVersion', 'verdict', 'fingerprint', 'checks', 'blocks'],
     properties: {
       engineVersion: { type: 'string' },
-      verdict: { enum: [...VERDICTS] },
+      verdict: { enum: VERDICTS },
       fingerprint: { type: 'string', description: 'SHA-256 of the canonical JSON of everything else, hex.' },
       checks: { type: 'array' },
       blocks: { type: 'array' },
@@ -32,15 +32,15 @@ export const analysisResultSchema = z
   });
 
 /** A shift lead's sign-off of a finished run. */
-export const signOffSchema = z
+export const signOffSchema = /* @__PURE__ */ z
   .object({ userId: z.number().int(), userName: z.string(), comment: z.string(), createdAt: z.string() })
   .meta({ id: 'SignOffDto' });
 export type SignOffDto = z.infer<typeof signOffSchema>;
 
-const nullableNumber = (description: string) => z.number().nullable().meta({ description });
+const nullableNumber = /* @__NO_SIDE_EFFECTS__ */ (description: string) => z.number().nullable().meta({ description });
 
 /** A run as lists show it. */
-export const runSummarySchema = z
+export const runSummarySchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     setupId: z.number().int(),
@@ -72,13 +72,13 @@ export const runSummarySchema = z
 export type RunSummaryDto = z.infer<typeof runSummarySchema>;
 
 /** One attempt to mail a run's verdict. */
-export const mailDeliverySchema = z
+export const mailDeliverySchema = /* @__PURE__ */ z
   .object({ recipients: z.array(z.string()), status: z.enum(['sent', 'failed']), messageId: z.string().nullable(), error: z.string().nullable(), attemptedAt: z.string() })
   .meta({ id: 'MailDeliveryDto' });
 export type MailDeliveryDto = z.infer<typeof mailDeliverySchema>;
 
 /** A run in full: `result` is the engine's JSON exactly as the `analyse` command prints it. */
-export const runSchema = runSummarySchema
+export const runSchema = /* @__PURE__ */ runSummarySchema
   .extend({
     file: z.object({ sha256: z.string(), bytes: z.number().int(), originalName: z.string() }),
     seed: z.string(),
@@ -100,7 +100,7 @@ export const runSchema = runSummarySchema
 export type RunDto = z.infer<typeof runSchema>;
 
 /** A page of runs. */
-export const runPageSchema = z
+export const runPageSchema = /* @__PURE__ */ z
   .object({ items: z.array(runSummarySchema), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() })
   .meta({ id: 'RunPageDto' });
 export type RunPageDto = z.infer<typeof runPageSchema>;
@@ -112,13 +112,13 @@ export type RunSortKey = (typeof RUN_SORT_KEYS)[number];
 /** Hex prefixes of `GET /api/runs` (`sha256`, `fingerprint`) have at least this many digits. */
 export const RUN_SEARCH_MIN_PREFIX = 4;
 
-const hexPrefix = z
+const hexPrefix = /* @__PURE__ */ z
   .string()
   .regex(new RegExp(`^[0-9a-fA-F]{${RUN_SEARCH_MIN_PREFIX},64}$`), `must be ${RUN_SEARCH_MIN_PREFIX} to 64 hexadecimal digits`)
   .transform((hex) => hex.toLowerCase());
 
 /** The filters, sort and page of `GET /api/runs`. */
-export const runListQuerySchema = z.strictObject({
+export const runListQuerySchema = /* @__PURE__ */ z.strictObject({
   ...paging(25, 200),
   sort: z.enum(RUN_SORT_KEYS).default('createdAt'),
   direction: z.enum(['asc', 'desc']).default('desc'),
@@ -136,17 +136,17 @@ export const runListQuerySchema = z.strictObject({
     .transform((flag) => flag === 'true')
     .optional()
     .meta({ description: 'Only runs whose analysis has ended (with a verdict or failed).' }),
-});
+}).meta({ description: 'The filters, sort and page of the run list.' });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
 
 /** Body of `POST /api/runs/:id/sign-off` (a shift lead of the run's setup). */
-export const signOffRequestSchema = z
+export const signOffRequestSchema = /* @__PURE__ */ z
   .strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) })
   .meta({ id: 'SignOffRequest' });
 export type SignOffRequest = z.infer<typeof signOffRequestSchema>;
 
 /** One line of the audit trail. */
-export const auditEventSchema = z
+export const auditEventSchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     actor: z.string().nullable(),

@@ -1,11 +1,11 @@
 import { z } from 'zod';
 
 /** A shift lead assigned to a setup. */
-export const setupShiftLeadSchema = z.object({ id: z.number().int(), name: z.string(), email: z.string() }).meta({ id: 'SetupShiftLeadDto' });
+export const setupShiftLeadSchema = /* @__PURE__ */ z.object({ id: z.number().int(), name: z.string(), email: z.string() }).meta({ id: 'SetupShiftLeadDto' });
 export type SetupShiftLeadDto = z.infer<typeof setupShiftLeadSchema>;
 
 /** One two-station experiment. */
-export const setupSchema = z
+export const setupSchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     name: z.string(),
@@ -21,10 +21,10 @@ export const setupSchema = z
   .meta({ id: 'SetupDto' });
 export type SetupDto = z.infer<typeof setupSchema>;
 
-const label = z.string().trim().min(1, 'is required').max(120);
+const label = /* @__PURE__ */ z.string().trim().min(1, 'is required').max(120);
 
 /** Body of `POST /api/setups` and `PUT /api/setups/:id` (admin). */
-export const saveSetupRequestSchema = z
+export const saveSetupRequestSchema = /* @__PURE__ */ z
   .strictObject({
     name: label,
     description: z.string().trim().max(2000).optional(),

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { ROLES } from './roles';
 
 /** A user as the API returns it: never the password hash. */
-export const userSchema = z
+export const userSchema = /* @__PURE__ */ z
   .object({
     id: z.number().int(),
     email: z.string(),
@@ -17,11 +17,11 @@ export type UserDto = z.infer<typeof userSchema>;
 /** Shortest password an admin may set (common practice, no source). */
 export const MIN_PASSWORD_LENGTH = 10;
 
-const rolesField = z.array(z.enum(ROLES)).min(1, 'needs at least one role');
-const personName = z.string().trim().min(1, 'is required').max(200);
+const rolesField = /* @__PURE__ */ z.array(z.enum(ROLES)).min(1, 'needs at least one role');
+const personName = /* @__PURE__ */ z.string().trim().min(1, 'is required').max(200);
 
 /** Body of `POST /api/users` (admin). */
-export const createUserRequestSchema = z
+export const createUserRequestSchema = /* @__PURE__ */ z
   .strictObject({
     email: z.string().trim().max(320).pipe(z.email('is not an e-mail address')),
     name: personName,
@@ -32,7 +32,7 @@ export const createUserRequestSchema = z
 export type CreateUserRequest = z.infer<typeof createUserRequestSchema>;
 
 /** Body of `PATCH /api/users/:id` (admin): each field optional, at least one given. */
-export const updateUserRequestSchema = z
+export const updateUserRequestSchema = /* @__PURE__ */ z
   .strictObject({ name: personName.optional(), roles: rolesField.optional(), active: z.boolean().optional() })
   .refine((body) => Object.keys(body).length > 0, 'give at least one of name, roles, active')
   .meta({ id: 'UpdateUserRequest' });

@@ -11,7 +11,7 @@ export const WORKER_SILENT_AFTER_BEATS = 3;
 export const WORKER_DYING_ENDS_PER_HOUR = 3;
 
 /** One analysis-worker process, `GET /api/workers`. */
-export const workerSchema = z
+export const workerSchema = /* @__PURE__ */ z
   .object({
     id: z.string(),
     name: z.string().meta({ description: '`host:pid`, as runs name the worker that analysed them.' }),
@@ -25,7 +25,7 @@ export const workerSchema = z
 export type WorkerDto = z.infer<typeof workerSchema>;
 
 /** The admins' view of the analysis workers: who takes jobs, who died, what waits. */
-export const workersOverviewSchema = z
+export const workersOverviewSchema = /* @__PURE__ */ z
   .object({
     workers: z.array(workerSchema).meta({ description: 'Workers that started in the last 24 hours, or still run, newest first.' }),
     takingJobs: z.number().int(),
@@ -37,14 +37,14 @@ export const workersOverviewSchema = z
 export type WorkersOverviewDto = z.infer<typeof workersOverviewSchema>;
 
 /** One part's answer to `GET /api/ready`. */
-export const readinessCheckSchema = z
+export const readinessCheckSchema = /* @__PURE__ */ z
   .object({ part: z.string(), ready: z.boolean(), problem: z.string().nullable().meta({ description: 'Why it is not ready, in one line; null when it is.' }) })
   .meta({ id: 'ReadinessCheckDto' });
 export type ReadinessCheckDto = z.infer<typeof readinessCheckSchema>;
 
 /** `GET /api/ready`: 200 when every part answers, 503 naming the one that does not. */
-export const readinessSchema = z.object({ status: z.enum(['ready', 'not-ready']), checks: z.array(readinessCheckSchema) }).meta({ id: 'ReadinessDto' });
+export const readinessSchema = /* @__PURE__ */ z.object({ status: z.enum(['ready', 'not-ready']), checks: z.array(readinessCheckSchema) }).meta({ id: 'ReadinessDto' });
 export type ReadinessDto = z.infer<typeof readinessSchema>;
 
 /** `GET /api/health`: the process lives. */
-export const healthSchema = z.object({ status: z.literal('ok') }).meta({ id: 'HealthDto' });
+export const healthSchema = /* @__PURE__ */ z.object({ status: z.literal('ok') }).meta({ id: 'HealthDto' });
