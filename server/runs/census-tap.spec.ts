@@ -59,6 +59,14 @@ describe('the census an upload takes on the way', () => {
     expect(tap.census).toBeNull();
   });
 
+  it('stops decompressing a gzip bomb at the engine’s expansion limit: no census, every byte passed on', async () => {
+    // 64 MiB of line breaks: read whole, they would make a census of 64 Mi blank lines.
+    const bomb = zlib.gzipSync(Buffer.alloc(64 * 1024 * 1024, 10));
+    const { out, tap } = await tapped(piecesOf(bomb, [1000, 5000]));
+    expect(out.equals(bomb)).toBe(true);
+    expect(tap.census).toBeNull();
+  });
+
   it('counts a log shorter than the gzip magic as plain text', async () => {
     const { tap } = await tapped(Readable.from([Buffer.from('x')]));
     expect(tap.census).toEqual(censusOfText(Buffer.from('x')));

@@ -1,6 +1,7 @@
 import { Transform, type TransformCallback } from 'node:stream';
 import zlib from 'node:zlib';
 import { LogCensusTaker, type LogCensus } from '../../shared/analysis/log/log-census';
+import { expandsLikeABomb } from '../../shared/analysis/node/decoded-log';
 
 const GZIP_MAGIC = [0x1f, 0x8b];
 
@@ -8,9 +9,10 @@ const GZIP_MAGIC = [0x1f, 0x8b];
  * Passes an upload's bytes through unchanged while taking the log's census (lines, records and
  * marks every few MiB of text; see LogCensus), so the worker's analysis needs no counting pass of
  * its own. A gzip log (known by its magic bytes, not its name) is decompressed beside the upload
- * for this. The census is a help, never a condition: bytes that are no readable gzip, or a
- * census that fails, give `null`, and the upload goes on; the analysis then counts for itself and
- * reports the log's problem.
+ * for this, under the engine's guard against decompression bombs: past it the decompression stops.
+ * The census is a help, never a condition: bytes that are no readable gzip, a bomb, or a census
+ * that fails give `null`, and the upload goes on; the analysis then counts for itself and reports
+ * the log's problem.
  */
 export class CensusTap extends Transform {
   private taker: LogCensusTaker | null = new LogCensusTaker();
@@ -63,15 +65,22 @@ export class CensusTap extends Transform {
   private startGunzip(): void {
     const gunzip = zlib.createGunzip();
     this.gunzip = gunzip;
+    let decoded = 0;
     this.gunzipEnded = new Promise((resolve) => {
-      gunzip.on('data', (text: Buffer) => this.count(text));
-      gunzip.once('end', resolve);
-      gunzip.on('error', () => {
+      // No census; a destroyed stream emits no 'drain', so a write waiting for one is released.
+      const giveUp = () => {
         this.taker = null;
-        // A destroyed stream emits no 'drain': release a write waiting for one.
         gunzip.emit('drain');
         resolve();
+      };
+      gunzip.on('data', (text: Buffer) => {
+        decoded += text.length;
+        if (!expandsLikeABomb(decoded, gunzip.bytesWritten)) return this.count(text);
+        gunzip.destroy();
+        giveUp();
       });
+      gunzip.once('end', resolve);
+      gunzip.on('error', giveUp);
     });
   }
 

@@ -12,7 +12,7 @@ const GZIP_MAGIC = [0x1f, 0x8b];
  * byte about 1000-fold, which without a bound costs a worker minutes per compressed megabyte.
  */
 export const MAX_GZIP_EXPANSION = 100;
-const EXPANSION_GRACE_BYTES = 100 * 1024;
+export const EXPANSION_GRACE_BYTES = 100 * 1024;
 
 /** The decoded (decompressed when gzip) bytes of a log. */
 export interface DecodedLog {
@@ -59,6 +59,11 @@ export async function decodeLog(raw: AsyncIterable<Uint8Array>, onRaw: (chunk: U
   return { gzip, chunks: gzip ? gunzipped(rawChunks()) : rawChunks() };
 }
 
+/** Whether `decoded` bytes from `compressed` expand past MAX_GZIP_EXPANSION (after the grace). */
+export function expandsLikeABomb(decoded: number, compressed: number): boolean {
+  return decoded > EXPANSION_GRACE_BYTES && decoded > MAX_GZIP_EXPANSION * compressed;
+}
+
 async function* gunzipped(raw: AsyncIterable<Uint8Array>): AsyncGenerator<Uint8Array> {
   const input = Readable.from(raw);
   const gunzip = createGunzip({ chunkSize: 1024 * 1024 });
@@ -70,7 +75,7 @@ async function* gunzipped(raw: AsyncIterable<Uint8Array>): AsyncGenerator<Uint8A
     for await (const chunk of gunzip) {
       decoded += (chunk as Uint8Array).length;
       // bytesWritten: the compressed bytes the decoder has taken so far.
-      if (decoded > EXPANSION_GRACE_BYTES && decoded > MAX_GZIP_EXPANSION * gunzip.bytesWritten) {
+      if (expandsLikeABomb(decoded, gunzip.bytesWritten)) {
         problem = `the gzip data expands more than ${MAX_GZIP_EXPANSION}-fold (${gunzip.bytesWritten} bytes to ${decoded} so far): a decompression bomb, not a round log`;
         break;
       }
