@@ -56,15 +56,6 @@ export function fixedFractionTests(fraction: number, totalRounds: number): numbe
   return Math.floor(fraction * totalRounds);
 }
 
-/** Counts the test decisions among `count` passed-over triggers. */
-function skipBy(selector: TestSelector, count: number): number {
-  let tests = 0;
-  for (let i = 0; i < count; i++) {
-    tests += selector.next(NaN);
-  }
-  return tests;
-}
-
 /**
  * Selection sampling (Knuth, TAOCP vol. 2, §3.4.2, Algorithm S): trigger i is chosen when
  * u_i < (n − chosen so far)/(N − i), which yields exactly n test rounds, every subset of that size
@@ -89,8 +80,26 @@ class FixedFractionSelector implements TestSelector {
     return chosen;
   }
 
+  /** `next` over many triggers at once, on the pending uniform numbers in bulk (a stretch's replay of the ones before it runs here). */
   skip(count: number): number {
-    return skipBy(this, count);
+    let remainingTests = this.remainingTests;
+    let remainingTriggers = this.remainingTriggers;
+    let tests = 0;
+    for (let left = count; left > 0; ) {
+      const uniforms = this.uniforms.pending();
+      const taken = Math.min(left, uniforms.length);
+      for (let i = 0; i < taken; i++) {
+        const chosen = uniforms[i] < remainingTests / remainingTriggers ? 1 : 0;
+        remainingTriggers--;
+        remainingTests -= chosen;
+        tests += chosen;
+      }
+      this.uniforms.advance(taken);
+      left -= taken;
+    }
+    this.remainingTests = remainingTests;
+    this.remainingTriggers = remainingTriggers;
+    return tests;
   }
 
   bulk(): BulkSelection {
@@ -116,7 +125,18 @@ class BernoulliSelector implements TestSelector {
   }
 
   skip(count: number): number {
-    return skipBy(this, count);
+    const probability = this.probability;
+    let tests = 0;
+    for (let left = count; left > 0; ) {
+      const uniforms = this.uniforms.pending();
+      const taken = Math.min(left, uniforms.length);
+      for (let i = 0; i < taken; i++) {
+        tests += uniforms[i] < probability ? 1 : 0;
+      }
+      this.uniforms.advance(taken);
+      left -= taken;
+    }
+    return tests;
   }
 
   bulk(): BulkSelection {

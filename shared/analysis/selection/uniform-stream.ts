@@ -56,11 +56,11 @@ export class UniformStream {
 
   private refill(): void {
     const bytes = this.keystream(this.nextBlock, BLOCKS_PER_REFILL);
+    const words = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
     const uniforms = this.uniforms;
     for (let round = 0, at = 0; round < ROUNDS_PER_REFILL; round++, at += BYTES_PER_ROUND) {
-      const high = ((bytes[at] << 24) | (bytes[at + 1] << 16) | (bytes[at + 2] << 8) | bytes[at + 3]) >>> 0;
-      const low = ((bytes[at + 4] << 24) | (bytes[at + 5] << 16) | (bytes[at + 6] << 8) | bytes[at + 7]) >>> 0;
-      uniforms[round] = (high * TWO_TO_21 + (low >>> 11)) * TWO_TO_MINUS_53;
+      // getUint32 reads big-endian unless told otherwise.
+      uniforms[round] = (words.getUint32(at) * TWO_TO_21 + (words.getUint32(at + 4) >>> 11)) * TWO_TO_MINUS_53;
     }
     this.nextBlock += BLOCKS_PER_REFILL;
     this.offset = 0;
