@@ -75,8 +75,11 @@ export class LastLineKeeper {
       this.tail = joined.length > LONGEST_KEPT_LINE ? joined.slice(joined.length - LONGEST_KEPT_LINE) : joined;
       return;
     }
-    const complete = concat(this.tail, chunk.subarray(0, newline + 1));
-    this.last = lastRecordLine(complete)?.slice() ?? this.last;
+    // The last record is among the chunk's whole lines, else in the line the tail began (joined
+    // only then, so an upload's chunks are not copied whole).
+    const firstNewline = chunk.indexOf(LF);
+    const last = lastRecordLine(chunk.subarray(firstNewline + 1, newline + 1)) ?? lastRecordLine(concat(this.tail, chunk.subarray(0, firstNewline + 1)));
+    this.last = last?.slice() ?? this.last;
     this.tail = chunk.slice(newline + 1);
   }
 
