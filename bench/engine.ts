@@ -3,6 +3,7 @@ import { mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { parseArgs } from 'node:util';
+import { withEngineMemory } from '../shared/analysis/node';
 import { censusOfBenchLog, gzipBenchLog, writeBenchLog } from './bench-log';
 
 // `npm run bench [-- --rounds 1e7,1e8 --repeat 5 --references-up-to 1e7]`: for each size, a plain
@@ -36,7 +37,9 @@ function nodeScript(name: string): [string, string[]] {
 
 function measureOnce(command: string, args: string[]): Measurement {
   const started = process.hrtime.bigint();
-  const printed = execFileSync(command, args, { cwd: ROOT, encoding: 'utf8', maxBuffer: 1 << 20 });
+  // The engine runs with the allocator settings its worker gets; the Python references as they are.
+  const env = command === process.execPath ? withEngineMemory(process.env) : process.env;
+  const printed = execFileSync(command, args, { cwd: ROOT, env, encoding: 'utf8', maxBuffer: 1 << 20 });
   const processSeconds = Number(process.hrtime.bigint() - started) / 1e9;
   return { ...(JSON.parse(printed) as Omit<Measurement, 'processSeconds'>), processSeconds };
 }

@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { PROJECT_ROOT } from '../../server/config/config';
 import { stopWorkerProcess } from '../../server/worker/worker-process';
+import { withEngineMemory } from '../../shared/analysis/node';
 
 const START_TIMEOUT_MS = 60_000;
 
@@ -31,7 +32,7 @@ export async function startBellkeepProcess(
   // Compiled, as `npm run api` and `npm run worker` run them.
   const child = spawn(process.execPath, [...profiling, path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), entry], {
     cwd: PROJECT_ROOT,
-    env: { ...process.env, ...environment },
+    env: withEngineMemory({ ...process.env, ...environment }),
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let stderr = '';

@@ -1,6 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { PROJECT_ROOT } from '../config/config';
+import { withEngineMemory } from '../../shared/analysis/node';
 
 /** What a worker prints once it takes jobs (server/worker/main.ts). */
 export const TAKING_JOBS = 'is taking analysis jobs';
@@ -10,12 +11,13 @@ export const TAKING_JOBS = 'is taking analysis jobs';
  * test spawns): an analysis keeps both cores busy and must not slow the API down. It runs the
  * worker's compiled bundle (server/cli/run-compiled.js builds it when a source is newer) in the
  * same process, so the child's pid is the worker's own.
- * `environment` adds to this process's environment. Its output goes on to this process's.
+ * `environment` adds to this process's environment, and the engine's allocator settings are set
+ * (see engine-memory.ts). Its output goes on to this process's.
  */
 export function spawnWorkerProcess(environment: Record<string, string>): ChildProcess {
   const child = spawn(process.execPath, [path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), 'server/worker/main.ts'], {
     cwd: PROJECT_ROOT,
-    env: { ...process.env, ...environment },
+    env: withEngineMemory({ ...process.env, ...environment }),
     stdio: ['ignore', 'pipe', 'inherit'],
   });
   child.stdout!.pipe(process.stdout, { end: false });

@@ -5,6 +5,7 @@ import path from 'node:path';
 import request from 'supertest';
 import type { RunDto } from '../../shared/api';
 import { spawnWorkerProcess, stopWorkerProcess, untilTakingJobs } from '../../server/worker/worker-process';
+import { ENGINE_MALLOC_TUNABLES } from '../../shared/analysis/node';
 import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
 import { writeModelLog } from '../../fixtures/model-log-file';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
@@ -109,6 +110,10 @@ describe('two worker processes with the archive in S3 (the local fake), each wit
   it('share the work, analyse every run exactly once, retry a run killed mid-analysis on the other, and leave no copies', async () => {
     const fen = await setupId(testApp.app, dev, 'Fen link');
     const [first, second] = pool.processes;
+    // Each runs with the engine's allocator settings (shared/analysis/node/engine-memory.ts); glibc
+    // rewrites the variable in place as it reads it, so only its first setting shows in /proc.
+    const firstSetting = `GLIBC_TUNABLES=${ENGINE_MALLOC_TUNABLES.split(':')[0]}`;
+    for (const worker of pool.processes) expect(fs.readFileSync(`/proc/${worker.pid}/environ`, 'utf8').split('\0')).toContainEqual(expect.stringMatching(new RegExp(`^${firstSetting}`)));
 
     const nights = await uploadAtOnce(testApp, dev, fen, nightLogs);
     const analysed = await Promise.all(nights.map((run) => waitForFinishedRun(testApp.app, dev, run.id, 60_000)));

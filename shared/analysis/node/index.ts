@@ -5,3 +5,4 @@ export type { AnalysisProgress, ProgressListener } from './analysis-progress';
 export type { LogSource } from './log-source';
 export type { StoredCensus } from './census-ranges';
 export { resultFingerprint } from './fingerprint';
+export { ENGINE_MALLOC_TUNABLES, withEngineMemory } from './engine-memory';
