@@ -2,13 +2,15 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { readLogHead } from '../shared/analysis/log/log-head';
 import { LineCounter } from '../shared/analysis/log/line-counter';
+import { createLineCounter } from '../shared/analysis/node/wasm-line-counter';
 import { UniformStream } from '../shared/analysis/selection/uniform-stream';
 import { aesKeystream } from '../shared/analysis/node/aes-keystream';
 import { createRowKernel } from '../shared/analysis/node/wasm-row-kernel';
 
 // Where an analysis's processor time goes, part by part, each on one thread over a log already in
 // memory: `node dist/server/measure-parts.js <plain log>` prints the CPU seconds (user + system, so
-// other processes on the machine count little) of the SHA-256, the line count of the counting pass,
+// other processes on the machine count little) of the SHA-256, the line count of the counting pass
+// (the TypeScript rule, and the WebAssembly count the engine uses),
 // the keystream turned into uniform numbers for every round, and the row kernel reading every row
 // (parse and checks only). Medians of 3. What the engine's two threads must share at the least.
 
@@ -37,6 +39,10 @@ function main(): void {
     }),
     lineCount: cpuSeconds(() => {
       const counter = new LineCounter();
+      for (let at = 0; at < bytes.length; at += CHUNK) counter.push(bytes.subarray(at, at + CHUNK));
+    }),
+    lineCountWasm: cpuSeconds(() => {
+      const counter = createLineCounter();
       for (let at = 0; at < bytes.length; at += CHUNK) counter.push(bytes.subarray(at, at + CHUNK));
     }),
   };

@@ -6,18 +6,23 @@
 // finds the range worker's bundle beside itself as the TypeScript finds range-worker.ts. The
 // bundles are made again whenever a source or the lock file is newer than the last build. Without
 // esbuild (an install without dev dependencies) the command runs through tsx instead. The engine's
-// row kernel (wasm/row-kernel.ts, AssemblyScript) is compiled to dist/server/row-kernel.wasm beside
-// them; without it the engine reads with its TypeScript scanner alone. Plain JavaScript: this file is
-// what runs before anything is compiled.
+// WebAssembly (wasm/*.ts, AssemblyScript: the row kernel, the line count) is compiled to
+// dist/server/<name>.wasm beside them; without it the engine does that work in TypeScript alone.
+// Plain JavaScript: this file is what runs before anything is compiled.
 'use strict';
 const fs = require('node:fs');
 const path = require('node:path');
 
 const ROOT = path.resolve(__dirname, '..', '..');
 const SOURCE_FOLDERS = ['server', 'shared', 'bench', 'fixtures', 'migrations', 'seeders', 'wasm'];
-/** The row kernel's source and its compiled module (found there by shared/analysis/node/wasm-row-kernel.ts). */
-const KERNEL_SOURCE = path.join(ROOT, 'wasm', 'row-kernel.ts');
-const KERNEL_NAME = 'row-kernel.wasm';
+/**
+ * The engine's WebAssembly: wasm/<name>.ts compiled to dist/server/<name>.wasm (found there by
+ * shared/analysis/node/wasm-modules.ts), with each one's compiler options (see its source).
+ */
+const WASM_MODULES = {
+  'row-kernel': ['--memoryBase', '262144', '--initialMemory', '5'],
+  'line-count': ['--enable', 'simd', '--memoryBase', '1024', '--initialMemory', '2'],
+};
 /** The bundles: command file → bundle name. */
 const ENTRIES = {
   'server/cli/analyse.ts': 'analyse',
@@ -108,7 +113,7 @@ function build() {
     process.stderr.write(`run-compiled: the build failed (${error.message.split('\n')[0]}); running through tsx\n`);
     return false;
   }
-  buildKernel(staging);
+  buildWasmModules(staging);
   // Dated when the build began, so a source saved during the build is newer than it.
   fs.writeFileSync(path.join(staging, '.built'), '');
   fs.utimesSync(path.join(staging, '.built'), started, started);
@@ -120,24 +125,28 @@ function build() {
 }
 
 /**
- * Compiles the row kernel into `staging` with the AssemblyScript compiler (some seconds), or keeps
- * the last build's when its source has not changed since. Without the compiler, or when it fails,
- * there is no kernel, and the engine reads without it.
+ * Compiles each of the engine's WebAssembly modules into `staging` with the AssemblyScript compiler
+ * (some seconds each), or keeps the last build's when its source has not changed since. Without
+ * the compiler, or when it fails, that module is missing, and the engine does its work in
+ * TypeScript instead.
  */
-function buildKernel(staging) {
-  const built = path.join(OUT, KERNEL_NAME);
-  const builtTime = fs.statSync(built, { throwIfNoEntry: false })?.mtimeMs ?? -1;
-  if (builtTime >= fs.statSync(KERNEL_SOURCE).mtimeMs) {
-    fs.copyFileSync(built, path.join(staging, KERNEL_NAME));
-    return;
-  }
-  const { execFileSync } = require('node:child_process');
-  const options = ['-O3', '--runtime', 'stub', '--noAssert', '--memoryBase', '262144', '--initialMemory', '5'];
+function buildWasmModules(staging) {
   const compiler = path.join(ROOT, 'node_modules', 'assemblyscript', 'bin', 'asc.js');
-  try {
-    execFileSync(process.execPath, [compiler, KERNEL_SOURCE, ...options, '-o', path.join(staging, KERNEL_NAME)], { stdio: ['ignore', 'ignore', 'pipe'] });
-  } catch (error) {
-    process.stderr.write(`run-compiled: no row kernel (${String(error.message).split('\n')[0]}); the engine reads without it\n`);
+  for (const [name, moduleOptions] of Object.entries(WASM_MODULES)) {
+    const source = path.join(ROOT, 'wasm', `${name}.ts`);
+    const built = path.join(OUT, `${name}.wasm`);
+    const builtTime = fs.statSync(built, { throwIfNoEntry: false })?.mtimeMs ?? -1;
+    if (builtTime >= fs.statSync(source).mtimeMs) {
+      fs.copyFileSync(built, path.join(staging, `${name}.wasm`));
+      continue;
+    }
+    const { execFileSync } = require('node:child_process');
+    const options = ['-O3', '--runtime', 'stub', '--noAssert', ...moduleOptions];
+    try {
+      execFileSync(process.execPath, [compiler, source, ...options, '-o', path.join(staging, `${name}.wasm`)], { stdio: ['ignore', 'ignore', 'pipe'] });
+    } catch (error) {
+      process.stderr.write(`run-compiled: no ${name}.wasm (${String(error.message).split('\n')[0]}); the engine does without it\n`);
+    }
   }
 }
 

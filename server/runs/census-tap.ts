@@ -2,6 +2,7 @@ import { Transform, type TransformCallback } from 'node:stream';
 import zlib from 'node:zlib';
 import { LogCensusTaker, type LogCensus } from '../../shared/analysis/log/log-census';
 import { expandsLikeABomb } from '../../shared/analysis/node/decoded-log';
+import { createLineCounter } from '../../shared/analysis/node/wasm-line-counter';
 
 const GZIP_MAGIC = [0x1f, 0x8b];
 
@@ -15,7 +16,7 @@ const GZIP_MAGIC = [0x1f, 0x8b];
  * the log's problem.
  */
 export class CensusTap extends Transform {
-  private taker: LogCensusTaker | null = new LogCensusTaker();
+  private taker: LogCensusTaker | null = new LogCensusTaker(undefined, createLineCounter());
   private head: Buffer | null = Buffer.alloc(0);
   private gunzip: zlib.Gunzip | null = null;
   private gunzipEnded: Promise<void> = Promise.resolve();

@@ -9,11 +9,23 @@ export interface LineCount {
   records: number;
 }
 
+/** Counts the lines and records of a text pushed in chunks cut anywhere. */
+export interface LineCounting {
+  /** Counts the lines of one chunk. */
+  push(chunk: Uint8Array): void;
+  /** The complete lines so far (a line still without its line break left out). */
+  peek(): LineCount;
+  /** The totals, counting a last line that lacks a line break. */
+  finish(): LineCount;
+}
+
 /**
  * The counting pass: counts lines and records (non-blank lines; a line holding only the CR of a CRLF
- * is blank) with the same rules as the byte scanner, across chunk cuts.
+ * is blank) with the same rules as the byte scanner, across chunk cuts. The rule itself, in
+ * TypeScript; the engine counts with node/wasm-line-counter.ts where its WebAssembly was built,
+ * which must agree with this (see its spec).
  */
-export class LineCounter {
+export class LineCounter implements LineCounting {
   private lines = 0;
   private records = 0;
   /** Bytes of the current, unfinished line seen so far. */

@@ -1,4 +1,4 @@
-import { LineCounter } from './line-counter';
+import { LineCounter, LineCounting } from './line-counter';
 import { LastLineKeeper } from './record-edges';
 
 /** Decoded bytes between two marks of a census, about: a mark is the first line start after each multiple. */
@@ -44,15 +44,20 @@ export function censusLastLine(census: LogCensus): Uint8Array | null {
  * mark offsets and counts the rest in bulk.
  */
 export class LogCensusTaker {
-  private readonly counter = new LineCounter();
   private readonly lastLine = new LastLineKeeper();
   private readonly marks: CensusMark[] = [];
   private bytes = 0;
   /** Offset from which the next mark's line start is sought. */
   private nextMark: number;
 
-  /** `markBytes`: text between marks (tests take small logs with many marks). */
-  constructor(private readonly markBytes = CENSUS_MARK_BYTES) {
+  /**
+   * `markBytes`: text between marks (tests take small logs with many marks); `counter`: the line
+   * counter (the engine's WebAssembly one in the upload, see node/wasm-line-counter.ts).
+   */
+  constructor(
+    private readonly markBytes = CENSUS_MARK_BYTES,
+    private readonly counter: LineCounting = new LineCounter(),
+  ) {
     this.nextMark = markBytes;
   }
 

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { open } from 'node:fs/promises';
-import { LineCount, LineCounter } from '../log/line-counter';
+import { LineCount } from '../log/line-counter';
+import { createLineCounter } from './wasm-line-counter';
 import { READ_CHUNK_BYTES } from './log-source';
 import { ByteRange } from './range-task';
 
@@ -24,7 +25,7 @@ export async function hashAndCount(
   cancelled: () => boolean,
 ): Promise<CountingPass> {
   const hash = hashing ? createHash('sha256') : null;
-  const counters = ranges.map(() => new LineCounter());
+  const counters = ranges.map(() => createLineCounter());
   const file = await open(path, 'r');
   try {
     const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
 import { ByteScanner } from '../log/byte-scanner';
 import { HEAD_BYTES, LogHead, readLogHead } from '../log/log-head';
-import { LineCounter } from '../log/line-counter';
 import { censusLastLine } from '../log/log-census';
 import { RangeAnalysis } from '../log/range-analysis';
 import { planRanges, spanProblem, triggerSpan } from '../log/range-plans';
@@ -14,6 +13,7 @@ import { DamagedGzipError, decodeLog } from './decoded-log';
 import { LogSource, openSource } from './log-source';
 import { NO_ROUNDS, ReadOutcome } from './read-outcome';
 import type { CensusUse } from './ranged-reading';
+import { createLineCounter } from './wasm-line-counter';
 
 /**
  * Reads a log as a stream, in order, in the caller's thread: gzip files (which cannot be split)
@@ -40,7 +40,7 @@ export async function readAsStream(
     countProgress(chunk.length);
   });
   const compression = counting.gzip ? ('gzip' as const) : ('none' as const);
-  const counter = new LineCounter();
+  const counter = createLineCounter();
   const lastLine = new LastLineKeeper();
   const head = new Uint8Array(HEAD_BYTES);
   let headLength = 0;

@@ -1,16 +1,7 @@
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { HeaderLayout } from '../log/header-layout';
 import { KernelStep, KernelStepStart, RowKernel } from '../log/row-kernel';
 import { TEST_ROUND_BLOCK_ADDS } from '../tally/round-tally';
-
-/** Node's WebAssembly, as far as used here (this build's TypeScript libraries declare it only with the DOM's). */
-declare const WebAssembly: {
-  Module: new (bytes: Uint8Array) => KernelModule;
-  Instance: new (module: KernelModule, imports: object) => { exports: unknown };
-};
-/** A compiled WebAssembly module (opaque here). */
-type KernelModule = object;
+import { instantiate, wasmModule } from './wasm-modules';
 
 /** The kernel's exports (see wasm/row-kernel.ts). */
 interface KernelExports {
@@ -47,30 +38,6 @@ interface KernelExports {
 
 /** Cells of the two count tables (generation, test). */
 const TALLY_CELLS = 48;
-
-/**
- * Where the build puts the kernel: dist/server/, beside the bundles (this code runs in one of them),
- * or seen from this source file (jest, tsx).
- */
-const KERNEL_FILES = [join(__dirname, 'row-kernel.wasm'), join(__dirname, '..', '..', '..', 'dist', 'server', 'row-kernel.wasm')];
-
-let compiled: KernelModule | null | undefined;
-
-/** The compiled kernel of this thread, or null when the build made none (the byte scanner then reads alone). */
-function kernelModule(): KernelModule | null {
-  if (compiled === undefined) {
-    compiled = null;
-    for (const file of KERNEL_FILES) {
-      try {
-        compiled = new WebAssembly.Module(readFileSync(file));
-        break;
-      } catch {
-        // Not built there (or not at all): the next place, else none.
-      }
-    }
-  }
-  return compiled;
-}
 
 /** The row kernel in WebAssembly. */
 class WasmRowKernel implements RowKernel {
@@ -148,11 +115,11 @@ class WasmRowKernel implements RowKernel {
 
 /** A row kernel for logs of this header, or null when there is no kernel (or the header is too wide for it). */
 export function createRowKernel(layout: HeaderLayout): RowKernel | null {
-  const module = kernelModule();
+  const module = wasmModule('row-kernel');
   if (module === null) {
     return null;
   }
-  const kernel = new WebAssembly.Instance(module, {}).exports as unknown as KernelExports;
+  const kernel = instantiate<KernelExports>(module);
   if (!kernel.configure(layout.fieldCount, layout.outcomes === '±1' ? 1 : 0)) {
     return null;
   }
