@@ -16,6 +16,7 @@ import { diskFullAnswer, receiveUpload, type ReceivedRunLog } from './log-storag
 import type { RunsService } from './runs.service';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
 import { runOfUploadKey } from './upload-keys';
+import { bufferedFileStream } from '../storage/buffered-file-stream';
 
 /** A resumable upload nobody finished is thrown away after a week. */
 const ABANDONED_AFTER_MS = 7 * 86_400_000;
@@ -35,7 +36,7 @@ function tusError(error: HttpError): { status_code: number; body: string } {
  */
 class CauseKeepingFileStore extends FileStore {
   override async write(readable: IncomingMessage | Readable, id: string, offset: number): Promise<number> {
-    const file = fs.createWriteStream(path.join(this.directory, id), { flags: 'r+', start: offset });
+    const file = bufferedFileStream(path.join(this.directory, id), { flags: 'r+', start: offset });
     await pipeline(readable, file);
     return offset + file.bytesWritten;
   }

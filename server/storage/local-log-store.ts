@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
+import { bufferedFileStream } from './buffered-file-stream';
 import { checkedSha256 } from './content-address';
 import { DigestStream } from './digest-stream';
 import { StoredLogMissingError, type LogStore, type ReceivedLog } from './log-store';
@@ -34,7 +35,7 @@ export function createLocalLogStore(dataDir: string): LocalLogStore {
     const waiting = path.join(receivingFolder, `upload-${crypto.randomUUID()}.part`);
     const digest = new DigestStream();
     try {
-      await pipeline(source, digest, fs.createWriteStream(waiting, { flags: 'wx', mode: 0o600 }));
+      await pipeline(source, digest, bufferedFileStream(waiting, { flags: 'wx', mode: 0o600 }));
     } catch (error) {
       await fs.promises.rm(waiting, { force: true });
       throw error;

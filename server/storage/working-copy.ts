@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
+import { bufferedFileStream } from './buffered-file-stream';
 
 /** Copies are named `log-copy-<uuid>.part`: only such files are ever removed from a work folder. */
 const COPY_NAME = /^log-copy-[0-9a-f-]{36}\.part$/;
@@ -15,7 +16,7 @@ export async function withWorkingCopy<T>(open: () => Readable, workFolder: strin
   await fs.promises.mkdir(workFolder, { recursive: true });
   const copy = path.join(workFolder, `log-copy-${crypto.randomUUID()}.part`);
   try {
-    await pipeline(open(), fs.createWriteStream(copy, { flags: 'wx', mode: 0o600 }));
+    await pipeline(open(), bufferedFileStream(copy, { flags: 'wx', mode: 0o600 }));
     return await use(copy);
   } finally {
     await fs.promises.rm(copy, { force: true });
