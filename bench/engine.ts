@@ -22,7 +22,9 @@ interface Measurement {
   processSeconds: number;
 }
 
-const { values: options } = parseArgs({ options: { rounds: { type: 'string', default: '1e7,1e8' }, repeat: { type: 'string', default: '3' }, 'references-up-to': { type: 'string', default: '1e7' } } });
+const { values: options } = parseArgs({
+  options: { rounds: { type: 'string', default: '1e7,1e8' }, repeat: { type: 'string', default: '3' }, 'references-up-to': { type: 'string', default: '1e7' } },
+});
 const SIZES = options.rounds.split(',').map(Number);
 const REPEAT = Number(options.repeat);
 const REFERENCES_UP_TO = Number(options['references-up-to']);
@@ -53,7 +55,12 @@ function median(values: number[]): number {
 /** `REPEAT` runs: median times, largest peak memory. */
 function measure([command, args]: [string, string[]]): Measurement {
   const runs = Array.from({ length: REPEAT }, () => measureOnce(command, args));
-  return { seconds: median(runs.map((run) => run.seconds)), processSeconds: median(runs.map((run) => run.processSeconds)), peakMB: Math.max(...runs.map((run) => run.peakMB)), rounds: runs[0].rounds };
+  return {
+    seconds: median(runs.map((run) => run.seconds)),
+    processSeconds: median(runs.map((run) => run.processSeconds)),
+    peakMB: Math.max(...runs.map((run) => run.peakMB)),
+    rounds: runs[0].rounds,
+  };
 }
 
 function row(what: string, m: Measurement, rounds: number, comparison: string): string {
@@ -90,15 +97,22 @@ async function main(): Promise<void> {
         rmSync(censusFile);
         if (compressed) {
           const gunzip = measure(withArgs(nodeScript('measure-gunzip'), file));
-          process.stdout.write(`${row('decompression alone', gunzip, rounds, `engine ${(engine.seconds / gunzip.seconds).toFixed(2)}x its time, with the census ${(withCensus.seconds / gunzip.seconds).toFixed(2)}x`)}\n`);
+          process.stdout.write(
+            `${row('decompression alone', gunzip, rounds, `engine ${(engine.seconds / gunzip.seconds).toFixed(2)}x its time, with the census ${(withCensus.seconds / gunzip.seconds).toFixed(2)}x`)}\n`,
+          );
           result['gunzip'] = gunzip;
         }
         if (rounds > REFERENCES_UP_TO) {
           process.stdout.write(`  (numpy and csv scripts skipped above ${REFERENCES_UP_TO} rounds: minutes each; --references-up-to raises it)\n`);
         } else {
-          for (const [name, script] of [['numpy loadtxt', 'numpy_loadtxt.py'], ['python3 csv', 'count_rounds.py']] as const) {
+          for (const [name, script] of [
+            ['numpy loadtxt', 'numpy_loadtxt.py'],
+            ['python3 csv', 'count_rounds.py'],
+          ] as const) {
             const reference = measure(['python3', [path.join(ROOT, 'bench', script), file]]);
-            process.stdout.write(`${row(name, reference, rounds, `engine ${(reference.seconds / engine.seconds).toFixed(1)}x faster, with the census ${(reference.seconds / withCensus.seconds).toFixed(1)}x`)}\n`);
+            process.stdout.write(
+              `${row(name, reference, rounds, `engine ${(reference.seconds / engine.seconds).toFixed(1)}x faster, with the census ${(reference.seconds / withCensus.seconds).toFixed(1)}x`)}\n`,
+            );
             result[name] = reference;
           }
         }

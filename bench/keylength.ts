@@ -22,5 +22,7 @@ for (const [what, request] of CASES) {
   }
   const slowest = Math.max(...seconds);
   const first = seconds[0];
-  process.stdout.write(`${what.padEnd(34)} ${String(bits).padStart(10)} bits   first ${first.toFixed(3)} s   slowest ${slowest.toFixed(3)} s   fastest ${Math.min(...seconds).toFixed(3)} s\n`);
+  process.stdout.write(
+    `${what.padEnd(34)} ${String(bits).padStart(10)} bits   first ${first.toFixed(3)} s   slowest ${slowest.toFixed(3)} s   fastest ${Math.min(...seconds).toFixed(3)} s\n`,
+  );
 }

@@ -12,7 +12,10 @@ async function main(): Promise<void> {
     throw new Error(`the census does not fit: ${reason}`);
   };
   const started = process.hrtime.bigint();
-  const result = await analyseLog({ path: log }, { seed: '5e'.repeat(32), reader: reader === 'reference' || reader === 'scanner' ? reader : 'fast', census, onCensusMismatch: misfit });
+  const result = await analyseLog(
+    { path: log },
+    { seed: '5e'.repeat(32), reader: reader === 'reference' || reader === 'scanner' ? reader : 'fast', census, onCensusMismatch: misfit },
+  );
   const seconds = Number(process.hrtime.bigint() - started) / 1e9;
   const peakMB = process.resourceUsage().maxRSS / 1024;
   process.stdout.write(JSON.stringify({ seconds, peakMB, rounds: result.input.rounds, verdict: result.verdict }) + '\n');

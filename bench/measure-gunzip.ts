@@ -8,7 +8,11 @@ import { createGunzip } from 'node:zlib';
 // {seconds, peakMB, rounds: 0} as JSON.
 async function main(): Promise<void> {
   const started = process.hrtime.bigint();
-  await pipeline(createReadStream(process.argv[2], { highWaterMark: 4 * 1024 * 1024 }), createGunzip({ chunkSize: 1024 * 1024 }), new Writable({ write: (_chunk, _encoding, done) => done() }));
+  await pipeline(
+    createReadStream(process.argv[2], { highWaterMark: 4 * 1024 * 1024 }),
+    createGunzip({ chunkSize: 1024 * 1024 }),
+    new Writable({ write: (_chunk, _encoding, done) => done() }),
+  );
   const seconds = Number(process.hrtime.bigint() - started) / 1e9;
   process.stdout.write(JSON.stringify({ seconds, peakMB: process.resourceUsage().maxRSS / 1024, rounds: 0 }) + '\n');
 }

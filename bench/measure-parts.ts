@@ -51,10 +51,10 @@ function main(): void {
   parts.kernelRead = cpuSeconds(() => {
     rows = 0;
     // Pieces cut just after a line break, so every piece holds whole rows.
-    for (let at = head.dataOffset; at < bytes.length; ) {
+    for (let at = head.dataOffset; at < bytes.length;) {
       const end = Math.min(bytes.indexOf(10, Math.min(at + CHUNK, bytes.length - 1)) + 1 || bytes.length, bytes.length);
       kernel.load(bytes.subarray(at, end));
-      for (let from = 0; ; ) {
+      for (let from = 0; ;) {
         from = kernel.read(from, 8192);
         if (kernel.rowCount === 0) break;
         rows += kernel.rowCount;

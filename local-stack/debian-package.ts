@@ -8,10 +8,7 @@ import fs from 'node:fs';
 export function installDebianPackage(packageName: string, why: string): void {
   const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
   if (!isRoot) {
-    throw new Error(
-      `${why} needs Debian's '${packageName}' package, which is not installed. ` +
-        `Install it (sudo apt-get install -y ${packageName}) and start again.`,
-    );
+    throw new Error(`${why} needs Debian's '${packageName}' package, which is not installed. ` + `Install it (sudo apt-get install -y ${packageName}) and start again.`);
   }
   if (packageName === 'postgresql') preventDefaultPostgresCluster();
   process.stderr.write(`Installing Debian's ${packageName} for ${why} (apt-get, about a minute)...\n`);

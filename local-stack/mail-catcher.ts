@@ -19,14 +19,11 @@ const MAILDEV_CLI = path.join(PROJECT_ROOT, 'node_modules', 'maildev', 'dist', '
 export async function startMailCatcher(smtpPort: number, webPort: number, mailFolder: string): Promise<MailCatcher> {
   const child = spawn(
     process.execPath,
-    [
-      MAILDEV_CLI, '--smtp', String(smtpPort), '--ip', '127.0.0.1', '--web', String(webPort), '--web-ip', '127.0.0.1',
-      '--mail-directory', mailFolder, '--silent',
-    ],
+    [MAILDEV_CLI, '--smtp', String(smtpPort), '--ip', '127.0.0.1', '--web', String(webPort), '--web-ip', '127.0.0.1', '--mail-directory', mailFolder, '--silent'],
     { stdio: ['ignore', 'ignore', 'pipe'] },
   );
   let stderr = '';
-  child.stderr!.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
+  child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
   const inboxUrl = `http://127.0.0.1:${webPort}`;
   await waitUntilAnswering(`${inboxUrl}/api/healthz`, child, () => stderr);
   return { smtpUrl: `smtp://127.0.0.1:${smtpPort}`, inboxUrl, stop: () => stopChild(child) };

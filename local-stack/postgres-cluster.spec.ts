@@ -9,7 +9,7 @@ async function query(url: string, sql: string): Promise<Array<Record<string, unk
   const client = new Client({ connectionString: url });
   await client.connect();
   try {
-    return (await client.query(sql)).rows;
+    return (await client.query<Record<string, unknown>>(sql)).rows;
   } finally {
     await client.end();
   }

@@ -14,7 +14,7 @@ async function main(): Promise<void> {
   fake.middleware.unshift(missingOperations(folder));
   await fake.run();
   process.stdout.write('listening\n');
-  const stop = () => fake.close().finally(() => process.exit(0));
+  const stop = () => void fake.close().finally(() => process.exit(0));
   process.once('SIGTERM', stop);
   process.once('SIGINT', stop);
 }

@@ -7,7 +7,7 @@ export const FAKE_S3_CREDENTIALS = { accessKeyId: 'S3RVER', secretAccessKey: 'S3
 
 export interface S3Fake {
   endpoint: string;
-  stop(): Promise<void>;
+  stop: () => Promise<void>;
 }
 
 /**
@@ -21,13 +21,13 @@ export async function startS3Fake(options: { port: number; folder: string; bucke
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let stderr = '';
-  child.stderr!.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
+  child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
   await new Promise<void>((resolve, reject) => {
     const timer = setTimeout(() => {
       child.kill();
       reject(new Error(`The fake S3 server did not start on 127.0.0.1:${options.port} within 20 s.`));
     }, 20_000);
-    child.stdout!.on('data', (chunk: Buffer) => {
+    child.stdout.on('data', (chunk: Buffer) => {
       if (!chunk.toString().includes('listening')) return;
       clearTimeout(timer);
       resolve();

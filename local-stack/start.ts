@@ -44,7 +44,9 @@ async function main(): Promise<void> {
   fs.mkdirSync(config.dataDir, { recursive: true });
   // A second `npm start` would fail later, on the port, less clearly.
   if (await portAnswers(config.host, config.port)) {
-    throw new Error(`something already listens on ${config.host}:${config.port}: is Bellkeep running in another terminal? Open ${config.publicUrl}, or stop that one first (Ctrl-C there).`);
+    throw new Error(
+      `something already listens on ${config.host}:${config.port}: is Bellkeep running in another terminal? Open ${config.publicUrl}, or stop that one first (Ctrl-C there).`,
+    );
   }
 
   let databaseUrl = config.databaseUrl;
@@ -83,7 +85,11 @@ async function main(): Promise<void> {
   const { report } = api;
   say(`Database     ${report.migrations.length} migration(s) applied, ${report.seeders.length} seeder(s) run`);
   if (report.createdAdmin) say(`First admin  ${report.createdAdmin} (from BELLKEEP_ADMIN_EMAIL)`);
-  const worker = superviseWorker({ BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, BELLKEEP_LOG_FILE: logFile, ...archive.workerEnvironment }, say, api.recordWorkerEnd);
+  const worker = superviseWorker(
+    { BELLKEEP_DATABASE_URL: databaseUrl, BELLKEEP_SMTP_URL: smtpUrl, BELLKEEP_LOG_FILE: logFile, ...archive.workerEnvironment },
+    say,
+    api.recordWorkerEnd,
+  );
   stops.push({ what: 'the worker', stop: () => worker.stop() });
   await building;
 
@@ -108,7 +114,12 @@ async function main(): Promise<void> {
  */
 function seedHistoryMeanwhile(api: { seedHistory(onProgress: (done: number, total: number) => void): Promise<string[]> }): void {
   let progress = '';
-  void withProgress('Demo history (the app already serves)', api.seedHistory((done, total) => (progress = `night ${done} of ${total}`)), say, () => progress).then(
+  void withProgress(
+    'Demo history (the app already serves)',
+    api.seedHistory((done, total) => (progress = `night ${done} of ${total}`)),
+    say,
+    () => progress,
+  ).then(
     (seeders) => seeders.length === 0 || say(`Demo history ${seeders.length} seeder(s) run: the Runs screen has three weeks of nights`),
     (error: unknown) => say(`Demo history could not be seeded: ${error instanceof Error ? error.message : String(error)}`),
   );

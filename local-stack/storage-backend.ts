@@ -22,10 +22,10 @@ export interface StorageBackend {
 export async function startStorageBackend(config: Pick<Config, 'storage' | 'dataDir'>): Promise<StorageBackend> {
   const { storage } = config;
   if (storage.kind === 'local') {
-    return { storage, workerEnvironment: { BELLKEEP_STORAGE: 'local' }, description: `the folder ${path.join(config.dataDir, 'archive')}`, stop: async () => undefined };
+    return { storage, workerEnvironment: { BELLKEEP_STORAGE: 'local' }, description: `the folder ${path.join(config.dataDir, 'archive')}`, stop: () => Promise.resolve() };
   }
   let started: S3StorageConfig = storage;
-  let stop: () => Promise<void> = async () => undefined;
+  let stop: () => Promise<void> = () => Promise.resolve();
   let description = `s3://${storage.bucket} at ${storage.endpoint}`;
   if (!storage.endpoint) {
     const folder = path.join(config.dataDir, 's3');

@@ -11,14 +11,14 @@ export async function up({ queryInterface, transaction }: MigrationContext): Pro
   for (const profile of DEMO_PROFILES) {
     const parsed = parseProfile(profile.parameters);
     if (!parsed.ok) throw new Error(`Demo profile ${profile.name}: ${parsed.message}`);
-    const { id } = await one<{ id: number }>(
-      'INSERT INTO profiles (name, description) VALUES (:name, :description) RETURNING id',
-      { name: profile.name, description: profile.description },
-    );
-    await queryInterface.sequelize.query(
-      "INSERT INTO profile_versions (profile_id, version, parameters, note) VALUES (:id, 1, :parameters, 'First version, from the demo lab.')",
-      { transaction, replacements: { id, parameters: JSON.stringify(parsed.profile) } },
-    );
+    const { id } = await one<{ id: number }>('INSERT INTO profiles (name, description) VALUES (:name, :description) RETURNING id', {
+      name: profile.name,
+      description: profile.description,
+    });
+    await queryInterface.sequelize.query("INSERT INTO profile_versions (profile_id, version, parameters, note) VALUES (:id, 1, :parameters, 'First version, from the demo lab.')", {
+      transaction,
+      replacements: { id, parameters: JSON.stringify(parsed.profile) },
+    });
   }
   for (const setup of DEMO_SETUPS) {
     const { id } = await one<{ id: number }>(
@@ -26,12 +26,19 @@ export async function up({ queryInterface, transaction }: MigrationContext): Pro
        VALUES (:name, :description, :stationA, :stationB, (SELECT id FROM profiles WHERE name = :profile),
                ARRAY(SELECT jsonb_array_elements_text(CAST(:extra AS jsonb)))::varchar[])
        RETURNING id`,
-      { name: setup.name, description: setup.description, stationA: setup.stationALabel, stationB: setup.stationBLabel, profile: setup.profile, extra: JSON.stringify(setup.extraRecipients) },
+      {
+        name: setup.name,
+        description: setup.description,
+        stationA: setup.stationALabel,
+        stationB: setup.stationBLabel,
+        profile: setup.profile,
+        extra: JSON.stringify(setup.extraRecipients),
+      },
     );
-    await queryInterface.sequelize.query(
-      'INSERT INTO setup_shift_leads (setup_id, user_id) SELECT :id, id FROM users WHERE email IN (:leads)',
-      { transaction, replacements: { id, leads: [...setup.shiftLeads] } },
-    );
+    await queryInterface.sequelize.query('INSERT INTO setup_shift_leads (setup_id, user_id) SELECT :id, id FROM users WHERE email IN (:leads)', {
+      transaction,
+      replacements: { id, leads: [...setup.shiftLeads] },
+    });
   }
 }
 

@@ -20,16 +20,14 @@ async function main(): Promise<void> {
   const api = await startApiServer(config, { databaseUrl: config.databaseUrl, smtpUrl: config.smtpUrl }, { history: true });
   const { migrations, seeders } = api.report;
   const app = fs.existsSync(path.join(config.appDir, 'index.html')) ? `serving the app from ${config.appDir}` : 'no built app to serve';
-  process.stdout.write(
-    `Bellkeep API ${process.pid} on http://${config.host}:${config.port} (${migrations.length} migration(s), ${seeders.length} seeder(s); ${app}).\n`,
-  );
+  process.stdout.write(`Bellkeep API ${process.pid} on http://${config.host}:${config.port} (${migrations.length} migration(s), ${seeders.length} seeder(s); ${app}).\n`);
 
   const stop = async () => {
     await api.stop();
     process.exit(0);
   };
-  process.once('SIGINT', stop);
-  process.once('SIGTERM', stop);
+  process.once('SIGINT', () => void stop());
+  process.once('SIGTERM', () => void stop());
 }
 
 main().catch((error: unknown) => {

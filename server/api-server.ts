@@ -22,7 +22,7 @@ export interface RunningApi {
   /** Seeds the demo history now (when the demo is on and it was not seeded yet), while the API serves. */
   seedHistory(onProgress: (done: number, total: number) => void): Promise<string[]>;
   /** Records that the worker `pid` on this machine ended unasked (the admins see it); never throws. */
-  recordWorkerEnd(pid: number, how: string): void;
+  recordWorkerEnd: (pid: number, how: string) => void;
   /** Stops listening and drains the requests in flight (BELLKEEP_DRAIN_SECONDS), then closes the queue, the mailer and the database. */
   stop(): Promise<void>;
 }

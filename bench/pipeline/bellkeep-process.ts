@@ -22,12 +22,7 @@ export interface BellkeepProcess {
  * `readyLine`, and a child that exits first fails with what it wrote to stderr. With a
  * `profileFolder`, Node writes the child's CPU profile there when it exits.
  */
-export async function startBellkeepProcess(
-  entry: string,
-  environment: Record<string, string>,
-  readyLine: RegExp,
-  profileFolder: string | undefined,
-): Promise<BellkeepProcess> {
+export async function startBellkeepProcess(entry: string, environment: Record<string, string>, readyLine: RegExp, profileFolder: string | undefined): Promise<BellkeepProcess> {
   const profiling = profileFolder === undefined ? [] : ['--cpu-prof', `--cpu-prof-dir=${profileFolder}`];
   // Compiled, as `npm run api` and `npm run worker` run them.
   const child = spawn(process.execPath, [...profiling, path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), entry], {
@@ -36,7 +31,7 @@ export async function startBellkeepProcess(
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let stderr = '';
-  child.stderr!.on('data', (chunk: Buffer) => {
+  child.stderr.on('data', (chunk: Buffer) => {
     stderr += chunk.toString();
     process.stderr.write(`  [${path.basename(entry)}] ${chunk.toString()}`);
   });
@@ -48,7 +43,7 @@ export async function startBellkeepProcess(
       reject(new Error(`${entry} was not ready within ${START_TIMEOUT_MS / 1000} s. ${stderr.trim()}`));
     }, START_TIMEOUT_MS);
     // Read on after the ready line too, so a full pipe never blocks the child.
-    child.stdout!.on('data', (chunk: Buffer) => {
+    child.stdout.on('data', (chunk: Buffer) => {
       if (ready) return;
       stdout += chunk.toString();
       if (readyLine.test(stdout)) {

@@ -40,7 +40,8 @@ export function parsePipelineOptions(argv: string[]): PipelineOptions {
 
 function readArguments(argv: string[]) {
   try {
-    return parseArgs({ args: argv, options: { rounds: { type: 'string' }, storage: { type: 'string' }, live: { type: 'boolean' }, profile: { type: 'string' } }, strict: true }).values;
+    return parseArgs({ args: argv, options: { rounds: { type: 'string' }, storage: { type: 'string' }, live: { type: 'boolean' }, profile: { type: 'string' } }, strict: true })
+      .values;
   } catch (error) {
     throw new UsageError((error as Error).message);
   }

@@ -23,8 +23,12 @@ export function pipelineTable(measurements: PipelineMeasurement[]): string {
   const rows = [COLUMNS.map(([title]) => title), ...measurements.map((m) => COLUMNS.map(([, cell]) => cell(m)))];
   const widths = COLUMNS.map((_, column) => Math.max(...rows.map((row) => row[column].length)));
   const lines = rows.map((row) => row.map((cell, column) => (column === 0 ? cell.padEnd(widths[column]) : cell.padStart(widths[column]))).join('  '));
-  lines.push('to reading: the queue, and with S3 the working copy; reading: the engine, to the stored verdict; queue, analysis: from the run\'s own times; (MB): at start, before the upload');
-  lines.push(`targets: upload to verdict (total) under ${TARGETS.totalSeconds.local} s with the local archive and ${TARGETS.totalSeconds.s3} s with S3, each process under ${TARGETS.peakMB} MB; * = missed`);
+  lines.push(
+    "to reading: the queue, and with S3 the working copy; reading: the engine, to the stored verdict; queue, analysis: from the run's own times; (MB): at start, before the upload",
+  );
+  lines.push(
+    `targets: upload to verdict (total) under ${TARGETS.totalSeconds.local} s with the local archive and ${TARGETS.totalSeconds.s3} s with S3, each process under ${TARGETS.peakMB} MB; * = missed`,
+  );
   return lines.join('\n');
 }
 

@@ -19,12 +19,7 @@ export interface UploadOutcome {
  * fields, then the log from `chunks`, so the log is never whole in memory or on disk here. Resolves
  * on the 201 with the new run; any other answer fails with its body.
  */
-export async function uploadStreamedLog(
-  apiUrl: string,
-  token: string,
-  fields: Record<string, string>,
-  chunks: Iterable<Buffer>,
-): Promise<UploadOutcome> {
+export async function uploadStreamedLog(apiUrl: string, token: string, fields: Record<string, string>, chunks: Iterable<Buffer>): Promise<UploadOutcome> {
   const boundary = `bellkeep-bench-${crypto.randomBytes(12).toString('hex')}`;
   let logBytes = 0;
   function* body(): Generator<Buffer> {
@@ -60,6 +55,6 @@ export async function uploadStreamedLog(
   const { status, text, answeredAt } = await answer;
   const sendError = await sent;
   if (status !== 201) throw new Error(`The upload was answered ${status}: ${text}`);
-  if (sendError) throw sendError;
+  if (sendError) throw sendError instanceof Error ? sendError : new Error('the upload could not be sent');
   return { run: JSON.parse(text) as RunDto, logBytes, startedAt, answeredAt };
 }

@@ -27,8 +27,7 @@ export async function up({ queryInterface, transaction, logStore, signingKey, pr
   if (!signingKey) throw new Error('The demo history is signed like any result: give the seeder the signing key.');
   if (!logStore) throw new Error('The demo history is archived like any upload: give the seeder the log store.');
   const sequelize = queryInterface.sequelize;
-  const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) =>
-    sequelize.query<T>(sql, { transaction, replacements, type: QueryTypes.SELECT });
+  const select = <T extends object>(sql: string, replacements: Record<string, unknown> = {}) => sequelize.query<T>(sql, { transaction, replacements, type: QueryTypes.SELECT });
   const scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-demo-nights-'));
   const [uploader] = await select<{ id: number }>("SELECT id FROM users WHERE email = 'dev.okafor@kestrelfen.example'");
   const today = new Date();
@@ -56,15 +55,31 @@ export async function up({ queryInterface, transaction, logStore, signingKey, pr
             `INSERT INTO bookings (setup_id, night, window_start, window_end, planned_rounds, profile_version_id, seed, seed_commitment, booked_by, created_at)
              VALUES (:setupId, :night, :windowStart, :windowEnd, :rounds, :versionId, :seed, :commitment, :bookedBy, :bookedAt) RETURNING id`,
             {
-              setupId: row.id, night: acquiredOn, windowStart: `${eve}T20:00:00.000Z`, windowEnd: `${acquiredOn}T05:30:00.000Z`, rounds: model.rounds,
-              versionId: row.version_id, seed, commitment: seedCommitment(seed), bookedBy: uploader.id, bookedAt: `${eve}T16:${String(10 + night).padStart(2, '0')}:00.000Z`,
+              setupId: row.id,
+              night: acquiredOn,
+              windowStart: `${eve}T20:00:00.000Z`,
+              windowEnd: `${acquiredOn}T05:30:00.000Z`,
+              rounds: model.rounds,
+              versionId: row.version_id,
+              seed,
+              commitment: seedCommitment(seed),
+              bookedBy: uploader.id,
+              bookedAt: `${eve}T16:${String(10 + night).padStart(2, '0')}:00.000Z`,
             },
           );
           bookingId = booking.id;
-          await sequelize.query("INSERT INTO audit_events (actor_id, action, target_type, target_id, details, created_at) VALUES (:uploader, 'booking.created', 'booking', :id, :details, :at)", {
-            transaction,
-            replacements: { uploader: uploader.id, id: String(booking.id), details: JSON.stringify({ setupId: row.id, night: acquiredOn, seedCommitment: seedCommitment(seed), demo: true }), at: `${eve}T16:00:00.000Z` },
-          });
+          await sequelize.query(
+            "INSERT INTO audit_events (actor_id, action, target_type, target_id, details, created_at) VALUES (:uploader, 'booking.created', 'booking', :id, :details, :at)",
+            {
+              transaction,
+              replacements: {
+                uploader: uploader.id,
+                id: String(booking.id),
+                details: JSON.stringify({ setupId: row.id, night: acquiredOn, seedCommitment: seedCommitment(seed), demo: true }),
+                at: `${eve}T16:00:00.000Z`,
+              },
+            },
+          );
         }
         const logs = replaced
           ? [
@@ -79,8 +94,17 @@ export async function up({ queryInterface, transaction, logStore, signingKey, pr
           await putLog(logStore, fs.createReadStream(file));
           await fs.promises.rm(file);
           const runId = await insertRun(sequelize, transaction, signingKey, {
-            setupId: row.id, versionId: row.version_id, uploader: uploader.id, acquiredOn, seed, result, bookingId, attempt: log.attempt, replacementReason: log.reason,
-            name: `${setup.name.toLowerCase().replace(/\W+/g, '-')}-${acquiredOn}.csv`, finishedAt: `${acquiredOn}T06:${String(log.minute).padStart(2, '0')}:00.000Z`,
+            setupId: row.id,
+            versionId: row.version_id,
+            uploader: uploader.id,
+            acquiredOn,
+            seed,
+            result,
+            bookingId,
+            attempt: log.attempt,
+            replacementReason: log.reason,
+            name: `${setup.name.toLowerCase().replace(/\W+/g, '-')}-${acquiredOn}.csv`,
+            finishedAt: `${acquiredOn}T06:${String(log.minute).padStart(2, '0')}:00.000Z`,
           });
           // Every night but the last two is signed off; of a replaced night, the last attempt only.
           if (log === logs[logs.length - 1]) progress?.(++nightsDone, totalNights);
@@ -91,10 +115,13 @@ export async function up({ queryInterface, transaction, logStore, signingKey, pr
               transaction,
               replacements: { id: runId, lead: lead.id, comment, finishedAt },
             });
-            await sequelize.query("INSERT INTO audit_events (actor_id, action, target_type, target_id, details, created_at) VALUES (:lead, 'run.signed-off', 'run', :id, :details, :finishedAt)", {
-              transaction,
-              replacements: { lead: lead.id, id: String(runId), details: JSON.stringify({ comment, verdict: result.verdict }), finishedAt },
-            });
+            await sequelize.query(
+              "INSERT INTO audit_events (actor_id, action, target_type, target_id, details, created_at) VALUES (:lead, 'run.signed-off', 'run', :id, :details, :finishedAt)",
+              {
+                transaction,
+                replacements: { lead: lead.id, id: String(runId), details: JSON.stringify({ comment, verdict: result.verdict }), finishedAt },
+              },
+            );
           }
         }
       }
@@ -135,9 +162,21 @@ async function insertRun(sequelize: Sequelize, transaction: Transaction, signing
       transaction,
       type: QueryTypes.SELECT,
       replacements: {
-        setupId: run.setupId, versionId: run.versionId, sha: result.input.sha256, name: run.name, uploader: run.uploader, acquiredOn: run.acquiredOn,
-        notes: DEMO_NOTE, seed: run.seed, bookingId: run.bookingId, attempt: run.attempt, replacementReason: run.replacementReason,
-        state: STATE_OF_VERDICT[result.verdict], verdict: result.verdict, result: JSON.stringify(result), finishedAt,
+        setupId: run.setupId,
+        versionId: run.versionId,
+        sha: result.input.sha256,
+        name: run.name,
+        uploader: run.uploader,
+        acquiredOn: run.acquiredOn,
+        notes: DEMO_NOTE,
+        seed: run.seed,
+        bookingId: run.bookingId,
+        attempt: run.attempt,
+        replacementReason: run.replacementReason,
+        state: STATE_OF_VERDICT[result.verdict],
+        verdict: result.verdict,
+        result: JSON.stringify(result),
+        finishedAt,
       },
     },
   );
@@ -154,8 +193,17 @@ async function insertRun(sequelize: Sequelize, transaction: Transaction, signing
     {
       transaction,
       replacements: {
-        uploader: run.uploader, id: String(row.id), finishedAt,
-        uploaded: JSON.stringify({ sha256: result.input.sha256, bytes: result.input.bytes, bookingId: run.bookingId, attempt: run.attempt, replacementReason: run.replacementReason, demo: true }),
+        uploader: run.uploader,
+        id: String(row.id),
+        finishedAt,
+        uploaded: JSON.stringify({
+          sha256: result.input.sha256,
+          bytes: result.input.bytes,
+          bookingId: run.bookingId,
+          attempt: run.attempt,
+          replacementReason: run.replacementReason,
+          demo: true,
+        }),
         finished: JSON.stringify({ verdict: result.verdict, fingerprint: result.fingerprint, reasons: result.reasons }),
       },
     },
@@ -166,5 +214,5 @@ async function insertRun(sequelize: Sequelize, transaction: Transaction, signing
 export async function down({ queryInterface, transaction }: SeederContext): Promise<void> {
   await queryInterface.sequelize.query('DELETE FROM run_sign_offs WHERE run_id IN (SELECT id FROM runs WHERE notes = :note)', { transaction, replacements: { note: DEMO_NOTE } });
   await queryInterface.sequelize.query('DELETE FROM runs WHERE notes = :note', { transaction, replacements: { note: DEMO_NOTE } });
-  await queryInterface.sequelize.query("DELETE FROM bookings WHERE id NOT IN (SELECT booking_id FROM runs WHERE booking_id IS NOT NULL)", { transaction });
+  await queryInterface.sequelize.query('DELETE FROM bookings WHERE id NOT IN (SELECT booking_id FROM runs WHERE booking_id IS NOT NULL)', { transaction });
 }

@@ -15,7 +15,14 @@ export function defineAuditEventModel(sequelize: Sequelize): ModelStatic<AuditEv
   class AuditEvent extends AuditEventRecord {}
   AuditEvent.init(
     {
-      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true, get() { return Number(this.getDataValue('id')); } },
+      id: {
+        type: DataTypes.BIGINT,
+        autoIncrement: true,
+        primaryKey: true,
+        get() {
+          return Number(this.getDataValue('id'));
+        },
+      },
       actorId: { type: DataTypes.INTEGER, field: 'actor_id' },
       action: { type: DataTypes.STRING(64), allowNull: false },
       targetType: { type: DataTypes.STRING(32), allowNull: false, field: 'target_type' },

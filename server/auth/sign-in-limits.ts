@@ -24,15 +24,17 @@ export function signInLimits(config: Config): RequestHandler[] {
     ...common,
     limit,
     identifier: 'address',
-    handler: (request, _response, next) =>
-      next(new HttpError(429, 'rate-limited', `Too many sign-in attempts from this address; try again ${whenToTryAgain(request)}.`)),
+    handler: (request, _response, next) => next(new HttpError(429, 'rate-limited', `Too many sign-in attempts from this address; try again ${whenToTryAgain(request)}.`)),
   });
   const perAccount = rateLimit({
     ...common,
     limit: accountLimit,
     identifier: 'account',
     skipSuccessfulRequests: true,
-    keyGenerator: (request) => String((request.body as { email?: unknown } | undefined)?.email ?? '').trim().toLowerCase(),
+    keyGenerator: (request) => {
+      const email = (request.body as { email?: unknown } | undefined)?.email;
+      return typeof email === 'string' ? email.trim().toLowerCase() : '';
+    },
     handler: (request, _response, next) =>
       next(new HttpError(429, 'rate-limited', `Too many failed sign-ins for this account; try again ${whenToTryAgain(request)}, or ask an admin.`)),
   });

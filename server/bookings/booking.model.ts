@@ -26,7 +26,14 @@ export function defineBookingModel(sequelize: Sequelize): ModelStatic<BookingRec
       night: { type: DataTypes.DATEONLY, allowNull: false },
       windowStart: { type: DataTypes.DATE, allowNull: false, field: 'window_start' },
       windowEnd: { type: DataTypes.DATE, allowNull: false, field: 'window_end' },
-      plannedRounds: { type: DataTypes.BIGINT, allowNull: false, field: 'planned_rounds', get() { return Number(this.getDataValue('plannedRounds')); } },
+      plannedRounds: {
+        type: DataTypes.BIGINT,
+        allowNull: false,
+        field: 'planned_rounds',
+        get() {
+          return Number(this.getDataValue('plannedRounds'));
+        },
+      },
       profileVersionId: { type: DataTypes.INTEGER, allowNull: false, field: 'profile_version_id' },
       profileReason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '', field: 'profile_reason' },
       seed: { type: DataTypes.CHAR(64), allowNull: false },

@@ -14,7 +14,10 @@ export function bookingsRoutes(deps: { bookings: BookingsService; setups: Setups
 
   router.post('/', guards.requireRole('experimentalist', 'shift-lead', 'admin'), validateBody(bookNightRequestSchema), async (request, response) => {
     const booking = await bookings.book(request.body, request.user!);
-    appMail.booked(booking, (await setups.get(booking.setupId)).shiftLeads.map((lead) => lead.email));
+    appMail.booked(
+      booking,
+      (await setups.get(booking.setupId)).shiftLeads.map((lead) => lead.email),
+    );
     response.status(201).json(booking);
   });
 

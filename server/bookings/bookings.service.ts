@@ -166,7 +166,14 @@ export function createBookingsService(deps: { models: Models; profiles: Profiles
     },
 
     async list(filter) {
-      const records = await Booking.findAll({ where: filter.setupId === undefined ? {} : { setupId: filter.setupId }, order: [['night', 'DESC'], ['id', 'DESC']], limit: 200 });
+      const records = await Booking.findAll({
+        where: filter.setupId === undefined ? {} : { setupId: filter.setupId },
+        order: [
+          ['night', 'DESC'],
+          ['id', 'DESC'],
+        ],
+        limit: 200,
+      });
       return toDtos(records);
     },
 

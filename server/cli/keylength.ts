@@ -37,7 +37,15 @@ function main(): void {
   let values: OptionValues;
   try {
     ({ values } = parseArgs({
-      options: { rounds: { type: 'string' }, gamma: { type: 'string' }, soundness: { type: 'string' }, s: { type: 'string' }, qber: { type: 'string' }, 'omega-thr': { type: 'string' }, syndrome: { type: 'string' } },
+      options: {
+        rounds: { type: 'string' },
+        gamma: { type: 'string' },
+        soundness: { type: 'string' },
+        s: { type: 'string' },
+        qber: { type: 'string' },
+        'omega-thr': { type: 'string' },
+        syndrome: { type: 'string' },
+      },
       strict: true,
       allowPositionals: false,
     }));

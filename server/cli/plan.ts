@@ -21,7 +21,17 @@ async function main(): Promise<void> {
   let values;
   try {
     ({ values } = parseArgs({
-      options: { win: { type: 'string' }, s: { type: 'string' }, qber: { type: 'string' }, profile: { type: 'string' }, rounds: { type: 'string' }, rate: { type: 'string' }, x0: { type: 'string' }, 'test-fraction': { type: 'string' }, general: { type: 'boolean' } },
+      options: {
+        win: { type: 'string' },
+        s: { type: 'string' },
+        qber: { type: 'string' },
+        profile: { type: 'string' },
+        rounds: { type: 'string' },
+        rate: { type: 'string' },
+        x0: { type: 'string' },
+        'test-fraction': { type: 'string' },
+        general: { type: 'boolean' },
+      },
       strict: true,
       allowPositionals: false,
     }));

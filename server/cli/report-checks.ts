@@ -94,11 +94,17 @@ export async function rederivationChecks(report: RunReportDto, log: string): Pro
     return checks;
   }
   const differences = resultDifferences(recorded, result);
-  const shown = differences.slice(0, SHOWN_DIFFERENCES).map((difference) => `  ${difference.path}: recorded ${JSON.stringify(difference.stored)}, re-derived ${JSON.stringify(difference.recomputed)}`);
+  const shown = differences
+    .slice(0, SHOWN_DIFFERENCES)
+    .map((difference) => `  ${difference.path}: recorded ${JSON.stringify(difference.stored)}, re-derived ${JSON.stringify(difference.recomputed)}`);
   const more = differences.length > SHOWN_DIFFERENCES ? [`  ... and ${differences.length - SHOWN_DIFFERENCES} more`] : [];
   checks.push({
     passed: false,
-    text: [`Re-derived from the log, the result has fingerprint ${result.fingerprint}, not ${recorded.fingerprint}; ${differences.length} field(s) differ (engine ${recorded.engineVersion} then, ${result.engineVersion} now):`, ...shown, ...more].join('\n'),
+    text: [
+      `Re-derived from the log, the result has fingerprint ${result.fingerprint}, not ${recorded.fingerprint}; ${differences.length} field(s) differ (engine ${recorded.engineVersion} then, ${result.engineVersion} now):`,
+      ...shown,
+      ...more,
+    ].join('\n'),
   });
   return checks;
 }

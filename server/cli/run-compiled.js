@@ -76,7 +76,9 @@ function newestSource() {
       }
     }
   };
-  SOURCE_FOLDERS.map((folder) => path.join(ROOT, folder)).filter((folder) => fs.existsSync(folder)).forEach(walk);
+  SOURCE_FOLDERS.map((folder) => path.join(ROOT, folder))
+    .filter((folder) => fs.existsSync(folder))
+    .forEach(walk);
   return newest;
 }
 

@@ -29,6 +29,7 @@ export function requestLog(): RequestHandler[] {
     quietReqLogger: true,
     customLogLevel: (_request, response, error) => (error || response.statusCode >= 500 ? 'error' : response.statusCode >= 400 ? 'warn' : 'info'),
   });
-  const inContext: RequestHandler = (request, _response, next) => requestContext.run({ requestId: String(request.id) }, next);
+  const inContext: RequestHandler = (request, _response, next) =>
+    requestContext.run({ requestId: typeof request.id === 'object' ? JSON.stringify(request.id) : String(request.id) }, next);
   return [http, inContext];
 }

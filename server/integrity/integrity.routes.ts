@@ -24,7 +24,9 @@ const EXPORT_FILE: Record<ExportFormat, (runId: number) => string> = {
  * `/api/runs/:id/...` for auditing: the integrity check, re-verifications (auditors and admins
  * ask for them; everyone signed in reads them) and the exports, each recorded in the trail.
  */
-export function runIntegrityRoutes(deps: RunReportDeps & { verification: VerificationService; reverifications: ReverificationsService; audit: AuditTrail; guards: Guards }): Router {
+export function runIntegrityRoutes(
+  deps: RunReportDeps & { verification: VerificationService; reverifications: ReverificationsService; audit: AuditTrail; guards: Guards },
+): Router {
   const { verification, reverifications, audit, guards } = deps;
   const router = Router();
 
@@ -49,7 +51,13 @@ export function runIntegrityRoutes(deps: RunReportDeps & { verification: Verific
     const format = exportFormatSchema.safeParse(request.params['format']);
     if (!format.success) throw HttpError.badRequest(`The export format ${JSON.stringify(request.params['format'])} ${format.error.issues[0].message}.`, 'format');
     const report = await buildRunReport(runId, request.user!.name, deps);
-    await audit.record({ actorId: request.user!.id, action: 'run.exported', targetType: 'run', targetId: runId, details: { format: format.data, fingerprint: report.result.fingerprint } });
+    await audit.record({
+      actorId: request.user!.id,
+      action: 'run.exported',
+      targetType: 'run',
+      targetId: runId,
+      details: { format: format.data, fingerprint: report.result.fingerprint },
+    });
     response.attachment(EXPORT_FILE[format.data](runId));
     await sendExport(format.data, report, response);
   });

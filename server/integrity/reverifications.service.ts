@@ -51,7 +51,10 @@ export function createReverificationsService(deps: { sequelize: Sequelize; model
           { runId, requestedBy: actorId, seed: seed ?? null, storedFingerprint: run.result.fingerprint, storedEngineVersion: run.result.engineVersion },
           { transaction },
         );
-        await audit.record({ actorId, action: 'run.reverification-requested', targetType: 'run', targetId: runId, details: { reverificationId: record.id, ...(seed ? { seed } : {}) } }, transaction);
+        await audit.record(
+          { actorId, action: 'run.reverification-requested', targetType: 'run', targetId: runId, details: { reverificationId: record.id, ...(seed ? { seed } : {}) } },
+          transaction,
+        );
         await queue.enqueueReverification(record.id, transaction);
         return record.id;
       });

@@ -43,7 +43,10 @@ export function createSigningKeysService(sequelize: Sequelize, models: Models, a
         if (known) return;
         for (const previous of await models.SigningKey.findAll({ where: { retiredAt: null }, transaction })) {
           await previous.update({ retiredAt: new Date() }, { transaction });
-          await audit.record({ actorId: null, action: 'signing-key.retired', targetType: 'signing-key', targetId: previous.keyId.trim(), details: { replacedBy: current.keyId } }, transaction);
+          await audit.record(
+            { actorId: null, action: 'signing-key.retired', targetType: 'signing-key', targetId: previous.keyId.trim(), details: { replacedBy: current.keyId } },
+            transaction,
+          );
         }
         await models.SigningKey.create({ keyId: current.keyId, publicKeyPem: current.publicKeyPem }, { transaction });
         await audit.record({ actorId: null, action: 'signing-key.registered', targetType: 'signing-key', targetId: current.keyId, details: {} }, transaction);

@@ -23,7 +23,11 @@ export function createVerificationService(models: Models, logStore: LogStore, si
     const recomputed = resultFingerprint(result);
     return recomputed === result.fingerprint
       ? { check: 'result-fingerprint', passed: true, detail: `The stored result hashes to its fingerprint ${recomputed}.` }
-      : { check: 'result-fingerprint', passed: false, detail: `The stored result hashes to ${recomputed}, not to its recorded fingerprint ${result.fingerprint}: the result was changed after it was stored.` };
+      : {
+          check: 'result-fingerprint',
+          passed: false,
+          detail: `The stored result hashes to ${recomputed}, not to its recorded fingerprint ${result.fingerprint}: the result was changed after it was stored.`,
+        };
   }
 
   async function signatureCheck(run: InstanceType<Models['Run']>): Promise<VerificationCheckDto> {
@@ -33,8 +37,16 @@ export function createVerificationService(models: Models, logStore: LogStore, si
     if (!key) return { check: 'signature', passed: false, detail: `The result is signed with key ${signature.keyId}, which this server never listed.` };
     const problem = signatureProblem(signature, key.publicKeyPem);
     return problem
-      ? { check: 'signature', passed: false, detail: `The Ed25519 signature by key ${signature.keyId} fails: ${problem} (run ${run.id}, file, fingerprint and time as stored now).` }
-      : { check: 'signature', passed: true, detail: `The Ed25519 signature by key ${signature.keyId} of ${signature.statement.signedAt} holds for run ${run.id}, its file and its fingerprint.` };
+      ? {
+          check: 'signature',
+          passed: false,
+          detail: `The Ed25519 signature by key ${signature.keyId} fails: ${problem} (run ${run.id}, file, fingerprint and time as stored now).`,
+        }
+      : {
+          check: 'signature',
+          passed: true,
+          detail: `The Ed25519 signature by key ${signature.keyId} of ${signature.statement.signedAt} holds for run ${run.id}, its file and its fingerprint.`,
+        };
   }
 
   async function archiveCheck(sha256: string): Promise<VerificationCheckDto> {
@@ -61,9 +73,14 @@ export function createVerificationService(models: Models, logStore: LogStore, si
   async function trailCheck(): Promise<VerificationCheckDto> {
     const trail = await checkTrailChain(models.AuditEvent.sequelize!);
     if (trail.intact) {
-      return { check: 'system-trail', passed: true, detail: `The system trail’s hash chain holds: all ${formatCount(trail.events)} events are linked in order and each still hashes to its link.` };
+      return {
+        check: 'system-trail',
+        passed: true,
+        detail: `The system trail’s hash chain holds: all ${formatCount(trail.events)} events are linked in order and each still hashes to its link.`,
+      };
     }
-    const more = trail.problemCount > 1 ? ` ${formatCount(trail.problemCount - 1)} more ${trail.problemCount === 2 ? 'problem is' : 'problems are'} listed under Audit, System trail.` : '';
+    const more =
+      trail.problemCount > 1 ? ` ${formatCount(trail.problemCount - 1)} more ${trail.problemCount === 2 ? 'problem is' : 'problems are'} listed under Audit, System trail.` : '';
     return { check: 'system-trail', passed: false, detail: `The system trail’s hash chain is broken. ${trail.problems[0]}${more}` };
   }
 

@@ -7,21 +7,50 @@ import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '../../tests/support/f
 import { COLLECTIVE_ATTACK_CAUTION, KEY_CAUTION } from '../reports/attack-model-words';
 import { composeVerdictMail } from './verdict-mail';
 
-
 const analysed = analysedFixture;
 
 /** Run 418 of the Fen link, finished with this result. */
 function finishedRun(result: AnalysisResult): RunDto {
   return {
-    id: 418, setupId: 1, setupName: 'Fen link', profileVersionId: 1, profileName: NIGHTLY.name, profileVersion: 1,
-    state: STATE_OF_VERDICT[result.verdict], progress: 1, verdict: result.verdict,
-    winFraction: result.chsh?.winFraction ?? null, winThreshold: null, qber: result.qber?.rate ?? null, chshValue: result.chsh?.S ?? null, finiteKeyBits: result.key?.finiteKeyBits ?? null,
-    uploadedBy: 'Dev Okafor', acquiredOn: '2025-03-13', createdAt: '2025-03-14T05:02:11.000Z', finishedAt: '2025-03-14T05:03:40.000Z',
-    duplicateOf: null, signedOff: false, fileSha256: result.input.sha256, fingerprint: result.fingerprint,
+    id: 418,
+    setupId: 1,
+    setupName: 'Fen link',
+    profileVersionId: 1,
+    profileName: NIGHTLY.name,
+    profileVersion: 1,
+    state: STATE_OF_VERDICT[result.verdict],
+    progress: 1,
+    verdict: result.verdict,
+    winFraction: result.chsh?.winFraction ?? null,
+    winThreshold: null,
+    qber: result.qber?.rate ?? null,
+    chshValue: result.chsh?.S ?? null,
+    finiteKeyBits: result.key?.finiteKeyBits ?? null,
+    uploadedBy: 'Dev Okafor',
+    acquiredOn: '2025-03-13',
+    createdAt: '2025-03-14T05:02:11.000Z',
+    finishedAt: '2025-03-14T05:03:40.000Z',
+    duplicateOf: null,
+    signedOff: false,
+    fileSha256: result.input.sha256,
+    fingerprint: result.fingerprint,
     file: { sha256: result.input.sha256, bytes: result.input.bytes, originalName: 'fen-link-2025-03-13.csv' },
-    seed: SEED, mapping: null, notes: '', error: null, attempts: 1, analysedBy: 'test:1', startedAt: '2025-03-14T05:02:12.000Z', heartbeatAt: '2025-03-14T05:03:40.000Z',
-    result, signature: null, signOff: null, deliveries: [],
-    bookingId: null, attempt: null, replayOf: null, booking: null,
+    seed: SEED,
+    mapping: null,
+    notes: '',
+    error: null,
+    attempts: 1,
+    analysedBy: 'test:1',
+    startedAt: '2025-03-14T05:02:12.000Z',
+    heartbeatAt: '2025-03-14T05:03:40.000Z',
+    result,
+    signature: null,
+    signOff: null,
+    deliveries: [],
+    bookingId: null,
+    attempt: null,
+    replayOf: null,
+    booking: null,
   };
 }
 
@@ -84,7 +113,9 @@ describe('the verdict mail', () => {
   it('names the general-attack key figure and gives each model’s caution under a general-attack profile', async () => {
     const general = await analysed('accepted-run.csv', GENERAL_PROFILE);
     const mail = mailOf(general);
-    expect(mail.text).toContain(`Key figure that counts: the key length against general attacks (entropy accumulation); total ε_key = ${formatScientific(general.security!.keyEpsilon)}`);
+    expect(mail.text).toContain(
+      `Key figure that counts: the key length against general attacks (entropy accumulation); total ε_key = ${formatScientific(general.security!.keyEpsilon)}`,
+    );
     for (const caution of [KEY_CAUTION.collective, KEY_CAUTION.general]) {
       expect(mail.text).toContain(caution);
       expect(decoded(mail.html)).toContain(`<p><em>${caution}</em></p>`);
@@ -125,13 +156,19 @@ describe('the verdict mail', () => {
 
   it('names a replacement as attempt k of its booking, with its reason, the other attempts, the notes and a link to the sign-off', () => {
     const booking: RunBookingDto = {
-      bookingId: 31, night: '2025-03-13', seedCommitment: 'ab'.repeat(32), attempt: 2, replacementReason: 'The first copy was cut short.',
+      bookingId: 31,
+      night: '2025-03-13',
+      seedCommitment: 'ab'.repeat(32),
+      attempt: 2,
+      replacementReason: 'The first copy was cut short.',
       attempts: [
         { runId: 417, attempt: 1, state: 'aborted', verdict: 'ABORT', replacementReason: '', createdAt: '2025-03-14T05:00:00.000Z' },
         { runId: 418, attempt: 2, state: 'accepted', verdict: 'ACCEPT', replacementReason: 'The first copy was cut short.', createdAt: '2025-03-14T05:02:11.000Z' },
       ],
     };
-    const mail = composeVerdictMail({ ...finishedRun(accepted), bookingId: 31, attempt: 2, booking, notes: 'Detector B re-cooled at 23:10.' }, 'https://bellkeep.example', ['night-desk@kestrelfen.example']);
+    const mail = composeVerdictMail({ ...finishedRun(accepted), bookingId: 31, attempt: 2, booking, notes: 'Detector B re-cooled at 23:10.' }, 'https://bellkeep.example', [
+      'night-desk@kestrelfen.example',
+    ]);
     expect(mail.subject).toBe('[Bellkeep] ACCEPT · Fen link · run 418 · attempt 2');
     expect(mail.text).toContain('Booked night 2025-03-13 (booking 31): attempt 2 of 2.');
     expect(mail.text).toContain(`Seed committed at booking, before acquisition: SHA-256 ${'ab'.repeat(32)}.`);

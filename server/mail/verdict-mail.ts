@@ -77,6 +77,8 @@ function figureLines(result: AnalysisResult): string[] {
       ? `Raw key ${formatCount(key.rawBits)} bits; no finite key estimate (collective attacks): the lower bound of S is above 2√2, which no quantum device reaches`
       : `Raw key ${formatCount(key.rawBits)} bits; finite key estimate ${formatCount(key.finiteKeyBits)} bits (collective attacks)`,
     ...(key.generalAttack ? [`Key length ${generalKeySentence(key.generalAttack)}`] : []),
-    ...(security ? [`Key figure that counts: ${KEY_FIGURE_OF_MODEL[security.model]}; total ε_key = ${formatScientific(security.keyEpsilon)} over ${security.terms.length} terms`] : []),
+    ...(security
+      ? [`Key figure that counts: ${KEY_FIGURE_OF_MODEL[security.model]}; total ε_key = ${formatScientific(security.keyEpsilon)} over ${security.terms.length} terms`]
+      : []),
   ];
 }

@@ -77,7 +77,8 @@ export function labMetrics(sequelize: Sequelize): Registry {
     registers: [registry],
     async collect() {
       this.reset();
-      for (const row of await rows('SELECT status, count(*)::int AS deliveries FROM mail_deliveries GROUP BY status')) this.set({ status: String(row['status']) }, Number(row['deliveries']));
+      for (const row of await rows('SELECT status, count(*)::int AS deliveries FROM mail_deliveries GROUP BY status'))
+        this.set({ status: String(row['status']) }, Number(row['deliveries']));
     },
   });
   new Gauge({

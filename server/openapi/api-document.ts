@@ -23,7 +23,11 @@ const AUTHENTICATION = `**Signing in.** \`POST /api/auth/login\` answers a JWT (
 export function buildApiDocument() {
   const registry = new OpenAPIRegistry();
   registry.registerComponent('securitySchemes', 'signIn', { type: 'http', scheme: 'bearer', bearerFormat: 'JWT', description: 'The token of `POST /api/auth/login`.' });
-  registry.registerComponent('securitySchemes', 'uploadToken', { type: 'http', scheme: 'bearer', description: 'An upload token of a setup (`bkup_…`), for the upload routes only.' });
+  registry.registerComponent('securitySchemes', 'uploadToken', {
+    type: 'http',
+    scheme: 'bearer',
+    description: 'An upload token of a setup (`bkup_…`), for the upload routes only.',
+  });
   for (const operation of API_OPERATIONS) registerOperation(registry, operation);
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',

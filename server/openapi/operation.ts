@@ -59,7 +59,10 @@ const errorResponse = (description: string): ResponseConfig => jsonAnswer(descri
 /** Registers one operation with its access, its parameters and every answer's body. */
 export function registerOperation(registry: OpenAPIRegistry, operation: Operation): void {
   const pathParameters = [...operation.path.matchAll(/\{(\w+)\}/g)].map((match) => match[1]);
-  const params = pathParameters.length > 0 ? z.object(Object.fromEntries(pathParameters.map((name) => [name, /^(id|\w+Id)$/.test(name) ? z.string().regex(/^[1-9]\d*$/) : z.string()]))) : undefined;
+  const params =
+    pathParameters.length > 0
+      ? z.object(Object.fromEntries(pathParameters.map((name) => [name, /^(id|\w+Id)$/.test(name) ? z.string().regex(/^[1-9]\d*$/) : z.string()])))
+      : undefined;
   const status = operation.status ?? 200;
   const success: ResponseConfig = operation.media
     ? { description: operation.media.description, content: { [operation.media.type]: { schema: { type: 'string' } } } }

@@ -62,7 +62,15 @@ export const RUNS_OPERATIONS: Operation[] = [
     response: z.array(z.looseObject({})).meta({ description: '`BlockSummary` of shared/analysis/report/block-summary.ts, one per block.' }),
     errors: NO_RUN,
   },
-  { method: 'get', path: '/api/runs/{id}/trail', summary: 'What happened to the run, oldest first', tags: ['Runs'], access: 'signed-in', response: z.array(auditEventSchema), errors: NO_RUN },
+  {
+    method: 'get',
+    path: '/api/runs/{id}/trail',
+    summary: 'What happened to the run, oldest first',
+    tags: ['Runs'],
+    access: 'signed-in',
+    response: z.array(auditEventSchema),
+    errors: NO_RUN,
+  },
   {
     method: 'post',
     path: '/api/runs/{id}/sign-off',
@@ -85,7 +93,15 @@ export const RUNS_OPERATIONS: Operation[] = [
     response: verificationSchema,
     errors: UNFINISHED,
   },
-  { method: 'get', path: '/api/runs/{id}/reverifications', summary: 'The run’s re-verifications, newest first', tags: ['Integrity'], access: 'signed-in', response: z.array(reverificationSchema), errors: NO_RUN },
+  {
+    method: 'get',
+    path: '/api/runs/{id}/reverifications',
+    summary: 'The run’s re-verifications, newest first',
+    tags: ['Integrity'],
+    access: 'signed-in',
+    response: z.array(reverificationSchema),
+    errors: NO_RUN,
+  },
   {
     method: 'post',
     path: '/api/runs/{id}/reverifications',

@@ -4,9 +4,24 @@ import type { Operation } from './operation';
 
 /** The system trail, the published keys, and what operators and monitoring read. */
 export const SYSTEM_OPERATIONS: Operation[] = [
-  { method: 'get', path: '/api/audit', summary: 'A page of the system trail, newest first', tags: ['Audit'], access: ['auditor', 'admin'], query: auditQuerySchema, response: auditPageSchema },
+  {
+    method: 'get',
+    path: '/api/audit',
+    summary: 'A page of the system trail, newest first',
+    tags: ['Audit'],
+    access: ['auditor', 'admin'],
+    query: auditQuerySchema,
+    response: auditPageSchema,
+  },
   { method: 'get', path: '/api/audit/actors', summary: 'The people who appear in the trail', tags: ['Audit'], access: ['auditor', 'admin'], response: z.array(auditActorSchema) },
-  { method: 'get', path: '/api/audit/trail-check', summary: 'Check the whole trail against its hash chain', tags: ['Audit'], access: ['auditor', 'admin'], response: trailCheckSchema },
+  {
+    method: 'get',
+    path: '/api/audit/trail-check',
+    summary: 'Check the whole trail against its hash chain',
+    tags: ['Audit'],
+    access: ['auditor', 'admin'],
+    response: trailCheckSchema,
+  },
   {
     method: 'get',
     path: '/api/audit/export.csv',
@@ -45,8 +60,22 @@ export const SYSTEM_OPERATIONS: Operation[] = [
     access: ['admin'],
     media: { type: 'text/plain', description: 'The Prometheus text format.' },
   },
-  { method: 'get', path: '/api/openapi.json', summary: 'This document', tags: ['Operations'], access: 'public', response: z.looseObject({ openapi: z.literal('3.1.0') }).meta({ description: 'OpenAPI 3.1.' }) },
-  { method: 'get', path: '/api/reference', summary: 'This document as a browsable page', tags: ['Operations'], access: 'public', media: { type: 'text/html', description: 'The reference page.' } },
+  {
+    method: 'get',
+    path: '/api/openapi.json',
+    summary: 'This document',
+    tags: ['Operations'],
+    access: 'public',
+    response: z.looseObject({ openapi: z.literal('3.1.0') }).meta({ description: 'OpenAPI 3.1.' }),
+  },
+  {
+    method: 'get',
+    path: '/api/reference',
+    summary: 'This document as a browsable page',
+    tags: ['Operations'],
+    access: 'public',
+    media: { type: 'text/html', description: 'The reference page.' },
+  },
   {
     method: 'get',
     path: '/api/reference/{file}',

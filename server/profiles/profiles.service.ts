@@ -22,9 +22,17 @@ export function createProfilesService(sequelize: Sequelize, models: Models, audi
 
   async function list(where = ''): Promise<ProfileDto[]> {
     const rows = await sequelize.query<{
-      profile_id: number; name: string; description: string; profile_created_at: Date;
-      id: number; version: number; parameters: Record<string, unknown>; note: string;
-      created_by_name: string | null; created_at: Date; used_by_runs: string;
+      profile_id: number;
+      name: string;
+      description: string;
+      profile_created_at: Date;
+      id: number;
+      version: number;
+      parameters: Record<string, unknown>;
+      note: string;
+      created_by_name: string | null;
+      created_at: Date;
+      used_by_runs: string;
     }>(
       `SELECT p.id AS profile_id, p.name, p.description, p.created_at AS profile_created_at,
               v.id, v.version, v.parameters, v.note, u.name AS created_by_name, v.created_at,
@@ -38,15 +46,25 @@ export function createProfilesService(sequelize: Sequelize, models: Models, audi
     const profiles = new Map<number, ProfileDto>();
     for (const row of rows) {
       const version: ProfileVersionDto = {
-        id: row.id, profileId: row.profile_id, version: row.version, parameters: row.parameters, note: row.note,
-        createdBy: row.created_by_name, createdAt: row.created_at.toISOString(), usedByRuns: Number(row.used_by_runs),
+        id: row.id,
+        profileId: row.profile_id,
+        version: row.version,
+        parameters: row.parameters,
+        note: row.note,
+        createdBy: row.created_by_name,
+        createdAt: row.created_at.toISOString(),
+        usedByRuns: Number(row.used_by_runs),
       };
       const profile = profiles.get(row.profile_id);
       if (profile) profile.versions.push(version);
       else {
         profiles.set(row.profile_id, {
-          id: row.profile_id, name: row.name, description: row.description, latestVersionId: row.id,
-          versions: [version], createdAt: row.profile_created_at.toISOString(),
+          id: row.profile_id,
+          name: row.name,
+          description: row.description,
+          latestVersionId: row.id,
+          versions: [version],
+          createdAt: row.profile_created_at.toISOString(),
         });
       }
     }
@@ -62,7 +80,7 @@ export function createProfilesService(sequelize: Sequelize, models: Models, audi
   function checkedParameters(parameters: unknown): Record<string, unknown> {
     const parsed = parseProfile(parameters);
     if (!parsed.ok) throw HttpError.badRequest(parsed.message, `parameters.${parsed.field}`);
-    return parsed.profile as unknown as Record<string, unknown>;
+    return parsed.profile;
   }
 
   return {

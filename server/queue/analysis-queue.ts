@@ -71,7 +71,7 @@ export async function startAnalysisQueue(databaseUrl: string, sequelize: Sequeli
   const inTransaction = (transaction: Transaction) => ({
     executeSql: async (text: string, values: unknown[]) => {
       const [rows] = await sequelize.query(text, { bind: values.map((value) => value ?? null), transaction });
-      return { rows: rows as unknown[] };
+      return { rows: rows };
     },
   });
 

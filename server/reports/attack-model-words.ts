@@ -12,8 +12,7 @@ export const KEY_FIGURE_OF_MODEL: Record<AttackModel, string> = {
 
 /** The one-line caution that stands beside every key figure of each attack model, in the mail and the PDF alike. */
 export const KEY_CAUTION: Record<AttackModel, string> = {
-  collective:
-    'Key figures are estimates against collective (i.i.d.) attacks, not a security certificate; final claims rest on the lab’s own proof, certification and local rules.',
+  collective: 'Key figures are estimates against collective (i.i.d.) attacks, not a security certificate; final claims rest on the lab’s own proof, certification and local rules.',
   general:
     'The key length against general attacks is an estimate under the assumptions of entropy accumulation (nothing leaves the labs, settings independent of the devices), not a security certificate; final claims rest on the lab’s own proof, certification and local rules.',
 };

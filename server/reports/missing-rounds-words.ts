@@ -14,8 +14,7 @@ export interface MissingRoundsWords {
 export function missingRoundsWords(summary: MissingRoundsSummary): MissingRoundsWords {
   const { firstRound, lastRound, triggers, missing, tolerated, drawnForTesting } = summary;
   const overTolerance = missing > tolerated;
-  const drawn =
-    missing === 0 ? '' : `; ${formatCount(drawnForTesting)} of them drawn for testing, each counted as a lost CHSH game`;
+  const drawn = missing === 0 ? '' : `; ${formatCount(drawnForTesting)} of them drawn for testing, each counted as a lost CHSH game`;
   return {
     state: missingRoundsState(summary),
     overTolerance,

@@ -35,7 +35,12 @@ export function heading(doc: PDFKit.PDFDocument, title: string, keepWith = 48): 
   ensureSpace(doc, 20 + keepWith);
   useType(doc, 'bold', TYPE.heading, TONE.primary).text(title, left, doc.y, { width });
   const rule = doc.y + 1;
-  doc.moveTo(left, rule).lineTo(left + width, rule).lineWidth(0.6).strokeColor(TONE.primary).stroke();
+  doc
+    .moveTo(left, rule)
+    .lineTo(left + width, rule)
+    .lineWidth(0.6)
+    .strokeColor(TONE.primary)
+    .stroke();
   doc.y = rule + 5;
 }
 
@@ -145,8 +150,7 @@ export function grid(doc: PDFKit.PDFDocument, columns: readonly GridColumn[], ro
     const fontOf = (index: number) => (header ? 'bold' : (parts[index].font ?? 'body'));
     const sizeOf = (index: number) => (fontOf(index) === 'mono' ? TYPE.mono : TYPE.body);
     const height =
-      Math.max(...parts.map((part, index) => useType(doc, fontOf(index), sizeOf(index)).heightOfString(part.text, { width: widths[index] - 2 * padding }))) +
-      2 * padding;
+      Math.max(...parts.map((part, index) => useType(doc, fontOf(index), sizeOf(index)).heightOfString(part.text, { width: widths[index] - 2 * padding }))) + 2 * padding;
     ensureSpace(doc, height);
     const top = doc.y;
     if (header) doc.rect(left, top, width, height).fill(TONE.fill);
@@ -156,10 +160,18 @@ export function grid(doc: PDFKit.PDFDocument, columns: readonly GridColumn[], ro
       useType(doc, fontOf(index), sizeOf(index), colour).text(part.text, x + padding, top + padding, { width: widths[index] - 2 * padding, align: columns[index].align ?? 'left' });
       x += widths[index];
     });
-    doc.moveTo(left, top + height).lineTo(left + width, top + height).lineWidth(0.4).strokeColor(TONE.rule).stroke();
+    doc
+      .moveTo(left, top + height)
+      .lineTo(left + width, top + height)
+      .lineWidth(0.4)
+      .strokeColor(TONE.rule)
+      .stroke();
     doc.y = top + height;
   };
-  line(columns.map((column) => column.header), true);
+  line(
+    columns.map((column) => column.header),
+    true,
+  );
   for (const row of rows) line(row, false);
   doc.y += 4;
 }

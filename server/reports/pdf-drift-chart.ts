@@ -132,7 +132,12 @@ function drawPanel(doc: PDFKit.PDFDocument, panel: DriftPanel): void {
 function drawValueAxis(doc: PDFKit.PDFDocument, panel: DriftPanel, frame: Frame, labelLeft: number): void {
   for (const tick of ticks(panel.min, panel.max)) {
     const y = frame.yOf(tick);
-    doc.moveTo(frame.left, y).lineTo(frame.left + frame.width, y).lineWidth(0.3).strokeColor(TONE.rule).stroke();
+    doc
+      .moveTo(frame.left, y)
+      .lineTo(frame.left + frame.width, y)
+      .lineWidth(0.3)
+      .strokeColor(TONE.rule)
+      .stroke();
     useType(doc, 'body', TYPE.small, TONE.muted).text(panel.tick(tick), labelLeft, y - TYPE.small / 2 - 1, { width: GUTTER.left - 14, align: 'right', lineBreak: false });
   }
   const height = frame.bottom - frame.top;
@@ -145,23 +150,45 @@ function drawValueAxis(doc: PDFKit.PDFDocument, panel: DriftPanel, frame: Frame,
 
 /** The block numbers along the bottom (at most about twenty of them) and the axis name. */
 function drawBlockAxis(doc: PDFKit.PDFDocument, blocks: number, frame: Frame): void {
-  doc.moveTo(frame.left, frame.bottom).lineTo(frame.left + frame.width, frame.bottom).lineWidth(0.6).strokeColor(TONE.text).stroke();
+  doc
+    .moveTo(frame.left, frame.bottom)
+    .lineTo(frame.left + frame.width, frame.bottom)
+    .lineWidth(0.6)
+    .strokeColor(TONE.text)
+    .stroke();
   const every = Math.ceil(blocks / 20);
   for (let index = 0; index < blocks; index++) {
     // The last block is numbered too, unless its label would touch the one before.
     const last = index === blocks - 1 && (index % every) * frame.slot >= 18;
     if (index % every !== 0 && !last) continue;
     const x = frame.xOf(index);
-    doc.moveTo(x, frame.bottom).lineTo(x, frame.bottom + 2.5).lineWidth(0.5).strokeColor(TONE.text).stroke();
+    doc
+      .moveTo(x, frame.bottom)
+      .lineTo(x, frame.bottom + 2.5)
+      .lineWidth(0.5)
+      .strokeColor(TONE.text)
+      .stroke();
     useType(doc, 'body', TYPE.small, TONE.muted).text(String(index + 1), x - 12, frame.bottom + 3.5, { width: 24, align: 'center', lineBreak: false });
   }
-  useType(doc, 'body', TYPE.small, TONE.muted).text(`block of consecutive rounds (${blocks} blocks)`, frame.left, frame.bottom + 13, { width: frame.width, align: 'center', lineBreak: false });
+  useType(doc, 'body', TYPE.small, TONE.muted).text(`block of consecutive rounds (${blocks} blocks)`, frame.left, frame.bottom + 13, {
+    width: frame.width,
+    align: 'center',
+    lineBreak: false,
+  });
 }
 
 function drawGuides(doc: PDFKit.PDFDocument, guides: readonly Guide[], frame: Frame): void {
   for (const guide of guides) {
     const y = frame.yOf(guide.value);
-    doc.save().moveTo(frame.left, y).lineTo(frame.left + frame.width, y).lineWidth(0.9).dash(4, { space: 2.5 }).strokeColor(guide.tone).stroke().restore();
+    doc
+      .save()
+      .moveTo(frame.left, y)
+      .lineTo(frame.left + frame.width, y)
+      .lineWidth(0.9)
+      .dash(4, { space: 2.5 })
+      .strokeColor(guide.tone)
+      .stroke()
+      .restore();
   }
   writeGuideLabels(doc, guides, frame.left + frame.width + 4, frame.yOf);
 }
@@ -177,7 +204,14 @@ function drawBlocks(doc: PDFKit.PDFDocument, panel: DriftPanel, frame: Frame): n
     const x = frame.xOf(index);
     const [low, high] = [frame.yOf(interval.lower), frame.yOf(interval.upper)];
     doc.lineWidth(0.7 * Math.max(mark, 0.5)).strokeColor(TONE.primary);
-    doc.moveTo(x, low).lineTo(x, high).moveTo(x - cap, low).lineTo(x + cap, low).moveTo(x - cap, high).lineTo(x + cap, high).stroke();
+    doc
+      .moveTo(x, low)
+      .lineTo(x, high)
+      .moveTo(x - cap, low)
+      .lineTo(x + cap, low)
+      .moveTo(x - cap, high)
+      .lineTo(x + cap, high)
+      .stroke();
     if (panel.failsBelow ? interval.fraction < panel.threshold : interval.fraction > panel.threshold) {
       failing.push(index + 1);
       drawCross(doc, x, frame.yOf(interval.fraction), 3.2 * Math.max(mark, 0.4));
@@ -214,7 +248,12 @@ function writeGuideLabels(doc: PDFKit.PDFDocument, guides: readonly Guide[], x: 
 
 function drawCross(doc: PDFKit.PDFDocument, x: number, y: number, size: number): void {
   doc.save().lineWidth(1.5).strokeColor(TONE.abort).lineCap('round');
-  doc.moveTo(x - size, y - size).lineTo(x + size, y + size).moveTo(x - size, y + size).lineTo(x + size, y - size).stroke();
+  doc
+    .moveTo(x - size, y - size)
+    .lineTo(x + size, y + size)
+    .moveTo(x - size, y + size)
+    .lineTo(x + size, y - size)
+    .stroke();
   doc.restore();
 }
 

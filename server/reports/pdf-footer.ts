@@ -16,7 +16,12 @@ export function writeFooters(doc: PDFKit.PDFDocument, report: RunReportDto): voi
     // Text below the bottom margin would start a new page: lift the margin while writing the footer.
     doc.page.margins.bottom = 0;
     const top = doc.page.height - bottomMargin + 18;
-    doc.moveTo(left, top - 5).lineTo(left + width, top - 5).lineWidth(0.4).strokeColor(TONE.rule).stroke();
+    doc
+      .moveTo(left, top - 5)
+      .lineTo(left + width, top - 5)
+      .lineWidth(0.4)
+      .strokeColor(TONE.rule)
+      .stroke();
     useType(doc, 'body', TYPE.small, TONE.muted);
     doc.text(`Bellkeep run report · run ${report.run.id} · page ${index - start + 1} of ${count}`, left, top, { width, lineBreak: false });
     doc.text(`Exported ${formatInstant(report.exportedAt)} by ${report.exportedBy}`, left, top, { width, align: 'right', lineBreak: false });

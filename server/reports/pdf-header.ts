@@ -31,7 +31,10 @@ function drawMark(doc: PDFKit.PDFDocument, x: number, y: number): void {
   const span = 24;
   const baseline = y + 13;
   doc.save().lineWidth(1.6).strokeColor(TONE.primary).lineCap('round');
-  doc.moveTo(x + station, baseline).bezierCurveTo(x + station + 4, baseline - 15, x + span - station - 4, baseline - 15, x + span - station, baseline).stroke();
+  doc
+    .moveTo(x + station, baseline)
+    .bezierCurveTo(x + station + 4, baseline - 15, x + span - station - 4, baseline - 15, x + span - station, baseline)
+    .stroke();
   doc.circle(x + station, baseline, station).fill(TONE.primary);
   doc.circle(x + span - station, baseline, station).fill(TONE.primary);
   doc.restore();

@@ -21,7 +21,9 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
     { label: 'Column mapping', value: mappingLine(result) },
     { label: 'Selection seed', value: report.seed, mono: true },
     { label: 'Test-round selection', value: selectionLine(result) },
-    ...(selection === null ? [] : [{ label: 'Test and generation rounds', value: `${formatCount(selection.testRounds)} test, ${formatCount(selection.generationRounds)} generation` }]),
+    ...(selection === null
+      ? []
+      : [{ label: 'Test and generation rounds', value: `${formatCount(selection.testRounds)} test, ${formatCount(selection.generationRounds)} generation` }]),
     { label: 'Acceptance profile', value: `${profile.name}, version ${profile.version} (profile ${profile.profileId}, version record ${profile.versionId})` },
     ...Object.entries(result.profile).map(([name, value]): Field => ({ label: `  ${name}`, value: describeValue(value) })),
     { label: 'Engine version', value: result.engineVersion },
@@ -53,6 +55,9 @@ function selectionLine(result: AnalysisResult): string {
 /** A profile parameter as written in JSON, without the punctuation: 1e-9, true, a, b; mode: bernoulli. */
 function describeValue(value: unknown): string {
   if (Array.isArray(value)) return value.length === 0 ? '(none)' : value.map(describeValue).join(', ');
-  if (value !== null && typeof value === 'object') return Object.entries(value).map(([key, inner]) => `${key}: ${describeValue(inner)}`).join('; ');
+  if (value !== null && typeof value === 'object')
+    return Object.entries(value)
+      .map(([key, inner]) => `${key}: ${describeValue(inner)}`)
+      .join('; ');
   return String(value);
 }

@@ -174,11 +174,21 @@ describe('the PDF report of a run', () => {
       expect(text).toContain('CHSH by setting pair x y Rounds Test rounds Wins Win fraction Lower bound');
       expect(chsh.pairs).toHaveLength(4);
       for (const pair of chsh.pairs) {
-        const figures = [pair.x, pair.y, formatCount(pair.rounds), formatCount(pair.testRounds), formatCount(pair.wins), pair.winFraction!.toFixed(6), `≥ ${pair.winFractionLower!.toFixed(6)}`];
+        const figures = [
+          pair.x,
+          pair.y,
+          formatCount(pair.rounds),
+          formatCount(pair.testRounds),
+          formatCount(pair.wins),
+          pair.winFraction!.toFixed(6),
+          `≥ ${pair.winFractionLower!.toFixed(6)}`,
+        ];
         expect(text).toContain(flatten(figures.join(' ')));
       }
       expect(text).toContain(`The win fraction judged weighs the four pairs equally: ${chsh.winFraction!.toFixed(6)}, lower bound ${chsh.winFractionLower!.toFixed(6)}`);
-      expect(text).toContain(flatten(`Pooled over all ${formatCount(chsh.rounds)} test rounds it is ${chsh.pooledWinFraction!.toFixed(6)} (${formatCount(chsh.wins)} won), for reference only`));
+      expect(text).toContain(
+        flatten(`Pooled over all ${formatCount(chsh.rounds)} test rounds it is ${chsh.pooledWinFraction!.toFixed(6)} (${formatCount(chsh.wins)} won), for reference only`),
+      );
     });
 
     it('says that no round is missing, with the span and the tolerance', () => {
@@ -207,7 +217,9 @@ describe('the PDF report of a run', () => {
         expect(text).toContain(`${check.id} ${word[check.status]} ${pValue}`);
       }
       const sharing = accepted.security!.checks;
-      expect(text).toContain(flatten(`Each statistical check passes at p ≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)}`));
+      expect(text).toContain(
+        flatten(`Each statistical check passes at p ≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)}`),
+      );
     });
 
     it('has a footer with the page count and the exporter on every page', async () => {
@@ -294,7 +306,8 @@ describe('the PDF report of a run', () => {
         {
           id: 7,
           runId: RUN_ID,
-          requestedBy: 'Sami Virtanen', seed: null,
+          requestedBy: 'Sami Virtanen',
+          seed: null,
           state: 'differs',
           storedFingerprint: accepted.fingerprint,
           storedEngineVersion: accepted.engineVersion,

@@ -34,7 +34,9 @@ function writeReverification(doc: PDFKit.PDFDocument, reverification: Reverifica
   const rows: Field[] = [
     { label: `Re-verification ${reverification.id}`, value: REVERIFICATION_STATE[reverification.state] },
     { label: 'Asked for', value: `${formatInstant(reverification.createdAt)} by ${reverification.requestedBy}; finished ${formatInstant(reverification.finishedAt)}` },
-    ...(reverification.seed ? [{ label: 'Another seed', value: `${reverification.seed}: a fresh draw of test rounds by an admin; it never replaces the verdict`, mono: true }] : []),
+    ...(reverification.seed
+      ? [{ label: 'Another seed', value: `${reverification.seed}: a fresh draw of test rounds by an admin; it never replaces the verdict`, mono: true }]
+      : []),
     { label: 'Engine versions', value: `stored ${reverification.storedEngineVersion}, re-analysed ${reverification.newEngineVersion ?? '–'}` },
     { label: 'Stored fingerprint', value: reverification.storedFingerprint, mono: true },
     { label: 'New fingerprint', value: reverification.newFingerprint ?? '–', mono: true },
@@ -43,7 +45,10 @@ function writeReverification(doc: PDFKit.PDFDocument, reverification: Reverifica
   if (reverification.differenceCount > 0) rows.push({ label: 'Differing fields', value: String(reverification.differenceCount) });
   fields(doc, rows);
   const listed = reverification.differences.slice(0, LISTED_DIFFERENCES);
-  bullets(doc, listed.map((difference) => `${difference.path}: stored ${asJson(difference.stored)}, re-analysed ${asJson(difference.recomputed)}`));
+  bullets(
+    doc,
+    listed.map((difference) => `${difference.path}: stored ${asJson(difference.stored)}, re-analysed ${asJson(difference.recomputed)}`),
+  );
   const more = reverification.differenceCount - listed.length;
   if (more > 0) paragraph(doc, `… and ${more} more differing fields.`, { colour: TONE.muted });
   doc.y += 4;

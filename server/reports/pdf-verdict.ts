@@ -60,11 +60,21 @@ function drawSymbol(doc: PDFKit.PDFDocument, verdict: Verdict, x: number, y: num
   doc.save().lineWidth(2.4).strokeColor(tone).lineCap('round').lineJoin('round');
   doc.circle(cx, cy, r - 1.5).stroke();
   if (verdict === 'ACCEPT') {
-    doc.moveTo(cx - r * 0.45, cy + r * 0.02).lineTo(cx - r * 0.1, cy + r * 0.38).lineTo(cx + r * 0.48, cy - r * 0.36).stroke();
+    doc
+      .moveTo(cx - r * 0.45, cy + r * 0.02)
+      .lineTo(cx - r * 0.1, cy + r * 0.38)
+      .lineTo(cx + r * 0.48, cy - r * 0.36)
+      .stroke();
   } else if (verdict === 'ABORT') {
-    doc.moveTo(cx - r * 0.62, cy + r * 0.62).lineTo(cx + r * 0.62, cy - r * 0.62).stroke();
+    doc
+      .moveTo(cx - r * 0.62, cy + r * 0.62)
+      .lineTo(cx + r * 0.62, cy - r * 0.62)
+      .stroke();
   } else {
-    doc.moveTo(cx, cy - r * 0.5).lineTo(cx, cy + r * 0.12).stroke();
+    doc
+      .moveTo(cx, cy - r * 0.5)
+      .lineTo(cx, cy + r * 0.12)
+      .stroke();
     doc.circle(cx, cy + r * 0.45, 1.6).fill(tone);
   }
   doc.restore();

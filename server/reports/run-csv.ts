@@ -18,16 +18,36 @@ export function countsCsv(result: AnalysisResult): string {
 /** The drift blocks as CSV: per block, its rounds and the win fraction and QBER with their Hoeffding intervals. */
 export function blocksCsv(result: AnalysisResult): string {
   const rows = result.blocks.map((block) => [
-    block.index, block.firstRound, block.lastRound,
-    block.chsh.rounds, block.chsh.hits, block.chsh.fraction, block.chsh.lower, block.chsh.upper,
-    block.qber.rounds, block.qber.hits, block.qber.fraction, block.qber.lower, block.qber.upper,
+    block.index,
+    block.firstRound,
+    block.lastRound,
+    block.chsh.rounds,
+    block.chsh.hits,
+    block.chsh.fraction,
+    block.chsh.lower,
+    block.chsh.upper,
+    block.qber.rounds,
+    block.qber.hits,
+    block.qber.fraction,
+    block.qber.lower,
+    block.qber.upper,
   ]);
   return stringify(rows, {
     header: true,
     columns: [
-      'block', 'first_round', 'last_round',
-      'chsh_test_rounds', 'chsh_wins', 'win_fraction', 'win_fraction_lower', 'win_fraction_upper',
-      'key_test_rounds', 'key_errors', 'qber', 'qber_lower', 'qber_upper',
+      'block',
+      'first_round',
+      'last_round',
+      'chsh_test_rounds',
+      'chsh_wins',
+      'win_fraction',
+      'win_fraction_lower',
+      'win_fraction_upper',
+      'key_test_rounds',
+      'key_errors',
+      'qber',
+      'qber_lower',
+      'qber_upper',
     ],
     // Doubles as JavaScript writes them: the shortest text that reads back to the same bits.
     cast: { number: (value) => String(value) },

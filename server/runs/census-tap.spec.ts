@@ -33,7 +33,11 @@ function censusOfText(text: Buffer) {
 describe('the census an upload takes on the way', () => {
   it('passes the bytes through unchanged and counts a plain log however it is cut', async () => {
     const expected = censusOfText(LOG);
-    expect(expected.records).toBe(LOG.toString('latin1').split('\n').filter((line) => line.trim() !== '').length);
+    expect(expected.records).toBe(
+      LOG.toString('latin1')
+        .split('\n')
+        .filter((line) => line.trim() !== '').length,
+    );
     await fc.assert(
       fc.asyncProperty(fc.array(fc.nat(), { maxLength: 12 }), async (cuts) => {
         const { out, tap } = await tapped(piecesOf(LOG, cuts));

@@ -23,10 +23,19 @@ const ABANDONED_AFTER_MS = 7 * 86_400_000;
 /** The metadata key that binds an upload to whoever created it. */
 const UPLOADER_KEY = 'bellkeepUploader';
 
-/** A refusal in the shape tus passes on to the client: the API's JSON error body. */
-function tusError(error: HttpError): { status_code: number; body: string } {
+/** A refusal in the shape tus passes on to the client (its `status_code` and `body`): the API's JSON error body. */
+class TusRefusal extends Error {
+  constructor(
+    readonly status_code: number,
+    readonly body: string,
+  ) {
+    super(body);
+  }
+}
+
+function tusError(error: HttpError): TusRefusal {
   const body: ApiErrorBody = { error: { code: error.code, message: error.message, ...(error.field ? { field: error.field } : {}) } };
-  return { status_code: error.status, body: JSON.stringify(body) };
+  return new TusRefusal(error.status, JSON.stringify(body));
 }
 
 /**
@@ -92,7 +101,7 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
       if (request.method === 'POST' || request.method === 'OPTIONS') return;
       const upload = await store.getUpload(id).catch(() => null);
       // Somebody else's upload is not there for this uploader: the same answer as an unknown id.
-      if (upload && upload.metadata?.[UPLOADER_KEY] !== uploaderKey(uploaderOf(request))) throw { status_code: 404, body: 'The file for this url was not found\n' };
+      if (upload && upload.metadata?.[UPLOADER_KEY] !== uploaderKey(uploaderOf(request))) throw new TusRefusal(404, 'The file for this url was not found\n');
     },
     async onUploadFinish(request, response, upload) {
       const who = uploaderOf(request);

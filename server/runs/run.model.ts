@@ -115,7 +115,13 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
   ArchiveFile.init(
     {
       sha256: { type: DataTypes.CHAR(64), primaryKey: true },
-      bytes: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue('bytes')); } },
+      bytes: {
+        type: DataTypes.BIGINT,
+        allowNull: false,
+        get() {
+          return Number(this.getDataValue('bytes'));
+        },
+      },
       census: { type: DataTypes.JSONB },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
     },

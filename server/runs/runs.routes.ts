@@ -26,10 +26,7 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: 
     }
     const file = uploadedLog(request);
     try {
-      const run = await runs.create(
-        { ...fields.data, originalName: file.originalname, log: file.received },
-        request.uploader!,
-      );
+      const run = await runs.create({ ...fields.data, originalName: file.originalname, log: file.received }, request.uploader!);
       await idempotency.recordRun(response, run.id);
       response.status(201).json(run);
     } catch (error) {

@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunListQuery, type RunPageDto, type RunSortKey, type RunState, type SetupDto, type SignOffDto, type Verdict } from '../../shared/api';
+import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunListQuery, type RunPageDto, type RunSortKey, type SetupDto, type SignOffDto } from '../../shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { BookingRecord } from '../bookings/booking.model';
 import type { BookingsService } from '../bookings/bookings.service';
@@ -135,7 +135,14 @@ export function createRunsService(deps: {
         'replacementReason',
       );
     }
-    return { bookingId: booking.id, attempt: previous.length + 1, replacementReason: previous.length > 0 ? reason : null, acquiredOn: booking.night, seed: booking.seed, replayOf: null };
+    return {
+      bookingId: booking.id,
+      attempt: previous.length + 1,
+      replacementReason: previous.length > 0 ? reason : null,
+      acquiredOn: booking.night,
+      seed: booking.seed,
+      replayOf: null,
+    };
   }
 
   /**
@@ -234,7 +241,16 @@ export function createRunsService(deps: {
               action: 'run.uploaded',
               targetType: 'run',
               targetId: run.id,
-              details: { ...trail.details, sha256, bytes, duplicateOf: run.duplicateOf, bookingId: run.bookingId, attempt: run.attempt, replacementReason: run.replacementReason, replayOf: run.replayOf },
+              details: {
+                ...trail.details,
+                sha256,
+                bytes,
+                duplicateOf: run.duplicateOf,
+                bookingId: run.bookingId,
+                attempt: run.attempt,
+                replacementReason: run.replacementReason,
+                replayOf: run.replayOf,
+              },
             },
             transaction,
           );
@@ -273,10 +289,7 @@ export function createRunsService(deps: {
         type: QueryTypes.SELECT,
         replacements: { ...replacements, limit: filter.pageSize, offset: filter.page * filter.pageSize },
       });
-      const [{ total }] = await sequelize.query<{ total: string }>(
-        `SELECT count(*) AS total FROM runs r ${where}`,
-        { type: QueryTypes.SELECT, replacements },
-      );
+      const [{ total }] = await sequelize.query<{ total: string }>(`SELECT count(*) AS total FROM runs r ${where}`, { type: QueryTypes.SELECT, replacements });
       return { items: rows.map(toRunSummary), total: Number(total), page: filter.page, pageSize: filter.pageSize };
     },
 
@@ -292,7 +305,10 @@ export function createRunsService(deps: {
         }
         if (await models.SignOff.findByPk(id, { transaction })) throw HttpError.conflict(`Run ${id} is already signed off.`);
         const signOff = await models.SignOff.create({ runId: id, userId: actor.id, comment: comment.trim() }, { transaction });
-        await audit.record({ actorId: actor.id, action: 'run.signed-off', targetType: 'run', targetId: id, details: { comment: signOff.comment, verdict: run.verdict } }, transaction);
+        await audit.record(
+          { actorId: actor.id, action: 'run.signed-off', targetType: 'run', targetId: id, details: { comment: signOff.comment, verdict: run.verdict } },
+          transaction,
+        );
         return { userId: actor.id, userName: actor.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() };
       });
     },
@@ -306,8 +322,7 @@ export function createRunsService(deps: {
  */
 function refuseChosenProfile(newRun: Omit<NewRun, 'log' | 'originalName'>, judgedAs: string, setupVersion: ProfileVersionRecord): void {
   const chosenOther =
-    (newRun.profileId !== undefined && newRun.profileId !== setupVersion.profileId) ||
-    (newRun.profileVersionId !== undefined && newRun.profileVersionId !== setupVersion.id);
+    (newRun.profileId !== undefined && newRun.profileId !== setupVersion.profileId) || (newRun.profileVersionId !== undefined && newRun.profileVersionId !== setupVersion.id);
   if (!chosenOther) return;
   throw HttpError.forbidden(
     `Logs of ${judgedAs} are judged under the profile fixed for them (version ${setupVersion.version}); an upload cannot choose another. A shift lead or admin books a night under another profile, with a reason, before acquisition.`,

@@ -26,7 +26,7 @@ export const uploadFieldsSchema = z.strictObject({
         context.addIssue({ code: 'custom', message: parsed.message });
         return z.NEVER;
       }
-      return parsed.mapping as unknown as Record<string, unknown>;
+      return parsed.mapping;
     }),
   // Refused with its own message, not as an unknown field: whoever could choose the seed could draw
   // seeds until one passes.

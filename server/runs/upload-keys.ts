@@ -52,10 +52,10 @@ export function uploadKeys(sequelize: Sequelize, runs: RunsService) {
     }
     const uploader = uploaderKey(request.uploader!);
     const replacements = { uploader, key };
-    const claimed = await sequelize.query(
-      'INSERT INTO upload_keys (uploader, idempotency_key) VALUES (:uploader, :key) ON CONFLICT DO NOTHING RETURNING uploader',
-      { replacements, type: QueryTypes.SELECT },
-    );
+    const claimed = await sequelize.query('INSERT INTO upload_keys (uploader, idempotency_key) VALUES (:uploader, :key) ON CONFLICT DO NOTHING RETURNING uploader', {
+      replacements,
+      type: QueryTypes.SELECT,
+    });
     if (claimed.length === 1) {
       claims.set(response, { uploader, key });
       // Failures before the route runs (a broken-off or too large upload) give the key back here.

@@ -81,9 +81,18 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
           setupId = id;
         }
         await SetupShiftLead.destroy({ where: { setupId }, transaction });
-        await SetupShiftLead.bulkCreate([...new Set(request.shiftLeadIds)].map((userId) => ({ setupId, userId })), { transaction });
+        await SetupShiftLead.bulkCreate(
+          [...new Set(request.shiftLeadIds)].map((userId) => ({ setupId, userId })),
+          { transaction },
+        );
         await audit.record(
-          { actorId, action: id === undefined ? 'setup.created' : 'setup.changed', targetType: 'setup', targetId: setupId, details: { ...fields, shiftLeadIds: request.shiftLeadIds } },
+          {
+            actorId,
+            action: id === undefined ? 'setup.created' : 'setup.changed',
+            targetType: 'setup',
+            targetId: setupId,
+            details: { ...fields, shiftLeadIds: request.shiftLeadIds },
+          },
           transaction,
         );
         return setupId;

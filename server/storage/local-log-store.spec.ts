@@ -9,19 +9,19 @@ let dataDir: string;
 
 describeLogStoreContract(
   'the local folder',
-  async () => {
+  () => {
     dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-local-store-'));
     const store = createLocalLogStore(dataDir);
-    return {
+    return Promise.resolve({
       store,
-      config: { storage: { kind: 'local' }, dataDir },
-      async tamper(sha256, bytes) {
-        fs.chmodSync(store.pathOf(sha256), 0o644);
-        fs.writeFileSync(store.pathOf(sha256), bytes);
+      config: { storage: { kind: 'local' as const }, dataDir },
+      async tamper(sha256: string, bytes: Uint8Array) {
+        await fs.promises.chmod(store.pathOf(sha256), 0o644);
+        await fs.promises.writeFile(store.pathOf(sha256), bytes);
       },
-    };
+    });
   },
-  async () => fs.rmSync(dataDir, { recursive: true, force: true }),
+  () => fs.promises.rm(dataDir, { recursive: true, force: true }),
 );
 
 describe('the local folder’s layout', () => {
@@ -33,7 +33,7 @@ describe('the local folder’s layout', () => {
       await putLog(store, log.source());
       const file = path.join(folder, 'archive', log.sha256.slice(0, 2), log.sha256);
       expect(fs.statSync(file).mode & 0o777).toBe(0o444);
-      expect(await store.withLocalFile(log.sha256, path.join(folder, 'work'), async (handed) => handed)).toBe(file);
+      expect(await store.withLocalFile(log.sha256, path.join(folder, 'work'), (handed) => Promise.resolve(handed))).toBe(file);
       expect(fs.existsSync(path.join(folder, 'work'))).toBe(false);
     } finally {
       fs.rmSync(folder, { recursive: true, force: true });

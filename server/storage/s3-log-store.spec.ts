@@ -66,7 +66,7 @@ describe('the S3 bucket beyond the contract', () => {
     expect((failure as Error).message).toMatch(new RegExp(`s3://${s3.storage.bucket}/logs/${log.sha256.slice(0, 2)}/${log.sha256}.*metadata is ${other}`));
 
     // A worker's copy of changed bytes fails the same way, and is not left in its work folder.
-    await expect(store.withLocalFile(log.sha256, workFolder, async () => 'analysed')).rejects.toBeInstanceOf(StoredLogCorruptError);
+    await expect(store.withLocalFile(log.sha256, workFolder, () => Promise.resolve('analysed'))).rejects.toBeInstanceOf(StoredLogCorruptError);
     expect(fs.readdirSync(workFolder)).toEqual([]);
   });
 
@@ -74,7 +74,7 @@ describe('the S3 bucket beyond the contract', () => {
     const store = createS3LogStore(s3.storage, { singleCopyMaxBytes: 5 * 1024 ** 2, partBytes: 5 * 1024 ** 2 });
     const log = randomLog(12 * 1024 * 1024 + 17);
     expect(await putLog(store, log.source())).toMatchObject({ sha256: log.sha256, isNew: true });
-    expect(await store.withLocalFile(log.sha256, workFolder, async (file) => fs.readFileSync(file).equals(log.bytes))).toBe(true);
+    expect(await store.withLocalFile(log.sha256, workFolder, async (file) => (await fs.promises.readFile(file)).equals(log.bytes))).toBe(true);
     expect((await archiveContents({ storage: s3.storage, dataDir: s3.folder })).leftovers).toEqual([]);
   }, 60_000);
 });

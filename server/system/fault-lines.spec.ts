@@ -19,10 +19,7 @@ describe('fault lines', () => {
     const refused = Object.assign(new Error('connect ECONNREFUSED 127.0.0.1:54329'), { code: 'ECONNREFUSED' });
     for (let poll = 0; poll < 400; poll++) report(refused);
     report(new Error('Connection terminated unexpectedly'));
-    expect(lines).toEqual([
-      'Job queue: connect ECONNREFUSED 127.0.0.1:54329',
-      'Job queue: Connection terminated unexpectedly (the previous fault 399 more times)',
-    ]);
+    expect(lines).toEqual(['Job queue: connect ECONNREFUSED 127.0.0.1:54329', 'Job queue: Connection terminated unexpectedly (the previous fault 399 more times)']);
   });
 
   it('tells the database being away (pg, Sequelize and socket codes) from any other error', () => {

@@ -65,7 +65,13 @@ export function createUploadTokensService(models: Models, setups: SetupsService,
           { transaction },
         );
         await audit.record(
-          { actorId: actor.id, action: 'upload-token.created', targetType: 'upload-token', targetId: created.id, details: { setupId, name: created.name, expiresAt: created.expiresAt.toISOString() } },
+          {
+            actorId: actor.id,
+            action: 'upload-token.created',
+            targetType: 'upload-token',
+            targetId: created.id,
+            details: { setupId, name: created.name, expiresAt: created.expiresAt.toISOString() },
+          },
           transaction,
         );
         return created;
@@ -81,7 +87,10 @@ export function createUploadTokensService(models: Models, setups: SetupsService,
         if (!found) throw HttpError.notFound(`Setup ${setupId} has no upload token ${tokenId}.`);
         if (found.revokedAt) throw HttpError.conflict(`Upload token “${found.name}” was revoked already.`);
         await found.update({ revokedAt: new Date(), revokedBy: actor.id }, { transaction });
-        await audit.record({ actorId: actor.id, action: 'upload-token.revoked', targetType: 'upload-token', targetId: found.id, details: { setupId, name: found.name } }, transaction);
+        await audit.record(
+          { actorId: actor.id, action: 'upload-token.revoked', targetType: 'upload-token', targetId: found.id, details: { setupId, name: found.name } },
+          transaction,
+        );
         return found;
       });
       return (await toDtos([record]))[0];

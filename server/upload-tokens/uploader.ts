@@ -1,9 +1,7 @@
 import type { UserRecord } from '../users/user.model';
 
 /** Who sends a log: a signed-in person, or the acquisition computer with a setup's upload token. */
-export type Uploader =
-  | { kind: 'person'; user: UserRecord }
-  | { kind: 'token'; token: { id: number; name: string; setupId: number } };
+export type Uploader = { kind: 'person'; user: UserRecord } | { kind: 'token'; token: { id: number; name: string; setupId: number } };
 
 /** The uploader's key in `upload_keys`: idempotency keys are per uploader. */
 export function uploaderKey(uploader: Uploader): string {

@@ -52,10 +52,7 @@ export function createUsersService(User: UserModelStatic, bcryptRounds: number, 
       return User.sequelize!.transaction(async (transaction) => {
         const user = await User.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
         if (!user) throw HttpError.notFound(`There is no user with id ${id}.`);
-        const losesAdmin =
-          user.roles.includes('admin') &&
-          user.active &&
-          (request.active === false || (request.roles !== undefined && !request.roles.includes('admin')));
+        const losesAdmin = user.roles.includes('admin') && user.active && (request.active === false || (request.roles !== undefined && !request.roles.includes('admin')));
         if (losesAdmin && id === actingUserId) {
           throw HttpError.conflict('You cannot remove your own admin role or deactivate yourself.');
         }

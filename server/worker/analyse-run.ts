@@ -39,7 +39,10 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
 
   const worker = `${os.hostname()}:${process.pid}`;
   const startedAt = new Date();
-  await models.Run.update({ state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt, heartbeatAt: startedAt, error: null }, { where: { id: runId } });
+  await models.Run.update(
+    { state: 'analysing', progress: 0, attempts: run.attempts + 1, analysedBy: worker, startedAt, heartbeatAt: startedAt, error: null },
+    { where: { id: runId } },
+  );
   await audit.record({ actorId: null, action: 'run.analysis-started', targetType: 'run', targetId: runId, details: { attempt: run.attempts + 1, worker } });
 
   let written = 0;
@@ -87,7 +90,13 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
     );
     if (stored === 0) return;
     await audit.record(
-      { actorId: null, action: 'run.finished', targetType: 'run', targetId: runId, details: { state, verdict: result.verdict, fingerprint: result.fingerprint, reasons: result.reasons } },
+      {
+        actorId: null,
+        action: 'run.finished',
+        targetType: 'run',
+        targetId: runId,
+        details: { state, verdict: result.verdict, fingerprint: result.fingerprint, reasons: result.reasons },
+      },
       transaction,
     );
     await queue.enqueueVerdictMail(runId, transaction);

@@ -38,8 +38,8 @@ async function main(): Promise<void> {
     await database.close();
     process.exit(0);
   };
-  process.on('SIGINT', stop);
-  process.on('SIGTERM', stop);
+  process.on('SIGINT', () => void stop());
+  process.on('SIGTERM', () => void stop());
   // Started by `npm start`: a worker whose starter died without stopping it (SIGKILL) stops too.
   const starter = Number(process.env['BELLKEEP_WORKER_STARTER_PID'] ?? 0);
   if (starter > 0) setInterval(() => void (isAlive(starter) || stop()), 1000).unref();

@@ -57,7 +57,13 @@ export async function reverifyRun(reverificationId: number, deps: ReverifyRunDep
         action: 'run.reverification-finished',
         targetType: 'run',
         targetId: run.id,
-        details: { reverificationId, state: outcome.state, newFingerprint: outcome.newFingerprint ?? null, differenceCount: outcome.differenceCount ?? 0, worker: `${os.hostname()}:${process.pid}` },
+        details: {
+          reverificationId,
+          state: outcome.state,
+          newFingerprint: outcome.newFingerprint ?? null,
+          differenceCount: outcome.differenceCount ?? 0,
+          worker: `${os.hostname()}:${process.pid}`,
+        },
       },
       transaction,
     );

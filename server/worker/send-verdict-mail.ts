@@ -33,7 +33,10 @@ export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Pro
     if (await models.MailDelivery.findOne({ where: { runId, status: 'sent' }, transaction })) return null;
     const run = await runs.get(runId, transaction);
     if (recipients.length === 0) {
-      await audit.record({ actorId: null, action: 'run.mail-skipped', targetType: 'run', targetId: runId, details: { reason: 'the setup has no shift leads or recipients' } }, transaction);
+      await audit.record(
+        { actorId: null, action: 'run.mail-skipped', targetType: 'run', targetId: runId, details: { reason: 'the setup has no shift leads or recipients' } },
+        transaction,
+      );
       return null;
     }
     try {
@@ -49,5 +52,5 @@ export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Pro
       return error;
     }
   });
-  if (failure) throw failure;
+  if (failure) throw failure instanceof Error ? failure : new Error('the verdict mail failed');
 }

@@ -20,7 +20,7 @@ export function spawnWorkerProcess(environment: Record<string, string>): ChildPr
     env: withEngineMemory({ ...process.env, ...environment }),
     stdio: ['ignore', 'pipe', 'inherit'],
   });
-  child.stdout!.pipe(process.stdout, { end: false });
+  child.stdout.pipe(process.stdout, { end: false });
   return child;
 }
 

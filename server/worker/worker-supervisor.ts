@@ -46,10 +46,7 @@ export function superviseWorker(
       delay = Math.min(delay * 2, LONGEST_DELAY_MS);
       restarts.push(Date.now());
       const recent = recentRestarts();
-      say(
-        `Worker ${pid} ended, ${how}; starting another in ${wait / 1000} s` +
-          (recent > 3 ? ` (${recent} restarts in the last hour: it keeps dying, see its output above)` : ''),
-      );
+      say(`Worker ${pid} ended, ${how}; starting another in ${wait / 1000} s` + (recent > 3 ? ` (${recent} restarts in the last hour: it keeps dying, see its output above)` : ''));
       pending = setTimeout(start, wait);
     });
   };

@@ -8,7 +8,10 @@ export type CheckFamily = (typeof CHECK_FAMILIES)[number];
 
 /** A number strictly between 0 and 1 (probabilities, fractions, ε's). */
 const openUnitInterval = (what: string) =>
-  z.number({ error: `${what} must be a number` }).gt(0, { error: `${what} must be above 0` }).lt(1, { error: `${what} must be below 1` });
+  z
+    .number({ error: `${what} must be a number` })
+    .gt(0, { error: `${what} must be above 0` })
+    .lt(1, { error: `${what} must be below 1` });
 
 const testSelectionSchema = z.discriminatedUnion(
   'mode',
@@ -43,7 +46,10 @@ const generalAttackSchema = z
     /** Design values: m and ω_thr follow from the published design equations at the run's N. */
     design: z
       .strictObject({
-        chshValue: z.number({ error: 'must be a number' }).gt(2, { error: 'must be above 2 (the local bound)' }).lte(2 * Math.SQRT2, { error: 'must be at most 2√2' }),
+        chshValue: z
+          .number({ error: 'must be a number' })
+          .gt(2, { error: 'must be above 2 (the local bound)' })
+          .lte(2 * Math.SQRT2, { error: 'must be at most 2√2' }),
         qber: openUnitInterval('the design QBER').lt(0.5, { error: 'the design QBER must be below 0.5' }),
       })
       .optional(),
@@ -61,61 +67,80 @@ const generalAttackSchema = z
   });
 
 /** The schema of an analysis profile; every field has a default, so `{}` is a complete profile. */
-export const profileSchema = z.strictObject({
-  /** How test rounds are chosen. Default: fixed-fraction, half the rounds. */
-  testSelection: testSelectionSchema.prefault({ mode: 'fixed-fraction' }),
-  /** Accept when the CHSH win fraction reaches ω_Q − chshTolerance. Default 0.03 (common practice 0.01–0.05). */
-  chshTolerance: z.number({ error: 'must be a number' }).gt(0, { error: 'must be above 0' }).max(0.25, { error: 'must be at most 0.25 (ω_Q − 0.25 is below the local bound)' }).default(0.03),
-  /** Accept when the error rate on the key setting is at most qberTolerance. Default 0.05 (common practice 2–8%). */
-  qberTolerance: z.number({ error: 'must be a number' }).gt(0, { error: 'must be above 0' }).max(0.5, { error: 'must be at most 0.5' }).default(0.05),
-  /** Failure probability of every confidence bound (Hoeffding, sampling). Default 1e-9 (common practice 1e-6–1e-12). */
-  epsilon: openUnitInterval('epsilon').default(1e-9),
-  /**
-   * `certified`: the confidence-corrected values against the thresholds; `observed`: the observed
-   * ones. Default certified. Under either, ACCEPT needs the lower bound of the win fraction above ¾.
-   */
-  criterion: z.enum(['observed', 'certified'], { error: 'must be observed or certified' }).default('certified'),
-  /** Fewest CHSH test rounds and fewest key-setting test rounds accepted. Default 1000 (common practice, no source). */
-  minTestRounds: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).default(1000),
-  /** Error-correction efficiency f ≥ 1. Default 1.15 (common practice 1.1–1.2, no source). */
-  reconciliationEfficiency: z.number({ error: 'must be a number' }).min(1, { error: 'must be at least 1' }).max(2, { error: 'must be at most 2' }).default(1.15),
-  /** Failure probability of error correction, ε_EC. Default 1e-10. */
-  epsilonEC: openUnitInterval('epsilonEC').default(1e-10),
-  /** Failure probability of privacy amplification, ε_PA. Default 1e-10. */
-  epsilonPA: openUnitInterval('epsilonPA').default(1e-10),
-  /** A statistical check fails when its p-value falls below this. Default 0.001 (common practice, no source). */
-  significance: openUnitInterval('significance').default(0.001),
-  /**
-   * Largest share of the trigger span (first to last round index) that may be missing from the log;
-   * beyond it the run never passes. Default 0.001 (common practice, no source).
-   */
-  missingRoundsTolerance: z.number({ error: 'must be a number' }).min(0, { error: 'must be at least 0' }).lt(0.5, { error: 'must be below 0.5' }).default(0.001),
-  /** Number of consecutive blocks for the stationarity check. Default 10. */
-  driftBlocks: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(2, { error: 'must be at least 2' }).max(1000, { error: 'must be at most 1000' }).default(10),
-  /** Whether ACCEPT also needs a positive finite key. Default false. */
-  requirePositiveKey: z.boolean({ error: 'must be true or false' }).default(false),
-  /** Check families whose failure aborts the run; the others only warn. Default: all but stationarity. */
-  blockingChecks: z
-    .array(z.enum(CHECK_FAMILIES, { error: `must be one of ${CHECK_FAMILIES.join(', ')}` }))
-    .default(['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling']),
-  /**
-   * The attack model of the key figure that counts: `collective` (i.i.d. devices, the finite key
-   * estimate) or `general` (any attack: the entropy-accumulation key length). Default collective.
-   */
-  securityModel: z.enum(['collective', 'general'], { error: 'must be collective or general' }).default('collective'),
-  /** Settings of the general-attack key length; required when securityModel is general. */
-  generalAttack: generalAttackSchema.optional(),
-}).superRefine((profile, context) => {
-  if (profile.securityModel !== 'general') return;
-  if (profile.testSelection.mode === 'fixed-fraction') {
-    context.addIssue({ code: 'custom', path: ['testSelection', 'mode'], message: 'a general-attack profile needs each round tested with a fixed probability (bernoulli or from-log); a fixed-size subset is refused' });
-  }
-  if (profile.generalAttack === undefined) {
-    context.addIssue({ code: 'custom', path: ['generalAttack'], message: 'is required when securityModel is general' });
-  } else if (profile.testSelection.mode === 'from-log' && profile.generalAttack.testProbability === undefined) {
-    context.addIssue({ code: 'custom', path: ['generalAttack', 'testProbability'], message: 'is required with from-log selection: the probability with which the lab marks test rounds' });
-  }
-});
+export const profileSchema = z
+  .strictObject({
+    /** How test rounds are chosen. Default: fixed-fraction, half the rounds. */
+    testSelection: testSelectionSchema.prefault({ mode: 'fixed-fraction' }),
+    /** Accept when the CHSH win fraction reaches ω_Q − chshTolerance. Default 0.03 (common practice 0.01–0.05). */
+    chshTolerance: z
+      .number({ error: 'must be a number' })
+      .gt(0, { error: 'must be above 0' })
+      .max(0.25, { error: 'must be at most 0.25 (ω_Q − 0.25 is below the local bound)' })
+      .default(0.03),
+    /** Accept when the error rate on the key setting is at most qberTolerance. Default 0.05 (common practice 2–8%). */
+    qberTolerance: z.number({ error: 'must be a number' }).gt(0, { error: 'must be above 0' }).max(0.5, { error: 'must be at most 0.5' }).default(0.05),
+    /** Failure probability of every confidence bound (Hoeffding, sampling). Default 1e-9 (common practice 1e-6–1e-12). */
+    epsilon: openUnitInterval('epsilon').default(1e-9),
+    /**
+     * `certified`: the confidence-corrected values against the thresholds; `observed`: the observed
+     * ones. Default certified. Under either, ACCEPT needs the lower bound of the win fraction above ¾.
+     */
+    criterion: z.enum(['observed', 'certified'], { error: 'must be observed or certified' }).default('certified'),
+    /** Fewest CHSH test rounds and fewest key-setting test rounds accepted. Default 1000 (common practice, no source). */
+    minTestRounds: z.number({ error: 'must be a number' }).int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).default(1000),
+    /** Error-correction efficiency f ≥ 1. Default 1.15 (common practice 1.1–1.2, no source). */
+    reconciliationEfficiency: z.number({ error: 'must be a number' }).min(1, { error: 'must be at least 1' }).max(2, { error: 'must be at most 2' }).default(1.15),
+    /** Failure probability of error correction, ε_EC. Default 1e-10. */
+    epsilonEC: openUnitInterval('epsilonEC').default(1e-10),
+    /** Failure probability of privacy amplification, ε_PA. Default 1e-10. */
+    epsilonPA: openUnitInterval('epsilonPA').default(1e-10),
+    /** A statistical check fails when its p-value falls below this. Default 0.001 (common practice, no source). */
+    significance: openUnitInterval('significance').default(0.001),
+    /**
+     * Largest share of the trigger span (first to last round index) that may be missing from the log;
+     * beyond it the run never passes. Default 0.001 (common practice, no source).
+     */
+    missingRoundsTolerance: z.number({ error: 'must be a number' }).min(0, { error: 'must be at least 0' }).lt(0.5, { error: 'must be below 0.5' }).default(0.001),
+    /** Number of consecutive blocks for the stationarity check. Default 10. */
+    driftBlocks: z
+      .number({ error: 'must be a number' })
+      .int({ error: 'must be a whole number' })
+      .min(2, { error: 'must be at least 2' })
+      .max(1000, { error: 'must be at most 1000' })
+      .default(10),
+    /** Whether ACCEPT also needs a positive finite key. Default false. */
+    requirePositiveKey: z.boolean({ error: 'must be true or false' }).default(false),
+    /** Check families whose failure aborts the run; the others only warn. Default: all but stationarity. */
+    blockingChecks: z
+      .array(z.enum(CHECK_FAMILIES, { error: `must be one of ${CHECK_FAMILIES.join(', ')}` }))
+      .default(['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling']),
+    /**
+     * The attack model of the key figure that counts: `collective` (i.i.d. devices, the finite key
+     * estimate) or `general` (any attack: the entropy-accumulation key length). Default collective.
+     */
+    securityModel: z.enum(['collective', 'general'], { error: 'must be collective or general' }).default('collective'),
+    /** Settings of the general-attack key length; required when securityModel is general. */
+    generalAttack: generalAttackSchema.optional(),
+  })
+  .superRefine((profile, context) => {
+    if (profile.securityModel !== 'general') return;
+    if (profile.testSelection.mode === 'fixed-fraction') {
+      context.addIssue({
+        code: 'custom',
+        path: ['testSelection', 'mode'],
+        message: 'a general-attack profile needs each round tested with a fixed probability (bernoulli or from-log); a fixed-size subset is refused',
+      });
+    }
+    if (profile.generalAttack === undefined) {
+      context.addIssue({ code: 'custom', path: ['generalAttack'], message: 'is required when securityModel is general' });
+    } else if (profile.testSelection.mode === 'from-log' && profile.generalAttack.testProbability === undefined) {
+      context.addIssue({
+        code: 'custom',
+        path: ['generalAttack', 'testProbability'],
+        message: 'is required with from-log selection: the probability with which the lab marks test rounds',
+      });
+    }
+  });
 
 /** A complete analysis profile, defaults filled in. */
 export type AnalysisProfile = z.output<typeof profileSchema>;

@@ -6,18 +6,20 @@ export const AUDIT_TARGET_TYPES = ['run', 'user', 'profile', 'setup', 'booking',
 export type AuditTargetType = (typeof AUDIT_TARGET_TYPES)[number];
 
 /** What the system-wide trail can be narrowed to (`GET /api/audit/export.csv`; `GET /api/audit` pages it). */
-export const auditFilterSchema = /* @__PURE__ */ z.strictObject({
-  actorId: z.coerce.number({ error: 'must be a user id' }).int().positive({ error: 'must be a user id' }).optional(),
-  action: z
-    .string()
-    .regex(/^[a-z-]+(\.[a-z-]*)?$/, 'must be an action such as run.exported, or a family such as run.')
-    .optional()
-    .meta({ description: 'Exact action, e.g. `run.exported`, or a family ending in a dot, e.g. `profile.`.' }),
-  targetType: z.enum(AUDIT_TARGET_TYPES, { error: `must be one of ${AUDIT_TARGET_TYPES.join(', ')}` }).optional(),
-  targetId: z.string().max(64, 'must be at most 64 characters').optional(),
-  from: isoDate.optional().meta({ description: 'Inclusive dates, YYYY-MM-DD (UTC).' }),
-  to: isoDate.optional(),
-}).meta({ description: 'The trail narrowed to an actor, an action, a target and dates.' });
+export const auditFilterSchema = /* @__PURE__ */ z
+  .strictObject({
+    actorId: z.coerce.number({ error: 'must be a user id' }).int().positive({ error: 'must be a user id' }).optional(),
+    action: z
+      .string()
+      .regex(/^[a-z-]+(\.[a-z-]*)?$/, 'must be an action such as run.exported, or a family such as run.')
+      .optional()
+      .meta({ description: 'Exact action, e.g. `run.exported`, or a family ending in a dot, e.g. `profile.`.' }),
+    targetType: z.enum(AUDIT_TARGET_TYPES, { error: `must be one of ${AUDIT_TARGET_TYPES.join(', ')}` }).optional(),
+    targetId: z.string().max(64, 'must be at most 64 characters').optional(),
+    from: isoDate.optional().meta({ description: 'Inclusive dates, YYYY-MM-DD (UTC).' }),
+    to: isoDate.optional(),
+  })
+  .meta({ description: 'The trail narrowed to an actor, an action, a target and dates.' });
 export type AuditFilter = z.infer<typeof auditFilterSchema>;
 
 /** The filters of the trail with its page (`GET /api/audit`). */

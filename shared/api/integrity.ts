@@ -60,14 +60,21 @@ export type ReverificationDto = z.infer<typeof reverificationSchema>;
 
 /** Body of `POST /api/runs/:id/reverifications`: empty, or (admins only) another seed, 64 hex digits. */
 export const reverificationRequestSchema = /* @__PURE__ */ z
-  .strictObject({ seed: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits').optional() })
+  .strictObject({
+    seed: z
+      .string()
+      .regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hexadecimal digits')
+      .optional(),
+  })
   .meta({ id: 'ReverificationRequest' });
 export type ReverificationRequest = z.infer<typeof reverificationRequestSchema>;
 
 /** The formats of `GET /api/runs/:id/export/:format`. */
 export const EXPORT_FORMATS = ['json', 'pdf', 'counts.csv', 'blocks.csv'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
-export const exportFormatSchema = /* @__PURE__ */ z.enum(EXPORT_FORMATS, { error: `must be one of ${EXPORT_FORMATS.join(', ')}` }).meta({ description: 'The formats of an export.' });
+export const exportFormatSchema = /* @__PURE__ */ z
+  .enum(EXPORT_FORMATS, { error: `must be one of ${EXPORT_FORMATS.join(', ')}` })
+  .meta({ description: 'The formats of an export.' });
 
 export const RUN_REPORT_FORMAT = 'bellkeep.run-report';
 

@@ -60,7 +60,9 @@ export const planSchema = /* @__PURE__ */ z
     roundsForLikelyPass: z.number().nullable().meta({ description: 'Smallest N whose pass probability reaches 0.99, or null (for instance when ω is below the threshold).' }),
     searchLimit: described('The largest N searched.'),
     curve: z.array(planPointSchema).meta({ description: 'Points on a logarithmic grid of N, for the chart.' }),
-    bestTestFraction: testFractionPointSchema.meta({ description: 'The test fraction that maximises the expected finite key at the chosen N (profiles that fix the fraction ignore it).' }),
+    bestTestFraction: testFractionPointSchema.meta({
+      description: 'The test fraction that maximises the expected finite key at the chosen N (profiles that fix the fraction ignore it).',
+    }),
     testFractionCurve: z.array(testFractionPointSchema),
     cautions: z.array(z.string()).meta({ description: 'What the planner does not model, in sentences.' }),
   })

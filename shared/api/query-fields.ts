@@ -8,10 +8,18 @@ export const isoDate = /* @__PURE__ */ z.iso.date({ error: 'must be a date as YY
 export const isoDateTime = /* @__PURE__ */ z.iso.datetime({ offset: true, error: 'must be an ISO date-time' });
 
 /** A positive id in a query string or form field. */
-export const queryId = /* @__NO_SIDE_EFFECTS__ */ (what: string) => z.coerce.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
+export const queryId = /* @__NO_SIDE_EFFECTS__ */ (what: string) =>
+  z.coerce
+    .number({ error: `must be ${what} id` })
+    .int()
+    .positive({ error: `must be ${what} id` });
 
 /** A positive id in a JSON body. */
-export const bodyId = /* @__NO_SIDE_EFFECTS__ */ (what: string) => z.number({ error: `must be ${what} id` }).int().positive({ error: `must be ${what} id` });
+export const bodyId = /* @__NO_SIDE_EFFECTS__ */ (what: string) =>
+  z
+    .number({ error: `must be ${what} id` })
+    .int()
+    .positive({ error: `must be ${what} id` });
 
 /** A finite number in a query string. */
 export const queryNumber = /* @__NO_SIDE_EFFECTS__ */ (what: string) => z.coerce.number({ error: `must be ${what}` }).refine(Number.isFinite, { error: `must be ${what}` });

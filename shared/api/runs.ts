@@ -32,9 +32,7 @@ export const analysisResultSchema = /* @__PURE__ */ z
   });
 
 /** A shift lead's sign-off of a finished run. */
-export const signOffSchema = /* @__PURE__ */ z
-  .object({ userId: z.number().int(), userName: z.string(), comment: z.string(), createdAt: z.string() })
-  .meta({ id: 'SignOffDto' });
+export const signOffSchema = /* @__PURE__ */ z.object({ userId: z.number().int(), userName: z.string(), comment: z.string(), createdAt: z.string() }).meta({ id: 'SignOffDto' });
 export type SignOffDto = z.infer<typeof signOffSchema>;
 
 const nullableNumber = /* @__NO_SIDE_EFFECTS__ */ (description: string) => z.number().nullable().meta({ description });
@@ -118,25 +116,27 @@ const hexPrefix = /* @__PURE__ */ z
   .transform((hex) => hex.toLowerCase());
 
 /** The filters, sort and page of `GET /api/runs`. */
-export const runListQuerySchema = /* @__PURE__ */ z.strictObject({
-  ...paging(25, 200),
-  sort: z.enum(RUN_SORT_KEYS).default('createdAt'),
-  direction: z.enum(['asc', 'desc']).default('desc'),
-  setupId: queryId('a setup').optional(),
-  state: z.enum(RUN_STATES).optional(),
-  verdict: z.enum(VERDICTS).optional(),
-  from: isoDate.optional().meta({ description: 'YYYY-MM-DD, inclusive.' }),
-  to: isoDate.optional(),
-  uploadedBy: queryId('a user').optional(),
-  profileVersionId: queryId('a profile version').optional(),
-  sha256: hexPrefix.optional().meta({ description: "A hex prefix of the log's SHA-256." }),
-  fingerprint: hexPrefix.optional().meta({ description: "A hex prefix of the result's fingerprint." }),
-  finished: z
-    .enum(['true', 'false'], { error: 'must be true or false' })
-    .transform((flag) => flag === 'true')
-    .optional()
-    .meta({ description: 'Only runs whose analysis has ended (with a verdict or failed).' }),
-}).meta({ description: 'The filters, sort and page of the run list.' });
+export const runListQuerySchema = /* @__PURE__ */ z
+  .strictObject({
+    ...paging(25, 200),
+    sort: z.enum(RUN_SORT_KEYS).default('createdAt'),
+    direction: z.enum(['asc', 'desc']).default('desc'),
+    setupId: queryId('a setup').optional(),
+    state: z.enum(RUN_STATES).optional(),
+    verdict: z.enum(VERDICTS).optional(),
+    from: isoDate.optional().meta({ description: 'YYYY-MM-DD, inclusive.' }),
+    to: isoDate.optional(),
+    uploadedBy: queryId('a user').optional(),
+    profileVersionId: queryId('a profile version').optional(),
+    sha256: hexPrefix.optional().meta({ description: "A hex prefix of the log's SHA-256." }),
+    fingerprint: hexPrefix.optional().meta({ description: "A hex prefix of the result's fingerprint." }),
+    finished: z
+      .enum(['true', 'false'], { error: 'must be true or false' })
+      .transform((flag) => flag === 'true')
+      .optional()
+      .meta({ description: 'Only runs whose analysis has ended (with a verdict or failed).' }),
+  })
+  .meta({ description: 'The filters, sort and page of the run list.' });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
 
 /** Body of `POST /api/runs/:id/sign-off` (a shift lead of the run's setup). */

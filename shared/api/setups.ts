@@ -32,7 +32,10 @@ export const saveSetupRequestSchema = /* @__PURE__ */ z
     stationBLabel: label,
     defaultProfileId: z.number({ error: 'must be a profile id' }).int().positive(),
     shiftLeadIds: z.array(z.number().int().positive(), { error: 'must be a list of user ids' }).max(50).meta({ description: 'Users holding the shift-lead role.' }),
-    extraRecipients: z.array(z.string().trim().pipe(z.email('is not an e-mail address'))).max(50).optional(),
+    extraRecipients: z
+      .array(z.string().trim().pipe(z.email('is not an e-mail address')))
+      .max(50)
+      .optional(),
   })
   .meta({ id: 'SaveSetupRequest' });
 export type SaveSetupRequest = z.infer<typeof saveSetupRequestSchema>;

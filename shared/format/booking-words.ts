@@ -35,9 +35,7 @@ export function bookingWords(run: Pick<RunDto, 'id' | 'booking' | 'replayOf'>): 
             REVEALED_SEED_CAUTION,
           ]
         : []),
-      ...(earlier.length > 0
-        ? [`Other attempts: ${earlier.map((attempt) => `${attempt.attempt} — run ${attempt.runId}, ${attempt.verdict ?? attempt.state}`).join('; ')}.`]
-        : []),
+      ...(earlier.length > 0 ? [`Other attempts: ${earlier.map((attempt) => `${attempt.attempt} — run ${attempt.runId}, ${attempt.verdict ?? attempt.state}`).join('; ')}.`] : []),
       ...replay,
     ],
   };

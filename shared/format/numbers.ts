@@ -4,7 +4,12 @@ const THIN_SPACE = '\u2009';
 /** A whole count with thin-space thousands separators: 1 500 000 → "1 500 000". */
 export function formatCount(value: number): string {
   const sign = value < 0 ? '−' : '';
-  return sign + Math.round(Math.abs(value)).toString().replace(/\B(?=(\d{3})+(?!\d))/g, THIN_SPACE);
+  return (
+    sign +
+    Math.round(Math.abs(value))
+      .toString()
+      .replace(/\B(?=(\d{3})+(?!\d))/g, THIN_SPACE)
+  );
 }
 
 /** A figure with a fixed number of decimals, or an en dash when there is none. */

@@ -45,7 +45,8 @@ function evenPairs(rounds: number, wins: number): number[] {
  */
 export function qberPassProbability(rounds: number, qber: number, profile: AnalysisProfile): number {
   const empty = new Array<number>(COUNT_CELLS).fill(0);
-  const fails = (errors: number) => !qberCriterion(summariseQber(tableWith(countCell(0, 2, 0, 1), errors, countCell(0, 2, 0, 0), rounds - errors), empty, profile.epsilon), profile).passes;
+  const fails = (errors: number) =>
+    !qberCriterion(summariseQber(tableWith(countCell(0, 2, 0, 1), errors, countCell(0, 2, 0, 0), rounds - errors), empty, profile.epsilon), profile).passes;
   const fewestFailing = firstIndexWhere(0, rounds, fails);
   if (fewestFailing === null) return 1;
   return -Math.expm1(log10BinomialUpperTail(fewestFailing, rounds, qber) * Math.LN10);

@@ -1,3 +1,4 @@
+import { expect } from '@jest/globals';
 import { jStat } from 'jstat';
 import { parseProfile } from '../analysis/profile';
 import { QUANTUM_WIN_FRACTION } from '../analysis/statistics/bell-bounds';

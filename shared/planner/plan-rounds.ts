@@ -49,7 +49,8 @@ export function planRounds(input: PlanInput): PlanDto {
   // Under the general model the CHSH criterion is ω_thr, which moves with N and γ (cheap to compute);
   // the general-attack key length itself, costlier, is planned apart (`planGeneralAttack`).
   const general = profile.securityModel === 'general' ? generalPlanSettings(profile, device, fixedFraction) : null;
-  const thresholdAt = (rounds: number, testFraction: number) => (general && !('unavailable' in general) ? generalThresholdAt(general, rounds, testFraction, device.xZeroProbability) : undefined);
+  const thresholdAt = (rounds: number, testFraction: number) =>
+    general && !('unavailable' in general) ? generalThresholdAt(general, rounds, testFraction, device.xZeroProbability) : undefined;
   const pointAt = (rounds: number, testFraction = fixedFraction) => planPoint(device, profile, rounds, testFraction, thresholdAt(rounds, testFraction));
 
   const budgets = logGrid(SMALLEST_PLANNED, SEARCH_LIMIT, CURVE_POINTS_PER_DECADE);
@@ -157,14 +158,16 @@ export function validated(input: PlanInput) {
   if (input.rounds !== undefined && (!Number.isInteger(input.rounds) || input.rounds < SMALLEST_PLANNED || input.rounds > SEARCH_LIMIT)) {
     throw new PlanInputError(`The round budget must be a whole number from ${SMALLEST_PLANNED} to ${SEARCH_LIMIT.toExponential()}; it is ${input.rounds}.`, 'rounds');
   }
-  if (trialRate !== null && !(trialRate > 0 && Number.isFinite(trialRate))) throw new PlanInputError(`The trial rate must be a positive number of rounds per second; it is ${trialRate}.`, 'trialRate');
+  if (trialRate !== null && !(trialRate > 0 && Number.isFinite(trialRate)))
+    throw new PlanInputError(`The trial rate must be a positive number of rounds per second; it is ${trialRate}.`, 'trialRate');
   const selection = profile.testSelection;
   let fixedFraction: number;
   if (selection.mode === 'from-log' && profile.securityModel === 'general') {
     // A general-attack profile fixes the probability its marking tests rounds with.
     fixedFraction = profile.generalAttack!.testProbability!;
   } else if (selection.mode === 'from-log') {
-    if (input.testFraction === undefined) throw new PlanInputError('The profile takes its test rounds from the log: give the share of rounds the lab marks as test rounds.', 'testFraction');
+    if (input.testFraction === undefined)
+      throw new PlanInputError('The profile takes its test rounds from the log: give the share of rounds the lab marks as test rounds.', 'testFraction');
     requireRange(input.testFraction, 0, 1, 'testFraction', 'The test fraction');
     fixedFraction = input.testFraction;
   } else {

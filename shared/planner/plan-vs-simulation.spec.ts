@@ -42,28 +42,35 @@ describe('the planner against simulated runs of the device model', () => {
     },
   ];
 
-  it.each(scenarios)('$name', async ({ rounds, visibility, keyError, profile }) => {
-    const model: DeviceModel = { rounds, northHallZeroBias: 0.5, visibility: () => visibility, keyError: () => keyError, lossProbability: 0 };
-    // The device model wins a CHSH round with probability 1/2 + V·√2/4.
-    const plan = planRounds({ device: { winFraction: 0.5 + (visibility * Math.SQRT2) / 4, qber: keyError }, profile, rounds });
-    const predicted = plan.at.passProbability;
-    // Intermediate probabilities, so that the comparison can fail.
-    for (const probability of [predicted.chsh, predicted.qber]) expect(probability).toBeGreaterThan(0.15);
-    for (const probability of [predicted.chsh, predicted.qber]) expect(probability).toBeLessThan(0.95);
+  it.each(scenarios)(
+    '$name',
+    async ({ rounds, visibility, keyError, profile }) => {
+      const model: DeviceModel = { rounds, northHallZeroBias: 0.5, visibility: () => visibility, keyError: () => keyError, lossProbability: 0 };
+      // The device model wins a CHSH round with probability 1/2 + V·√2/4.
+      const plan = planRounds({ device: { winFraction: 0.5 + (visibility * Math.SQRT2) / 4, qber: keyError }, profile, rounds });
+      const predicted = plan.at.passProbability;
+      // Intermediate probabilities, so that the comparison can fail.
+      for (const probability of [predicted.chsh, predicted.qber]) expect(probability).toBeGreaterThan(0.15);
+      for (const probability of [predicted.chsh, predicted.qber]) expect(probability).toBeLessThan(0.95);
 
-    let chshPasses = 0;
-    let qberPasses = 0;
-    const file = path.join(scratch, 'run.csv');
-    for (let run = 0; run < SIMULATED_RUNS; run++) {
-      const seedOf = (what: string) => crypto.createHash('sha256').update(`planner simulation ${rounds} ${run} ${what}`).digest('hex');
-      await writeModelLog(file, model, seedOf('acquisition'));
-      const result = await analyseLog({ path: file }, { profile, seed: seedOf('selection'), threads: 1 });
-      if (chshCriterion(result.chsh!, result.profile).passes) chshPasses++;
-      if (qberCriterion(result.qber!, result.profile).passes) qberPasses++;
-    }
-    for (const [observed, probability] of [[chshPasses / SIMULATED_RUNS, predicted.chsh], [qberPasses / SIMULATED_RUNS, predicted.qber]]) {
-      const standardError = Math.sqrt((probability * (1 - probability)) / SIMULATED_RUNS);
-      expect(Math.abs(observed - probability)).toBeLessThan(ALLOWED_STANDARD_ERRORS * standardError);
-    }
-  }, 300_000);
+      let chshPasses = 0;
+      let qberPasses = 0;
+      const file = path.join(scratch, 'run.csv');
+      for (let run = 0; run < SIMULATED_RUNS; run++) {
+        const seedOf = (what: string) => crypto.createHash('sha256').update(`planner simulation ${rounds} ${run} ${what}`).digest('hex');
+        await writeModelLog(file, model, seedOf('acquisition'));
+        const result = await analyseLog({ path: file }, { profile, seed: seedOf('selection'), threads: 1 });
+        if (chshCriterion(result.chsh!, result.profile).passes) chshPasses++;
+        if (qberCriterion(result.qber!, result.profile).passes) qberPasses++;
+      }
+      for (const [observed, probability] of [
+        [chshPasses / SIMULATED_RUNS, predicted.chsh],
+        [qberPasses / SIMULATED_RUNS, predicted.qber],
+      ]) {
+        const standardError = Math.sqrt((probability * (1 - probability)) / SIMULATED_RUNS);
+        expect(Math.abs(observed - probability)).toBeLessThan(ALLOWED_STANDARD_ERRORS * standardError);
+      }
+    },
+    300_000,
+  );
 });

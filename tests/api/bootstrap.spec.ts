@@ -95,7 +95,12 @@ describe('the demo lab’s history of nights', () => {
       // Signed like any stored result, with the key the bootstrap listed: every check holds.
       const signingKeys = createSigningKeysService(database.sequelize, database.models, createAuditTrail(database.models.AuditEvent), resolveSigningKey(undefined, dataDir));
       const checked = await createVerificationService(database.models, createLocalLogStore(dataDir), signingKeys).verify(sample.id);
-      expect(checked.checks.map((check) => [check.check, check.passed])).toEqual([['result-fingerprint', true], ['signature', true], ['archive-file', true], ['system-trail', true]]);
+      expect(checked.checks.map((check) => [check.check, check.passed])).toEqual([
+        ['result-fingerprint', true],
+        ['signature', true],
+        ['archive-file', true],
+        ['system-trail', true],
+      ]);
       expect(runs.every((run) => run.signingKeyId === signingKeys.current.keyId)).toBe(true);
     } finally {
       await database.drop();

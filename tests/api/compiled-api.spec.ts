@@ -24,12 +24,20 @@ describe('the compiled API (npm run api)', () => {
     const port = await freePort();
     const child = spawn(process.execPath, [path.join(PROJECT_ROOT, 'server', 'cli', 'run-compiled.js'), 'server/api-main.ts'], {
       cwd: PROJECT_ROOT,
-      env: { ...process.env, BELLKEEP_DATABASE_URL: database.url, BELLKEEP_SMTP_URL: 'smtp://127.0.0.1:9', BELLKEEP_PORT: String(port), BELLKEEP_DATA_DIR: dataDir, BELLKEEP_DEMO: 'false', BELLKEEP_LOG_LEVEL: 'silent' },
+      env: {
+        ...process.env,
+        BELLKEEP_DATABASE_URL: database.url,
+        BELLKEEP_SMTP_URL: 'smtp://127.0.0.1:9',
+        BELLKEEP_PORT: String(port),
+        BELLKEEP_DATA_DIR: dataDir,
+        BELLKEEP_DEMO: 'false',
+        BELLKEEP_LOG_LEVEL: 'silent',
+      },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     let said = '';
-    child.stdout!.on('data', (chunk: Buffer) => (said += chunk.toString()));
-    child.stderr!.on('data', (chunk: Buffer) => (said += chunk.toString()));
+    child.stdout.on('data', (chunk: Buffer) => (said += chunk.toString()));
+    child.stderr.on('data', (chunk: Buffer) => (said += chunk.toString()));
     const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code)));
     const deadline = Date.now() + 90_000;
     while (!/Bellkeep API \d+ on/.test(said) && child.exitCode === null && Date.now() < deadline) await new Promise((resolve) => setTimeout(resolve, 100));
@@ -38,7 +46,12 @@ describe('the compiled API (npm run api)', () => {
       // the compiled seeders bring the demo lab's people (its admin) and setups.
       expect(said).toMatch(new RegExp(`Bellkeep API ${child.pid} on http://127\\.0\\.0\\.1:${port} \\(0 migration\\(s\\), 2 seeder\\(s\\)`));
       const [seeded] = await database.sequelize.query('SELECT name FROM "SequelizeData" ORDER BY name');
-      expect((seeded as Array<{ name: string }>).map((row) => row.name)).toEqual(fs.readdirSync(path.join(PROJECT_ROOT, 'seeders')).filter((name) => name.endsWith('.ts')).sort());
+      expect((seeded as Array<{ name: string }>).map((row) => row.name)).toEqual(
+        fs
+          .readdirSync(path.join(PROJECT_ROOT, 'seeders'))
+          .filter((name) => name.endsWith('.ts'))
+          .sort(),
+      );
       const ready = await fetch(`http://127.0.0.1:${port}/api/ready`);
       expect(ready.status).toBe(200);
       const health = await fetch(`http://127.0.0.1:${port}/api/health`);

@@ -8,7 +8,10 @@ import { createTestApp, type TestApp } from '../support/test-app';
 jest.setTimeout(120_000);
 
 const TUS = { 'Tus-Resumable': '1.0.0' };
-const tusMetadata = (fields: Record<string, string>) => Object.entries(fields).map(([name, value]) => `${name} ${Buffer.from(value).toString('base64')}`).join(',');
+const tusMetadata = (fields: Record<string, string>) =>
+  Object.entries(fields)
+    .map(([name, value]) => `${name} ${Buffer.from(value).toString('base64')}`)
+    .join(',');
 
 /**
  * Calls every operation of the API once, as someone allowed to, and checks each answer against
@@ -39,9 +42,23 @@ describe('every operation answers as the OpenAPI document says', () => {
     await api.get('/api/auth/me').set(auditor()).expect(200);
     await api.get('/api/users').set(admin()).expect(200);
     await api.get('/api/users').set(auditor()).expect(403);
-    const created = (await api.post('/api/users').set(admin()).send({ email: 'contract.check@kestrelfen.example', name: 'Contract Check', password: 'long-enough-2026', roles: ['auditor'] }).expect(201)).body as UserDto;
-    await api.post('/api/users').set(admin()).send({ email: 'not an address', name: 'X', password: 'long-enough-2026', roles: ['auditor'] }).expect(400);
-    await api.patch(`/api/users/${created.id}`).set(admin()).send({ roles: ['auditor', 'shift-lead'] }).expect(200);
+    const created = (
+      await api
+        .post('/api/users')
+        .set(admin())
+        .send({ email: 'contract.check@kestrelfen.example', name: 'Contract Check', password: 'long-enough-2026', roles: ['auditor'] })
+        .expect(201)
+    ).body as UserDto;
+    await api
+      .post('/api/users')
+      .set(admin())
+      .send({ email: 'not an address', name: 'X', password: 'long-enough-2026', roles: ['auditor'] })
+      .expect(400);
+    await api
+      .patch(`/api/users/${created.id}`)
+      .set(admin())
+      .send({ roles: ['auditor', 'shift-lead'] })
+      .expect(200);
   });
 
   it('setups, profiles, bookings, upload tokens, the planner and the workers', async () => {
@@ -51,7 +68,11 @@ describe('every operation answers as the OpenAPI document says', () => {
     const leads = ((await api.get('/api/users').set(admin()).expect(200)).body as UserDto[]).filter((user) => user.roles.includes('shift-lead'));
     const setup = { name: 'Contract bench', stationALabel: 'North hut', stationBLabel: 'South hut', defaultProfileId: 1, shiftLeadIds: [leads[0].id] };
     const made = (await api.post('/api/setups').set(admin()).send(setup).expect(201)).body as { id: number };
-    await api.put(`/api/setups/${made.id}`).set(admin()).send({ ...setup, description: 'Checked against the contract.' }).expect(200);
+    await api
+      .put(`/api/setups/${made.id}`)
+      .set(admin())
+      .send({ ...setup, description: 'Checked against the contract.' })
+      .expect(200);
 
     await api.get('/api/profiles').set(auditor()).expect(200);
     const profile = (await api.get('/api/profiles/1').set(auditor()).expect(200)).body as ProfileDto;
@@ -65,7 +86,13 @@ describe('every operation answers as the OpenAPI document says', () => {
 
     const now = Date.now();
     const window = { windowStart: new Date(now + 60_000).toISOString(), windowEnd: new Date(now + 3_600_000).toISOString() };
-    const booking = (await api.post('/api/bookings').set(experimentalist()).send({ setupId: made.id, night: '2026-12-05', ...window, plannedRounds: 4000 }).expect(201)).body as { id: number };
+    const booking = (
+      await api
+        .post('/api/bookings')
+        .set(experimentalist())
+        .send({ setupId: made.id, night: '2026-12-05', ...window, plannedRounds: 4000 })
+        .expect(201)
+    ).body as { id: number };
     await api.get(`/api/bookings?setupId=${made.id}`).set(auditor()).expect(200);
     await api.get(`/api/bookings/${booking.id}`).set(auditor()).expect(200);
 
@@ -77,7 +104,8 @@ describe('every operation answers as the OpenAPI document says', () => {
 
   it('runs: a multipart upload and a resumable one, their reads, the sign-off, the integrity checks and the exports', async () => {
     const log = fixtureLog('accepted-run.csv');
-    const uploaded = (await api.post('/api/runs').set(experimentalist()).set('Idempotency-Key', 'contract-check-1').field('setupId', '1').attach('log', log).expect(201)).body as RunDto;
+    const uploaded = (await api.post('/api/runs').set(experimentalist()).set('Idempotency-Key', 'contract-check-1').field('setupId', '1').attach('log', log).expect(201))
+      .body as RunDto;
     await api.post('/api/runs').set(experimentalist()).field('setupId', '1').field('seed', 'ab').attach('log', log).expect(400);
     await waitForFinishedRun(testApp.app, experimentalist().Authorization.slice(7), uploaded.id);
 
@@ -86,9 +114,16 @@ describe('every operation answers as the OpenAPI document says', () => {
       .post('/api/uploads')
       .set({ ...experimentalist(), ...TUS, 'Upload-Length': String(bytes.length), 'Upload-Metadata': tusMetadata({ filename: 'night.csv', setupId: '1' }) })
       .expect(201);
-    const location = created.headers['location'] as string;
-    await api.head(location).set({ ...experimentalist(), ...TUS }).expect(200);
-    await api.patch(location).set({ ...experimentalist(), ...TUS, 'Upload-Offset': '0', 'Content-Type': 'application/offset+octet-stream' }).send(bytes).expect(201);
+    const location = created.headers['location'];
+    await api
+      .head(location)
+      .set({ ...experimentalist(), ...TUS })
+      .expect(200);
+    await api
+      .patch(location)
+      .set({ ...experimentalist(), ...TUS, 'Upload-Offset': '0', 'Content-Type': 'application/offset+octet-stream' })
+      .send(bytes)
+      .expect(201);
     await api.get(location).set(experimentalist()).expect(200);
 
     await api.get('/api/runs?pageSize=5&sort=state&finished=true').set(auditor()).expect(200);

@@ -34,7 +34,9 @@ describe('the OpenAPI document', () => {
   });
 
   it('says who may call each operation: public ones need no token, the others name theirs', () => {
-    const operations = Object.values(API_DOCUMENT.paths ?? {}).flatMap((item) => Object.values(item as Record<string, { security: unknown[]; 'x-bellkeep-access': unknown; description: string }>));
+    const operations = Object.values(API_DOCUMENT.paths ?? {}).flatMap((item) =>
+      Object.values(item as Record<string, { security: unknown[]; 'x-bellkeep-access': unknown; description: string }>),
+    );
     expect(operations.length).toBe(documentedOperations().length);
     for (const operation of operations) {
       expect(operation.security).toEqual(operation['x-bellkeep-access'] === 'public' ? [] : expect.arrayContaining([{ signIn: [] }]));
@@ -58,7 +60,11 @@ describe('the OpenAPI document', () => {
     const style = await request(testApp.app).get('/api/reference/page.css').expect(200);
     const fonts = [...style.text.matchAll(/url\('([^']+)'\)/g)].map((match) => match[1]);
     expect(fonts).toHaveLength(2);
-    for (const font of fonts) await request(testApp.app).get(font).expect(200).expect('Content-Type', /font\/woff2/);
+    for (const font of fonts)
+      await request(testApp.app)
+        .get(font)
+        .expect(200)
+        .expect('Content-Type', /font\/woff2/);
     const script = await request(testApp.app).get('/api/reference/start.js').expect(200);
     expect(script.text).toContain("url: '/api/openapi.json'");
     await request(testApp.app).get('/api/reference/index.html').expect(404);

@@ -74,7 +74,11 @@ describe('profiles, setups and what the database itself guards', () => {
     expect(saved.extraRecipients).toEqual(['night-desk@kestrelfen.example']);
 
     const devId = ((await request(testApp.app).get('/api/auth/me').set('Authorization', `Bearer ${dev}`)).body as { id: number }).id;
-    const refused = await request(testApp.app).put(`/api/setups/${fen}`).set('Authorization', `Bearer ${admin}`).send({ ...body, shiftLeadIds: [devId] }).expect(400);
+    const refused = await request(testApp.app)
+      .put(`/api/setups/${fen}`)
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ ...body, shiftLeadIds: [devId] })
+      .expect(400);
     expect((refused.body as ApiErrorBody).error.field).toBe('shiftLeadIds');
   });
 

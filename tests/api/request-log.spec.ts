@@ -36,7 +36,11 @@ describe('the structured log, followed by request id', () => {
 
   const lines = async (): Promise<LogLine[]> => {
     await new Promise<void>((resolve) => log.flush(() => resolve()));
-    return fs.readFileSync(file, 'utf8').trim().split('\n').map((line) => JSON.parse(line) as LogLine);
+    return fs
+      .readFileSync(file, 'utf8')
+      .trim()
+      .split('\n')
+      .map((line) => JSON.parse(line) as LogLine);
   };
 
   it('follows one upload from the request to the analysis and the mail, and never writes a token or password', async () => {

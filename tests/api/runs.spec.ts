@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import request from 'supertest';
 import { analyseLog } from '../../shared/analysis/node';
@@ -7,7 +8,6 @@ import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { archiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, inbox, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';
-
 
 describe('the runs pipeline through the API', () => {
   let testApp: TestApp;
@@ -33,14 +33,23 @@ describe('the runs pipeline through the API', () => {
   it('upload → queued → analysed with the setup’s profile → verdict mailed to the shift leads → signed off once', async () => {
     const created = await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: fenLink, acquiredOn: '2026-11-30', notes: 'Night 42' }).expect(201);
     const queued = created.body as RunDto;
-    expect(queued).toMatchObject({ state: 'queued', setupName: 'Fen link', profileName: 'Nightly standard', seed: expect.stringMatching(/^[0-9a-f]{64}$/), acquiredOn: '2026-11-30', duplicateOf: null });
-    expect(queued.file.sha256).toBe(require('node:crypto').createHash('sha256').update(fs.readFileSync(fixtureLog('accepted-run.csv'))).digest('hex'));
+    expect(queued).toMatchObject({ state: 'queued', setupName: 'Fen link', profileName: 'Nightly standard', acquiredOn: '2026-11-30', duplicateOf: null });
+    expect(queued.seed).toMatch(/^[0-9a-f]{64}$/);
+    expect(queued.file.sha256).toBe(
+      crypto
+        .createHash('sha256')
+        .update(fs.readFileSync(fixtureLog('accepted-run.csv')))
+        .digest('hex'),
+    );
 
     const run = await waitForFinishedRun(testApp.app, tokens['sami'], queued.id);
     expect(run).toMatchObject({ state: 'accepted', verdict: 'ACCEPT', progress: 1 });
 
     // The stored result is the engine's own, exactly: the same analysis in this process agrees to the fingerprint.
-    const direct = await analyseLog({ path: fixtureLog('accepted-run.csv') }, { profile: (await testApp.services.profiles.findVersion(run.profileVersionId)).parameters, seed: queued.seed });
+    const direct = await analyseLog(
+      { path: fixtureLog('accepted-run.csv') },
+      { profile: (await testApp.services.profiles.findVersion(run.profileVersionId)).parameters, seed: queued.seed },
+    );
     expect(run.result).toEqual(JSON.parse(JSON.stringify(direct)));
     const result = run.result as unknown as AnalysisResult;
     // The upload took the log's census on the way (the header is a record of its text too).
@@ -189,7 +198,8 @@ describe('the runs pipeline through the API', () => {
   });
 
   it('lists runs with paging, sorting and filters', async () => {
-    const page = (await request(testApp.app).get('/api/runs').query({ pageSize: 2, page: 0, sort: 'createdAt', direction: 'asc' }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    const page = (await request(testApp.app).get('/api/runs').query({ pageSize: 2, page: 0, sort: 'createdAt', direction: 'asc' }).set(bearer('sami')).expect(200))
+      .body as RunPageDto;
     expect(page.items).toHaveLength(2);
     expect(page.total).toBeGreaterThan(2);
     expect(page.items[0].id).toBeLessThan(page.items[1].id);
@@ -198,7 +208,8 @@ describe('the runs pipeline through the API', () => {
     expect(aborted.items.length).toBeGreaterThan(0);
     expect(aborted.items.every((item) => item.verdict === 'ABORT')).toBe(true);
 
-    const accepted = (await request(testApp.app).get('/api/runs').query({ state: 'accepted', sort: 'winFraction', direction: 'desc' }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    const accepted = (await request(testApp.app).get('/api/runs').query({ state: 'accepted', sort: 'winFraction', direction: 'desc' }).set(bearer('sami')).expect(200))
+      .body as RunPageDto;
     expect(accepted.items.every((item) => item.winFraction! >= item.winThreshold!)).toBe(true);
 
     const dated = (await request(testApp.app).get('/api/runs').query({ from: '2026-11-30', to: '2026-11-30' }).set(bearer('sami')).expect(200)).body as RunPageDto;
@@ -217,7 +228,7 @@ describe('the runs pipeline through the API', () => {
     for (let attempt = 0; ; attempt++) {
       const deliveries = ((await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('dev'))).body as RunDto).deliveries;
       if (deliveries.some((delivery) => delivery.status === 'failed' && delivery.error)) break;
-      if (attempt > 200) throw new Error("no failed delivery recorded");
+      if (attempt > 200) throw new Error('no failed delivery recorded');
       await new Promise((resolve) => setTimeout(resolve, 100));
     }
     await testApp.restartMailCatcher();

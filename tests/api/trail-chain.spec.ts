@@ -30,7 +30,8 @@ describe('the system trail’s hash chain', () => {
       replacements,
     );
   const trailCheck = async () => (await request(testApp.app).get('/api/audit/trail-check').set('Authorization', `Bearer ${sami}`).expect(200)).body as TrailCheckDto;
-  const verification = async (runId: number) => (await request(testApp.app).get(`/api/runs/${runId}/verification`).set('Authorization', `Bearer ${sami}`).expect(200)).body as VerificationDto;
+  const verification = async (runId: number) =>
+    (await request(testApp.app).get(`/api/runs/${runId}/verification`).set('Authorization', `Bearer ${sami}`).expect(200)).body as VerificationDto;
   const trailCheckOf = (result: VerificationDto) => result.checks.find((check) => check.check === 'system-trail')!;
   const linkOf = async (eventId: number) => (await rows<LinkRow>('SELECT seq::int, event_id::int FROM audit_chain_links WHERE event_id = :eventId', { eventId }))[0];
   const newestLink = async () => (await rows<LinkRow>('SELECT seq::int, event_id::int FROM audit_chain_links ORDER BY seq DESC LIMIT 1'))[0];
@@ -64,8 +65,7 @@ describe('the system trail’s hash chain', () => {
     // Half record and then lock a shared row, half lock it and then record. Were the head taken
     // when the event is written rather than at commit, these would deadlock.
     const fenLink = await setupId(testApp.app, sami, 'Fen link');
-    const lockSetup = (transaction: Transaction) =>
-      sequelize.query('SELECT id FROM setups WHERE id = :id FOR UPDATE', { replacements: { id: fenLink }, transaction });
+    const lockSetup = (transaction: Transaction) => sequelize.query('SELECT id FROM setups WHERE id = :id FOR UPDATE', { replacements: { id: fenLink }, transaction });
     await Promise.all(
       Array.from({ length: 20 }, (_, index) =>
         sequelize.transaction(async (transaction) => {
@@ -78,9 +78,13 @@ describe('the system trail’s hash chain', () => {
 
     const after = await trailCheck();
     expect(after).toMatchObject({ intact: true, problems: [], problemCount: 0, events: before.events + 20 });
-    const [chain] = await rows<{ links: number; first: number; last: number }>('SELECT count(*)::int AS links, min(seq)::int AS first, max(seq)::int AS last FROM audit_chain_links');
+    const [chain] = await rows<{ links: number; first: number; last: number }>(
+      'SELECT count(*)::int AS links, min(seq)::int AS first, max(seq)::int AS last FROM audit_chain_links',
+    );
     expect(chain).toEqual({ links: after.events, first: 1, last: after.events });
-    expect(after.head).toEqual({ seq: after.events, hash: expect.stringMatching(/^[0-9a-f]{64}$/) });
+    const { hash, ...head } = after.head!;
+    expect(head).toEqual({ seq: after.events });
+    expect(hash).toMatch(/^[0-9a-f]{64}$/);
   });
 
   it('a rolled-back event never gets a link, so seq runs on without a gap', async () => {
@@ -120,7 +124,12 @@ describe('the system trail’s hash chain', () => {
     runId = (await waitForFinishedRun(testApp.app, sami, (created.body as RunDto).id)).id;
     await waitForQuietRun(runId);
     const intact = await verification(runId);
-    expect(intact.checks.map((check) => [check.check, check.passed])).toEqual([['result-fingerprint', true], ['signature', true], ['archive-file', true], ['system-trail', true]]);
+    expect(intact.checks.map((check) => [check.check, check.passed])).toEqual([
+      ['result-fingerprint', true],
+      ['signature', true],
+      ['archive-file', true],
+      ['system-trail', true],
+    ]);
     expect(trailCheckOf(intact).detail).toBe(`The system trail’s hash chain holds: all ${await eventCount()} events are linked in order and each still hashes to its link.`);
 
     const [uploaded] = await rows<{ id: number }>("SELECT id::int FROM audit_events WHERE action = 'run.uploaded' AND target_id = :runId", { runId: String(runId) });
@@ -174,7 +183,9 @@ describe('the system trail’s hash chain', () => {
     const headLine = `The chain’s head is at link ${newest.seq}, but the last link is ${newest.seq - 1}: the newest link and its event were removed.`;
     const cut = await trailCheck();
     expect(cut.problems.slice(0, 3)).toEqual([removedLine, changedLine, headLine]);
-    expect(cut.head).toEqual({ seq: newest.seq, hash: expect.stringMatching(/^[0-9a-f]{64}$/) });
+    const { hash, ...head } = cut.head!;
+    expect(head).toEqual({ seq: newest.seq });
+    expect(hash).toMatch(/^[0-9a-f]{64}$/);
 
     await testApp.services.audit.record(entry('after-the-cut'));
     const grown = await newestLink();

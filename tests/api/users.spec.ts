@@ -73,7 +73,11 @@ describe('user management (admin)', () => {
     const luciaToken = await testApp.signIn(lucia.email, DEMO_PASSWORD);
     await request(testApp.app).get('/api/users').set('Authorization', `Bearer ${luciaToken}`).expect(403);
 
-    const changed = await request(testApp.app).patch(`/api/users/${lucia.id}`).set(asAdmin()).send({ roles: ['shift-lead', 'admin'] }).expect(200);
+    const changed = await request(testApp.app)
+      .patch(`/api/users/${lucia.id}`)
+      .set(asAdmin())
+      .send({ roles: ['shift-lead', 'admin'] })
+      .expect(200);
     expect((changed.body as UserDto).roles).toEqual(['shift-lead', 'admin']);
     await request(testApp.app).get('/api/users').set('Authorization', `Bearer ${luciaToken}`).expect(200);
   });
@@ -94,7 +98,11 @@ describe('user management (admin)', () => {
   it('an admin cannot lock themselves out', async () => {
     const maren = await userByEmail('maren.holt@kestrelfen.example');
     await request(testApp.app).patch(`/api/users/${maren.id}`).set(asAdmin()).send({ active: false }).expect(409);
-    await request(testApp.app).patch(`/api/users/${maren.id}`).set(asAdmin()).send({ roles: ['auditor'] }).expect(409);
+    await request(testApp.app)
+      .patch(`/api/users/${maren.id}`)
+      .set(asAdmin())
+      .send({ roles: ['auditor'] })
+      .expect(409);
   });
 
   it('answers 404 for an unknown user, 400 for a bad id or an empty change', async () => {

@@ -113,7 +113,8 @@ describe('two worker processes with the archive in S3 (the local fake), each wit
     // Each runs with the engine's allocator settings (shared/analysis/node/engine-memory.ts); glibc
     // rewrites the variable in place as it reads it, so only its first setting shows in /proc.
     const firstSetting = `GLIBC_TUNABLES=${ENGINE_MALLOC_TUNABLES.split(':')[0]}`;
-    for (const worker of pool.processes) expect(fs.readFileSync(`/proc/${worker.pid}/environ`, 'utf8').split('\0')).toContainEqual(expect.stringMatching(new RegExp(`^${firstSetting}`)));
+    for (const worker of pool.processes)
+      expect(fs.readFileSync(`/proc/${worker.pid}/environ`, 'utf8').split('\0')).toContainEqual(expect.stringMatching(new RegExp(`^${firstSetting}`)));
 
     const nights = await uploadAtOnce(testApp, dev, fen, nightLogs);
     const analysed = await Promise.all(nights.map((run) => waitForFinishedRun(testApp.app, dev, run.id, 60_000)));

@@ -12,7 +12,10 @@ function runCompiledAnalyse(...args: string[]) {
 jest.setTimeout(120_000);
 
 describe('the compiled commands', () => {
-  it.each([['one thread', '1'], ['two threads (the range worker compiled too)', '2']])('print what the TypeScript prints, with the same exit code (%s)', (_, threads) => {
+  it.each([
+    ['one thread', '1'],
+    ['two threads (the range worker compiled too)', '2'],
+  ])('print what the TypeScript prints, with the same exit code (%s)', (_, threads) => {
     const args = [fixture('accepted-run.csv'), '--seed', SEED, '--profile', fixture('observed-profile.json'), '--threads', threads];
     const compiled = runCompiledAnalyse(...args);
     const typescript = runAnalyse(...args);

@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { GeneralAttackPlanDto } from '../../shared/api';
+import type { GeneralAttackPlanDto, PlanDto } from '../../shared/api';
 import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
 import { generalKeyPoint, generalPlanProblem, type GeneralPlanProblem } from '../../shared/planner/plan-general-attack';
 import { planRounds } from '../../shared/planner/plan-rounds';
@@ -33,9 +33,9 @@ describe('plan command', () => {
   it('takes S instead of the win fraction, and plans at the smallest good budget without --rounds', () => {
     const run = runPlan('--s', '2.72', '--qber', '0.02');
     expect(run.status).toBe(0);
-    const plan = JSON.parse(run.stdout);
+    const plan = JSON.parse(run.stdout) as PlanDto;
     expect(plan.device.winFraction).toBeCloseTo(0.84, 12);
-    expect(plan.at.rounds).toBe(Math.max(plan.roundsForPositiveKey, plan.roundsForLikelyPass));
+    expect(plan.at.rounds).toBe(Math.max(plan.roundsForPositiveKey!, plan.roundsForLikelyPass!));
   });
 
   it('names a bad input with exit code 2', () => {
@@ -50,7 +50,11 @@ describe('plan command', () => {
     // Nadlinger et al., Nature 607, 682 (2022), Supplementary Information: n = 1.5e6, γ = 13/256,
     // S = 2.64, QBER 1.8 %, soundness 1e-10 → m = 296 517, ω_thr ≈ 0.825538, 95 884 bits. Here as the
     // sub-protocol of CHSH test and key-setting rounds of N = 8 657 227 log rounds at γ = 13/985.
-    const designed = { testSelection: { mode: 'bernoulli', probability: 13 / 985 }, securityModel: 'general', generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } } };
+    const designed = {
+      testSelection: { mode: 'bernoulli', probability: 13 / 985 },
+      securityModel: 'general',
+      generalAttack: { soundness: 1e-10, design: { chshValue: 2.64, qber: 0.018 } },
+    };
     let general: GeneralAttackPlanDto;
     let problem: GeneralPlanProblem;
 
@@ -59,8 +63,11 @@ describe('plan command', () => {
       const run = runPlan('--s', '2.64', '--qber', '0.018', '--profile', profileFile, '--rounds', '8657227', '--general');
       expect(run.status).toBe(0);
       expect(run.stderr).toContain('Against general attacks (entropy accumulation, an estimate)');
-      general = JSON.parse(run.stdout).generalAttack;
-      problem = generalPlanProblem({ device: { winFraction: winFractionFromChshValue(2.64), qber: 0.018 }, profile: designed, rounds: 8_657_227 }, { roundsForPositiveKey: null, roundsForLikelyPass: null });
+      general = (JSON.parse(run.stdout) as PlanDto & { generalAttack: GeneralAttackPlanDto }).generalAttack;
+      problem = generalPlanProblem(
+        { device: { winFraction: winFractionFromChshValue(2.64), qber: 0.018 }, profile: designed, rounds: 8_657_227 },
+        { roundsForPositiveKey: null, roundsForLikelyPass: null },
+      );
     }, 120_000);
 
     it('reproduces the published key at N and draws a curve that grows with N', () => {

@@ -23,7 +23,10 @@ describe('auditing in a real browser', () => {
     session = await startBrowserSession({ worker: true });
     ({ testApp, baseUrl } = session);
     const token = await testApp.signIn('dev.okafor@kestrelfen.example', DEMO_PASSWORD);
-    const created = await uploadLog(testApp.app, token, fixtureLog('accepted-run.csv'), { setupId: await setupId(testApp.app, token, 'Fen link'), acquiredOn: '2026-11-28' }).expect(201);
+    const created = await uploadLog(testApp.app, token, fixtureLog('accepted-run.csv'), {
+      setupId: await setupId(testApp.app, token, 'Fen link'),
+      acquiredOn: '2026-11-28',
+    }).expect(201);
     run = await waitForFinishedRun(testApp.app, token, (created.body as RunDto).id);
   }, 600_000);
   afterAll(() => session?.close());
@@ -49,13 +52,16 @@ describe('auditing in a real browser', () => {
     expect(await page.getByTestId('verification-check-archive-file').innerText()).toContain(run.file.sha256);
 
     await page.getByTestId('reverify').click();
-    await page.locator('[data-testid^="reverification-state-"]').filter({ hasText: /reproduced/i }).waitFor({ timeout: 30_000 });
+    await page
+      .locator('[data-testid^="reverification-state-"]')
+      .filter({ hasText: /reproduced/i })
+      .waitFor({ timeout: 30_000 });
     await screenshot(page, 'audit-run-integrity');
 
     await page.getByTestId('export-menu').click();
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-pdf').click()]);
     expect(download.suggestedFilename()).toBe(`bellkeep-run-${run.id}.pdf`);
-    const text = await pdfText(fs.readFileSync((await download.path())!));
+    const text = await pdfText(fs.readFileSync(await download.path()));
     expect(text).toContain('ACCEPT');
     expect(text).toContain(result.fingerprint);
     expect(text).toContain(run.file.sha256);
@@ -75,7 +81,10 @@ describe('auditing in a real browser', () => {
     await screenshot(page, 'audit-system-trail');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('audit-export-csv').click()]);
-    const csv = fs.readFileSync((await download.path())!, 'utf8').trim().split('\n');
+    const csv = fs
+      .readFileSync(await download.path(), 'utf8')
+      .trim()
+      .split('\n');
     expect(csv[0]).toBe('id,time,actor,action,target_type,target_id,details');
     expect(csv.some((line) => line.includes('Sami Virtanen,run.exported,run,'))).toBe(true);
 

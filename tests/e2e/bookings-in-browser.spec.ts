@@ -65,7 +65,10 @@ describe('booked nights in a real browser', () => {
     await lead.getByTestId('booked-setup-link').click();
 
     // The setup page: the booking with its commitment, a new upload token, the recipe.
-    await lead.getByTestId('bookings').filter({ hasText: commitment.slice(0, 8) }).waitFor();
+    await lead
+      .getByTestId('bookings')
+      .filter({ hasText: commitment.slice(0, 8) })
+      .waitFor();
     await lead.getByTestId('new-token-button').click();
     await lead.getByTestId('token-name').fill('North Hall acquisition PC');
     await lead.getByTestId('token-create').click();
@@ -82,14 +85,17 @@ describe('booked nights in a real browser', () => {
     fs.writeFileSync(script, recipe.replace(UPLOAD_TOKEN_PLACEHOLDER, token));
     const sent = await run('bash', [script, logs[0]], { cwd: scratch });
     const first = JSON.parse(sent.stdout) as RunDto;
-    expect(first).toMatchObject({ uploadedBy: 'upload token “North Hall acquisition PC”', attempt: 1, booking: expect.objectContaining({ seedCommitment: commitment }) });
+    expect(first).toMatchObject({ uploadedBy: 'upload token “North Hall acquisition PC”', attempt: 1, booking: { seedCommitment: commitment } });
     expect(first.file.sha256).toBe(crypto.createHash('sha256').update(fs.readFileSync(logs[0])).digest('hex'));
 
     const signInToken = await testApp.signIn('dev.okafor@kestrelfen.example', 'fen-demo-2026');
     await waitForFinishedRun(testApp.app, signInToken, first.id, 60_000);
     await lead.goto(`${baseUrl}/runs/${first.id}`);
     await lead.getByTestId('booking-headline').filter({ hasText: 'attempt 1 of 1' }).waitFor();
-    await lead.getByTestId('commitment-outcome').filter({ hasText: /matches/i }).waitFor();
+    await lead
+      .getByTestId('commitment-outcome')
+      .filter({ hasText: /matches/i })
+      .waitFor();
     await screenshot(lead, 'run-booked');
     await lead.close();
 
@@ -113,7 +119,10 @@ describe('booked nights in a real browser', () => {
     const panel = await dev.getByTestId('run-booking').innerText();
     expect(panel).toContain('The first file was copied before the acquisition computer had closed it.');
     expect(panel).toContain(REVEALED_SEED_CAUTION);
-    await dev.getByTestId('commitment-outcome').filter({ hasText: /matches/i }).waitFor();
+    await dev
+      .getByTestId('commitment-outcome')
+      .filter({ hasText: /matches/i })
+      .waitFor();
     await screenshot(dev, 'run-replacement');
 
     await dev.getByTestId('nav-runs').click();

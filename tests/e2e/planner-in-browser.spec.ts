@@ -28,7 +28,10 @@ describe('the planner in a real browser', () => {
     await page.getByLabel('Rounds per second').fill('10000');
 
     const plan = planRounds({ device: { winFraction: 0.84, qber: 0.02, trialRate: 10_000 }, profile: version.parameters, rounds: 20_000_000 });
-    await page.getByTestId('plan-key-bits').filter({ hasText: formatCount(plan.at.expectedFiniteKeyBits) }).waitFor();
+    await page
+      .getByTestId('plan-key-bits')
+      .filter({ hasText: formatCount(plan.at.expectedFiniteKeyBits) })
+      .waitFor();
     expect(await page.getByTestId('plan-rounds-for-key').innerText()).toContain(formatCount(plan.roundsForPositiveKey!));
     expect(await page.getByTestId('plan-rounds-for-pass').innerText()).toContain(formatCount(plan.roundsForLikelyPass!));
     await page.getByTestId('planner-chart-rounds').locator('canvas').waitFor();
@@ -38,7 +41,10 @@ describe('the planner in a real browser', () => {
     // The key against general attacks comes from the page's web workers, part by part.
     const input = { device: { winFraction: 0.84, qber: 0.02, trialRate: 10_000 }, profile: version.parameters, rounds: 20_000_000 };
     const general = generalKeyPoint(generalPlanProblem(input, plan), 20_000_000);
-    await page.getByTestId('plan-general-bits').filter({ hasText: `${formatCount(general.bits)} bits` }).waitFor();
+    await page
+      .getByTestId('plan-general-bits')
+      .filter({ hasText: `${formatCount(general.bits)} bits` })
+      .waitFor();
     await page.getByTestId('plan-general-rounds-for-key').filter({ hasNotText: 'Computing' }).waitFor({ timeout: 120_000 });
     // At γ = 0.5 the profile's own testing leaves no key against general attacks; a smaller γ does.
     await page.getByTestId('plan-general-best-gamma').filter({ hasText: 'γ =' }).waitFor({ timeout: 120_000 });

@@ -79,7 +79,9 @@ describe('runs in a real browser', () => {
     await page.getByTestId('open-run').click();
     await page.waitForURL(`${baseUrl}/runs/${abortedRunId}`);
     await page.getByTestId('criteria').waitFor();
-    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(/CHSH win fraction \(setting pairs weighed equally\)\s+0\.[78]\d+\s+≥ 0\.\d+\s+≥ 0\.8236[^\n]*\s+cancel\s*Fail/);
+    expect(await page.getByTestId('criteria').locator('tbody tr').first().innerText()).toMatch(
+      /CHSH win fraction \(setting pairs weighed equally\)\s+0\.[78]\d+\s+≥ 0\.\d+\s+≥ 0\.8236[^\n]*\s+cancel\s*Fail/,
+    );
     expect(await page.getByTestId('figure-finite-key').innerText()).toContain('Estimate against collective (i.i.d.) attacks.');
     await page.locator('canvas').nth(3).waitFor();
     await screenshot(page, 'run-aborted-experimentalist');

@@ -1,5 +1,5 @@
 import path from 'node:path';
-import type { ApiErrorBody, RunDto } from '../../shared/api';
+import type { RunDto } from '../../shared/api';
 import type { DiskState, FullDiskReport } from '../support/full-disk-child';
 import { runOnSmallDisk } from '../support/small-disk';
 
@@ -14,7 +14,11 @@ const KEPT = "The archive's disk is full: the bytes received so far are kept; fr
 /** The files of one folder of the data folder, by name (the harness lists the disk from its root). */
 function filesIn(state: DiskState, folder: string): Record<string, number> {
   const prefix = `data/${folder}/`;
-  return Object.fromEntries(Object.entries(state.files).filter(([name]) => name.startsWith(prefix)).map(([name, bytes]) => [name.slice(prefix.length), bytes]));
+  return Object.fromEntries(
+    Object.entries(state.files)
+      .filter(([name]) => name.startsWith(prefix))
+      .map(([name, bytes]) => [name.slice(prefix.length), bytes]),
+  );
 }
 
 /** The file name of a resumable upload: the last part of its address. */

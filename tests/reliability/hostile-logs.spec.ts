@@ -7,7 +7,6 @@ import { hostileLogs } from '../../fixtures/hostile/hostile-logs';
 import { HOSTILE_NAMES } from '../../fixtures/hostile/hostile-names';
 import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
 import { PROJECT_ROOT } from '../../server/config/config';
-import type { AnalysisResult } from '../../shared/analysis/result';
 import type { ApiErrorBody, RunDto } from '../../shared/api';
 import { settledArchiveContents } from '../support/archive-contents';
 import { atMostAtOnce } from '../support/at-most-at-once';
@@ -56,7 +55,7 @@ function problemWith({ log: { expected }, status, body, run }: Outcome): string 
     return refused ? null : `expected ${expected.status} on "${expected.field}" saying ${expected.message}`;
   }
   if (!run) return 'expected a run';
-  const result = run.result as AnalysisResult | null;
+  const result = run.result;
   if (expected.kind === 'verdict') {
     return run.state !== 'invalid' && run.verdict !== null && result?.errors.length === 0 ? null : 'expected a verdict';
   }
@@ -78,7 +77,7 @@ function mismatch(outcome: Outcome): string | null {
   const problem = problemWith(outcome);
   if (problem === null) return null;
   const { log, status, body, run } = outcome;
-  const seen = run ? `run ${run.id} ${run.state}: ${JSON.stringify((run.result as AnalysisResult | null)?.errors[0] ?? run.error)}` : `${status} ${JSON.stringify(body)}`;
+  const seen = run ? `run ${run.id} ${run.state}: ${JSON.stringify(run.result?.errors[0] ?? run.error)}` : `${status} ${JSON.stringify(body)}`;
   return `#${log.id} ${log.category} (${JSON.stringify(log.fileName.slice(0, 40))}): ${problem}; got ${seen.slice(0, 300)}`;
 }
 
@@ -104,10 +103,11 @@ describe('hostile logs through the API', () => {
 
     filesBefore = new Set(filesUnder(sandbox));
     const folders = [dataDir, path.join(dataDir, 'uploads'), path.join(dataDir, 'archive', '00'), testApp.config.workDir, PROJECT_ROOT, process.cwd()];
-    for (const folder of folders) for (const name of HOSTILE_NAMES) {
-      const target = path.resolve(folder, name);
-      targetsBefore.set(target, fingerprintOf(target));
-    }
+    for (const folder of folders)
+      for (const name of HOSTILE_NAMES) {
+        const target = path.resolve(folder, name);
+        targetsBefore.set(target, fingerprintOf(target));
+      }
 
     await atMostAtOnce(logs, UPLOADS_AT_ONCE, async (log) => {
       const response = await uploadLog(testApp.app, token, { bytes: log.bytes, name: log.fileName }, { setupId: fenLink });

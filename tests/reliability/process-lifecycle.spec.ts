@@ -61,7 +61,10 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
     const started = await startBellkeep(dataDir, { BELLKEEP_ANALYSIS_EXPIRE_SECONDS: '4', BELLKEEP_QUEUE_MAINTENANCE_SECONDS: '1', BELLKEEP_QUEUE_POLLING_SECONDS: '0.5' });
     try {
       await started.waitFor('is taking analysis jobs');
-      const { token } = await api<LoginResponse>(started.baseUrl, '/api/auth/login', { method: 'POST', body: JSON.stringify({ email: 'dev.okafor@kestrelfen.example', password: DEMO_PASSWORD }) });
+      const { token } = await api<LoginResponse>(started.baseUrl, '/api/auth/login', {
+        method: 'POST',
+        body: JSON.stringify({ email: 'dev.okafor@kestrelfen.example', password: DEMO_PASSWORD }),
+      });
       const setups = await api<SetupDto[]>(started.baseUrl, '/api/setups', { token });
       const form = new FormData();
       form.set('setupId', String(setups.find((setup) => setup.name === 'Fen link')!.id));
@@ -69,7 +72,7 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
       const queued = await api<RunDto>(started.baseUrl, '/api/runs', { method: 'POST', body: form, token });
 
       let run = queued;
-      for (const deadline = Date.now() + 60_000; run.state !== 'analysing' || run.progress === 0; ) {
+      for (const deadline = Date.now() + 60_000; run.state !== 'analysing' || run.progress === 0;) {
         if (Date.now() > deadline) throw new Error(`Run ${run.id} never started analysing: ${run.state}`);
         await new Promise((resolve) => setTimeout(resolve, 50));
         run = await api<RunDto>(started.baseUrl, `/api/runs/${queued.id}`, { token });
@@ -78,7 +81,7 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
       process.kill(killedPid, 'SIGKILL');
       await started.waitFor(`Worker ${killedPid} ended, killed (SIGKILL); starting another in 1 s`);
 
-      for (const deadline = Date.now() + 120_000; !['accepted', 'aborted', 'invalid', 'failed'].includes(run.state); ) {
+      for (const deadline = Date.now() + 120_000; !['accepted', 'aborted', 'invalid', 'failed'].includes(run.state);) {
         if (Date.now() > deadline) throw new Error(`Run ${run.id} still ${run.state}`);
         await new Promise((resolve) => setTimeout(resolve, 250));
         run = await api<RunDto>(started.baseUrl, `/api/runs/${queued.id}`, { token });
@@ -87,14 +90,17 @@ describe('npm start as a lab runs it: starting, stopping, and a worker that dies
       expect(run.attempts).toBe(2);
       expect(Number(run.analysedBy!.split(':').pop())).not.toBe(killedPid);
       // One mail, however the attempts went.
-      for (const deadline = Date.now() + 30_000; run.deliveries.length === 0 && Date.now() < deadline; ) {
+      for (const deadline = Date.now() + 30_000; run.deliveries.length === 0 && Date.now() < deadline;) {
         await new Promise((resolve) => setTimeout(resolve, 250));
         run = await api<RunDto>(started.baseUrl, `/api/runs/${queued.id}`, { token });
       }
       expect(run.deliveries.map((delivery) => delivery.status)).toEqual(['sent']);
 
       // The admins see the killed worker and the one started in its place.
-      const admin = await api<LoginResponse>(started.baseUrl, '/api/auth/login', { method: 'POST', body: JSON.stringify({ email: 'maren.holt@kestrelfen.example', password: DEMO_PASSWORD }) });
+      const admin = await api<LoginResponse>(started.baseUrl, '/api/auth/login', {
+        method: 'POST',
+        body: JSON.stringify({ email: 'maren.holt@kestrelfen.example', password: DEMO_PASSWORD }),
+      });
       const { workers, lostInLastHour } = await api<WorkersOverviewDto>(started.baseUrl, '/api/workers', { token: admin.token });
       expect(workers.find((worker) => worker.name.endsWith(`:${killedPid}`))).toMatchObject({ condition: 'ended-unasked', endedHow: 'killed (SIGKILL)' });
       expect(workers.filter((worker) => worker.condition === 'taking-jobs')).toHaveLength(1);

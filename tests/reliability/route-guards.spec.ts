@@ -210,7 +210,7 @@ describe('every API route refuses whoever its guard does not let in', () => {
 
     // Two upload tokens of setup 1: one the revoke route names (an allowed admin revokes it), one to send.
     const newToken = async (name: string) =>
-      ((await request(testApp.app).post('/api/setups/1/upload-tokens').set(admin).send({ name, validDays: 1 }).expect(201)).body as CreatedUploadTokenDto);
+      (await request(testApp.app).post('/api/setups/1/upload-tokens').set(admin).send({ name, validDays: 1 }).expect(201)).body as CreatedUploadTokenDto;
     const revoked = await newToken('named by the revoke route');
     uploadToken = (await newToken('acquisition computer')).token;
 
@@ -262,13 +262,16 @@ describe('every API route refuses whoever its guard does not let in', () => {
     expect(answers.filter((answer) => answer.status !== 401).map(described)).toEqual([]);
   });
 
-  it.each(DEMO_PEOPLE.map((person) => [person.email, person.roles] as const))('lets %s (%j) in where one of the roles may, and refuses with 403 elsewhere', async (email, roles) => {
-    const answers = await answersTo(bearerOf(email));
-    const mayPass = (answer: Answer) => GUARDED_ROUTES[answer.probe.key].roles.some((role) => roles.includes(role));
-    expect(answers.filter((answer) => !mayPass(answer) && answer.status !== 403).map(described)).toEqual([]);
-    // Let in: an answer about the request itself (400, 404, 409 …), never a refusal or a fault.
-    expect(answers.filter((answer) => mayPass(answer) && refusedOrFaulty(answer)).map(described)).toEqual([]);
-  });
+  it.each(DEMO_PEOPLE.map((person) => [person.email, person.roles] as const))(
+    'lets %s (%j) in where one of the roles may, and refuses with 403 elsewhere',
+    async (email, roles) => {
+      const answers = await answersTo(bearerOf(email));
+      const mayPass = (answer: Answer) => GUARDED_ROUTES[answer.probe.key].roles.some((role) => roles.includes(role));
+      expect(answers.filter((answer) => !mayPass(answer) && answer.status !== 403).map(described)).toEqual([]);
+      // Let in: an answer about the request itself (400, 404, 409 …), never a refusal or a fault.
+      expect(answers.filter((answer) => mayPass(answer) && refusedOrFaulty(answer)).map(described)).toEqual([]);
+    },
+  );
 
   it('refuses an upload token with 401 everywhere but the upload routes, and lets it in there', async () => {
     const answers = await answersTo({ Authorization: `Bearer ${uploadToken}` });
@@ -319,14 +322,18 @@ const HOSTILE_VALUES: readonly string[] = [
 describe('hostile query strings and bodies', () => {
   /** The answer to a query as someone the route lets in. */
   function queried(key: string, query: URLSearchParams) {
-    return request(testApp.app).get(`${key.replace(/^GET /, '')}?${query}`).set(bearerOf(someoneAllowed(key)));
+    return request(testApp.app)
+      .get(`${key.replace(/^GET /, '')}?${query}`)
+      .set(bearerOf(someoneAllowed(key)));
   }
 
   it('lists every GET route that refuses a query parameter it does not know', async () => {
     const readers: string[] = [];
     for (const endpoint of endpoints.filter((candidate) => candidate.method === 'GET' && endpointKey(candidate) in GUARDED_ROUTES)) {
       const key = endpointKey(endpoint);
-      const response = await request(testApp.app).get(`${filledPath(endpoint.path, { format: 'json' })}?bellkeepProbe=1`).set(bearerOf(someoneAllowed(key)));
+      const response = await request(testApp.app)
+        .get(`${filledPath(endpoint.path, { format: 'json' })}?bellkeepProbe=1`)
+        .set(bearerOf(someoneAllowed(key)));
       if (response.status === 400) readers.push(key);
     }
     expect(readers.sort()).toEqual(Object.keys(QUERY_PARAMETERS).sort());
@@ -361,7 +368,11 @@ describe('hostile query strings and bodies', () => {
       shiftLeadIds: setup.shiftLeads.map((lead) => lead.id),
       extraRecipients: setup.extraRecipients,
     };
-    const refused = await request(testApp.app).put('/api/setups/1').set(admin).send({ ...saved, description: `${setup.description}\u0000` }).expect(400);
+    const refused = await request(testApp.app)
+      .put('/api/setups/1')
+      .set(admin)
+      .send({ ...saved, description: `${setup.description}\u0000` })
+      .expect(400);
     expect((refused.body as ApiErrorBody).error.field).toBe('description');
     await request(testApp.app).put('/api/setups/1').set(admin).send(saved).expect(200);
   });

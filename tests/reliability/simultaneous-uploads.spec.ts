@@ -70,10 +70,9 @@ describe('fifty simultaneous uploads from two experimentalists', () => {
   });
 
   it('gives every run a verdict and exactly one sent verdict mail', () => {
-    for (const run of runs) {
-      expect({ id: run.id, state: run.state, verdict: run.verdict }).toEqual({ id: run.id, state: expect.stringMatching(/^(accepted|aborted)$/), verdict: expect.stringMatching(/^(ACCEPT|ABORT)$/) });
-      expect(run.deliveries.map((delivery) => delivery.status)).toEqual(['sent']);
-    }
+    const judged = (run: RunDto) => /^(accepted|aborted)$/.test(run.state) && /^(ACCEPT|ABORT)$/.test(run.verdict ?? '');
+    expect(runs.filter((run) => !judged(run)).map(({ id, state, verdict }) => ({ id, state, verdict }))).toEqual([]);
+    for (const run of runs) expect(run.deliveries.map((delivery) => delivery.status)).toEqual(['sent']);
   });
 
   it('leaves exactly one mail per run in the catcher, none twice', () => {

@@ -37,23 +37,16 @@ const profileArbitrary = fc.record({
 describe('local models, whatever their marks, deletions and the profile', () => {
   it('never get ACCEPT (3 000 random sources; Bell 1964, CHSH 1969: no local model beats ¾ on the four pairs)', () => {
     fc.assert(
-      fc.property(
-        sourceArbitrary,
-        marksArbitrary,
-        profileArbitrary,
-        fc.integer({ min: 500, max: 8_000 }),
-        fc.nat(2 ** 30),
-        (source, marks, profile, rounds, seed) => {
-          const options = { rounds, marks };
-          const generated =
-            source.kind === 'mixture'
-              ? localDeterministic({ ...options, strategy: source.strategies }, hex(seed, 'a1'))
-              : droppingLosses({ ...options, dropLostProbability: source.dropLostProbability }, hex(seed, 'a1'));
-          const log = [...generated];
-          if (log.length === 0) return true;
-          return analyseRounds(log, profile, hex(seed, 'b2')).verdict !== 'ACCEPT';
-        },
-      ),
+      fc.property(sourceArbitrary, marksArbitrary, profileArbitrary, fc.integer({ min: 500, max: 8_000 }), fc.nat(2 ** 30), (source, marks, profile, rounds, seed) => {
+        const options = { rounds, marks };
+        const generated =
+          source.kind === 'mixture'
+            ? localDeterministic({ ...options, strategy: source.strategies }, hex(seed, 'a1'))
+            : droppingLosses({ ...options, dropLostProbability: source.dropLostProbability }, hex(seed, 'a1'));
+        const log = [...generated];
+        if (log.length === 0) return true;
+        return analyseRounds(log, profile, hex(seed, 'b2')).verdict !== 'ACCEPT';
+      }),
       { numRuns: 3_000, seed: 20261204 },
     );
   });

@@ -108,7 +108,11 @@ describe('a referee’s attacks on the verdict (each over several seeds)', () =>
 
   it.each(SEEDS)('a general-attack profile declaring γ = 0.05 while 30 % of the rounds are marked is refused (seed %i)', (seed) => {
     const rounds = honestQuantum({ rounds: 100_000, visibility: 0.99, qber: 0.01, marks: { probability: 0.3 } }, sourceSeed(seed));
-    const result = verdictOf(rounds, { testSelection: { mode: 'from-log' }, securityModel: 'general', generalAttack: { design: { chshValue: 2.7, qber: 0.02 }, testProbability: 0.05 } }, seed);
+    const result = verdictOf(
+      rounds,
+      { testSelection: { mode: 'from-log' }, securityModel: 'general', generalAttack: { design: { chshValue: 2.7, qber: 0.02 }, testProbability: 0.05 } },
+      seed,
+    );
     expect(result.verdict).toBe('ABORT');
     expect(checkStatus(result, 'test-marks-rate')).toBe('fail');
     expect(result.checks.find((check) => check.id === 'test-marks-rate')!.log10PValue!).toBeLessThan(-100);
@@ -116,8 +120,9 @@ describe('a referee’s attacks on the verdict (each over several seeds)', () =>
 });
 
 describe('positive controls: honest quantum devices still pass', () => {
-  const honest = (visibility: number, seed: number, rounds = 400_000, marks?: { probability: number }) =>
-    [...honestQuantum({ rounds, visibility, qber: 0.01, ...(marks ? { marks } : {}) }, sourceSeed(seed))];
+  const honest = (visibility: number, seed: number, rounds = 400_000, marks?: { probability: number }) => [
+    ...honestQuantum({ rounds, visibility, qber: 0.01, ...(marks ? { marks } : {}) }, sourceSeed(seed)),
+  ];
 
   it.each([0.96, 0.98, 1])('visibility %f: fixed-fraction selection under the certified default', (visibility) => {
     const result = verdictOf(honest(visibility, 1), {}, 1);
@@ -142,7 +147,11 @@ describe('positive controls: honest quantum devices still pass', () => {
     // (A positive general-attack key needs some 10^7 rounds: the planner's browser test covers it.)
     const bernoulli = verdictOf(honest(0.99, 4, 1_000_000), { testSelection: { mode: 'bernoulli', probability: 0.2 }, securityModel: 'general', generalAttack }, 4);
     expect(bernoulli.reasons).toEqual([]);
-    const fromLog = verdictOf(honest(0.99, 5, 1_000_000, { probability: 0.2 }), { testSelection: { mode: 'from-log' }, securityModel: 'general', generalAttack: { ...generalAttack, testProbability: 0.2 } }, 5);
+    const fromLog = verdictOf(
+      honest(0.99, 5, 1_000_000, { probability: 0.2 }),
+      { testSelection: { mode: 'from-log' }, securityModel: 'general', generalAttack: { ...generalAttack, testProbability: 0.2 } },
+      5,
+    );
     expect(fromLog.reasons).toEqual([]);
     expect(fromLog.checks.find((check) => check.id === 'test-marks-rate')!.status).toBe('pass');
   });

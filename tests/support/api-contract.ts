@@ -52,7 +52,9 @@ export function createContractChecker() {
 
   /** The schema of an operation's answer in ajv, by JSON pointer into the document (refs resolve there). */
   function validatorOf(template: string, method: string, status: string): ValidateFunction {
-    const pointer = ['paths', template, method, 'responses', status, 'content', 'application/json', 'schema'].map((part) => part.replaceAll('~', '~0').replaceAll('/', '~1')).join('/');
+    const pointer = ['paths', template, method, 'responses', status, 'content', 'application/json', 'schema']
+      .map((part) => part.replaceAll('~', '~0').replaceAll('/', '~1'))
+      .join('/');
     const key = `bellkeep-api#/${pointer}`;
     if (!validators.has(key)) validators.set(key, ajv.compile({ $ref: key }));
     return validators.get(key)!;

@@ -29,7 +29,10 @@ export async function archiveContents(config: Pick<Config, 'storage' | 'dataDir'
   const uploads = (await store.client.send(new ListMultipartUploadsCommand({ Bucket: store.bucket }))).Uploads ?? [];
   const isKept = (key: string) => key.startsWith('logs/');
   return {
-    kept: keys.filter(isKept).map((key) => key.split('/').pop()!).sort(),
+    kept: keys
+      .filter(isKept)
+      .map((key) => key.split('/').pop()!)
+      .sort(),
     leftovers: [...keys.filter((key) => !isKept(key)), ...uploads.map((upload) => `multipart upload of ${upload.Key}`)],
   };
 }

@@ -6,8 +6,14 @@ const CHROMIUM = '/usr/bin/chromium';
 
 /** Flags that keep headless Chromium quiet on a machine with no network but loopback. */
 const CHROMIUM_FLAGS = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
 ];
 
 /** Installs Debian's Chromium when it is missing (the browser tests' global set-up calls this). */

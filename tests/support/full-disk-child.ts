@@ -47,7 +47,12 @@ export interface FullDiskReport {
 /** Every file under `folder`, by its path relative to it, with its size. */
 function filesUnder(folder: string): Record<string, number> {
   const names = fs.readdirSync(folder, { recursive: true, encoding: 'utf8' });
-  return Object.fromEntries(names.map((name) => [name, fs.statSync(path.join(folder, name))] as const).filter(([, found]) => found.isFile()).map(([name, found]) => [name, found.size]));
+  return Object.fromEntries(
+    names
+      .map((name) => [name, fs.statSync(path.join(folder, name))] as const)
+      .filter(([, found]) => found.isFile())
+      .map(([name, found]) => [name, found.size]),
+  );
 }
 
 /** Fills the disk of `ballast` with it, leaving about `bytes` free (to the page); freed again by removing it. */

@@ -58,10 +58,12 @@ export function describeLogStoreContract(name: string, open: () => Promise<Store
 
       expect(await subject.store.stat(log.sha256)).toEqual({ bytes: LOG_BYTES });
       expect((await readAll(subject.store.read(log.sha256))).equals(log.bytes)).toBe(true);
-      const digest = await subject.store.withLocalFile(log.sha256, workFolder, async (file) => crypto.createHash('sha256').update(fs.readFileSync(file)).digest('hex'));
+      const digest = await subject.store.withLocalFile(log.sha256, workFolder, (file) => Promise.resolve(crypto.createHash('sha256').update(fs.readFileSync(file)).digest('hex')));
       expect(digest).toBe(log.sha256);
       expect(fs.readdirSync(workFolder)).toEqual([]);
-      expect(await contents()).toEqual({ kept: expect.arrayContaining([log.sha256]), leftovers: [] });
+      const { kept, leftovers } = await contents();
+      expect(kept).toContain(log.sha256);
+      expect(leftovers).toEqual([]);
     }, 60_000);
 
     it('keeps the same bytes once: the second time is no new log and leaves nothing behind', async () => {
@@ -103,7 +105,7 @@ export function describeLogStoreContract(name: string, open: () => Promise<Store
       await subject.store.discard(log.sha256);
       expect(await subject.store.stat(log.sha256)).toBeNull();
       await expect(readAll(subject.store.read(log.sha256))).rejects.toBeInstanceOf(StoredLogMissingError);
-      await expect(subject.store.withLocalFile(log.sha256, workFolder, async () => 'used')).rejects.toBeInstanceOf(StoredLogMissingError);
+      await expect(subject.store.withLocalFile(log.sha256, workFolder, () => Promise.resolve('used'))).rejects.toBeInstanceOf(StoredLogMissingError);
       expect(fs.readdirSync(workFolder)).toEqual([]);
 
       expect(() => subject.store.read('../../secrets/signing-key.pem')).toThrow(/Not a SHA-256/);

@@ -19,7 +19,12 @@ async function pageText(page) {
   }
   return lines
     .sort((a, b) => b.y - a.y)
-    .map((line) => line.items.sort((a, b) => a.x - b.x).map((item) => item.text).join(' '))
+    .map((line) =>
+      line.items
+        .sort((a, b) => a.x - b.x)
+        .map((item) => item.text)
+        .join(' '),
+    )
     .join('\n');
 }
 

@@ -19,7 +19,7 @@ export async function createResumableUpload(app: Express, token: string, length:
     .post('/api/uploads')
     .set({ Authorization: `Bearer ${token}`, ...TUS, 'Upload-Length': String(length), 'Upload-Metadata': tusMetadata(fields) })
     .expect(201);
-  return created.headers['location'] as string;
+  return created.headers['location'];
 }
 
 /** Sends `bytes` at `offset` of the upload (one PATCH); the answer. */
@@ -32,7 +32,9 @@ export function patchUpload(app: Express, token: string, location: string, offse
 
 /** The upload's offset as HEAD gives it, with the status (404 once the upload is gone). */
 export async function uploadOffset(app: Express, token: string, location: string): Promise<{ status: number; offset: number | null }> {
-  const head = await request(app).head(location).set({ Authorization: `Bearer ${token}`, ...TUS });
+  const head = await request(app)
+    .head(location)
+    .set({ Authorization: `Bearer ${token}`, ...TUS });
   const offset = head.headers['upload-offset'];
   return { status: head.status, offset: offset === undefined ? null : Number(offset) };
 }

@@ -40,8 +40,8 @@ export async function startBellkeep(dataDir: string, extra: Record<string, strin
     },
   });
   let output = '';
-  child.stdout!.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  child.stderr!.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
+  child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));
   const waitFor = async (text: string | RegExp, timeoutMs = 90_000) => {
     const deadline = Date.now() + timeoutMs;
     while (!(typeof text === 'string' ? output.includes(text) : text.test(output))) {
@@ -73,12 +73,15 @@ export function processesOf(dataDir: string): string[] {
 export async function api<T>(baseUrl: string, route: string, init: RequestInit & { token?: string } = {}): Promise<T> {
   const response = await fetch(`${baseUrl}${route}`, {
     ...init,
-    headers: { ...(init.token ? { Authorization: `Bearer ${init.token}` } : {}), ...(init.body && typeof init.body === 'string' ? { 'Content-Type': 'application/json' } : {}), ...init.headers },
+    headers: {
+      ...(init.token ? { Authorization: `Bearer ${init.token}` } : {}),
+      ...(init.body && typeof init.body === 'string' ? { 'Content-Type': 'application/json' } : {}),
+      ...init.headers,
+    },
   });
   if (!response.ok) throw new Error(`${init.method ?? 'GET'} ${route}: ${response.status} ${await response.text()}`);
   return (await response.json()) as T;
 }
-
 
 /** A private data folder for one start, which `postgres` may enter (as root the cluster runs as that user). */
 export function startFolder(): string {

@@ -32,7 +32,13 @@ export function settingUniformityChecks(all: readonly number[], test: readonly n
     finding('setting-uniformity-x', "station A's setting x", chiSquaredGoodnessOfFit(xCounts, [1 / 2, 1 / 2]), 'uniform over 0, 1', significance),
     finding('setting-uniformity-y', "station B's setting y", chiSquaredGoodnessOfFit(yCounts, [1 / 3, 1 / 3, 1 / 3]), 'uniform over 0, 1, 2', significance),
     finding('setting-uniformity-joint', 'the setting pair (x, y)', chiSquaredGoodnessOfFit(pairs, sixths), 'uniform over the six pairs', significance),
-    finding('setting-uniformity-test', 'the setting pair (x, y) of the test rounds', chiSquaredGoodnessOfFit(settingPairCounts(test), sixths), 'uniform over the six pairs', significance),
+    finding(
+      'setting-uniformity-test',
+      'the setting pair (x, y) of the test rounds',
+      chiSquaredGoodnessOfFit(settingPairCounts(test), sixths),
+      'uniform over the six pairs',
+      significance,
+    ),
   ];
 }
 
@@ -41,7 +47,8 @@ function finding(id: string, what: string, test: ChiSquaredTest, expectation: st
     { id, family: 'setting-uniformity' },
     test.log10PValue,
     significance,
-    (holds, p) => `${capitalise(what)} is ${holds ? 'consistent with' : 'not consistent with'} ${expectation} (chi-squared ${test.statistic.toFixed(2)}, ${test.degreesOfFreedom} dof, p = ${p}).`,
+    (holds, p) =>
+      `${capitalise(what)} is ${holds ? 'consistent with' : 'not consistent with'} ${expectation} (chi-squared ${test.statistic.toFixed(2)}, ${test.degreesOfFreedom} dof, p = ${p}).`,
   );
 }
 

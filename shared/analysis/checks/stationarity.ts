@@ -13,8 +13,18 @@ export const STATIONARITY_CHECKS = 2;
  */
 export function stationarityChecks(blocks: readonly BlockSummary[], significance: number): CheckFinding[] {
   return [
-    homogeneity('stationarity-chsh', 'CHSH win fraction', blocks.map((block) => block.chsh), significance),
-    homogeneity('stationarity-qber', 'error rate on the key setting', blocks.map((block) => block.qber), significance),
+    homogeneity(
+      'stationarity-chsh',
+      'CHSH win fraction',
+      blocks.map((block) => block.chsh),
+      significance,
+    ),
+    homogeneity(
+      'stationarity-qber',
+      'error rate on the key setting',
+      blocks.map((block) => block.qber),
+      significance,
+    ),
   ];
 }
 
@@ -24,6 +34,7 @@ function homogeneity(id: string, what: string, parts: readonly FractionInterval[
     { id, family: 'stationarity' },
     test.log10PValue,
     significance,
-    (holds, p) => `The ${what} is ${holds ? 'steady' : 'not steady'} across ${parts.length} blocks (homogeneity chi-squared ${test.statistic.toFixed(2)}, ${test.degreesOfFreedom} dof, p = ${p}).`,
+    (holds, p) =>
+      `The ${what} is ${holds ? 'steady' : 'not steady'} across ${parts.length} blocks (homogeneity chi-squared ${test.statistic.toFixed(2)}, ${test.degreesOfFreedom} dof, p = ${p}).`,
   );
 }

@@ -44,7 +44,8 @@ export function testMarkChecks(test: readonly number[], generation: readonly num
       { id: 'test-marks-settings', ...family },
       independence.log10PValue,
       significance,
-      (holds, p) => `The log's test marks ${holds ? 'show no dependence on' : 'depend on'} the setting pair (chi-squared ${independence.statistic.toFixed(2)}, ${independence.degreesOfFreedom} dof, p = ${p}).`,
+      (holds, p) =>
+        `The log's test marks ${holds ? 'show no dependence on' : 'depend on'} the setting pair (chi-squared ${independence.statistic.toFixed(2)}, ${independence.degreesOfFreedom} dof, p = ${p}).`,
     ),
     chshComparison(test, generation, significance),
     qberComparison(test, generation, significance),
@@ -96,7 +97,11 @@ function markRate(marked: readonly number[], unmarked: readonly number[], declar
   const lower = log10BinomialUpperTail(rounds - tests, rounds, 1 - declared);
   const log10PValue = Math.min(0, Math.log10(2) + Math.min(upper, lower));
   const share = rounds === 0 ? 0 : tests / rounds;
-  return statisticalFinding({ id: 'test-marks-rate', family: 'test-marks' }, log10PValue, significance, (holds, p) =>
-    `${(100 * share).toFixed(2)} % of the rounds are marked for testing; the profile declares γ = ${declared} (${holds ? 'consistent' : 'not consistent'}: two-sided binomial p = ${p}).`,
+  return statisticalFinding(
+    { id: 'test-marks-rate', family: 'test-marks' },
+    log10PValue,
+    significance,
+    (holds, p) =>
+      `${(100 * share).toFixed(2)} % of the rounds are marked for testing; the profile declares γ = ${declared} (${holds ? 'consistent' : 'not consistent'}: two-sided binomial p = ${p}).`,
   );
 }

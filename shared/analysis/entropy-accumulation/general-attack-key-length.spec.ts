@@ -38,7 +38,13 @@ describe('generalAttackKeyLength', () => {
 
   it('gives the same key from the design and from its syndrome length and threshold', () => {
     const fromDesign = keyLength(designed(1_500_000, 2.64, 0.018));
-    const fixed = generalAttackKeyLength({ rounds: 1_500_000, testProbability: GAMMA, soundness: 1e-10, omegaThreshold: fromDesign.omegaThreshold, syndromeBits: fromDesign.syndromeBits });
+    const fixed = generalAttackKeyLength({
+      rounds: 1_500_000,
+      testProbability: GAMMA,
+      soundness: 1e-10,
+      omegaThreshold: fromDesign.omegaThreshold,
+      syndromeBits: fromDesign.syndromeBits,
+    });
     expect(fixed).toEqual(fromDesign);
   });
 
@@ -89,8 +95,16 @@ describe('generalAttackKeyLength', () => {
     ['design.qber', designed(1e6, 2.64, 0), 'The design QBER must be above 0 and below 0.5; it is 0.'],
     ['rounds', designed(1.5, 2.64, 0.018), 'The number of rounds must be a whole number of at least 1; it is 1.5.'],
     ['soundness', designed(1e6, 2.64, 0.018, 0), 'The total soundness ε must be above 1.734723475976807e-18 and below 1; it is 0.'],
-    ['omegaThreshold', { rounds: 1e6, testProbability: 0.1, soundness: 1e-10, omegaThreshold: 0.9, syndromeBits: 0 }, 'The threshold ω_thr must be above 0 and at most the quantum maximum 0.853553; it is 0.9.'],
-    ['syndromeBits', { rounds: 1e6, testProbability: 0.1, soundness: 1e-10, omegaThreshold: 0.82, syndromeBits: -1 }, 'The syndrome length must be a whole number of bits, at least 0; it is -1.'],
+    [
+      'omegaThreshold',
+      { rounds: 1e6, testProbability: 0.1, soundness: 1e-10, omegaThreshold: 0.9, syndromeBits: 0 },
+      'The threshold ω_thr must be above 0 and at most the quantum maximum 0.853553; it is 0.9.',
+    ],
+    [
+      'syndromeBits',
+      { rounds: 1e6, testProbability: 0.1, soundness: 1e-10, omegaThreshold: 0.82, syndromeBits: -1 },
+      'The syndrome length must be a whole number of bits, at least 0; it is -1.',
+    ],
   ])('refuses a bad %s', (field, request, message) => {
     let thrown: unknown;
     try {

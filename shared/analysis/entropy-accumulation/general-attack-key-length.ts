@@ -90,9 +90,13 @@ function keyLengthSetting(request: GeneralAttackRequest): KeyLengthSetting {
   }
   const { omegaThreshold, syndromeBits } = request;
   if (!(omegaThreshold > 0 && omegaThreshold <= QUANTUM_WIN_FRACTION)) {
-    throw new KeyLengthInputError(`The threshold ω_thr must be above 0 and at most the quantum maximum ${QUANTUM_WIN_FRACTION.toFixed(6)}; it is ${omegaThreshold}.`, 'omegaThreshold');
+    throw new KeyLengthInputError(
+      `The threshold ω_thr must be above 0 and at most the quantum maximum ${QUANTUM_WIN_FRACTION.toFixed(6)}; it is ${omegaThreshold}.`,
+      'omegaThreshold',
+    );
   }
-  if (!(Number.isSafeInteger(syndromeBits) && syndromeBits >= 0)) throw new KeyLengthInputError(`The syndrome length must be a whole number of bits, at least 0; it is ${syndromeBits}.`, 'syndromeBits');
+  if (!(Number.isSafeInteger(syndromeBits) && syndromeBits >= 0))
+    throw new KeyLengthInputError(`The syndrome length must be a whole number of bits, at least 0; it is ${syndromeBits}.`, 'syndromeBits');
   return { rounds, testProbability, omegaThreshold, syndromeBits };
 }
 

@@ -92,7 +92,10 @@ function settledSoundness(rounds: number, totalSoundness: number, alphaPrime: nu
 function localRegion(t: number, logAlphaExcess: number): SearchRegion {
   return {
     t: { low: Math.max(FIRST_REGION.t.low, t - T_REACH), high: Math.min(FIRST_REGION.t.high, t + T_REACH) },
-    logAlphaExcess: { low: Math.max(FIRST_REGION.logAlphaExcess.low, logAlphaExcess - LOG_ALPHA_REACH), high: Math.min(FIRST_REGION.logAlphaExcess.high, logAlphaExcess + LOG_ALPHA_REACH) },
+    logAlphaExcess: {
+      low: Math.max(FIRST_REGION.logAlphaExcess.low, logAlphaExcess - LOG_ALPHA_REACH),
+      high: Math.min(FIRST_REGION.logAlphaExcess.high, logAlphaExcess + LOG_ALPHA_REACH),
+    },
     search: LOCAL_SEARCH,
     alphaSearch: LOCAL_ALPHA_SEARCH,
   };

@@ -23,7 +23,13 @@ describe('soundnessSplit', () => {
       fc.property(total, alpha, alpha, (soundness, alphaPrime, alphaDoublePrime) => {
         const split = soundnessSplit(soundness, alphaPrime, alphaDoublePrime);
         const rest = split.epsilonS - split.epsilonPrime - 2 * split.epsilonDoublePrime;
-        return protocolSoundness(split.epsilonEA, split.epsilonPA, split.epsilonS) <= soundness && split.epsilonPA > 0 && split.epsilonPrime > 0 && split.epsilonDoublePrime > 0 && rest > 0;
+        return (
+          protocolSoundness(split.epsilonEA, split.epsilonPA, split.epsilonS) <= soundness &&
+          split.epsilonPA > 0 &&
+          split.epsilonPrime > 0 &&
+          split.epsilonDoublePrime > 0 &&
+          rest > 0
+        );
       }),
     );
   });

@@ -11,7 +11,10 @@ export type OutcomeEncoding = (typeof OUTCOME_ENCODINGS)[number];
 export const columnMappingSchema = z.strictObject({
   /** Header name for each field; a field left out keeps its own name (`round`, `x`, `y`, `a`, `b`, `test`). */
   columns: z
-    .partialRecord(z.enum(ROUND_FIELDS, { error: `must be one of ${ROUND_FIELDS.join(', ')}` }), z.string({ error: 'must be a header name' }).min(1, { error: 'must not be empty' }))
+    .partialRecord(
+      z.enum(ROUND_FIELDS, { error: `must be one of ${ROUND_FIELDS.join(', ')}` }),
+      z.string({ error: 'must be a header name' }).min(1, { error: 'must not be empty' }),
+    )
     .default({}),
   /** How outcomes are written. Default `0/1`. */
   outcomes: z.enum(OUTCOME_ENCODINGS, { error: `must be one of ${OUTCOME_ENCODINGS.join(', ')}` }).default('0/1'),

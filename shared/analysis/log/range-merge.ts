@@ -37,7 +37,10 @@ export function mergeRanges(ranges: readonly RangeSummary[], blocks: number, rou
     validRecords: sum(ranges, (range) => range.validRecords),
     testRounds: sum(ranges, (range) => range.testRounds),
     missingTestRounds: sum(ranges, (range) => range.missingTestRounds),
-    counts: mergeCounts(ranges.map((range) => range.counts), blocks),
+    counts: mergeCounts(
+      ranges.map((range) => range.counts),
+      blocks,
+    ),
     problems,
     problemCount,
     gaps,
@@ -51,8 +54,7 @@ function sum(ranges: readonly RangeSummary[], part: (range: RangeSummary) => num
 }
 
 function mergeCounts(parts: readonly TallyCounts[], blocks: number): TallyCounts {
-  const addUp = (pick: (part: TallyCounts) => number[], length: number) =>
-    Array.from({ length }, (_, i) => parts.reduce((total, part) => total + pick(part)[i], 0));
+  const addUp = (pick: (part: TallyCounts) => number[], length: number) => Array.from({ length }, (_, i) => parts.reduce((total, part) => total + pick(part)[i], 0));
   const blockRounds: number[] = new Array<number>(blocks * BLOCK_ROUNDS).fill(NaN);
   for (const part of parts) {
     for (let block = 0; block < blocks; block++) {

@@ -23,7 +23,9 @@ export interface TriggerSpan {
 export function triggerSpan(edges: RecordEdges, records: number): TriggerSpan {
   const { firstRound, lastRound } = edges;
   const readable = Number.isSafeInteger(firstRound) && Number.isSafeInteger(lastRound) && lastRound >= firstRound;
-  return readable ? { firstRound, lastRound, triggers: lastRound - firstRound + 1 } : { firstRound: Number.isSafeInteger(firstRound) ? firstRound : 0, lastRound: NaN, triggers: records };
+  return readable
+    ? { firstRound, lastRound, triggers: lastRound - firstRound + 1 }
+    : { firstRound: Number.isSafeInteger(firstRound) ? firstRound : 0, lastRound: NaN, triggers: records };
 }
 
 /**

@@ -29,7 +29,7 @@ function isBlank(bytes: Uint8Array, start: number, end: number): boolean {
 
 /** The first non-blank line of `bytes` (lines split at LF), without its line break; null if none. */
 export function firstRecordLine(bytes: Uint8Array): Uint8Array | null {
-  for (let start = 0; start < bytes.length; ) {
+  for (let start = 0; start < bytes.length;) {
     const newline = bytes.indexOf(LF, start);
     const end = newline < 0 ? bytes.length : newline;
     if (!isBlank(bytes, start, end)) return bytes.subarray(start, end);
@@ -41,7 +41,7 @@ export function firstRecordLine(bytes: Uint8Array): Uint8Array | null {
 
 /** The last non-blank line of `bytes`, which ends at a line end or at the end of the log; null if none. */
 export function lastRecordLine(bytes: Uint8Array): Uint8Array | null {
-  for (let lineEnd = bytes.length; ; ) {
+  for (let lineEnd = bytes.length; ;) {
     const newline = lineEnd === 0 ? -1 : bytes.lastIndexOf(LF, lineEnd - 1);
     if (!isBlank(bytes, newline + 1, lineEnd)) return bytes.subarray(newline + 1, lineEnd);
     if (newline < 0) return null;

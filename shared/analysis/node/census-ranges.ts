@@ -27,7 +27,9 @@ export function rangesFromCensus(census: LogCensus, dataOffset: number, size: nu
   const start: CensusMark = { offset: dataOffset, linesBefore: 1, recordsBefore: 1 };
   const end: CensusMark = { offset: size, linesBefore: census.lines, recordsBefore: census.records };
   const marks = [start, ...census.marks.filter((mark) => mark.offset > dataOffset && mark.offset < size), end];
-  const ordered = marks.every((mark, i) => i === 0 || (mark.offset > marks[i - 1].offset && mark.linesBefore >= marks[i - 1].linesBefore && mark.recordsBefore >= marks[i - 1].recordsBefore));
+  const ordered = marks.every(
+    (mark, i) => i === 0 || (mark.offset > marks[i - 1].offset && mark.linesBefore >= marks[i - 1].linesBefore && mark.recordsBefore >= marks[i - 1].recordsBefore),
+  );
   if (!ordered) return null;
   const cuts = [start];
   for (let part = 1; part < parts; part++) {

@@ -30,7 +30,7 @@ export async function hashAndCount(
   try {
     const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);
     const from = hashing ? 0 : (ranges[0]?.start ?? size);
-    for (let position = from; position < size && !cancelled(); ) {
+    for (let position = from; position < size && !cancelled();) {
       const { bytesRead } = await file.read(buffer, 0, Math.min(buffer.length, size - position), position);
       if (bytesRead === 0) {
         break;

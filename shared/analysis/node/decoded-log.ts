@@ -31,14 +31,15 @@ export class DamagedGzipError extends Error {}
  * them, even when the gzip data fails part-way.
  */
 export async function decodeLog(raw: AsyncIterable<Uint8Array>, onRaw: (chunk: Uint8Array) => void): Promise<DecodedLog> {
-  const iterator = raw[Symbol.asyncIterator]();
+  const iterator: AsyncIterator<Uint8Array, unknown> = raw[Symbol.asyncIterator]();
   // The magic bytes may come in pieces of one byte: the head is joined until it holds them.
-  let head = new Uint8Array(0);
+  let head: Uint8Array = new Uint8Array(0);
   let ended = false;
   while (head.length < GZIP_MAGIC.length && !ended) {
     const next = await iterator.next();
-    ended = next.done === true;
-    if (!ended && next.value.length > 0) {
+    if (next.done === true) {
+      ended = true;
+    } else if (next.value.length > 0) {
       head = head.length === 0 ? next.value : Buffer.concat([head, next.value]);
     }
   }

@@ -40,7 +40,7 @@ export async function runRangeTask(task: RangeTask, onBytes: (bytes: number) => 
   const file = await open(task.path, 'r');
   try {
     const buffer = Buffer.allocUnsafe(READ_CHUNK_BYTES);
-    for (let position = task.range.start; position < task.range.end && !cancelled(); ) {
+    for (let position = task.range.start; position < task.range.end && !cancelled();) {
       const { bytesRead } = await file.read(buffer, 0, Math.min(buffer.length, task.range.end - position), position);
       if (bytesRead === 0) {
         break;

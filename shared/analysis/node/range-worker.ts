@@ -7,16 +7,15 @@ import { ByteRange, RangeReading, RangeTask, runRangeTask } from './range-task';
 export type WorkerJob = { kind: 'count'; path: string; size: number; ranges: ByteRange[] } | { kind: 'hash'; path: string; size: number } | { kind: 'analyse'; task: RangeTask };
 
 /** Messages from a range worker to its pool. */
-export type WorkerReply =
-  | { type: 'progress'; bytes: number }
-  | { type: 'done'; result: RangeReading | LineCount[] | string }
-  | { type: 'failed'; message: string };
+export type WorkerReply = { type: 'progress'; bytes: number } | { type: 'done'; result: RangeReading | LineCount[] | string } | { type: 'failed'; message: string };
 
 /** Progress is reported after this many bytes, to keep messages few. */
 const PROGRESS_STEP = 16 * 1024 * 1024;
 
 // Worker thread entry: runs one job per message, in order.
-parentPort?.on('message', async (job: WorkerJob) => {
+parentPort?.on('message', (job: WorkerJob) => void runJob(job));
+
+async function runJob(job: WorkerJob): Promise<void> {
   const port = parentPort!;
   let unreported = 0;
   const onBytes = (bytes: number) => {
@@ -29,13 +28,31 @@ parentPort?.on('message', async (job: WorkerJob) => {
   try {
     const result =
       job.kind === 'count'
-        ? (await hashAndCount(job.path, job.size, job.ranges, false, () => undefined, () => false)).counts
+        ? (
+            await hashAndCount(
+              job.path,
+              job.size,
+              job.ranges,
+              false,
+              () => undefined,
+              () => false,
+            )
+          ).counts
         : job.kind === 'hash'
-          ? (await hashAndCount(job.path, job.size, [], true, () => undefined, () => false)).sha256
+          ? (
+              await hashAndCount(
+                job.path,
+                job.size,
+                [],
+                true,
+                () => undefined,
+                () => false,
+              )
+            ).sha256
           : await runRangeTask(job.task, onBytes, () => false);
     port.postMessage({ type: 'progress', bytes: unreported } satisfies WorkerReply);
     port.postMessage({ type: 'done', result } satisfies WorkerReply);
   } catch (error) {
     port.postMessage({ type: 'failed', message: (error as Error).message } satisfies WorkerReply);
   }
-});
+}

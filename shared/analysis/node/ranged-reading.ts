@@ -105,7 +105,10 @@ async function analyseRanges(
   const input = { sha256: '', bytes: size, rounds: 0, compression: 'none' as const };
   const rounds = counts.reduce((sum, count) => sum + count.records, 0);
   const edges = await readRecordEdges(path, size, head, logHead.dataOffset, ranges, logHead.layout);
-  const unreadable = async (problems: LogProblem[]) => ({ outcome: { kind: 'unreadable' as const, input: { ...input, sha256: await hashing, rounds }, problems, problemCount: problems.length }, readings: [] });
+  const unreadable = async (problems: LogProblem[]) => ({
+    outcome: { kind: 'unreadable' as const, input: { ...input, sha256: await hashing, rounds }, problems, problemCount: problems.length },
+    readings: [],
+  });
   if (rounds === 0) return unreadable([NO_ROUNDS]);
   if (cancelled()) return unreadable([]);
   const badSpan = spanProblem(triggerSpan(edges, rounds), rounds, logHead.layout);
@@ -130,7 +133,14 @@ function censusMisfit(stored: StoredCensus, sha256: string, counts: readonly Lin
 }
 
 /** The counting pass on two threads: SHA-256 here, the line counts in the pool's first thread. */
-async function hashWhileCounting(pool: WorkerPool, path: string, size: number, ranges: ByteRange[], onBytes: (bytes: number) => void, cancelled: () => boolean): Promise<CountingPass> {
+async function hashWhileCounting(
+  pool: WorkerPool,
+  path: string,
+  size: number,
+  ranges: ByteRange[],
+  onBytes: (bytes: number) => void,
+  cancelled: () => boolean,
+): Promise<CountingPass> {
   const [hashed, counts] = await Promise.all([hashAndCount(path, size, [], true, onBytes, cancelled), pool.countLines(path, size, ranges)]);
   return { sha256: hashed.sha256, counts };
 }

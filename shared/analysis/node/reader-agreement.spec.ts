@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { createHash } from 'node:crypto';
+import { Readable } from 'node:stream';
 import { LogCensusTaker } from '../log/log-census';
 import { AnalysisResult } from '../result';
 import { analyseLog } from './analyse-log';
@@ -38,16 +39,17 @@ const row = (brokenWeight: number) =>
   });
 
 /** A random log; `brokenWeight` 0 makes every row valid, 4 breaks about one row in eight. */
-const randomLog = (brokenWeight: number, maxRows: number) => fc.record({
-  bom: fc.boolean(),
-  order: fc.shuffledSubarray(['round', 'x', 'y', 'a', 'b', 'note'], { minLength: 6, maxLength: 6 }),
-  rows: fc.array(row(brokenWeight), { minLength: 1, maxLength: maxRows }),
-  finalNewline: fc.boolean(),
-  mode: fc.constantFrom('fixed-fraction', 'bernoulli'),
-  outcomes: fc.constantFrom('0/1', '±1'),
-  seed: fc.uint8Array({ minLength: 32, maxLength: 32 }).map((bytes) => Buffer.from(bytes).toString('hex')),
-  chunk: fc.integer({ min: 1, max: 64 }),
-});
+const randomLog = (brokenWeight: number, maxRows: number) =>
+  fc.record({
+    bom: fc.boolean(),
+    order: fc.shuffledSubarray(['round', 'x', 'y', 'a', 'b', 'note'], { minLength: 6, maxLength: 6 }),
+    rows: fc.array(row(brokenWeight), { minLength: 1, maxLength: maxRows }),
+    finalNewline: fc.boolean(),
+    mode: fc.constantFrom('fixed-fraction', 'bernoulli'),
+    outcomes: fc.constantFrom('0/1', '±1'),
+    seed: fc.uint8Array({ minLength: 32, maxLength: 32 }).map((bytes) => Buffer.from(bytes).toString('hex')),
+    chunk: fc.integer({ min: 1, max: 64 }),
+  });
 
 type Log = ReturnType<typeof randomLog> extends fc.Arbitrary<infer T> ? T : never;
 
@@ -91,11 +93,14 @@ function coversItsSpan(rounds: number[]): boolean {
 /** The bytes as a stream cut into pieces of `size` bytes, to cut lines anywhere. */
 function chunked(bytes: Buffer, size: number) {
   return {
-    open: async function* () {
-      for (let at = 0; at < bytes.length; at += size) {
-        yield bytes.subarray(at, at + size);
-      }
-    },
+    open: () =>
+      Readable.from(
+        (function* () {
+          for (let at = 0; at < bytes.length; at += size) {
+            yield bytes.subarray(at, at + size);
+          }
+        })(),
+      ),
   };
 }
 
@@ -163,7 +168,12 @@ describe('the fast reader (byte scanner with and without the row kernel) agrees 
         const bytes = render(generated);
         const file = path.join(scratch, `log-${n++}.csv`);
         writeFileSync(file, bytes);
-        const options = { seed: generated.seed, mapping: { outcomes: generated.outcomes }, profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 }, threads };
+        const options = {
+          seed: generated.seed,
+          mapping: { outcomes: generated.outcomes },
+          profile: { testSelection: { mode: generated.mode }, driftBlocks: 3, minTestRounds: 1 },
+          threads,
+        };
         const reference = await analyseLog({ path: file }, { ...options, reader: 'reference' });
         const census = censusOf(bytes, markBytes);
         const misfits: string[] = [];
@@ -178,7 +188,10 @@ describe('the fast reader (byte scanner with and without the row kernel) agrees 
         // without rounds, or whose span is refused, is refused before its ranges are read, which
         // proves nothing of its census.)
         const refusedUnread = reference.input.rounds === 0 || reference.errors.some((problem) => problem.message.includes('trigger counter'));
-        for (const lying of [{ ...census, census: { ...census.census, records: census.census.records + 1 } }, { ...census, sha256: '0'.repeat(64) }]) {
+        for (const lying of [
+          { ...census, census: { ...census.census, records: census.census.records + 1 } },
+          { ...census, sha256: '0'.repeat(64) },
+        ]) {
           misfits.length = 0;
           expect(await analyseLog({ path: file }, { ...options, census: lying, onCensusMismatch })).toEqual(reference);
           expect(await analyseLog(chunked(bytes, generated.chunk), { ...options, census: lying, onCensusMismatch })).toEqual(reference);

@@ -132,15 +132,16 @@ async function readOnceWithCensus(
     bytes += chunk.length;
     progress(chunk.length);
   });
-  const chunks = decoded.chunks[Symbol.asyncIterator]();
+  const chunks: AsyncIterator<Uint8Array, unknown> = decoded.chunks[Symbol.asyncIterator]();
   const early: Uint8Array[] = [];
   let headLength = 0;
   let ended = false;
   try {
     while (headLength < HEAD_BYTES && !ended) {
       const next = await chunks.next();
-      ended = next.done === true;
-      if (!ended) {
+      if (next.done === true) {
+        ended = true;
+      } else {
         early.push(next.value);
         headLength += next.value.length;
       }
@@ -151,7 +152,11 @@ async function readOnceWithCensus(
   }
   const head = Buffer.concat(early).subarray(0, HEAD_BYTES);
   const logHead = readLogHead(head, ended && headLength < HEAD_BYTES, request.mapping, request.profile.testSelection.mode === 'from-log');
-  const edges = logHead.ok && { firstRound: roundOfLine(firstRecordLine(head.subarray(logHead.dataOffset)), logHead.layout), lastRound: roundOfLine(lastLine, logHead.layout), previousRounds: [NaN] };
+  const edges = logHead.ok && {
+    firstRound: roundOfLine(firstRecordLine(head.subarray(logHead.dataOffset)), logHead.layout),
+    lastRound: roundOfLine(lastLine, logHead.layout),
+    previousRounds: [NaN],
+  };
   if (!logHead.ok || !edges || spanProblem(triggerSpan(edges, rounds), rounds, logHead.layout) !== null) {
     await chunks.return?.();
     return null;
@@ -188,7 +193,7 @@ async function readOnceWithCensus(
       : read.decodedBytes !== census.decodedBytes || read.lines !== census.lines || read.records !== census.records
         ? `the log holds ${read.decodedBytes} bytes of text, ${read.lines} lines and ${read.records} records, the census says ${census.decodedBytes}, ${census.lines} and ${census.records}`
         : !sameBytes(read.lastLine, lastLine)
-          ? 'its last line is not the log\'s'
+          ? "its last line is not the log's"
           : null;
   if (misfit === null) return { kind: 'read', input, summary };
   onMismatch(misfit);

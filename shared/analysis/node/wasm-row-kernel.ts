@@ -81,7 +81,17 @@ class WasmRowKernel implements RowKernel {
     const { selection } = start;
     const uniforms = Math.min(selection.uniforms.length, this.uniforms.length);
     this.uniforms.set(selection.uniforms.subarray(0, uniforms));
-    kernel.startStep(selection.mode, selection.remainingTests, selection.remainingTriggers, selection.probability, uniforms, start.lastRound, start.nextRound, start.spanLastRound, start.recordsLeftInBlock);
+    kernel.startStep(
+      selection.mode,
+      selection.remainingTests,
+      selection.remainingTriggers,
+      selection.probability,
+      uniforms,
+      start.lastRound,
+      start.nextRound,
+      start.spanLastRound,
+      start.recordsLeftInBlock,
+    );
     const stop = kernel.step(from, this.loadedBytes);
     return {
       stop,

@@ -86,9 +86,25 @@ export function criteriaTable(result: AnalysisResult, digits: { win: number; per
     },
   ];
   if (profile.requirePositiveKey && general) {
-    criteria.push({ name: 'Key length against general attacks', observed: `${formatCount(general.bits)} bits`, bound: '–', threshold: '> 0 bits', source: 'profile', judgedOn: 'observed', passes: general.bits > 0 });
+    criteria.push({
+      name: 'Key length against general attacks',
+      observed: `${formatCount(general.bits)} bits`,
+      bound: '–',
+      threshold: '> 0 bits',
+      source: 'profile',
+      judgedOn: 'observed',
+      passes: general.bits > 0,
+    });
   } else if (profile.requirePositiveKey) {
-    criteria.push({ name: 'Finite key length (collective attacks)', observed: `${formatCount(key.finiteKeyBits)} bits`, bound: '–', threshold: '> 0 bits', source: 'profile', judgedOn: 'observed', passes: key.finiteKeyBits > 0 });
+    criteria.push({
+      name: 'Finite key length (collective attacks)',
+      observed: `${formatCount(key.finiteKeyBits)} bits`,
+      bound: '–',
+      threshold: '> 0 bits',
+      source: 'profile',
+      judgedOn: 'observed',
+      passes: key.finiteKeyBits > 0,
+    });
   }
   return criteria;
 }

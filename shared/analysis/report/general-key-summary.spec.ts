@@ -1,3 +1,4 @@
+import { expect } from '@jest/globals';
 import path from 'node:path';
 import { analyseLog } from '../node';
 import { parseProfile } from '../profile';
@@ -53,7 +54,11 @@ describe('the general-attack key figure of a run', () => {
   });
 
   it('refuses a general profile with a fixed-size test subset, or without its settings', () => {
-    expect(parseProfile({ ...PUBLISHED, testSelection: { mode: 'fixed-fraction', fraction: 0.05 } })).toMatchObject({ ok: false, field: 'testSelection.mode', message: expect.stringContaining('a fixed-size subset is refused') });
+    expect(parseProfile({ ...PUBLISHED, testSelection: { mode: 'fixed-fraction', fraction: 0.05 } })).toMatchObject({
+      ok: false,
+      field: 'testSelection.mode',
+      message: expect.stringContaining('a fixed-size subset is refused'),
+    });
     expect(parseProfile({ securityModel: 'general', testSelection: { mode: 'bernoulli' } })).toMatchObject({ ok: false, field: 'generalAttack' });
     expect(parseProfile({ ...PUBLISHED, generalAttack: { design: { chshValue: 2.64, qber: 0.018 }, omegaThreshold: 0.8, syndromeBits: 10 } })).toMatchObject({ ok: false });
     expect(parseProfile({ ...PUBLISHED, testSelection: { mode: 'from-log' } })).toMatchObject({ ok: false, field: 'generalAttack.testProbability' });
@@ -62,7 +67,13 @@ describe('the general-attack key figure of a run', () => {
   it('a short run judged under the general model: threshold ω_thr, no key, and an abort that says why', async () => {
     const profile = { ...PUBLISHED, testSelection: { mode: 'bernoulli', probability: 0.5 }, requirePositiveKey: true };
     const result = await analyseLog({ path: path.join(FIXTURES, 'accepted-run.csv') }, { profile, seed: 'a5'.repeat(32) });
-    expect(result.key!.generalAttack).toMatchObject({ rounds: result.chsh!.rounds + result.key!.rawBits, logRounds: result.input.rounds, logTestProbability: 0.5, bits: 0, reason: expect.stringContaining('give no key') });
+    expect(result.key!.generalAttack).toMatchObject({
+      rounds: result.chsh!.rounds + result.key!.rawBits,
+      logRounds: result.input.rounds,
+      logTestProbability: 0.5,
+      bits: 0,
+      reason: expect.stringContaining('give no key'),
+    });
     expect(result.key!.generalAttackBits).toBe(0);
     expect(result.verdict).toBe('ABORT');
     expect(result.reasons).toContainEqual(expect.stringContaining('The key length against general attacks is not positive'));

@@ -15,7 +15,11 @@ describe('the ε bookkeeping of a result', () => {
   it.each([
     ['seeded selection', {}, 8],
     ['the log’s own marks', { testSelection: { mode: 'from-log' } }, 11],
-    ['the log’s own marks with a declared γ', { testSelection: { mode: 'from-log' }, securityModel: 'general', generalAttack: { design: { chshValue: 2.7, qber: 0.02 }, testProbability: 0.2 } }, 12],
+    [
+      'the log’s own marks with a declared γ',
+      { testSelection: { mode: 'from-log' }, securityModel: 'general', generalAttack: { design: { chshValue: 2.7, qber: 0.02 }, testProbability: 0.2 } },
+      12,
+    ],
   ])('shares the significance among exactly the statistical checks it runs (%s: %i)', (_, profile, count) => {
     const result = analyseRounds(rounds, { ...profile, significance: 0.003 }, seed);
     const statistical = result.checks.filter((check) => check.log10PValue !== null);
@@ -25,7 +29,11 @@ describe('the ε bookkeeping of a result', () => {
   });
 
   it('states the general model’s soundness, split by the optimiser, as its key figure’s ε', () => {
-    const result = analyseRounds(rounds, { testSelection: { mode: 'bernoulli', probability: 0.2 }, securityModel: 'general', generalAttack: { soundness: 1e-8, design: { chshValue: 2.7, qber: 0.02 } } }, seed);
+    const result = analyseRounds(
+      rounds,
+      { testSelection: { mode: 'bernoulli', probability: 0.2 }, securityModel: 'general', generalAttack: { soundness: 1e-8, design: { chshValue: 2.7, qber: 0.02 } } },
+      seed,
+    );
     const { keyEpsilon, terms } = result.security!;
     expect(keyEpsilon).toBe(1e-8);
     const value = (symbol: string) => terms.find((term) => term.symbol === symbol)!.value;

@@ -47,7 +47,8 @@ export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySumm
     reasons.push(`Check ${check.id} failed: ${check.message}`);
   }
   if (profile.requirePositiveKey && profile.securityModel === 'general') {
-    if (!key.generalAttackBits) reasons.push(`The key length against general attacks is not positive, and the profile requires a key.${key.generalAttack?.reason ? ` ${key.generalAttack.reason}` : ''}`);
+    if (!key.generalAttackBits)
+      reasons.push(`The key length against general attacks is not positive, and the profile requires a key.${key.generalAttack?.reason ? ` ${key.generalAttack.reason}` : ''}`);
   } else if (profile.requirePositiveKey && key.finiteKeyBits <= 0) {
     reasons.push(`The finite key length is not positive, and the profile requires a key.${key.finiteKeyReason ? ` ${key.finiteKeyReason}` : ''}`);
   }
@@ -64,7 +65,9 @@ function chshReasons(chsh: ChshSummary, profile: AnalysisProfile, general: Gener
   if (chsh.rounds === 0) return ['There are no CHSH test rounds.'];
   const empty = chsh.pairs.filter((pair) => pair.testRounds === 0).map((pair) => `(${pair.x}, ${pair.y})`);
   if (empty.length > 0) {
-    return [`The CHSH setting pair${empty.length > 1 ? 's' : ''} ${empty.join(', ')} ha${empty.length > 1 ? 've' : 's'} no test rounds: the win fraction cannot weigh the four pairs equally.`];
+    return [
+      `The CHSH setting pair${empty.length > 1 ? 's' : ''} ${empty.join(', ')} ha${empty.length > 1 ? 've' : 's'} no test rounds: the win fraction cannot weigh the four pairs equally.`,
+    ];
   }
   const reasons: string[] = [];
   const criterion = chshCriterion(chsh, profile, general);
@@ -75,7 +78,9 @@ function chshReasons(chsh: ChshSummary, profile: AnalysisProfile, general: Gener
   const lower = chsh.winFractionLower;
   const at = `at ε = ${profile.epsilon}`;
   if (lower === null || lower <= LOCAL_WIN_FRACTION) {
-    reasons.push(`The lower bound of the CHSH win fraction, ${lower === null ? 'unknown' : lower.toFixed(6)} ${at}, is not above the local bound 0.75: these rounds show no significant Bell violation.`);
+    reasons.push(
+      `The lower bound of the CHSH win fraction, ${lower === null ? 'unknown' : lower.toFixed(6)} ${at}, is not above the local bound 0.75: these rounds show no significant Bell violation.`,
+    );
   } else if (lower > QUANTUM_WIN_FRACTION) {
     reasons.push(
       `The lower bound of the CHSH win fraction, ${lower.toFixed(6)} ${at} (S ≥ ${chshValueFromWinFraction(lower).toFixed(4)}), is above the quantum maximum ${QUANTUM_WIN_FRACTION.toFixed(6)} (S = 2√2): no quantum device does that, so the data or its analysis is broken.`,
@@ -106,7 +111,12 @@ export function chshCriterion(chsh: ChshSummary, profile: AnalysisProfile, gener
     const played = chsh.rounds + chsh.missingTestRounds;
     const lost = Math.max(played - chsh.wins, chsh.winFraction === null ? played : played * (1 - chsh.winFraction));
     const value = expectedTests > 0 ? 1 - lost / expectedTests : null;
-    return { name: 'CHSH score of the acceptance count (1 − lost / expected test rounds)', value, threshold: general.omegaThreshold, passes: value !== null && value >= general.omegaThreshold };
+    return {
+      name: 'CHSH score of the acceptance count (1 − lost / expected test rounds)',
+      value,
+      threshold: general.omegaThreshold,
+      passes: value !== null && value >= general.omegaThreshold,
+    };
   }
   const certified = profile.criterion === 'certified';
   const threshold = QUANTUM_WIN_FRACTION - profile.chshTolerance;

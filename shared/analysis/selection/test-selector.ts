@@ -85,7 +85,7 @@ class FixedFractionSelector implements TestSelector {
     let remainingTests = this.remainingTests;
     let remainingTriggers = this.remainingTriggers;
     let tests = 0;
-    for (let left = count; left > 0; ) {
+    for (let left = count; left > 0;) {
       const uniforms = this.uniforms.pending();
       const taken = Math.min(left, uniforms.length);
       for (let i = 0; i < taken; i++) {
@@ -127,7 +127,7 @@ class BernoulliSelector implements TestSelector {
   skip(count: number): number {
     const probability = this.probability;
     let tests = 0;
-    for (let left = count; left > 0; ) {
+    for (let left = count; left > 0;) {
       const uniforms = this.uniforms.pending();
       const taken = Math.min(left, uniforms.length);
       for (let i = 0; i < taken; i++) {

@@ -2,16 +2,30 @@ import fc from 'fast-check';
 import { balancedHoeffdingDeviation, balancedWinFraction, balancedWinFractionWithLosses, log10BalancedLocalTail } from './balanced-win-fraction';
 import { hoeffdingDeviation } from './hoeffding';
 
-const pairsArbitrary = fc.array(fc.integer({ min: 1, max: 400 }), { minLength: 4, maxLength: 4 }).chain((rounds) =>
-  fc.tuple(...rounds.map((m) => fc.integer({ min: 0, max: m }).map((wins) => ({ rounds: m, wins })))),
-);
+const pairsArbitrary = fc
+  .array(fc.integer({ min: 1, max: 400 }), { minLength: 4, maxLength: 4 })
+  .chain((rounds) => fc.tuple(...rounds.map((m) => fc.integer({ min: 0, max: m }).map((wins) => ({ rounds: m, wins })))));
 
 describe('the balanced win fraction', () => {
   it('weighs the four setting pairs equally (hand computation)', () => {
     // Pairs 00, 01, 10 always won, 11 always lost: ¼·(1 + 1 + 1 + 0) = ¾ however the counts differ
     // (CHSH 1969: the local deterministic strategy a = b = 0).
-    expect(balancedWinFraction([{ rounds: 1000, wins: 1000 }, { rounds: 900, wins: 900 }, { rounds: 1100, wins: 1100 }, { rounds: 50, wins: 0 }])).toBe(0.75);
-    expect(balancedWinFraction([{ rounds: 10, wins: 5 }, { rounds: 0, wins: 0 }, { rounds: 10, wins: 5 }, { rounds: 10, wins: 5 }])).toBeNull();
+    expect(
+      balancedWinFraction([
+        { rounds: 1000, wins: 1000 },
+        { rounds: 900, wins: 900 },
+        { rounds: 1100, wins: 1100 },
+        { rounds: 50, wins: 0 },
+      ]),
+    ).toBe(0.75);
+    expect(
+      balancedWinFraction([
+        { rounds: 10, wins: 5 },
+        { rounds: 0, wins: 0 },
+        { rounds: 10, wins: 5 },
+        { rounds: 10, wins: 5 },
+      ]),
+    ).toBeNull();
   });
 
   it('has the pooled Hoeffding deviation sqrt(ln(1/ε)/(2m)) when the pairs are equal', () => {
@@ -25,7 +39,7 @@ describe('the balanced win fraction', () => {
     const pairRounds = [40, 80, 120, 160];
     const excess = 0.06;
     let seed = 12345;
-    const uniform = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const uniform = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
     let beyond = 0;
     for (let run = 0; run < 2000; run++) {
       const pairs = pairRounds.map((m) => ({ rounds: m, wins: Array.from({ length: m }, () => (uniform() < 0.75 ? 1 : 0) as number).reduce((a, b) => a + b, 0) }));

@@ -12,9 +12,7 @@ describe('apiErrorMessage', () => {
   });
 
   it('says the server cannot be reached when there is no answer', () => {
-    expect(apiErrorMessage(new HttpErrorResponse({ status: 0 }))).toBe(
-      'The Bellkeep server cannot be reached. Check your connection and try again.',
-    );
+    expect(apiErrorMessage(new HttpErrorResponse({ status: 0 }))).toBe('The Bellkeep server cannot be reached. Check your connection and try again.');
   });
 
   it('names the status when the body has another shape', () => {

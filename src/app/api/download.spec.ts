@@ -46,13 +46,18 @@ describe('FileDownloads', () => {
 
   beforeAll(() => {
     // jsdom's Blob lacks text(), which every browser Bellkeep supports has: read it the older way.
-    Blob.prototype.text ??= function (this: Blob) {
-      return new Promise<string>((resolve) => {
-        const reader = new FileReader();
-        reader.onload = () => resolve(reader.result as string);
-        reader.readAsText(this);
+    if (!('text' in Blob.prototype)) {
+      Object.defineProperty(Blob.prototype, 'text', {
+        configurable: true,
+        value: function (this: Blob) {
+          return new Promise<string>((resolve) => {
+            const reader = new FileReader();
+            reader.onload = () => resolve(reader.result as string);
+            reader.readAsText(this);
+          });
+        },
       });
-    };
+    }
   });
 
   beforeEach(() => {

@@ -13,8 +13,8 @@ import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, filter, map, of, switchMap } from 'rxjs';
 
-import { VERDICTS, type RunPageDto, type RunSummaryDto, type Verdict } from '../../../shared/api';
-import { loaded, pageContents, type Loaded } from '../api/loaded';
+import { VERDICTS, type RunSummaryDto, type Verdict } from '../../../shared/api';
+import { loaded, pageContents } from '../api/loaded';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { RunsApi, type RunQuery } from '../runs/runs-api';
 import { BookingNoteLine } from '../runs/booking-note-line';
@@ -71,8 +71,18 @@ export class FinishedRuns {
     fingerprint: new FormControl<string | null>('', hexPrefixValidator),
   });
 
-  protected readonly setups = toSignal(inject(SetupsApi).list().pipe(catchError(() => of([]))), { initialValue: [] });
-  protected readonly profiles = toSignal(inject(ProfilesApi).list().pipe(catchError(() => of([]))), { initialValue: [] });
+  protected readonly setups = toSignal(
+    inject(SetupsApi)
+      .list()
+      .pipe(catchError(() => of([]))),
+    { initialValue: [] },
+  );
+  protected readonly profiles = toSignal(
+    inject(ProfilesApi)
+      .list()
+      .pipe(catchError(() => of([]))),
+    { initialValue: [] },
+  );
 
   /** The filters last applied: a field with a bad hash prefix holds the list where it was. */
   private readonly chosen = toSignal(
@@ -81,7 +91,7 @@ export class FinishedRuns {
       filter(() => this.filters.valid),
       map(() => this.chosenFilters()),
     ),
-    { initialValue: {} as Partial<RunQuery> },
+    { initialValue: {} },
   );
   /** Back to the first page whenever the filters change. */
   private readonly paging = linkedSignal<Partial<RunQuery>, Pick<RunQuery, 'page' | 'pageSize'>>({
@@ -93,7 +103,7 @@ export class FinishedRuns {
 
   protected readonly page = toSignal(
     toObservable(computed(() => ({ query: this.query(), attempt: this.reload() }))).pipe(switchMap(({ query }) => loaded(this.runsApi.list(query)))),
-    { initialValue: { status: 'loading' } as Loaded<RunPageDto> },
+    { initialValue: { status: 'loading' } },
   );
   private readonly contents = computed(() => pageContents(this.page()));
   protected readonly rows = computed(() => this.contents().rows);

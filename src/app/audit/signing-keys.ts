@@ -6,8 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { switchMap } from 'rxjs';
 
-import type { SigningKeyDto } from '../../../shared/api';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded } from '../api/loaded';
 import { CopyButton } from '../clipboard/copy-button';
 import { AuditApi } from './audit-api';
 
@@ -24,7 +23,7 @@ export class SigningKeys {
 
   private readonly reload = signal(0);
   protected readonly keys = toSignal(toObservable(this.reload).pipe(switchMap(() => loaded(this.auditApi.signingKeys()))), {
-    initialValue: { status: 'loading' } as Loaded<SigningKeyDto[]>,
+    initialValue: { status: 'loading' },
   });
   protected readonly failure = computed(() => {
     const keys = this.keys();

@@ -14,9 +14,9 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { catchError, debounceTime, map, of, switchMap } from 'rxjs';
 
-import { AUDIT_TARGET_TYPES, type AuditFilter, type AuditPageDto, type AuditQuery, type AuditTargetType } from '../../../shared/api';
+import { AUDIT_TARGET_TYPES, type AuditFilter, type AuditQuery, type AuditTargetType } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
-import { loaded, pageContents, type Loaded } from '../api/loaded';
+import { loaded, pageContents } from '../api/loaded';
 import { trailDetail, trailWords } from '../runs/trail-words';
 import { AuditApi } from './audit-api';
 import { ACTION_FAMILIES, TARGET_WORDS, targetWords } from './audit-words';
@@ -72,7 +72,7 @@ export class SystemTrail {
       debounceTime(TYPING_PAUSE_MILLISECONDS),
       map(() => this.chosenFilters()),
     ),
-    { initialValue: {} as AuditFilter },
+    { initialValue: {} },
   );
   /** Back to the first page whenever the filters change. */
   private readonly paging = linkedSignal<AuditFilter, typeof FIRST_PAGE>({
@@ -84,7 +84,7 @@ export class SystemTrail {
 
   protected readonly page = toSignal(
     toObservable(computed(() => ({ query: this.query(), attempt: this.reload() }))).pipe(switchMap(({ query }) => loaded(this.auditApi.trail(query)))),
-    { initialValue: { status: 'loading' } as Loaded<AuditPageDto> },
+    { initialValue: { status: 'loading' } },
   );
   private readonly contents = computed(() => pageContents(this.page()));
   protected readonly rows = computed(() => this.contents().rows);
@@ -122,7 +122,14 @@ export class SystemTrail {
 
   private chosenFilters(): AuditFilter {
     const { actorId, action, targetType, targetId, from, to } = this.filters.getRawValue();
-    const chosen: AuditFilter = { actorId: actorId ?? undefined, action: action ?? undefined, targetType: targetType ?? undefined, targetId: targetId?.trim(), from: from ?? undefined, to: to ?? undefined };
+    const chosen: AuditFilter = {
+      actorId: actorId ?? undefined,
+      action: action ?? undefined,
+      targetType: targetType ?? undefined,
+      targetId: targetId?.trim(),
+      from: from ?? undefined,
+      to: to ?? undefined,
+    };
     return Object.fromEntries(Object.entries(chosen).filter(([, value]) => value !== undefined && value !== ''));
   }
 }

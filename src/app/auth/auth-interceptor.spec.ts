@@ -12,11 +12,7 @@ describe('authInterceptor', () => {
 
   function setUp(): void {
     TestBed.configureTestingModule({
-      providers: [
-        provideRouter([]),
-        provideHttpClient(withInterceptors([authInterceptor])),
-        provideHttpClientTesting(),
-      ],
+      providers: [provideRouter([]), provideHttpClient(withInterceptors([authInterceptor])), provideHttpClientTesting()],
     });
     http = TestBed.inject(HttpTestingController);
     client = TestBed.inject(HttpClient);
@@ -63,9 +59,7 @@ describe('authInterceptor', () => {
     const failed = jest.fn();
     client.get('/api/users').subscribe({ error: failed });
 
-    http
-      .expectOne('/api/users')
-      .flush({ error: { code: 'unauthorized', message: 'Sign in again.' } }, { status: 401, statusText: 'Unauthorized' });
+    http.expectOne('/api/users').flush({ error: { code: 'unauthorized', message: 'Sign in again.' } }, { status: 401, statusText: 'Unauthorized' });
 
     expect(TestBed.inject(Session).token()).toBeNull();
     expect(localStorage.getItem('bellkeep.token')).toBeNull();
@@ -79,9 +73,7 @@ describe('authInterceptor', () => {
     const navigateByUrl = jest.spyOn(TestBed.inject(Router), 'navigateByUrl');
     client.get('/api/users').subscribe({ error: () => undefined });
 
-    http
-      .expectOne('/api/users')
-      .flush({ error: { code: 'forbidden', message: 'Admins only.' } }, { status: 403, statusText: 'Forbidden' });
+    http.expectOne('/api/users').flush({ error: { code: 'forbidden', message: 'Admins only.' } }, { status: 403, statusText: 'Forbidden' });
 
     expect(TestBed.inject(Session).token()).toBe('token-ada');
     expect(navigateByUrl).not.toHaveBeenCalled();

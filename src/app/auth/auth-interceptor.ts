@@ -20,11 +20,7 @@ export const authInterceptor: HttpInterceptorFn = (request, next) => {
   const authorised = request.clone({ setHeaders: { Authorization: `Bearer ${token}` } });
   return next(authorised).pipe(
     catchError((error: unknown) => {
-      if (
-        error instanceof HttpErrorResponse &&
-        error.status === 401 &&
-        request.context.get(ENDS_SESSION_ON_401)
-      ) {
+      if (error instanceof HttpErrorResponse && error.status === 401 && request.context.get(ENDS_SESSION_ON_401)) {
         session.end();
         void router.navigateByUrl(signInUrl(router, router.url));
       }

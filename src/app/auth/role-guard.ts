@@ -6,8 +6,7 @@ import { Session } from './session';
 import { signInUrl } from './sign-in-url';
 
 /** Lets any signed-in user through; sends everyone else to sign in first. */
-export const requireSignIn: CanActivateFn = (_route, state) =>
-  inject(Session).user() !== null || signInUrl(inject(Router), state.url);
+export const requireSignIn: CanActivateFn = (_route, state) => inject(Session).user() !== null || signInUrl(inject(Router), state.url);
 
 /**
  * Lets through a signed-in user who holds one of `allowed`. Anyone else signed in sees the

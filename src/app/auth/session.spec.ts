@@ -22,11 +22,7 @@ describe('Session.restore', () => {
   beforeEach(() => {
     localStorage.clear();
     TestBed.configureTestingModule({
-      providers: [
-        provideRouter([]),
-        provideHttpClient(withInterceptors([authInterceptor])),
-        provideHttpClientTesting(),
-      ],
+      providers: [provideRouter([]), provideHttpClient(withInterceptors([authInterceptor])), provideHttpClientTesting()],
     });
   });
 
@@ -63,9 +59,7 @@ describe('Session.restore', () => {
     const restored = jest.fn();
     session.restore().subscribe(restored);
 
-    http
-      .expectOne('/api/auth/me')
-      .flush({ error: { code: 'unauthorized', message: 'Sign in again.' } }, { status: 401, statusText: 'Unauthorized' });
+    http.expectOne('/api/auth/me').flush({ error: { code: 'unauthorized', message: 'Sign in again.' } }, { status: 401, statusText: 'Unauthorized' });
 
     expect(restored).toHaveBeenCalledWith(null);
     expect(session.token()).toBeNull();

@@ -34,7 +34,16 @@ const setup: SetupDto = {
   createdAt: '2026-11-01T08:00:00Z',
 };
 
-const version = (id: number, profileId: number, number: number) => ({ id, profileId, version: number, parameters: {}, note: '', createdBy: 'Maren Holt', createdAt: '2026-11-20T08:00:00Z', usedByRuns: 0 });
+const version = (id: number, profileId: number, number: number) => ({
+  id,
+  profileId,
+  version: number,
+  parameters: {},
+  note: '',
+  createdBy: 'Maren Holt',
+  createdAt: '2026-11-20T08:00:00Z',
+  usedByRuns: 0,
+});
 const profiles: ProfileDto[] = [
   { id: 1, name: 'Nightly standard', description: '', latestVersionId: 12, createdAt: '2026-11-01T08:00:00Z', versions: [version(12, 1, 2), version(11, 1, 1)] },
   { id: 2, name: 'Tolerance study', description: '', latestVersionId: 21, createdAt: '2026-11-02T08:00:00Z', versions: [version(21, 2, 1)] },
@@ -155,7 +164,10 @@ describe('BookNightDialog', () => {
     await submit(dialog);
     const request = http.expectOne({ method: 'POST', url: '/api/bookings' });
     expect(request.request.body).toMatchObject({ profileVersionId: 21, profileReason: 'Tolerance study agreed with Sami Virtanen.' });
-    request.flush({ error: { code: 'conflict', message: 'The night of 2027-03-14 on Fen link is booked already (booking 7).', field: 'night' } }, { status: 409, statusText: 'Conflict' });
+    request.flush(
+      { error: { code: 'conflict', message: 'The night of 2027-03-14 on Fen link is booked already (booking 7).', field: 'night' } },
+      { status: 409, statusText: 'Conflict' },
+    );
     await fixture.whenStable();
     expect(await dialog.getText()).toContain('The night could not be booked. The night of 2027-03-14 on Fen link is booked already (booking 7).');
   });

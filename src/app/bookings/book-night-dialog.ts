@@ -10,10 +10,10 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { filter, map, pairwise, startWith } from 'rxjs';
 
-import type { BookingDto, BookNightRequest, ProfileDto, SetupDto } from '../../../shared/api';
+import type { BookingDto, BookNightRequest, SetupDto } from '../../../shared/api';
 import { formatCount } from '../../../shared/format/numbers';
 import { apiErrorMessage } from '../api/api-error-message';
-import { loaded, readyValue, type Loaded } from '../api/loaded';
+import { loaded, readyValue } from '../api/loaded';
 import { Session } from '../auth/session';
 import { CopyButton } from '../clipboard/copy-button';
 import { parseRoundCount, roundCountValidator } from '../planner/round-count';
@@ -64,7 +64,7 @@ export class BookNightDialog {
 
   /** Whether the user may book under another profile than the setup's: an admin or one of its shift leads. */
   protected readonly mayChooseProfile = this.session.hasAnyRole(['admin']) || leadsSetup(this.session.user(), this.data.setup);
-  private readonly profiles = toSignal(loaded(inject(ProfilesApi).list()), { initialValue: { status: 'loading' } as Loaded<ProfileDto[]> });
+  private readonly profiles = toSignal(loaded(inject(ProfilesApi).list()), { initialValue: { status: 'loading' } });
   protected readonly versions = computed(() => profileVersionOptions(readyValue(this.profiles()) ?? []));
   /** The version a booking of the setup gets unless another is chosen: its default profile's latest. */
   protected readonly setupVersionId = computed(() => readyValue(this.profiles())?.find((profile) => profile.id === this.data.setup.defaultProfileId)?.latestVersionId ?? null);
@@ -86,12 +86,19 @@ export class BookNightDialog {
     const { night, windowStart, windowEnd, profileVersionId, profileReason } = this.form.controls;
     // Another night takes the window along, its times as they are (edited or not). A date being
     // typed reads as empty until it is whole: the window moves from the last whole one.
-    night.valueChanges.pipe(startWith(night.value), filter((value) => value !== ''), pairwise(), takeUntilDestroyed()).subscribe(([before, chosen]) => {
-      if (chosen === before) return;
-      const moved = moveToNight({ night: before, windowStart: windowStart.value, windowEnd: windowEnd.value }, chosen);
-      windowStart.setValue(moved.windowStart);
-      windowEnd.setValue(moved.windowEnd);
-    });
+    night.valueChanges
+      .pipe(
+        startWith(night.value),
+        filter((value) => value !== ''),
+        pairwise(),
+        takeUntilDestroyed(),
+      )
+      .subscribe(([before, chosen]) => {
+        if (chosen === before) return;
+        const moved = moveToNight({ night: before, windowStart: windowStart.value, windowEnd: windowEnd.value }, chosen);
+        windowStart.setValue(moved.windowStart);
+        windowEnd.setValue(moved.windowEnd);
+      });
     // The setup's version is chosen once the profiles are in; only those who may choose another can change it.
     effect(() => {
       const versionId = this.setupVersionId();

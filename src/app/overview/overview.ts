@@ -16,7 +16,5 @@ export class Overview {
   private readonly session = inject(Session);
 
   protected readonly user = this.session.user;
-  protected readonly duties = computed(() =>
-    this.session.roles().map((role) => ({ role, label: ROLE_LABELS[role], duty: ROLE_DUTIES[role] })),
-  );
+  protected readonly duties = computed(() => this.session.roles().map((role) => ({ role, label: ROLE_LABELS[role], duty: ROLE_DUTIES[role] })));
 }

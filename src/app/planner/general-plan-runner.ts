@@ -14,9 +14,7 @@ export const GENERAL_PLAN_WORKER = new InjectionToken<() => GeneralPlanWorker>('
 export type WorkerReply = { step: GeneralPlanStep } | { done: true } | { failed: string };
 
 /** The general-attack plan as far as it is known. */
-export type GeneralPlanProgress =
-  | { status: 'computing' | 'ready'; plan: Partial<GeneralAttackPlanDto> }
-  | { status: 'unavailable' | 'failed'; message: string };
+export type GeneralPlanProgress = { status: 'computing' | 'ready'; plan: Partial<GeneralAttackPlanDto> } | { status: 'unavailable' | 'failed'; message: string };
 
 const PARTS: GeneralPlanPart[] = ['rounds', 'gamma'];
 

@@ -15,7 +15,7 @@ function shown(winFraction: number): { note: string; summary: string } {
   fixture.componentRef.setInput('plan', planRounds({ device: { winFraction, qber: 0.02, trialRate: 2000 }, profile: nightly, rounds: 2_000_000 }));
   fixture.detectChanges();
   const host = fixture.nativeElement as HTMLElement;
-  return { note: host.querySelector('.bk-plan-star')!.textContent!.trim(), summary: host.querySelector('canvas')!.getAttribute('aria-label')! };
+  return { note: host.querySelector('.bk-plan-star')!.textContent.trim(), summary: host.querySelector('canvas')!.getAttribute('aria-label')! };
 }
 
 describe('PlanFractionChart', () => {

@@ -22,8 +22,16 @@ const BEST_DATASET = 2;
     <p class="bk-plan-star" aria-hidden="true">✱ {{ bestNote() }}</p>
   `,
   styles: `
-    .bk-plan-canvas { position: relative; height: 240px; }
-    .bk-plan-star { margin: 4px 0 0; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); text-align: center; }
+    .bk-plan-canvas {
+      position: relative;
+      height: 240px;
+    }
+    .bk-plan-star {
+      margin: 4px 0 0;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      text-align: center;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -36,7 +44,9 @@ export class PlanFractionChart {
 
   protected readonly summary = computed(() => {
     const { bestTestFraction: best, at } = this.plan();
-    const most = this.anyKey() ? `Most key at ${formatPercent(best.testFraction, 1)} tested: ${formatCount(best.expectedFiniteKeyBits)} bits; ` : 'No test fraction gives a positive key; ';
+    const most = this.anyKey()
+      ? `Most key at ${formatPercent(best.testFraction, 1)} tested: ${formatCount(best.expectedFiniteKeyBits)} bits; `
+      : 'No test fraction gives a positive key; ';
     return `Expected finite key against the test fraction at N = ${formatCount(at.rounds)}. ${most}the planned ${formatPercent(at.testFraction, 1)} gives ${formatCount(at.expectedFiniteKeyBits)} bits.`;
   });
 

@@ -26,7 +26,7 @@ function passRow(requirePositiveKey: boolean): string {
   fixture.componentRef.setInput('progress', { status: 'ready', plan: { at: noKeyHere } });
   fixture.componentRef.setInput('profile', profileWith(requirePositiveKey));
   fixture.detectChanges();
-  return (fixture.nativeElement as HTMLElement).querySelector('[data-testid="plan-general-pass"]')!.textContent!.replace(/\s+/g, ' ').trim();
+  return (fixture.nativeElement as HTMLElement).querySelector('[data-testid="plan-general-pass"]')!.textContent.replace(/\s+/g, ' ').trim();
 }
 
 describe('PlanGeneralFigures', () => {

@@ -23,9 +23,7 @@ import { formatProbability } from './pass-look';
       @if (progress().status === 'computing') {
         <mat-progress-bar mode="indeterminate" aria-label="Computing the key against general attacks" />
       }
-      <p class="bk-plan-model" data-testid="plan-general-model">
-        Attack model: general (any attack the entropy accumulation theorem covers). {{ modelNote() }}
-      </p>
+      <p class="bk-plan-model" data-testid="plan-general-model">Attack model: general (any attack the entropy accumulation theorem covers). {{ modelNote() }}</p>
       <dl class="bk-plan-figures bk-figure">
         <div class="bk-plan-row">
           <dt>Key at this N</dt>
@@ -116,7 +114,9 @@ export class PlanGeneralFigures {
    */
   protected passNote(at: GeneralKeyPoint): string {
     const chsh = `CHSH against ω_thr alone: ${formatProbability(at.chshPassProbability)}`;
-    return this.profile().requirePositiveKey && at.bits <= 0 ? `${chsh}; but the profile requires a positive key, and none is possible at this N` : `${chsh}; the error rate and the test-round count as in the collective plan`;
+    return this.profile().requirePositiveKey && at.bits <= 0
+      ? `${chsh}; but the profile requires a positive key, and none is possible at this N`
+      : `${chsh}; the error rate and the test-round count as in the collective plan`;
   }
 
   protected readonly noBudget = `No N up to ${formatScientific(SEARCH_LIMIT)} rounds gives one.`;

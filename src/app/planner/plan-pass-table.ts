@@ -44,14 +44,44 @@ interface PassRow {
     </table>
   `,
   styles: `
-    .bk-pass-table { width: 100%; border-collapse: collapse; }
-    th, td { padding: 6px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); text-align: left; vertical-align: top; }
-    thead th { font: var(--mat-sys-label-large); color: var(--mat-sys-on-surface-variant); }
-    tbody th { font: var(--mat-sys-label-large); font-weight: 500; }
-    .bk-pass-value { text-align: right; white-space: nowrap; }
-    .bk-pass-look { display: inline-flex; align-items: center; gap: 4px; }
-    .bk-pass-look mat-icon { width: 18px; height: 18px; font-size: 18px; }
-    .bk-pass-all th, .bk-pass-all td { font-weight: 600; border-bottom: 0; }
+    .bk-pass-table {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    th,
+    td {
+      padding: 6px 8px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      text-align: left;
+      vertical-align: top;
+    }
+    thead th {
+      font: var(--mat-sys-label-large);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    tbody th {
+      font: var(--mat-sys-label-large);
+      font-weight: 500;
+    }
+    .bk-pass-value {
+      text-align: right;
+      white-space: nowrap;
+    }
+    .bk-pass-look {
+      display: inline-flex;
+      align-items: center;
+      gap: 4px;
+    }
+    .bk-pass-look mat-icon {
+      width: 18px;
+      height: 18px;
+      font-size: 18px;
+    }
+    .bk-pass-all th,
+    .bk-pass-all td {
+      font-weight: 600;
+      border-bottom: 0;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -91,7 +121,12 @@ export class PlanPassTable {
       },
     ];
     if (profile.requirePositiveKey) {
-      rows.push({ id: 'positive-key', name: 'Positive finite key', detail: `${formatCount(expectedFiniteKeyBits)} bits expected; above 0 needed`, look: passLook(passProbability.positiveKey) });
+      rows.push({
+        id: 'positive-key',
+        name: 'Positive finite key',
+        detail: `${formatCount(expectedFiniteKeyBits)} bits expected; above 0 needed`,
+        look: passLook(passProbability.positiveKey),
+      });
     }
     rows.push({ id: 'all', name: 'All criteria', detail: 'The product: CHSH and QBER are judged on disjoint rounds', look: passLook(passProbability.all) });
     return rows;

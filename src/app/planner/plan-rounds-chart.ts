@@ -20,7 +20,12 @@ import { formatProbability } from './pass-look';
       <canvas baseChart [type]="'line'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
     </div>
   `,
-  styles: `.bk-plan-canvas { position: relative; height: 280px; }`,
+  styles: `
+    .bk-plan-canvas {
+      position: relative;
+      height: 280px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PlanRoundsChart {

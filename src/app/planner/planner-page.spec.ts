@@ -51,7 +51,7 @@ class HeldWorker implements GeneralPlanWorker {
 function storedParameters(input: object): Record<string, unknown> {
   const parsed = parseProfile(input);
   if (!parsed.ok) throw new Error(parsed.message);
-  return parsed.profile as unknown as Record<string, unknown>;
+  return parsed.profile;
 }
 
 const nightly = storedParameters({ testSelection: { mode: 'fixed-fraction', fraction: 0.5 }, chshTolerance: 0.03, qberTolerance: 0.05, epsilon: 1e-9 });
@@ -77,7 +77,14 @@ const profiles: ProfileDto[] = [
     createdAt: '2026-11-01T08:00:00Z',
     versions: [version(12, 1, 2, nightly), version(11, 1, 1, storedParameters({ chshTolerance: 0.04 }))],
   },
-  { id: 2, name: 'Bench marking', description: 'The bench lab marks its own test rounds', latestVersionId: 21, createdAt: '2026-11-02T08:00:00Z', versions: [version(21, 2, 1, labMarked)] },
+  {
+    id: 2,
+    name: 'Bench marking',
+    description: 'The bench lab marks its own test rounds',
+    latestVersionId: 21,
+    createdAt: '2026-11-02T08:00:00Z',
+    versions: [version(21, 2, 1, labMarked)],
+  },
 ];
 
 const setups: SetupDto[] = [
@@ -141,7 +148,11 @@ describe('PlannerPage', () => {
 
   afterEach(() => http.verify());
 
-  const text = (testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.replace(/[ \n\t]+/g, ' ').trim() ?? '';
+  const text = (testId: string) =>
+    host
+      .querySelector(`[data-testid="${testId}"]`)
+      ?.textContent?.replace(/[ \n\t]+/g, ' ')
+      .trim() ?? '';
   const inputValue = (testId: string) => host.querySelector<HTMLInputElement>(`[data-testid="${testId}"]`)!.value;
 
   async function type(testId: string, value: string): Promise<void> {

@@ -12,7 +12,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { debounceTime, distinctUntilChanged, map, of, switchMap } from 'rxjs';
 
-import type { PlanDto, PlanPrefillDto, ProfileDto, SetupDto } from '../../../shared/api';
+import type { PlanDto, PlanPrefillDto } from '../../../shared/api';
 import { QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
 import { chshValueFromWinFraction, winFractionFromChshValue } from '../../../shared/analysis/statistics/chsh-value';
 import { formatCount, formatFixed, formatPercent, formatScientific } from '../../../shared/format/numbers';
@@ -78,10 +78,10 @@ export class PlannerPage {
   protected readonly quantumChshValue = formatFixed(QUANTUM_CHSH_VALUE, 3);
   private readonly likelyPass = formatPercent(LIKELY_PASS, 0);
 
-  protected readonly setups = toSignal(loaded(inject(SetupsApi).list()), { initialValue: { status: 'loading' } as Loaded<SetupDto[]> });
+  protected readonly setups = toSignal(loaded(inject(SetupsApi).list()), { initialValue: { status: 'loading' } });
   private readonly reloadProfiles = signal(0);
   protected readonly profiles = toSignal(toObservable(this.reloadProfiles).pipe(switchMap(() => loaded(this.profilesApi.list()))), {
-    initialValue: { status: 'loading' } as Loaded<ProfileDto[]>,
+    initialValue: { status: 'loading' },
   });
   protected readonly setupList = computed(() => {
     const setups = this.setups();
@@ -109,14 +109,16 @@ export class PlannerPage {
 
   protected readonly outcome = computed(() => {
     const { value, missing } = this.settled();
-    return planOutcome(value, missing, this.versions().find((version) => version.id === value.profileVersionId));
+    return planOutcome(
+      value,
+      missing,
+      this.versions().find((version) => version.id === value.profileVersionId),
+    );
   });
 
   /** The general-attack plan of the same input, computed in workers and shown as its parts arrive. */
   protected readonly general = toSignal(
-    toObservable(this.outcome).pipe(
-      switchMap((outcome) => (outcome.status === 'ready' ? this.generalPlans.run({ input: outcome.input, recommended: outcome.plan }) : of(null))),
-    ),
+    toObservable(this.outcome).pipe(switchMap((outcome) => (outcome.status === 'ready' ? this.generalPlans.run({ input: outcome.input, recommended: outcome.plan }) : of(null)))),
     { initialValue: null },
   );
   protected readonly generalCurve = computed(() => {

@@ -106,7 +106,11 @@ describe('ProfileDialog', () => {
   });
 
   it('edits the general-attack settings: the design values shown, each checked by the engine, all saved', async () => {
-    const parameters = (parseProfile({ testSelection: { mode: 'bernoulli', probability: 13 / 256 }, securityModel: 'general', generalAttack: { design: { chshValue: 2.64, qber: 0.018 } } }) as { profile: Record<string, unknown> }).profile;
+    const parameters = (
+      parseProfile({ testSelection: { mode: 'bernoulli', probability: 13 / 256 }, securityModel: 'general', generalAttack: { design: { chshValue: 2.64, qber: 0.018 } } }) as {
+        profile: Record<string, unknown>;
+      }
+    ).profile;
     const host = open({ profile: { ...nightly, versions: [{ ...nightly.versions[0], parameters }] } });
     const shown = (field: string) => host.querySelector<HTMLInputElement>(`[data-testid="profile-${field}"]`)?.value;
     expect([shown('generalSoundness'), shown('designChshValue'), shown('designQber')]).toEqual(['1e-10', '2.64', '0.018']);
@@ -124,8 +128,9 @@ describe('ProfileDialog', () => {
     await type(host, 'generalSoundness', '1e-9');
     await submit(host);
     const request = http.expectOne('/api/profiles/1/versions');
-    expect(request.request.body.parameters.generalAttack).toEqual({ soundness: 1e-9, design: { chshValue: 2.7, qber: 0.02 } });
-    expect(request.request.body.parameters.securityModel).toBe('general');
+    const sent = (request.request.body as { parameters: Record<string, unknown> }).parameters;
+    expect(sent['generalAttack']).toEqual({ soundness: 1e-9, design: { chshValue: 2.7, qber: 0.02 } });
+    expect(sent['securityModel']).toBe('general');
   });
 
   it('needs a name for a new profile', async () => {

@@ -44,9 +44,7 @@ export class ProfileDialog {
   protected readonly meanings = FIELD_MEANINGS;
   protected readonly textFields = [...GENERAL_FIELDS, ...NUMBER_FIELDS];
   protected readonly checkFamilies = CHECK_FAMILY_OPTIONS;
-  protected readonly form = profileForm(
-    (this.profile?.versions[0]?.parameters as AnalysisProfile | undefined) ?? defaultProfile(),
-  );
+  protected readonly form = profileForm((this.profile?.versions[0]?.parameters as AnalysisProfile | undefined) ?? defaultProfile());
   protected readonly name = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] });
   protected readonly description = new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] });
   protected readonly saving = signal(false);

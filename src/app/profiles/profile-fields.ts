@@ -3,7 +3,17 @@ import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '../../..
 import { formatCount, formatScientific } from '../../../shared/format/numbers';
 
 /** A number of the profile the form edits as text (ε's in scientific notation). */
-export type NumberField = 'chshTolerance' | 'qberTolerance' | 'epsilon' | 'minTestRounds' | 'reconciliationEfficiency' | 'epsilonEC' | 'epsilonPA' | 'significance' | 'driftBlocks' | 'missingRoundsTolerance';
+export type NumberField =
+  | 'chshTolerance'
+  | 'qberTolerance'
+  | 'epsilon'
+  | 'minTestRounds'
+  | 'reconciliationEfficiency'
+  | 'epsilonEC'
+  | 'epsilonPA'
+  | 'significance'
+  | 'driftBlocks'
+  | 'missingRoundsTolerance';
 
 /** What a profile field is called on screen and what it means, in the hint under it. */
 export interface FieldMeaning {

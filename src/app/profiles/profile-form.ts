@@ -7,15 +7,15 @@ import { NUMBER_FIELDS, profileNumberText, type NumberField } from './profile-fi
 /** The controls of a profile form: the profile's fields, numbers as text. */
 export type ProfileControls = Record<NumberField, FormControl<string>> &
   GeneralAttackControls & {
-  mode: FormControl<TestSelection['mode']>;
-  fraction: FormControl<string>;
-  probability: FormControl<string>;
-  criterion: FormControl<AnalysisProfile['criterion']>;
-  securityModel: FormControl<AnalysisProfile['securityModel']>;
-  requirePositiveKey: FormControl<boolean>;
-  blockingChecks: FormControl<CheckFamily[]>;
-  note: FormControl<string>;
-};
+    mode: FormControl<TestSelection['mode']>;
+    fraction: FormControl<string>;
+    probability: FormControl<string>;
+    criterion: FormControl<AnalysisProfile['criterion']>;
+    securityModel: FormControl<AnalysisProfile['securityModel']>;
+    requirePositiveKey: FormControl<boolean>;
+    blockingChecks: FormControl<CheckFamily[]>;
+    note: FormControl<string>;
+  };
 
 /** A form for a complete profile, filled from `profile`; each field validated by the engine's rules. */
 export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls> {

@@ -10,7 +10,7 @@ import { filter, switchMap } from 'rxjs';
 
 import type { ProfileDto, ProfileVersionDto } from '../../../shared/api';
 import type { AnalysisProfile } from '../../../shared/analysis/profile';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 import { describeProfile } from './profile-fields';
@@ -32,7 +32,7 @@ export class ProfileList {
 
   protected readonly isAdmin = inject(Session).hasAnyRole(['admin']);
   protected readonly profiles = toSignal(toObservable(this.reload).pipe(switchMap(() => loaded(this.profilesApi.list()))), {
-    initialValue: { status: 'loading' } as Loaded<ProfileDto[]>,
+    initialValue: { status: 'loading' },
   });
   protected readonly list = computed(() => {
     const profiles = this.profiles();

@@ -19,7 +19,12 @@ const S_STEP = 0.2;
   template: `<div class="bk-scale-canvas">
     <canvas baseChart [type]="'scatter'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
   </div>`,
-  styles: `.bk-scale-canvas { position: relative; height: 120px; }`,
+  styles: `
+    .bk-scale-canvas {
+      position: relative;
+      height: 120px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChshScaleChart {
@@ -45,7 +50,10 @@ export class ChshScaleChart {
     const bound = (label: string, x: number, colour: string) => ({
       type: 'line' as const,
       label,
-      data: [{ x, y: 0 }, { x, y: 1 }],
+      data: [
+        { x, y: 0 },
+        { x, y: 1 },
+      ],
       borderColor: colour,
       borderDash: [6, 4],
       borderWidth: 2,

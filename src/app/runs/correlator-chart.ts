@@ -16,7 +16,12 @@ const IDEAL_CORRELATOR = Math.SQRT1_2;
   template: `<div class="bk-correlator-canvas">
     <canvas baseChart [type]="'bar'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
   </div>`,
-  styles: `.bk-correlator-canvas { position: relative; height: 180px; }`,
+  styles: `
+    .bk-correlator-canvas {
+      position: relative;
+      height: 180px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CorrelatorChart {
@@ -29,7 +34,10 @@ export class CorrelatorChart {
   });
 
   protected readonly summary = computed(
-    () => `Correlators E00, E01, E10 and −E11: ${this.values().map((value) => formatFixed(value)).join(', ')}; ideal ${formatFixed(IDEAL_CORRELATOR)}.`,
+    () =>
+      `Correlators E00, E01, E10 and −E11: ${this.values()
+        .map((value) => formatFixed(value))
+        .join(', ')}; ideal ${formatFixed(IDEAL_CORRELATOR)}.`,
   );
 
   protected readonly data = computed<ChartData>(() => ({

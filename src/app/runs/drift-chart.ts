@@ -44,9 +44,17 @@ interface DriftPanel {
     }
   `,
   styles: `
-    .bk-drift-panel { margin: 0 0 12px; }
-    figcaption { font: var(--mat-sys-label-large); margin-bottom: 4px; }
-    .bk-drift-canvas { position: relative; height: 220px; }
+    .bk-drift-panel {
+      margin: 0 0 12px;
+    }
+    figcaption {
+      font: var(--mat-sys-label-large);
+      margin-bottom: 4px;
+    }
+    .bk-drift-canvas {
+      position: relative;
+      height: 220px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -59,17 +67,29 @@ export class DriftChart {
   readonly qberTolerance = input.required<number>();
 
   protected readonly win = computed(() =>
-    panel(this.blocks().map((block) => block.chsh), 'below', this.winThreshold(), formatFixed, [
-      { label: `Threshold ${formatFixed(this.winThreshold())}`, value: this.winThreshold(), colour: chartTone('threshold') },
-      { label: 'Quantum maximum (2+√2)/4', value: QUANTUM_WIN_FRACTION, colour: chartTone('accept') },
-      { label: 'Local bound 3/4', value: LOCAL_WIN_FRACTION, colour: chartTone('invalid') },
-    ], { ...winRange(this.blocks()), beginAtZero: false }),
+    panel(
+      this.blocks().map((block) => block.chsh),
+      'below',
+      this.winThreshold(),
+      formatFixed,
+      [
+        { label: `Threshold ${formatFixed(this.winThreshold())}`, value: this.winThreshold(), colour: chartTone('threshold') },
+        { label: 'Quantum maximum (2+√2)/4', value: QUANTUM_WIN_FRACTION, colour: chartTone('accept') },
+        { label: 'Local bound 3/4', value: LOCAL_WIN_FRACTION, colour: chartTone('invalid') },
+      ],
+      { ...winRange(this.blocks()), beginAtZero: false },
+    ),
   );
 
   protected readonly qber = computed(() =>
-    panel(this.blocks().map((block) => block.qber), 'above', this.qberTolerance(), formatPercent, [
-      { label: `Tolerance ${formatPercent(this.qberTolerance())}`, value: this.qberTolerance(), colour: chartTone('threshold') },
-    ], { beginAtZero: true }),
+    panel(
+      this.blocks().map((block) => block.qber),
+      'above',
+      this.qberTolerance(),
+      formatPercent,
+      [{ label: `Tolerance ${formatPercent(this.qberTolerance())}`, value: this.qberTolerance(), colour: chartTone('threshold') }],
+      { beginAtZero: true },
+    ),
   );
 }
 

@@ -17,7 +17,14 @@ const booking: RunBookingDto = {
   replacementReason: 'Detector B was saturated; log re-read from the second disk.',
   attempts: [
     { runId: 40, attempt: 1, state: 'aborted', verdict: 'ABORT', replacementReason: '', createdAt: '2027-03-15T06:10:00Z' },
-    { runId: 41, attempt: 2, state: 'accepted', verdict: 'ACCEPT', replacementReason: 'Detector B was saturated; log re-read from the second disk.', createdAt: '2027-03-15T07:30:00Z' },
+    {
+      runId: 41,
+      attempt: 2,
+      state: 'accepted',
+      verdict: 'ACCEPT',
+      replacementReason: 'Detector B was saturated; log re-read from the second disk.',
+      createdAt: '2027-03-15T07:30:00Z',
+    },
   ],
 };
 

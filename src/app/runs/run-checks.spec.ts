@@ -17,7 +17,14 @@ const checks: CheckResult[] = [
     threshold: 0.001 / 9,
     message: 'The CHSH win fraction differs between the blocks (p = 5.0e-413).',
   },
-  { id: 'minimum-test-rounds', status: 'pass', observed: 1200, log10PValue: null, threshold: 1000, message: '1200 CHSH test rounds and 1300 key-setting test rounds; both reach the minimum of 1000.' },
+  {
+    id: 'minimum-test-rounds',
+    status: 'pass',
+    observed: 1200,
+    log10PValue: null,
+    threshold: 1000,
+    message: '1200 CHSH test rounds and 1300 key-setting test rounds; both reach the minimum of 1000.',
+  },
 ];
 
 describe('RunChecks', () => {

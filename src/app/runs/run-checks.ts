@@ -26,7 +26,5 @@ export class RunChecks {
   /** The result's security summary, for how the checks share the significance; null when it has none. */
   readonly security = input<SecuritySummary | null | undefined>(null);
 
-  protected readonly rows = computed(() =>
-    this.checks().map((check) => ({ check, look: STATUS_LOOK[check.status], figures: checkFigures(check, this.security()?.checks) })),
-  );
+  protected readonly rows = computed(() => this.checks().map((check) => ({ check, look: STATUS_LOOK[check.status], figures: checkFigures(check, this.security()?.checks) })));
 }

@@ -92,9 +92,7 @@ describe('RunIntegrity', () => {
   it('gives the server’s sentence when the check cannot be made, and checks again on request', async () => {
     const host = await show(signature);
     await checkNow(host);
-    http
-      .expectOne('/api/runs/12/verification')
-      .flush({ error: { code: 'conflict', message: 'Run 12 has no stored result to check.' } }, { status: 409, statusText: 'Conflict' });
+    http.expectOne('/api/runs/12/verification').flush({ error: { code: 'conflict', message: 'Run 12 has no stored result to check.' } }, { status: 409, statusText: 'Conflict' });
     await fixture.whenStable();
     expect(host.querySelector('[role="alert"]')?.textContent).toContain('The check could not be made. Run 12 has no stored result to check.');
 

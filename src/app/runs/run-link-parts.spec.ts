@@ -12,15 +12,25 @@ describe('runLinkParts', () => {
   });
 
   it('leaves a sentence without a run as it is', () => {
-    expect(runLinkParts('Seed committed at booking, before acquisition: SHA-256 777ddf8c.')).toEqual([{ text: 'Seed committed at booking, before acquisition: SHA-256 777ddf8c.' }]);
+    expect(runLinkParts('Seed committed at booking, before acquisition: SHA-256 777ddf8c.')).toEqual([
+      { text: 'Seed committed at booking, before acquisition: SHA-256 777ddf8c.' },
+    ]);
   });
 
   it('reads "run" only as a word followed by a number', () => {
-    expect(runLinkParts('The rerun 4 and the runs 5 stay; run 6 ends it')).toEqual([{ text: 'The rerun 4 and the runs 5 stay; ' }, { text: 'run 6', runId: 6 }, { text: ' ends it' }]);
+    expect(runLinkParts('The rerun 4 and the runs 5 stay; run 6 ends it')).toEqual([
+      { text: 'The rerun 4 and the runs 5 stay; ' },
+      { text: 'run 6', runId: 6 },
+      { text: ' ends it' },
+    ]);
   });
 
   it('puts the pieces back together as the sentence', () => {
     const sentence = 'Replay: these bytes were uploaded before as run 9, under another booking or night.';
-    expect(runLinkParts(sentence).map((part) => part.text).join('')).toBe(sentence);
+    expect(
+      runLinkParts(sentence)
+        .map((part) => part.text)
+        .join(''),
+    ).toBe(sentence);
   });
 });

@@ -45,7 +45,7 @@ describe('RunList', () => {
   let host: HTMLElement;
 
   const runRequests = (): TestRequest[] => http.match((request) => request.url === '/api/runs');
-  const text = () => host.textContent!.replace(/\s+/g, ' ');
+  const text = () => host.textContent.replace(/\s+/g, ' ');
 
   /** Signs in with `roles` and opens the list; its setups (and for an admin, users) answered empty. */
   async function openAs(roles: Role[]): Promise<void> {
@@ -67,7 +67,9 @@ describe('RunList', () => {
   beforeEach(() => {
     jest.useFakeTimers();
     localStorage.clear();
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }] });
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
+    });
     http = TestBed.inject(HttpTestingController);
   });
 
@@ -108,7 +110,9 @@ describe('RunList', () => {
     await settle(fixture);
     expect(host.querySelector('[data-testid="runs-empty"]')!.textContent).toContain('No run matches these filters.');
 
-    Array.from(host.querySelectorAll<HTMLButtonElement>('[data-testid="runs-empty"] button')).find((button) => button.textContent!.includes('Clear filters'))!.click();
+    Array.from(host.querySelectorAll<HTMLButtonElement>('[data-testid="runs-empty"] button'))
+      .find((button) => button.textContent.includes('Clear filters'))!
+      .click();
     await settle(fixture);
     const [cleared] = runRequests();
     expect(cleared.request.params.has('from')).toBe(false);
@@ -124,7 +128,9 @@ describe('RunList', () => {
     expect(text()).toContain("Upload the first night's log to get a verdict.");
 
     TestBed.resetTestingModule();
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }] });
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
+    });
     http = TestBed.inject(HttpTestingController);
     await openAs(['auditor']);
     runRequests()[0].flush(pageOf([]));
@@ -138,7 +144,9 @@ describe('RunList', () => {
     await settle(fixture);
     expect(host.querySelector('[role="alert"]')!.textContent).toContain('The runs could not be loaded.');
 
-    Array.from(host.querySelectorAll<HTMLButtonElement>('[role="alert"] button')).find((button) => button.textContent!.includes('Try again'))!.click();
+    Array.from(host.querySelectorAll<HTMLButtonElement>('[role="alert"] button'))
+      .find((button) => button.textContent.includes('Try again'))!
+      .click();
     await settle(fixture);
     runRequests()[0].flush(pageOf([night]));
     await settle(fixture);

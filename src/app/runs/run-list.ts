@@ -16,7 +16,7 @@ import { catchError, debounceTime, of, switchMap } from 'rxjs';
 
 import { RUN_SORT_KEYS, RUN_STATES, VERDICTS, type RunSortKey, type RunState, type RunSummaryDto, type Verdict } from '../../../shared/api';
 import { formatCount, formatFixed, formatPercent } from '../../../shared/format/numbers';
-import { loaded, pageContents, type Loaded } from '../api/loaded';
+import { loaded, pageContents } from '../api/loaded';
 import { Session } from '../auth/session';
 import { SetupsApi } from '../setups/setups-api';
 import { UsersApi } from '../users/users-api';
@@ -74,11 +74,18 @@ export class RunList {
 
   protected readonly query = signal<RunQuery>(FIRST_PAGE);
 
-  protected readonly setups = toSignal(inject(SetupsApi).list().pipe(catchError(() => of([]))), { initialValue: [] });
+  protected readonly setups = toSignal(
+    inject(SetupsApi)
+      .list()
+      .pipe(catchError(() => of([]))),
+    { initialValue: [] },
+  );
   /** Who may be picked as uploader: the signed-in user, and everyone for an admin (only admins may list users). */
   protected readonly uploaders = toSignal(
     this.session.hasAnyRole(['admin'])
-      ? inject(UsersApi).list().pipe(catchError(() => of([])))
+      ? inject(UsersApi)
+          .list()
+          .pipe(catchError(() => of([])))
       : of(this.session.user() === null ? [] : [this.session.user()!]),
     { initialValue: [] },
   );
@@ -88,7 +95,7 @@ export class RunList {
       debounceTime(0),
       switchMap((query) => loaded(this.runsApi.list(query))),
     ),
-    { initialValue: { status: 'loading' } as Loaded<never> },
+    { initialValue: { status: 'loading' } },
   );
   private readonly contents = computed(() => pageContents(this.page()));
   protected readonly rows = computed(() => this.contents().rows);

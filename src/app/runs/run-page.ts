@@ -7,7 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
 
-import type { AuditEventDto, RunDto, SetupDto, SignOffDto } from '../../../shared/api';
+import type { RunDto, SetupDto, SignOffDto } from '../../../shared/api';
 import { formatCount, formatFixed, formatScientific } from '../../../shared/format/numbers';
 import { loaded, type Loaded } from '../api/loaded';
 import { SetupsApi } from '../setups/setups-api';
@@ -72,9 +72,11 @@ export class RunPage {
 
   private readonly live = toSignal(
     toObservable(computed(() => ({ id: Number(this.id()), attempt: this.reload() }))).pipe(
-      switchMap(({ id }) => (Number.isInteger(id) && id > 0 ? loaded(this.runsApi.watch(id)) : of<Loaded<RunDto>>({ status: 'failed', message: 'There is no run with this number.' }))),
+      switchMap(({ id }) =>
+        Number.isInteger(id) && id > 0 ? loaded(this.runsApi.watch(id)) : of<Loaded<RunDto>>({ status: 'failed', message: 'There is no run with this number.' }),
+      ),
     ),
-    { initialValue: { status: 'loading' } as Loaded<RunDto> },
+    { initialValue: { status: 'loading' } },
   );
 
   /** The run, with a sign-off made on this page. */
@@ -108,15 +110,17 @@ export class RunPage {
   );
 
   protected readonly trail = toSignal(
-    toObservable(computed(() => {
-      const run = this.run();
-      return run === null ? null : `${run.id}:${run.state}:${run.signedOff}:${run.deliveries.length}`;
-    })).pipe(
+    toObservable(
+      computed(() => {
+        const run = this.run();
+        return run === null ? null : `${run.id}:${run.state}:${run.signedOff}:${run.deliveries.length}`;
+      }),
+    ).pipe(
       distinctUntilChanged(),
       filter((key) => key !== null),
       switchMap((key) => loaded(this.runsApi.trail(Number(key.split(':')[0])))),
     ),
-    { initialValue: { status: 'loading' } as Loaded<AuditEventDto[]> },
+    { initialValue: { status: 'loading' } },
   );
 
   protected readonly signOffAnchor = SIGN_OFF_ANCHOR;

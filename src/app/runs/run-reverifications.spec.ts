@@ -11,7 +11,8 @@ const LIST = '/api/runs/12/reverifications';
 const reproduced: ReverificationDto = {
   id: 3,
   runId: 12,
-  requestedBy: 'Sami Virtanen', seed: null,
+  requestedBy: 'Sami Virtanen',
+  seed: null,
   state: 'reproduced',
   storedFingerprint: 'c07e1b22d4f9a0e6'.repeat(4),
   storedEngineVersion: '1.2.0',
@@ -62,7 +63,7 @@ describe('RunReverifications', () => {
   function stateOf(host: HTMLElement, id: number): { icon: string; word: string } {
     const state = host.querySelector(`[data-testid="reverification-state-${id}"]`)!;
     const icon = state.querySelector('mat-icon')?.textContent?.trim() ?? '';
-    return { icon, word: state.textContent!.replace(icon, '').trim() };
+    return { icon, word: state.textContent.replace(icon, '').trim() };
   }
   const reverifyButton = (host: HTMLElement) => host.querySelector<HTMLButtonElement>('[data-testid="reverify"]');
 
@@ -123,7 +124,9 @@ describe('RunReverifications', () => {
     expect(stateOf(host, 5)).toEqual({ icon: 'hourglass_top', word: 'Analysing' });
 
     await jest.advanceTimersByTimeAsync(1000);
-    http.expectOne(LIST).flush([{ ...queued, state: 'reproduced', newFingerprint: reproduced.storedFingerprint, newEngineVersion: '1.2.0', finishedAt: '2027-03-02T09:03:00Z' }, reproduced]);
+    http
+      .expectOne(LIST)
+      .flush([{ ...queued, state: 'reproduced', newFingerprint: reproduced.storedFingerprint, newEngineVersion: '1.2.0', finishedAt: '2027-03-02T09:03:00Z' }, reproduced]);
     await settle();
     expect(stateOf(host, 5)).toEqual({ icon: 'task_alt', word: 'Reproduced' });
     expect(reverifyButton(host)?.disabled).toBe(false);

@@ -9,9 +9,9 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { startWith, Subject, switchMap } from 'rxjs';
 
-import type { ReverificationDto, Role } from '../../../shared/api';
+import type { Role } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { randomSeed, seedValidator } from './another-seed';
 import { lookOfReverification } from './reverification-look';
@@ -46,9 +46,16 @@ export class RunReverifications {
   private readonly live = toSignal(
     toObservable(computed(() => ({ id: this.runId(), attempt: this.reload() }))).pipe(
       // One `loading` per run: a new request keeps the list on screen while it is watched again.
-      switchMap(({ id }) => loaded(this.requested.pipe(startWith(undefined), switchMap(() => this.runsApi.watchReverifications(id))))),
+      switchMap(({ id }) =>
+        loaded(
+          this.requested.pipe(
+            startWith(undefined),
+            switchMap(() => this.runsApi.watchReverifications(id)),
+          ),
+        ),
+      ),
     ),
-    { initialValue: { status: 'loading' } as Loaded<ReverificationDto[]> },
+    { initialValue: { status: 'loading' } },
   );
   protected readonly reverifications = computed(() => {
     const live = this.live();

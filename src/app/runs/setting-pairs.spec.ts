@@ -14,13 +14,21 @@ function table(cells: Array<[x: number, y: number, a: number, b: number, rounds:
 // Pair (0, 1) is won less often and tested half as often as the others: the pooled fraction
 // (2920/3500 = 0.8343) then sits above the balanced one ((0.85 + 0.80 + 0.84 + 0.83)/4 = 0.83).
 const test = table([
-  [0, 0, 0, 0, 850], [0, 0, 0, 1, 150],
-  [0, 1, 1, 1, 400], [0, 1, 1, 0, 100],
-  [1, 0, 0, 0, 840], [1, 0, 1, 0, 160],
-  [1, 1, 0, 1, 830], [1, 1, 1, 1, 170],
+  [0, 0, 0, 0, 850],
+  [0, 0, 0, 1, 150],
+  [0, 1, 1, 1, 400],
+  [0, 1, 1, 0, 100],
+  [1, 0, 0, 0, 840],
+  [1, 0, 1, 0, 160],
+  [1, 1, 0, 1, 830],
+  [1, 1, 1, 1, 170],
 ]);
 const generation = table([
-  [0, 0, 0, 0, 9000], [0, 1, 0, 0, 9500], [1, 0, 0, 0, 9000], [1, 1, 0, 0, 8000], [0, 2, 0, 0, 50000],
+  [0, 0, 0, 0, 9000],
+  [0, 1, 0, 0, 9500],
+  [1, 0, 0, 0, 9000],
+  [1, 1, 0, 0, 8000],
+  [0, 2, 0, 0, 50000],
 ]);
 
 describe('settingPairsTable', () => {
@@ -57,7 +65,15 @@ describe('settingPairsTable', () => {
   });
 
   it('shows an en dash for a pair without test rounds', () => {
-    const untested = summariseChsh(table([[0, 0, 0, 0, 10], [0, 1, 0, 0, 10], [1, 0, 0, 0, 10]]), generation, 1e-9);
+    const untested = summariseChsh(
+      table([
+        [0, 0, 0, 0, 10],
+        [0, 1, 0, 0, 10],
+        [1, 0, 0, 0, 10],
+      ]),
+      generation,
+      1e-9,
+    );
     const rows = settingPairsTable(untested)!;
     expect(rows.rows[3]).toMatchObject({ testRounds: '0', winFraction: '–', winFractionLower: '–' });
     expect(rows.balanced).toBe('–');

@@ -43,10 +43,25 @@ interface SettingCell {
     </table>
   `,
   styles: `
-    .bk-settings { width: 100%; border-collapse: collapse; }
-    th, td { padding: 6px 8px; border: 1px solid var(--mat-sys-outline-variant); text-align: right; vertical-align: top; }
-    th { font: var(--mat-sys-label-large); background: var(--mat-sys-surface-container-low); }
-    .bk-settings-note { font: var(--mat-sys-label-medium); color: var(--mat-sys-primary); }
+    .bk-settings {
+      width: 100%;
+      border-collapse: collapse;
+    }
+    th,
+    td {
+      padding: 6px 8px;
+      border: 1px solid var(--mat-sys-outline-variant);
+      text-align: right;
+      vertical-align: top;
+    }
+    th {
+      font: var(--mat-sys-label-large);
+      background: var(--mat-sys-surface-container-low);
+    }
+    .bk-settings-note {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-primary);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -62,8 +77,7 @@ export class SettingsTable {
     return [0, 1].map((x) => ({
       x,
       cells: [0, 1, 2].map((y): SettingCell => {
-        const note =
-          y < 2 ? `E${x}${y} = ${formatFixed(correlators[`E${x}${y}` as keyof typeof correlators])}` : x === 0 ? 'key setting' : 'no test, no key';
+        const note = y < 2 ? `E${x}${y} = ${formatFixed(correlators[`E${x}${y}` as keyof typeof correlators])}` : x === 0 ? 'key setting' : 'no test, no key';
         return { y, test: formatCount(roundsOf(test, x, y)), generation: formatCount(roundsOf(generation, x, y)), note };
       }),
     }));

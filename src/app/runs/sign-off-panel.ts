@@ -37,7 +37,12 @@ export class SignOffPanel {
   protected readonly finished = computed(() => FINISHED_STATES.includes(this.run().state));
   /** Whether the signed-in user leads the run's setup. */
   protected readonly leadsSetup = computed(() => leadsSetup(this.session.user(), this.setup()));
-  protected readonly leadNames = computed(() => this.setup()?.shiftLeads.map((lead) => lead.name).join(', ') || 'a shift lead');
+  protected readonly leadNames = computed(
+    () =>
+      this.setup()
+        ?.shiftLeads.map((lead) => lead.name)
+        .join(', ') || 'a shift lead',
+  );
 
   protected signOffRun(): void {
     this.comment.setValue(this.comment.value.trim());

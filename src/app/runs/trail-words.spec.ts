@@ -67,9 +67,7 @@ describe('trailDetail', () => {
 
   it('keeps a sign-off’s comment, a mail’s recipients and an analysis error', () => {
     expect(trailDetail({ action: 'run.signed-off', details: { comment: 'Detector realigned.', verdict: 'ABORT' } })).toBe('“Detector realigned.”');
-    expect(trailDetail({ action: 'run.mail-sent', details: { recipients: ['lucia.brandt@kestrelfen.example'] } })).toBe(
-      'To lucia.brandt@kestrelfen.example',
-    );
+    expect(trailDetail({ action: 'run.mail-sent', details: { recipients: ['lucia.brandt@kestrelfen.example'] } })).toBe('To lucia.brandt@kestrelfen.example');
     expect(trailDetail({ action: 'run.failed', details: { error: 'The log ended mid-row.' } })).toBe('The log ended mid-row.');
   });
 

@@ -60,13 +60,7 @@ const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string
   },
   'user.created': ({ email, roles }) => [typeof email === 'string' ? email : '', roleWords(roles)].filter(Boolean).join(' · '),
   'user.changed': ({ name, roles, active }) =>
-    [
-      typeof name === 'string' ? `Name ${name}` : '',
-      roleWords(roles),
-      active === true ? 'Reactivated' : active === false ? 'Deactivated' : '',
-    ]
-      .filter(Boolean)
-      .join(' · '),
+    [typeof name === 'string' ? `Name ${name}` : '', roleWords(roles), active === true ? 'Reactivated' : active === false ? 'Deactivated' : ''].filter(Boolean).join(' · '),
   'profile.created': ({ name, version }) => (typeof name !== 'string' ? '' : typeof version === 'number' ? `${name} v${version}` : name),
   'profile.version-created': ({ version }) => (typeof version === 'number' ? `Version ${version}` : ''),
   'setup.created': ({ name }) => (typeof name === 'string' ? name : ''),

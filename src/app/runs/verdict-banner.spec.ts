@@ -26,7 +26,14 @@ describe('VerdictBanner', () => {
     runWith({
       state: 'accepted',
       verdict: 'ACCEPT',
-      result: { verdict: 'ACCEPT', reasons: [], errors: [], errorCount: 0, key: { finiteKeyBits: bits, generalAttackBits: null } as AnalysisResult['key'], security: { model: 'collective' } as AnalysisResult['security'] },
+      result: {
+        verdict: 'ACCEPT',
+        reasons: [],
+        errors: [],
+        errorCount: 0,
+        key: { finiteKeyBits: bits, generalAttackBits: null } as AnalysisResult['key'],
+        security: { model: 'collective' } as AnalysisResult['security'],
+      },
     });
 
   it('says ACCEPT with its icon and no reasons', async () => {
@@ -45,10 +52,7 @@ describe('VerdictBanner', () => {
   });
 
   it('says ABORT and lists every reason', async () => {
-    const reasons = [
-      'The CHSH win fraction 0.798711 is below the threshold 0.823553 (ω_Q − 0.03).',
-      'The error rate on the key setting 0.061000 is above the tolerance 0.05.',
-    ];
+    const reasons = ['The CHSH win fraction 0.798711 is below the threshold 0.823553 (ω_Q − 0.03).', 'The error rate on the key setting 0.061000 is above the tolerance 0.05.'];
     const host = await show(runWith({ state: 'aborted', verdict: 'ABORT', result: { verdict: 'ABORT', reasons, errors: [], errorCount: 0 } }));
     expect(text(host, 'verdict-word')).toBe('ABORT');
     expect(host.querySelector('.bk-banner-icon')?.textContent).toBe('block');
@@ -56,7 +60,12 @@ describe('VerdictBanner', () => {
   });
 
   it('says INVALID and lists the first problems of the log with how many more there are', async () => {
-    const errors = Array.from({ length: 6 }, (_, i) => ({ line: 6 + i, column: i === 0 ? null : 'x', value: i === 0 ? null : '7', message: i === 0 ? 'the row has 4 fields, the header has 5' : 'the station A setting must be 0 or 1' }));
+    const errors = Array.from({ length: 6 }, (_, i) => ({
+      line: 6 + i,
+      column: i === 0 ? null : 'x',
+      value: i === 0 ? null : '7',
+      message: i === 0 ? 'the row has 4 fields, the header has 5' : 'the station A setting must be 0 or 1',
+    }));
     const host = await show(runWith({ state: 'invalid', verdict: 'INVALID', result: { verdict: 'INVALID', reasons: ['The log has 8 problems.'], errors, errorCount: 8 } }));
     expect(text(host, 'verdict-word')).toBe('INVALID');
     const problems = Array.from(host.querySelectorAll('[data-testid="log-problems"] li'), (item) => item.textContent?.replace(/\s+/g, ' ').trim());

@@ -20,8 +20,17 @@ const AXIS = { min: LOCAL_WIN_FRACTION - 0.05, max: QUANTUM_WIN_FRACTION };
     </span>
   `,
   styles: `
-    .bk-win-bar { display: inline-flex; align-items: center; gap: 8px; }
-    .bk-win-canvas { position: relative; display: inline-block; width: 96px; height: 18px; }
+    .bk-win-bar {
+      display: inline-flex;
+      align-items: center;
+      gap: 8px;
+    }
+    .bk-win-canvas {
+      position: relative;
+      display: inline-block;
+      width: 96px;
+      height: 18px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

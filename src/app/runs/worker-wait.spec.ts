@@ -11,7 +11,9 @@ describe('workerWait', () => {
   });
 
   it('says a queued run nobody took waits for a worker, and asks whether one runs', () => {
-    expect(workerWait({ state: 'queued', createdAt: ago(45), heartbeatAt: null, analysedBy: null }, now)).toMatch(/^No analysis worker has taken this run since .*Is a worker running\?/);
+    expect(workerWait({ state: 'queued', createdAt: ago(45), heartbeatAt: null, analysedBy: null }, now)).toMatch(
+      /^No analysis worker has taken this run since .*Is a worker running\?/,
+    );
   });
 
   it('names the silent worker of an analysing run after three missed heartbeats', () => {

@@ -64,7 +64,10 @@ class FakeTusServer {
       else response.writeHead(200, { 'Upload-Offset': String(this.received.length), 'Upload-Length': String(this.length), 'Tus-Resumable': '1.0.0' }).end();
     } else if (request.method === 'GET' && url.endsWith('/abc123')) {
       if (this.finished) response.writeHead(200, { 'Content-Type': 'application/json' }).end(JSON.stringify(RUN));
-      else response.writeHead(404, { 'Content-Type': 'application/json' }).end(JSON.stringify({ error: { code: 'not-found', message: 'There is no finished upload abc123 of yours.' } }));
+      else
+        response
+          .writeHead(404, { 'Content-Type': 'application/json' })
+          .end(JSON.stringify({ error: { code: 'not-found', message: 'There is no finished upload abc123 of yours.' } }));
     } else if (request.method === 'PATCH' && url.endsWith('/abc123')) {
       this.receivePatch(request, response);
     } else {

@@ -34,7 +34,7 @@ describe('SetupDialog', () => {
   let http: HttpTestingController;
   let fixture: ComponentFixture<SetupDialog>;
   let host: HTMLElement;
-  const close = jest.fn();
+  const close = jest.fn<void, [unknown]>();
 
   async function open(data: SetupDialogData): Promise<void> {
     close.mockReset();
@@ -45,7 +45,12 @@ describe('SetupDialog', () => {
     http.expectOne('/api/profiles').flush([profile(1, 'Nightly standard'), profile(2, 'Calibration')]);
     http
       .expectOne('/api/users')
-      .flush([person(3, 'Lucia Brandt', ['shift-lead']), person(4, 'Ada Reyes', ['experimentalist', 'shift-lead']), person(5, 'Sami Virtanen', ['auditor']), person(6, 'Old Lead', ['shift-lead'], false)]);
+      .flush([
+        person(3, 'Lucia Brandt', ['shift-lead']),
+        person(4, 'Ada Reyes', ['experimentalist', 'shift-lead']),
+        person(5, 'Sami Virtanen', ['auditor']),
+        person(6, 'Old Lead', ['shift-lead'], false),
+      ]);
     await fixture.whenStable();
   }
 
@@ -128,7 +133,9 @@ describe('SetupDialog', () => {
 
   it('closes with no result on Cancel, so the list behind it does nothing', async () => {
     await open({ setup: heronReach });
-    Array.from(host.ownerDocument.querySelectorAll<HTMLButtonElement>('button')).find((button) => button.textContent!.trim() === 'Cancel')!.click();
+    Array.from(host.ownerDocument.querySelectorAll<HTMLButtonElement>('button'))
+      .find((button) => button.textContent.trim() === 'Cancel')!
+      .click();
     expect(close).toHaveBeenCalledTimes(1);
     expect(close.mock.calls[0][0]).toBeUndefined();
   });

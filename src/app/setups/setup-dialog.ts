@@ -38,9 +38,18 @@ function recipientsValidator(control: AbstractControl<string>): ValidationErrors
   imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './setup-dialog.html',
   styles: `
-    .bk-setup-form { display: grid; grid-template-columns: repeat(auto-fill, minmax(240px, 1fr)); gap: 12px 16px; padding-top: 8px; }
-    .bk-wide { grid-column: 1 / -1; }
-    .bk-setup-failure { color: var(--bk-abort); }
+    .bk-setup-form {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(240px, 1fr));
+      gap: 12px 16px;
+      padding-top: 8px;
+    }
+    .bk-wide {
+      grid-column: 1 / -1;
+    }
+    .bk-setup-failure {
+      color: var(--bk-abort);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -49,7 +58,12 @@ export class SetupDialog {
   private readonly dialogRef = inject<MatDialogRef<SetupDialog, SetupDto>>(MatDialogRef);
 
   protected readonly setup = inject<SetupDialogData>(MAT_DIALOG_DATA).setup;
-  protected readonly profiles = toSignal(inject(ProfilesApi).list().pipe(catchError(() => of([]))), { initialValue: [] });
+  protected readonly profiles = toSignal(
+    inject(ProfilesApi)
+      .list()
+      .pipe(catchError(() => of([]))),
+    { initialValue: [] },
+  );
   protected readonly shiftLeads = toSignal(
     inject(UsersApi)
       .list()

@@ -9,7 +9,7 @@ import { RouterLink } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
 
 import type { SetupDto } from '../../../shared/api';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';
 import { SetupFacts } from './setup-facts';
@@ -32,7 +32,7 @@ export class SetupList {
 
   protected readonly isAdmin = inject(Session).hasAnyRole(['admin']);
   protected readonly setups = toSignal(toObservable(this.reload).pipe(switchMap(() => loaded(this.setupsApi.list()))), {
-    initialValue: { status: 'loading' } as Loaded<SetupDto[]>,
+    initialValue: { status: 'loading' },
   });
   protected readonly list = computed(() => {
     const setups = this.setups();

@@ -47,7 +47,14 @@ const booked: BookingDto = {
   createdAt: '2027-03-14T17:00:00Z',
   attempts: [
     { runId: 40, attempt: 1, state: 'aborted', verdict: 'ABORT', replacementReason: '', createdAt: '2027-03-15T06:10:00Z' },
-    { runId: 41, attempt: 2, state: 'accepted', verdict: 'ACCEPT', replacementReason: 'Detector B was saturated; log re-read from the second disk.', createdAt: '2027-03-15T07:30:00Z' },
+    {
+      runId: 41,
+      attempt: 2,
+      state: 'accepted',
+      verdict: 'ACCEPT',
+      replacementReason: 'Detector B was saturated; log re-read from the second disk.',
+      createdAt: '2027-03-15T07:30:00Z',
+    },
   ],
 };
 
@@ -117,7 +124,7 @@ describe('SetupPage', () => {
 
   /** Each row of the table as one line, its cells joined by " | ". */
   const rowText = (selector: string) =>
-    Array.from(host.querySelectorAll(`${selector} tbody tr`), (row) => Array.from(row.children, (cell) => cell.textContent!.replace(/\s+/g, ' ').trim()).join(' | '));
+    Array.from(host.querySelectorAll(`${selector} tbody tr`), (row) => Array.from(row.children, (cell) => cell.textContent.replace(/\s+/g, ' ').trim()).join(' | '));
 
   it('lists the booked nights with their commitment, profile and the logs that came', async () => {
     await openAs(9, 'Dev Okafor', ['experimentalist']);

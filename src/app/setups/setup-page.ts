@@ -6,7 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { of, switchMap } from 'rxjs';
 
-import type { BookingDto, SetupDto } from '../../../shared/api';
+import type { SetupDto } from '../../../shared/api';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { BookingsApi } from '../bookings/bookings-api';
@@ -40,12 +40,14 @@ export class SetupPage {
 
   private readonly setup = toSignal(
     toObservable(this.request).pipe(
-      switchMap(({ id }) => (Number.isInteger(id) && id > 0 ? loaded(this.setupsApi.get(id)) : of<Loaded<SetupDto>>({ status: 'failed', message: 'There is no setup with this number.' }))),
+      switchMap(({ id }) =>
+        Number.isInteger(id) && id > 0 ? loaded(this.setupsApi.get(id)) : of<Loaded<SetupDto>>({ status: 'failed', message: 'There is no setup with this number.' }),
+      ),
     ),
-    { initialValue: { status: 'loading' } as Loaded<SetupDto> },
+    { initialValue: { status: 'loading' } },
   );
   private readonly bookings = toSignal(toObservable(this.request).pipe(switchMap(({ id }) => loaded(this.bookingsApi.list(id)))), {
-    initialValue: { status: 'loading' } as Loaded<BookingDto[]>,
+    initialValue: { status: 'loading' },
   });
 
   /** The setup once loaded. */

@@ -6,7 +6,7 @@ import { switchMap } from 'rxjs';
 
 import type { RunSummaryDto, Verdict } from '../../../shared/api';
 import { formatFixed, formatPercent } from '../../../shared/format/numbers';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded } from '../api/loaded';
 import { chartTone, type ChartTone } from '../charts/chart-tones';
 import { RunsApi } from '../runs/runs-api';
 import { lookOfVerdict } from '../runs/verdict-look';
@@ -50,8 +50,17 @@ const VERDICT_MARKS: Record<Verdict, { style: PointStyle; tone: ChartTone }> = {
     }
   `,
   styles: `
-    .bk-trend-canvas { position: relative; height: 220px; }
-    .bk-trend-legend { display: flex; gap: 16px; margin: 4px 0 0; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    .bk-trend-canvas {
+      position: relative;
+      height: 220px;
+    }
+    .bk-trend-legend {
+      display: flex;
+      gap: 16px;
+      margin: 4px 0 0;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -75,7 +84,7 @@ export class SetupTrendChart {
         return loaded(this.runsApi.list({ setupId, from, page: 0, pageSize: 200, sort: 'acquiredOn', direction: 'asc' }));
       }),
     ),
-    { initialValue: { status: 'loading' } as Loaded<never> },
+    { initialValue: { status: 'loading' } },
   );
 
   /** Runs with a verdict and figures, oldest night first. */
@@ -110,7 +119,20 @@ export class SetupTrendChart {
     });
     return {
       labels: runs.map(night),
-      datasets: [series('S', runs.map((run) => run.chshValue), 'y', []), series('QBER', runs.map((run) => run.qber), 'qber', [4, 3])],
+      datasets: [
+        series(
+          'S',
+          runs.map((run) => run.chshValue),
+          'y',
+          [],
+        ),
+        series(
+          'QBER',
+          runs.map((run) => run.qber),
+          'qber',
+          [4, 3],
+        ),
+      ],
     };
   });
 
@@ -133,7 +155,14 @@ export class SetupTrendChart {
     scales: {
       x: { grid: { display: false } },
       y: { position: 'left', title: { display: true, text: 'S' }, suggestedMin: 2, suggestedMax: 2.85 },
-      qber: { position: 'right', title: { display: true, text: 'QBER' }, min: 0, suggestedMax: 0.1, grid: { display: false }, ticks: { callback: (value) => formatPercent(Number(value), 0) } },
+      qber: {
+        position: 'right',
+        title: { display: true, text: 'QBER' },
+        min: 0,
+        suggestedMax: 0.1,
+        grid: { display: false },
+        ticks: { callback: (value) => formatPercent(Number(value), 0) },
+      },
     },
   };
 }

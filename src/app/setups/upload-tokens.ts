@@ -10,7 +10,7 @@ import { filter, switchMap } from 'rxjs';
 
 import type { CreatedUploadTokenDto, SetupDto, UploadTokenDto } from '../../../shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
-import { loaded, type Loaded } from '../api/loaded';
+import { loaded } from '../api/loaded';
 import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';
 import { NewUploadTokenDialog } from './new-upload-token-dialog';
 import { SetupsApi } from './setups-api';
@@ -36,7 +36,7 @@ export class UploadTokens {
   private readonly reload = signal(0);
   protected readonly tokens = toSignal(
     toObservable(computed(() => ({ setupId: this.setup().id, attempt: this.reload() }))).pipe(switchMap(({ setupId }) => loaded(this.setupsApi.uploadTokens(setupId)))),
-    { initialValue: { status: 'loading' } as Loaded<UploadTokenDto[]> },
+    { initialValue: { status: 'loading' } },
   );
   /** Each token with its state now. */
   protected readonly rows = computed(() => {

@@ -14,16 +14,7 @@ describe('navItemsFor', () => {
   });
 
   it('shows a page once to a user who holds several of its roles', () => {
-    expect(navItemsFor(['auditor', 'shift-lead', 'admin']).map((item) => item.id)).toEqual([
-      'overview',
-      'runs',
-      'planner',
-      'setups',
-      'profiles',
-      'audit',
-      'users',
-      'workers',
-    ]);
+    expect(navItemsFor(['auditor', 'shift-lead', 'admin']).map((item) => item.id)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users', 'workers']);
   });
 
   it('shows nothing to a user without roles', () => {

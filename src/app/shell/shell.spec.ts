@@ -12,12 +12,7 @@ import { signInAs } from '../../testing/sign-in-as';
 describe('Shell', () => {
   async function renderFor(roles: Role[]): Promise<ComponentFixture<Shell>> {
     TestBed.configureTestingModule({
-      providers: [
-        provideRouter([]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
     });
     signInAs(roles, { id: 5, name: 'Noor Achterberg', email: 'noor.achterberg@kestrelfen.example' });
     const fixture = TestBed.createComponent(Shell);

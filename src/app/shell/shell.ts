@@ -48,12 +48,17 @@ export class Shell {
   protected readonly user = this.session.user;
   protected readonly navItems = computed(() => navItemsFor(this.session.roles()));
   protected readonly roleLabels = computed(() =>
-    this.session.roles().map((role) => ROLE_LABELS[role]).join(', '),
+    this.session
+      .roles()
+      .map((role) => ROLE_LABELS[role])
+      .join(', '),
   );
 
   /** Whether the window is wide enough for the navigation to stay open beside the page. */
   protected readonly wide = toSignal(
-    inject(BreakpointObserver).observe(WIDE_LAYOUT).pipe(map((state) => state.matches)),
+    inject(BreakpointObserver)
+      .observe(WIDE_LAYOUT)
+      .pipe(map((state) => state.matches)),
     { initialValue: true },
   );
 

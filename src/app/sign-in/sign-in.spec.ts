@@ -94,15 +94,10 @@ describe('SignIn', () => {
     type(page, 'sign-in-password', 'wrong-password');
     submit(page);
 
-    http.expectOne('/api/auth/login').flush(
-      { error: { code: 'unauthorized', message: 'That e-mail and password do not match.' } },
-      { status: 401, statusText: 'Unauthorized' },
-    );
+    http.expectOne('/api/auth/login').flush({ error: { code: 'unauthorized', message: 'That e-mail and password do not match.' } }, { status: 401, statusText: 'Unauthorized' });
     await fixture.whenStable();
 
-    expect(page.querySelector('[role="alert"]')?.textContent).toContain(
-      'That e-mail and password do not match.',
-    );
+    expect(page.querySelector('[role="alert"]')?.textContent).toContain('That e-mail and password do not match.');
     expect(TestBed.inject(Session).user()).toBeNull();
     expect(localStorage.getItem('bellkeep.token')).toBeNull();
     expect(navigateByUrl).not.toHaveBeenCalled();
@@ -117,10 +112,7 @@ describe('SignIn', () => {
     await fixture.whenStable();
 
     const errors = Array.from(page.querySelectorAll('mat-error'), (error) => error.textContent?.trim());
-    expect(errors).toEqual([
-      'Enter an e-mail address such as name@kestrelfen.example.',
-      'Enter your password.',
-    ]);
+    expect(errors).toEqual(['Enter an e-mail address such as name@kestrelfen.example.', 'Enter your password.']);
     http.expectNone('/api/auth/login');
   });
 });

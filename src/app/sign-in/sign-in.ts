@@ -15,14 +15,7 @@ import { ProductMark } from '../shell/product-mark';
 /** The sign-in page: e-mail and password, then back to the page the user wanted. */
 @Component({
   selector: 'bk-sign-in',
-  imports: [
-    MatButtonModule,
-    MatFormFieldModule,
-    MatInputModule,
-    MatProgressBarModule,
-    ProductMark,
-    ReactiveFormsModule,
-  ],
+  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, ProductMark, ReactiveFormsModule],
   templateUrl: './sign-in.html',
   styleUrl: './sign-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

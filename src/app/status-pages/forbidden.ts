@@ -37,7 +37,11 @@ export class Forbidden {
       .map((role) => ROLE_LABELS[role]),
   );
 
-  protected readonly heldRoles = computed(() =>
-    this.session.roles().map((role) => ROLE_LABELS[role]).join(', ') || 'no role',
+  protected readonly heldRoles = computed(
+    () =>
+      this.session
+        .roles()
+        .map((role) => ROLE_LABELS[role])
+        .join(', ') || 'no role',
   );
 }

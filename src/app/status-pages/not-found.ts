@@ -14,5 +14,8 @@ import { ActivatedRoute, RouterLink } from '@angular/router';
 export class NotFound {
   /** The address that was asked for, as the catch-all route took it. */
   protected readonly address =
-    '/' + inject(ActivatedRoute).snapshot.url.map((segment) => segment.path).join('/');
+    '/' +
+    inject(ActivatedRoute)
+      .snapshot.url.map((segment) => segment.path)
+      .join('/');
 }

@@ -17,7 +17,14 @@ const booking = (id: number, windowStart: string, windowEnd: string, runIds: num
   seed: null,
   bookedBy: 'Dev Okafor',
   createdAt: windowStart,
-  attempts: runIds.map((runId, index) => ({ runId, attempt: index + 1, state: 'aborted', verdict: 'ABORT', replacementReason: index === 0 ? '' : 'Detector B saturated.', createdAt: windowEnd })),
+  attempts: runIds.map((runId, index) => ({
+    runId,
+    attempt: index + 1,
+    state: 'aborted',
+    verdict: 'ABORT',
+    replacementReason: index === 0 ? '' : 'Detector B saturated.',
+    createdAt: windowEnd,
+  })),
 });
 
 describe('openBookings', () => {

@@ -1,3 +1,4 @@
+import { expect } from '@jest/globals';
 import { guessMapping, headerNames, previewLog, readLogSample, type LogSample } from './log-preview';
 
 /** A sample holding the whole of `text`. */

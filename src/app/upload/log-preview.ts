@@ -68,7 +68,7 @@ function bytesOf(blob: Blob): Promise<Uint8Array> {
   return new Promise((resolve, reject) => {
     const reader = new FileReader();
     reader.onload = () => resolve(new Uint8Array(reader.result as ArrayBuffer));
-    reader.onerror = () => reject(reader.error);
+    reader.onerror = () => reject(reader.error ?? new Error('The file could not be read.'));
     reader.readAsArrayBuffer(blob);
   });
 }

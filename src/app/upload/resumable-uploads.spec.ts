@@ -10,7 +10,7 @@ import type { LogUpload } from './upload-metadata';
 import { signInAs } from '../../testing/sign-in-as';
 
 // The package's "browser" build, which the app's build picks; jest would take its Node build.
-jest.mock('tus-js-client', () => jest.requireActual('tus-js-client/lib.es5/browser/index.js'));
+jest.mock('tus-js-client', () => jest.requireActual<object>('tus-js-client/lib.es5/browser/index.js'));
 
 /** The clock's own setTimeout, kept before the fake timers replace it. */
 const realSetTimeout = setTimeout;
@@ -56,13 +56,14 @@ class FakeTus implements HttpStack {
       setHeader: (name, value) => (headers[name] = value),
       getHeader: (name) => headers[name],
       setProgressHandler: () => undefined,
-      send: (body: Blob | null) => this.answer(method, url, headers, body),
+      // A throw in the executor rejects: a network failure of the fake.
+      send: (body: Blob | null) => new Promise<HttpResponse>((resolve) => resolve(this.answer(method, url, headers, body))),
       abort: () => Promise.resolve(),
       getUnderlyingObject: () => null,
     };
   }
 
-  private async answer(method: string, url: string, headers: Record<string, string>, body: Blob | null): Promise<HttpResponse> {
+  private answer(method: string, url: string, headers: Record<string, string>, body: Blob | null): HttpResponse {
     this.seen.push({ method, url, headers, bytes: body?.size ?? 0 });
     if (this.down) throw new Error('network down');
     if (method === 'POST') {
@@ -149,7 +150,12 @@ describe('ResumableUploads', () => {
     expect(creation.url).toBe('/api/uploads');
     expect(creation.headers['Authorization']).toBe('Bearer token-dev');
     expect(creation.headers['Tus-Resumable']).toBe('1.0.0');
-    const metadata = Object.fromEntries(creation.headers['Upload-Metadata'].split(',').map((pair) => pair.split(' ')).map(([key, value]) => [key, atob(value)]));
+    const metadata = Object.fromEntries(
+      creation.headers['Upload-Metadata']
+        .split(',')
+        .map((pair) => pair.split(' '))
+        .map(([key, value]) => [key, atob(value)]),
+    );
     expect(metadata).toEqual({ filename: 'night-14.csv', setupId: '2', bookingId: '7', notes: 'Detector B realigned at 23:10.', mapping: '{"columns":{},"outcomes":"0/1"}' });
     expect(events.at(-1)).toEqual({ kind: 'done', run: RUN });
   });

@@ -7,8 +7,7 @@ const refusal = (message: string) => JSON.stringify({ error: { code: 'conflict',
 
 /** A tus-js-client error as it comes: the request, and the answer if there was one. */
 function failed(status: number | null, body = ''): DetailedError {
-  const response: HttpResponse | null =
-    status === null ? null : { getStatus: () => status, getHeader: () => undefined, getBody: () => body, getUnderlyingObject: () => null };
+  const response: HttpResponse | null = status === null ? null : { getStatus: () => status, getHeader: () => undefined, getBody: () => body, getUnderlyingObject: () => null };
   return Object.assign(new Error('tus: failed to upload chunk at offset 0'), { originalRequest: {}, originalResponse: response, causingError: null }) as DetailedError;
 }
 

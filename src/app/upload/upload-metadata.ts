@@ -29,5 +29,5 @@ export function uploadMetadata(upload: LogUpload): UploadMetadata {
     mapping: JSON.stringify(upload.mapping),
     replacementReason: upload.replacementReason.trim(),
   };
-  return Object.fromEntries(Object.entries(metadata).filter(([, value]) => value !== '')) as UploadMetadata;
+  return Object.fromEntries(Object.entries(metadata).filter(([, value]) => value !== ''));
 }

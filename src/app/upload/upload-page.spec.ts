@@ -28,7 +28,16 @@ const setups: SetupDto[] = [
   },
 ];
 
-const version = (id: number, profileId: number, number: number) => ({ id, profileId, version: number, parameters: {}, note: '', createdBy: 'Maren Holt', createdAt: '2026-11-20T08:00:00Z', usedByRuns: 0 });
+const version = (id: number, profileId: number, number: number) => ({
+  id,
+  profileId,
+  version: number,
+  parameters: {},
+  note: '',
+  createdBy: 'Maren Holt',
+  createdAt: '2026-11-20T08:00:00Z',
+  usedByRuns: 0,
+});
 const profiles: ProfileDto[] = [
   { id: 1, name: 'Nightly standard', description: '', latestVersionId: 12, createdAt: '2026-11-01T08:00:00Z', versions: [version(12, 1, 2), version(11, 1, 1)] },
 ];
@@ -138,7 +147,7 @@ describe('UploadPage', () => {
     progress.complete();
     // The analysis is followed by polling, whose first request waits for a timer.
     await new Promise((resolve) => setTimeout(resolve, 0));
-    http.expectOne('/api/runs/42').flush({ id: 42, state: 'accepted', progress: 1, result: null, error: null } as unknown as RunDto);
+    http.expectOne('/api/runs/42').flush({ id: 42, state: 'accepted', progress: 1, result: null, error: null });
     await fixture.whenStable();
     expect(text('open-run')).toContain('Open run 42');
     expect(host.querySelector('[data-testid="open-run"]')?.getAttribute('href')).toBe('/runs/42');

@@ -11,7 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { catchError, map, of, switchMap } from 'rxjs';
 
-import { FINISHED_STATES, type BookingDto, type ProfileDto, type RunDto, type SetupDto } from '../../../shared/api';
+import { FINISHED_STATES, type BookingDto, type RunDto } from '../../../shared/api';
 import { OUTCOME_ENCODINGS, type ColumnMapping, type OutcomeEncoding } from '../../../shared/analysis/log/column-mapping';
 import { FIELD_MEANING, ROUND_FIELDS, type RoundField } from '../../../shared/analysis/log/round-fields';
 import { formatCount } from '../../../shared/format/numbers';
@@ -40,18 +40,7 @@ type MappingControls = Record<RoundField, FormControl<string | null>> & { outcom
  */
 @Component({
   selector: 'bk-upload-page',
-  imports: [
-    DatePipe,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressBarModule,
-    MatSelectModule,
-    ReactiveFormsModule,
-    RouterLink,
-    VerdictBanner,
-  ],
+  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, ReactiveFormsModule, RouterLink, VerdictBanner],
   templateUrl: './upload-page.html',
   styleUrl: './upload-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -81,8 +70,8 @@ export class UploadPage {
     outcomes: new FormControl<OutcomeEncoding>('0/1', { nonNullable: true }),
   });
 
-  protected readonly setups = toSignal(loaded(inject(SetupsApi).list()), { initialValue: { status: 'loading' } as Loaded<SetupDto[]> });
-  protected readonly profiles = toSignal(loaded(inject(ProfilesApi).list()), { initialValue: { status: 'loading' } as Loaded<ProfileDto[]> });
+  protected readonly setups = toSignal(loaded(inject(SetupsApi).list()), { initialValue: { status: 'loading' } });
+  protected readonly profiles = toSignal(loaded(inject(ProfilesApi).list()), { initialValue: { status: 'loading' } });
   protected readonly setupList = computed(() => readyValue(this.setups()) ?? []);
   protected readonly versions = computed(() => profileVersionOptions(readyValue(this.profiles()) ?? []));
 
@@ -95,7 +84,7 @@ export class UploadPage {
     toObservable(computed(() => ({ setupId: this.setupId(), attempt: this.reloadBookings() }))).pipe(
       switchMap(({ setupId }) => (setupId === null ? of<Loaded<BookingDto[]>>({ status: 'ready', value: [] }) : loaded(this.bookingsApi.list(setupId)))),
     ),
-    { initialValue: { status: 'ready', value: [] } as Loaded<BookingDto[]> },
+    { initialValue: { status: 'ready', value: [] } },
   );
   protected readonly bookingsLoading = computed(() => this.bookings().status === 'loading');
   protected readonly bookingsFailure = computed(() => failureMessage(this.bookings()));

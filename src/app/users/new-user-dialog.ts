@@ -14,14 +14,7 @@ import { UsersApi } from './users-api';
 /** The admin's form for adding a user; closes with the created user. */
 @Component({
   selector: 'bk-new-user-dialog',
-  imports: [
-    MatButtonModule,
-    MatDialogModule,
-    MatFormFieldModule,
-    MatInputModule,
-    ReactiveFormsModule,
-    RoleField,
-  ],
+  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, ReactiveFormsModule, RoleField],
   templateUrl: './new-user-dialog.html',
   styleUrl: './user-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

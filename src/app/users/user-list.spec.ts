@@ -62,11 +62,7 @@ describe('UserList', () => {
 
   beforeEach(() => {
     TestBed.configureTestingModule({
-      providers: [
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
+      providers: [provideHttpClient(), provideHttpClientTesting(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }],
     });
     http = TestBed.inject(HttpTestingController);
   });
@@ -87,9 +83,7 @@ describe('UserList', () => {
 
   it('says when the list could not be loaded and tries again on request', async () => {
     await render();
-    http
-      .expectOne('/api/users')
-      .flush({ error: { code: 'internal', message: 'The database is not answering.' } }, { status: 500, statusText: 'Error' });
+    http.expectOne('/api/users').flush({ error: { code: 'internal', message: 'The database is not answering.' } }, { status: 500, statusText: 'Error' });
     await fixture.whenStable();
 
     const alert = (fixture.nativeElement as HTMLElement).querySelector('[role="alert"]');
@@ -121,10 +115,12 @@ describe('UserList', () => {
     async function errorsOf(dialog: MatDialogHarness): Promise<string[]> {
       const host = await dialog.host();
       const text = await host.text();
-      return ['Enter the person’s name.', 'Enter an e-mail address such as name@kestrelfen.example.',
-        'The password needs at least 10 characters.', 'Choose at least one role.'].filter((message) =>
-        text.includes(message),
-      );
+      return [
+        'Enter the person’s name.',
+        'Enter an e-mail address such as name@kestrelfen.example.',
+        'The password needs at least 10 characters.',
+        'Choose at least one role.',
+      ].filter((message) => text.includes(message));
     }
 
     it('refuses a form without name, with a bad e-mail, a short password and no role', async () => {
@@ -160,7 +156,10 @@ describe('UserList', () => {
         password: 'mill-lane-fibre',
         roles: ['experimentalist'],
       });
-      request.flush({ id: 4, email: 'wren.addo@kestrelfen.example', name: 'Wren Addo', roles: ['experimentalist'], active: true, createdAt: '2026-12-01T07:00:00Z' }, { status: 201, statusText: 'Created' });
+      request.flush(
+        { id: 4, email: 'wren.addo@kestrelfen.example', name: 'Wren Addo', roles: ['experimentalist'], active: true, createdAt: '2026-12-01T07:00:00Z' },
+        { status: 201, statusText: 'Created' },
+      );
       await fixture.whenStable();
 
       expect(await documentLoader.getAllHarnesses(MatDialogHarness)).toHaveLength(0);
@@ -178,9 +177,7 @@ describe('UserList', () => {
       await roles.clickOptions({ text: 'Auditor' });
       await submit(dialog);
 
-      http
-        .expectOne('/api/users')
-        .flush({ error: { code: 'conflict', message: 'A user with this e-mail already exists.' } }, { status: 409, statusText: 'Conflict' });
+      http.expectOne('/api/users').flush({ error: { code: 'conflict', message: 'A user with this e-mail already exists.' } }, { status: 409, statusText: 'Conflict' });
       await fixture.whenStable();
 
       expect(await (await dialog.host()).text()).toContain('A user with this e-mail already exists.');

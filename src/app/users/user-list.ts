@@ -1,12 +1,4 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  DestroyRef,
-  effect,
-  inject,
-  signal,
-  viewChild,
-} from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { DatePipe } from '@angular/common';
 import { MatButtonModule } from '@angular/material/button';
@@ -35,17 +27,7 @@ type LoadState = 'loading' | 'ready' | 'failed';
 /** The admin's list of users: add people, change their roles, deactivate and reactivate them. */
 @Component({
   selector: 'bk-user-list',
-  imports: [
-    DatePipe,
-    MatButtonModule,
-    MatChipsModule,
-    MatIconModule,
-    MatMenuModule,
-    MatPaginatorModule,
-    MatProgressBarModule,
-    MatSortModule,
-    MatTableModule,
-  ],
+  imports: [DatePipe, MatButtonModule, MatChipsModule, MatIconModule, MatMenuModule, MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule],
   templateUrl: './user-list.html',
   styleUrl: './user-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -66,8 +48,7 @@ export class UserList {
   protected readonly dataSource = new MatTableDataSource<UserDto>([]);
 
   constructor() {
-    this.dataSource.sortingDataAccessor = (user, column) =>
-      column === 'roles' ? user.roles.join(',') : String(user[column as keyof UserDto]);
+    this.dataSource.sortingDataAccessor = (user, column) => (column === 'roles' ? user.roles.join(',') : String(user[column as keyof UserDto]));
     // The table's data source is not a signal: keep it in step with the list, sort and paginator.
     effect(() => {
       this.dataSource.data = this.users();

@@ -5,8 +5,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 
-import type { WorkerDto, WorkersOverviewDto } from '../../../shared/api';
-import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
+import type { WorkerDto } from '../../../shared/api';
+import { failureMessage, loaded, readyValue } from '../api/loaded';
 import { WORKER_CONDITION_WORDS } from './worker-words';
 import { WorkersApi } from './workers-api';
 
@@ -19,7 +19,7 @@ import { WorkersApi } from './workers-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WorkersPage {
-  private readonly state = toSignal(loaded(inject(WorkersApi).watch()), { initialValue: { status: 'loading' } as Loaded<WorkersOverviewDto> });
+  private readonly state = toSignal(loaded(inject(WorkersApi).watch()), { initialValue: { status: 'loading' } });
   protected readonly overview = computed(() => readyValue(this.state()));
   protected readonly failure = computed(() => failureMessage(this.state()));
   protected readonly columns = ['name', 'condition', 'startedAt', 'seenAt', 'endedHow'];
