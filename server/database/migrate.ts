@@ -62,6 +62,7 @@ async function applyFolder(sequelize: Sequelize, folder: string, storageTable: s
       glob: COMPILED ? [`${folder}/*.js`, { cwd: __dirname }] : [`${folder}/*.ts`, { cwd: PROJECT_ROOT }],
       resolve: ({ name: fileName, path: file }) => {
         const name = fileName.replace(/\.js$/, '.ts');
+        // Loaded by path at run time (TypeScript through tsx, or the compiled .js): no static import can name it.
         // eslint-disable-next-line @typescript-eslint/no-require-imports
         const migration = require(file!) as MigrationModule;
         const inTransaction = (step: (context: SeederContext) => Promise<void>) => () =>
