@@ -9,6 +9,11 @@ const path = require('node:path');
 /** Jest refuses a root that does not exist; a folder without tracked files is not in a clone. */
 const existing = (...folders) => folders.filter((folder) => fs.existsSync(path.join(__dirname, folder))).map((folder) => `<rootDir>/${folder}`);
 
+/** The path aliases of tsconfig.json (`@shared/...` is shared/...), for jest's own module resolution. */
+const moduleNameMapper = Object.fromEntries(
+  ['shared', 'server', 'fixtures', 'seeders', 'tests', 'local-stack', 'bench'].map((folder) => [`^@${folder}/(.*)$`, `<rootDir>/${folder}/$1`]),
+);
+
 const nodeTransform = {
   '^.+\\.ts$': ['ts-jest', { tsconfig: { module: 'commonjs', moduleResolution: 'node', isolatedModules: true } }],
 };
@@ -24,6 +29,7 @@ module.exports = {
   projects: [
     {
       displayName: 'shared',
+      moduleNameMapper,
       testEnvironment: 'node',
       roots: existing('shared', 'fixtures', 'tests/cli', 'tests/soundness'),
       testMatch: ['**/*.spec.ts'],
@@ -32,25 +38,28 @@ module.exports = {
     },
     {
       displayName: 'server',
+      moduleNameMapper,
       testEnvironment: 'node',
       roots: existing('server', 'local-stack', 'tests/api'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
-      globalSetup: '<rootDir>/tests/support/database-setup.ts',
-      globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
+      globalSetup: '<rootDir>/tests/support/database-setup-hook.cjs',
+      globalTeardown: '<rootDir>/tests/support/database-teardown-hook.cjs',
     },
     {
       // Faults, loads and hostile input against the real app (`npm run test:reliability`).
       displayName: 'reliability',
+      moduleNameMapper,
       testEnvironment: 'node',
       roots: existing('tests/reliability'),
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
-      globalSetup: '<rootDir>/tests/support/database-setup.ts',
-      globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
+      globalSetup: '<rootDir>/tests/support/database-setup-hook.cjs',
+      globalTeardown: '<rootDir>/tests/support/database-teardown-hook.cjs',
     },
     {
       displayName: 'client',
+      moduleNameMapper,
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
       setupFilesAfterEnv: ['<rootDir>/src/test-setup.ts'],
@@ -63,12 +72,13 @@ module.exports = {
     },
     {
       displayName: 'e2e',
+      moduleNameMapper,
       testEnvironment: 'node',
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.spec.ts'],
       transform: nodeTransform,
-      globalSetup: '<rootDir>/tests/support/browser-setup.ts',
-      globalTeardown: '<rootDir>/tests/support/database-teardown.ts',
+      globalSetup: '<rootDir>/tests/support/browser-setup-hook.cjs',
+      globalTeardown: '<rootDir>/tests/support/database-teardown-hook.cjs',
     },
   ],
 };

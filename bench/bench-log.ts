@@ -3,10 +3,10 @@ import { once } from 'node:events';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { createGzip } from 'node:zlib';
-import { FIXTURE_SEED, steadyPair } from '../fixtures/fixture-set';
-import type { StoredCensus } from '../shared/analysis/node';
-import { CensusTap } from '../server/runs/census-tap';
-import { DigestStream } from '../server/storage/digest-stream';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import type { StoredCensus } from '@shared/analysis/node';
+import { CensusTap } from '@server/runs/census-tap';
+import { DigestStream } from '@server/storage/digest-stream';
 import { modelLogChunks } from './pipeline/model-log-chunks';
 
 /** Writes a plain log of `rounds` rounds of the Kestrel Fen model to `path`. */

@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { parseArgs } from 'node:util';
-import { withEngineMemory } from '../shared/analysis/node';
+import { withEngineMemory } from '@shared/analysis/node';
 import { censusOfBenchLog, gzipBenchLog, writeBenchLog } from './bench-log';
 
 // `npm run bench [-- --rounds 1e7,1e8 --repeat 5 --references-up-to 1e7]`: for each size, a plain

@@ -1,4 +1,4 @@
-import { generalAttackKeyLength, GeneralAttackRequest } from '../shared/analysis/entropy-accumulation';
+import { generalAttackKeyLength, GeneralAttackRequest } from '@shared/analysis/entropy-accumulation';
 
 // `npx tsx bench/keylength.ts`: the time of one key length against general attacks (entropy
 // accumulation, every free parameter optimised) for a spread of runs; the target is under 2 s each.

@@ -1,5 +1,5 @@
 import { readFileSync } from 'node:fs';
-import { analyseLog, type StoredCensus } from '../shared/analysis/node';
+import { analyseLog, type StoredCensus } from '@shared/analysis/node';
 
 // One measurement in a fresh process (so peak memory is its own): `node dist/server/measure-engine.js
 // <log> <fast|scanner|reference|census> [census.json]` prints {seconds, peakMB, rounds, verdict} as JSON;

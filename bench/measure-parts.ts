@@ -1,11 +1,11 @@
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { readLogHead } from '../shared/analysis/log/log-head';
-import { LineCounter } from '../shared/analysis/log/line-counter';
-import { createLineCounter } from '../shared/analysis/node/wasm-line-counter';
-import { UniformStream } from '../shared/analysis/selection/uniform-stream';
-import { aesKeystream } from '../shared/analysis/node/aes-keystream';
-import { createRowKernel } from '../shared/analysis/node/wasm-row-kernel';
+import { readLogHead } from '@shared/analysis/log/log-head';
+import { LineCounter } from '@shared/analysis/log/line-counter';
+import { createLineCounter } from '@shared/analysis/node/wasm-line-counter';
+import { UniformStream } from '@shared/analysis/selection/uniform-stream';
+import { aesKeystream } from '@shared/analysis/node/aes-keystream';
+import { createRowKernel } from '@shared/analysis/node/wasm-row-kernel';
 
 // Where an analysis's processor time goes, part by part, each on one thread over a log already in
 // memory: `node dist/server/measure-parts.js <plain log>` prints the CPU seconds (user + system, so

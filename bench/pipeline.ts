@@ -1,5 +1,5 @@
-import { FIXTURE_SEED, steadyPair } from '../fixtures/fixture-set';
-import { UsageError } from '../server/cli/command-options';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import { UsageError } from '@server/cli/command-options';
 import { measurePipeline, type PipelineMeasurement } from './pipeline/measure-pipeline';
 import { modelLogChunks } from './pipeline/model-log-chunks';
 import { parsePipelineOptions, USAGE } from './pipeline/options';

@@ -1,6 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
-import { PROJECT_ROOT } from '../server/config/config';
+import { PROJECT_ROOT } from '@server/config/config';
 
 /** The local mail catcher (maildev): every mail Bellkeep sends lands in its web inbox. */
 export interface MailCatcher {

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { Client } from 'pg';
-import { freePort } from '../tests/support/free-port';
+import { freePort } from '@tests/support/free-port';
 import { startPostgresCluster } from './postgres-cluster';
 
 async function query(url: string, sql: string): Promise<Array<Record<string, unknown>>> {

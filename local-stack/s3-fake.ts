@@ -1,6 +1,6 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
-import { PROJECT_ROOT } from '../server/config/config';
+import { PROJECT_ROOT } from '@server/config/config';
 
 /** The fake's fixed credentials (s3rver accepts only these). */
 export const FAKE_S3_CREDENTIALS = { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' };

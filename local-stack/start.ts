@@ -1,16 +1,16 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { startApiServer } from '../server/api-server';
-import { loadConfig } from '../server/config/config';
+import { startApiServer } from '@server/api-server';
+import { loadConfig } from '@server/config/config';
 import { startPostgresCluster } from './postgres-cluster';
 import { startMailCatcher } from './mail-catcher';
 import { startStorageBackend } from './storage-backend';
-import { appBuildIsStale, buildApp, startDevServer } from '../server/system/angular-build';
-import { configureLog } from '../server/system/log';
-import { portAnswers } from '../server/system/port-answers';
-import { withProgress } from '../server/system/progress-lines';
-import { superviseWorker } from '../server/worker/worker-supervisor';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../seeders/data/demo-people';
+import { appBuildIsStale, buildApp, startDevServer } from '@server/system/angular-build';
+import { configureLog } from '@server/system/log';
+import { portAnswers } from '@server/system/port-answers';
+import { withProgress } from '@server/system/progress-lines';
+import { superviseWorker } from '@server/worker/worker-supervisor';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
 
 /**
  * `npm start`: the project's own PostgreSQL and mail catcher (unless the environment names real

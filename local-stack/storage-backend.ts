@@ -1,5 +1,5 @@
 import path from 'node:path';
-import type { Config, S3StorageConfig, StorageConfig } from '../server/config/config';
+import type { Config, S3StorageConfig, StorageConfig } from '@server/config/config';
 import { FAKE_S3_CREDENTIALS, startS3Fake } from './s3-fake';
 
 /** What serves the archive for this start, and how other processes reach the same one. */

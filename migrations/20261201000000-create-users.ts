@@ -1,6 +1,6 @@
 import { DataTypes } from 'sequelize';
-import type { MigrationContext } from '../server/database/migrate';
-import { ROLES } from '../shared/api/roles';
+import type { MigrationContext } from '@server/database/migrate';
+import { ROLES } from '@shared/api/roles';
 
 /** Users with their roles; e-mail unique regardless of case; at least one known role each. */
 export async function up({ queryInterface, transaction }: MigrationContext): Promise<void> {

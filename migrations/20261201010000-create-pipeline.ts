@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /**
  * The runs pipeline: versioned acceptance profiles, setups with their shift leads, the

@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /**
  * Signed results and re-verifications: the public keys results are signed with (kept after a

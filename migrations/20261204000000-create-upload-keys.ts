@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /**
  * Idempotency keys of uploads: a repeated upload request with the same `Idempotency-Key` (a double

@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /**
  * Booked nights and the acquisition computer's upload tokens.

@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /** The analysing worker's heartbeat, so a run whose worker went silent can say it waits for one. */
 export async function up({ queryInterface, transaction }: MigrationContext): Promise<void> {

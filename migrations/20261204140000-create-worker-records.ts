@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /**
  * One row per analysis-worker process that ever started: when it was last seen, and how it ended

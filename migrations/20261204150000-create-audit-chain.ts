@@ -1,4 +1,4 @@
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 
 /**
  * A hash chain over the audit trail, so that a removed, changed or slipped-in trail line shows even

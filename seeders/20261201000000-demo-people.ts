@@ -1,5 +1,5 @@
 import bcrypt from 'bcryptjs';
-import type { MigrationContext } from '../server/database/migrate';
+import type { MigrationContext } from '@server/database/migrate';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './data/demo-people';
 
 /** bcrypt cost for the demo accounts only: cheap, since their password is public anyway. */

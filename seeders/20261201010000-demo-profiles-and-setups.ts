@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
-import { parseProfile } from '../shared/analysis/profile';
-import type { MigrationContext } from '../server/database/migrate';
+import { parseProfile } from '@shared/analysis/profile';
+import type { MigrationContext } from '@server/database/migrate';
 import { DEMO_PROFILES, DEMO_SETUPS } from './data/demo-lab';
 
 /** The demo lab's acceptance profiles (version 1 each) and its setups with their shift leads. */

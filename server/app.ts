@@ -6,7 +6,7 @@ import { auditRoutes } from './audit/audit.routes';
 import { authRoutes } from './auth/auth.routes';
 import { bookingsRoutes } from './bookings/bookings.routes';
 import { createGuards } from './auth/passport';
-import { RESUMABLE_UPLOAD_PATH } from '../shared/api';
+import { RESUMABLE_UPLOAD_PATH } from '@shared/api';
 import type { Config } from './config/config';
 import type { Database } from './database/sequelize';
 import { apiNotFound, errorHandler } from './http/error-handler';

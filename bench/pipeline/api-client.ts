@@ -1,4 +1,4 @@
-import { FINISHED_STATES, type LoginRequest, type LoginResponse, type RunDto, type SetupDto } from '../../shared/api';
+import { FINISHED_STATES, type LoginRequest, type LoginResponse, type RunDto, type SetupDto } from '@shared/api';
 
 const POLL_INTERVAL_MS = 200;
 

@@ -1,9 +1,9 @@
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { PROJECT_ROOT } from '../../server/config/config';
-import { stopWorkerProcess } from '../../server/worker/worker-process';
-import { withEngineMemory } from '../../shared/analysis/node';
+import { PROJECT_ROOT } from '@server/config/config';
+import { stopWorkerProcess } from '@server/worker/worker-process';
+import { withEngineMemory } from '@shared/analysis/node';
 
 const START_TIMEOUT_MS = 60_000;
 

@@ -1,7 +1,7 @@
-import { DEMO_SETUPS } from '../../seeders/data/demo-lab';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
-import type { RunState, Verdict } from '../../shared/api';
-import { freePort } from '../../tests/support/free-port';
+import { DEMO_SETUPS } from '@seeders/data/demo-lab';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
+import type { RunState, Verdict } from '@shared/api';
+import { freePort } from '@tests/support/free-port';
 import { signIn } from './api-client';
 import { startBellkeepProcess, type BellkeepProcess } from './bellkeep-process';
 import type { StorageMode } from './options';

@@ -1,4 +1,4 @@
-import { acquireRun, type DeviceModel } from '../../fixtures/device-model';
+import { acquireRun, type DeviceModel } from '@fixtures/device-model';
 
 const CHUNK_BYTES = 1 << 20;
 /** Longest row: a round index of up to 16 digits and `,x,y,a,b\n`. */

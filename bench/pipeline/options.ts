@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { parseArgs } from 'node:util';
-import { numberOption, UsageError } from '../../server/cli/command-options';
+import { numberOption, UsageError } from '@server/cli/command-options';
 
 export const STORAGE_MODES = ['local', 's3'] as const;
 export type StorageMode = (typeof STORAGE_MODES)[number];

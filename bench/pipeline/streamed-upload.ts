@@ -2,8 +2,8 @@ import crypto from 'node:crypto';
 import http from 'node:http';
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import type { RunDto } from '../../shared/api';
-import { LOG_FIELD } from '../../server/runs/upload-middleware';
+import type { RunDto } from '@shared/api';
+import { LOG_FIELD } from '@server/runs/upload-middleware';
 
 export interface UploadOutcome {
   run: RunDto;

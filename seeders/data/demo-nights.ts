@@ -1,5 +1,5 @@
-import type { DeviceModel } from '../../fixtures/device-model';
-import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
+import type { DeviceModel } from '@fixtures/device-model';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
 
 /** Nights of demo history per setup (three weeks), ending the night before the demo was loaded. */
 export const DEMO_NIGHTS = 21;

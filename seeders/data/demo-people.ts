@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/api/roles';
+import type { Role } from '@shared/api/roles';
 
 /**
  * The invented lab of the demo: Kestrel Fen Quantum Lab, two stations (North Hall and Mill Lane)

@@ -1,4 +1,4 @@
-import type { AuditEventDto } from '../../shared/api';
+import type { AuditEventDto } from '@shared/api';
 import type { Models } from '../database/models';
 import type { AuditEventRecord } from './audit-event.model';
 

@@ -1,5 +1,5 @@
 import { Op, type WhereOptions } from 'sequelize';
-import type { AuditActor, AuditEventDto, AuditFilter, AuditPageDto, AuditQuery } from '../../shared/api';
+import type { AuditActor, AuditEventDto, AuditFilter, AuditPageDto, AuditQuery } from '@shared/api';
 import type { Models } from '../database/models';
 import type { AuditEventRecord } from './audit-event.model';
 import { toAuditEventDtos } from './audit-event-dto';

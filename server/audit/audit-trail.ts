@@ -1,5 +1,5 @@
 import type { ModelStatic, Transaction } from 'sequelize';
-import type { AuditAction, AuditTargetType } from '../../shared/api';
+import type { AuditAction, AuditTargetType } from '@shared/api';
 import type { AuditEventRecord } from './audit-event.model';
 
 export interface AuditEntry {

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { stringify } from 'csv-stringify/sync';
-import { auditFilterSchema, auditQuerySchema } from '../../shared/api';
+import { auditFilterSchema, auditQuerySchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import type { Models } from '../database/models';
 import { validQuery } from '../http/validate-body';

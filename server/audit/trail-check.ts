@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { TRAIL_CHECK_PROBLEM_LIMIT, type TrailCheckDto } from '../../shared/api';
+import { TRAIL_CHECK_PROBLEM_LIMIT, type TrailCheckDto } from '@shared/api';
 
 /** One problem as the query finds it; `otherSeq` is the link before a gap, or the last link for the head's problems. */
 interface FoundProblem {

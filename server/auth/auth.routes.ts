@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { loginRequestSchema, type LoginResponse } from '../../shared/api';
+import { loginRequestSchema, type LoginResponse } from '@shared/api';
 import type { Config } from '../config/config';
 import { HttpError } from '../http/http-error';
 import { validateBody } from '../http/validate-body';

@@ -1,8 +1,8 @@
 import type { RequestHandler } from 'express';
 import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
-import type { Role } from '../../shared/api';
-import { ROLE_LABELS } from '../../shared/api';
+import type { Role } from '@shared/api';
+import { ROLE_LABELS } from '@shared/api';
 import { HttpError } from '../http/http-error';
 import type { UserRecord } from '../users/user.model';
 import type { UsersService } from '../users/users.service';

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { bookingListQuerySchema, bookNightRequestSchema } from '../../shared/api';
+import { bookingListQuerySchema, bookNightRequestSchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import { idParameter } from '../http/id-parameter';
 import { validateBody, validQuery } from '../http/validate-body';

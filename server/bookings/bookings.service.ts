@@ -1,5 +1,5 @@
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
-import type { BookNightRequest, BookingAttemptDto, BookingDto } from '../../shared/api';
+import type { BookNightRequest, BookingAttemptDto, BookingDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
-import { AnalysisResult } from '../../shared/analysis';
-import { analyseLog, AnalysisProgress, AnalysisRequestError } from '../../shared/analysis/node';
+import { AnalysisResult } from '@shared/analysis';
+import { analyseLog, AnalysisProgress, AnalysisRequestError } from '@shared/analysis/node';
 import { parseAnalyseArguments, USAGE, UsageError } from './analyse-arguments';
 
 /** Exit codes of the contract: the verdict, or 2 for a usage or I/O error. */

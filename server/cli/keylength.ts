@@ -1,6 +1,6 @@
 import { parseArgs } from 'node:util';
-import { generalAttackKeyLength, GeneralAttackRequest, KeyLengthInputError } from '../../shared/analysis/entropy-accumulation';
-import { formatCount } from '../../shared/format/numbers';
+import { generalAttackKeyLength, GeneralAttackRequest, KeyLengthInputError } from '@shared/analysis/entropy-accumulation';
+import { formatCount } from '@shared/format/numbers';
 import { numberOption, UsageError, type OptionValues } from './command-options';
 
 const USAGE = 'usage: npm run --silent keylength -- --rounds <N> --gamma <γ> --soundness <ε> (--s <S> --qber <Q> | --omega-thr <ω_thr> --syndrome <m>)';

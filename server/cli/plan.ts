@@ -1,9 +1,9 @@
 import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
-import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
-import { formatCount, formatPercent } from '../../shared/format/numbers';
-import { generalPlanProblem, planGeneralAttack } from '../../shared/planner/plan-general-attack';
-import { planRounds, PlanInputError } from '../../shared/planner/plan-rounds';
+import { winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { formatCount, formatPercent } from '@shared/format/numbers';
+import { generalPlanProblem, planGeneralAttack } from '@shared/planner/plan-general-attack';
+import { planRounds, PlanInputError } from '@shared/planner/plan-rounds';
 import { numberOption, UsageError } from './command-options';
 
 const USAGE =

@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
-import { analyseLog, resultFingerprint } from '../../shared/analysis/node';
-import { RUN_REPORT_FORMAT, type RunReportDto } from '../../shared/api';
+import { analyseLog, resultFingerprint } from '@shared/analysis/node';
+import { RUN_REPORT_FORMAT, type RunReportDto } from '@shared/api';
 import { seedCommitment } from '../bookings/seed-commitment';
 import { resultDifferences } from '../integrity/result-differences';
 import { signatureProblem } from '../integrity/signed-statement';

@@ -1,5 +1,5 @@
 import { readFile } from 'node:fs/promises';
-import type { RunReportDto } from '../../shared/api';
+import type { RunReportDto } from '@shared/api';
 import { rederivationChecks, reportProblem, reportSignatureChecks, seedCommitmentCheck, type ReportCheck } from './report-checks';
 
 const USAGE = 'usage: npm run --silent verify -- <exported-report.json> <log> [--public-key <key.pem>]';

@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import type { ApiErrorBody } from '../../shared/api';
+import type { ApiErrorBody } from '@shared/api';
 import { faultLines, isDatabaseUnreachable, oneLine } from '../system/fault-lines';
 import { log } from '../system/log';
 import { HttpError } from './http-error';

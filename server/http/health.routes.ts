@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { ReadinessDto } from '../../shared/api';
+import type { ReadinessDto } from '@shared/api';
 import type { Database } from '../database/sequelize';
 import { ANALYSIS_QUEUE, type AnalysisQueue } from '../queue/analysis-queue';
 import type { LogStore } from '../storage/log-store';

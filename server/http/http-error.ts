@@ -1,4 +1,4 @@
-import type { ApiErrorCode } from '../../shared/api';
+import type { ApiErrorCode } from '@shared/api';
 
 /** The one error type of the server: the error handler turns it into an `ApiErrorBody`. */
 export class HttpError extends Error {

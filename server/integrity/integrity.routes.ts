@@ -1,7 +1,7 @@
 import { pipeline } from 'node:stream/promises';
 import { Router, type Response } from 'express';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { exportFormatSchema, reverificationRequestSchema, type ExportFormat, type RunReportDto } from '../../shared/api';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { exportFormatSchema, reverificationRequestSchema, type ExportFormat, type RunReportDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Guards } from '../auth/passport';
 import { HttpError } from '../http/http-error';

@@ -1,4 +1,4 @@
-import type { FieldDifference } from '../../shared/api';
+import type { FieldDifference } from '@shared/api';
 
 /**
  * The leaves where two results disagree, as paths (`chsh.winFraction`, `checks[2].passed`), in

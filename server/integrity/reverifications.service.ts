@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { VERDICT_STATES, type ReverificationDto } from '../../shared/api';
+import { VERDICT_STATES, type ReverificationDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
-import { canonicalJson } from '../../shared/analysis/canonical-json';
-import type { ResultSignatureDto, SignedStatement } from '../../shared/api';
+import { canonicalJson } from '@shared/analysis/canonical-json';
+import type { ResultSignatureDto, SignedStatement } from '@shared/api';
 import { signingKeyId, type SigningKey } from './signing-key';
 
 /** Names what the signed bytes are, so a signature over them can never pass for anything else. */

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { SigningKeyDto } from '../../shared/api';
+import type { SigningKeyDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import type { SigningKey } from './signing-key';

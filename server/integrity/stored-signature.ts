@@ -1,4 +1,4 @@
-import type { ResultSignatureDto } from '../../shared/api';
+import type { ResultSignatureDto } from '@shared/api';
 import type { RunRecord } from '../runs/run.model';
 
 /** The signature stored with a run's result, with the statement it covers rebuilt from the run. */

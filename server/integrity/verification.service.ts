@@ -1,7 +1,7 @@
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { resultFingerprint } from '../../shared/analysis/node';
-import { formatCount } from '../../shared/format/numbers';
-import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '../../shared/api';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { resultFingerprint } from '@shared/analysis/node';
+import { formatCount } from '@shared/format/numbers';
+import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '@shared/api';
 import { checkTrailChain } from '../audit/trail-check';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

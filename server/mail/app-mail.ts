@@ -1,4 +1,4 @@
-import { ROLE_LABELS, type BookingDto, type UserDto } from '../../shared/api';
+import { ROLE_LABELS, type BookingDto, type UserDto } from '@shared/api';
 import type { Mailer, OutgoingMail } from './mailer';
 import { faultLines, oneLine } from '../system/fault-lines';
 import { log } from '../system/log';

@@ -1,9 +1,9 @@
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { STATE_OF_VERDICT, type RunBookingDto, type RunDto } from '../../shared/api';
-import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '../../shared/format/booking-words';
-import { formatCount, formatScientific } from '../../shared/format/numbers';
-import { SEED } from '../../tests/cli/run-analyse';
-import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '../../tests/support/fixture-results';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { STATE_OF_VERDICT, type RunBookingDto, type RunDto } from '@shared/api';
+import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '@shared/format/booking-words';
+import { formatCount, formatScientific } from '@shared/format/numbers';
+import { SEED } from '@tests/cli/run-analyse';
+import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '@tests/support/fixture-results';
 import { COLLECTIVE_ATTACK_CAUTION, KEY_CAUTION } from '../reports/attack-model-words';
 import { composeVerdictMail } from './verdict-mail';
 

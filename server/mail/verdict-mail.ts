@@ -1,15 +1,15 @@
-import type { CheckResult } from '../../shared/analysis/checks/check-result';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { generalKeySentence } from '../../shared/analysis/report/general-key-words';
-import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
-import type { RunDto } from '../../shared/api';
-import { bookingWords } from '../../shared/format/booking-words';
-import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '../../shared/format/numbers';
+import type { CheckResult } from '@shared/analysis/checks/check-result';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { generalKeySentence } from '@shared/analysis/report/general-key-words';
+import { winThresholdOf } from '@shared/analysis/report/win-threshold';
+import type { RunDto } from '@shared/api';
+import { bookingWords } from '@shared/format/booking-words';
+import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '@shared/format/numbers';
 import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words';
 import { missingRoundsWords } from '../reports/missing-rounds-words';
 import { mailHtml, mailText, type MailBlock } from './mail-blocks';
 import type { OutgoingMail } from './mailer';
-import { verdictSentence } from '../../shared/format/verdict-sentence';
+import { verdictSentence } from '@shared/format/verdict-sentence';
 
 /** Words of each verdict in the mail's subject and first line. */
 

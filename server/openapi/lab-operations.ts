@@ -17,7 +17,7 @@ import {
   setupSchema,
   uploadTokenSchema,
   workersOverviewSchema,
-} from '../../shared/api';
+} from '@shared/api';
 import type { Operation } from './operation';
 
 const NO_SETUP = { 404: 'No such setup.' };

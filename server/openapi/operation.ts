@@ -1,6 +1,6 @@
 import type { OpenAPIRegistry, ResponseConfig, RouteConfig } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
-import { apiErrorBodySchema, type Role } from '../../shared/api';
+import { apiErrorBodySchema, type Role } from '@shared/api';
 
 /**
  * Who may call an operation: anyone; anyone signed in; people holding one of the roles; or, for

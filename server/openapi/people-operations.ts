@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { createUserRequestSchema, loginRequestSchema, loginResponseSchema, updateUserRequestSchema, userSchema } from '../../shared/api';
+import { createUserRequestSchema, loginRequestSchema, loginResponseSchema, updateUserRequestSchema, userSchema } from '@shared/api';
 import type { Operation } from './operation';
 
 /** Signing in and the people of the lab. */
@@ -32,11 +32,11 @@ export const PEOPLE_OPERATIONS: Operation[] = [
   {
     method: 'patch',
     path: '/api/users/{id}',
-    summary: "Change a user's name, roles or whether they may sign in",
+    summary: "Change a user's name, e-mail, roles or whether they may sign in",
     tags: ['Users'],
     access: ['admin'],
     body: updateUserRequestSchema,
     response: userSchema,
-    errors: { 404: 'No such user.', 409: 'An admin cannot remove their own admin role or deactivate themselves.' },
+    errors: { 404: 'No such user.', 409: 'Another user has that e-mail, or an admin would remove their own admin role or deactivate themselves.' },
   },
 ];

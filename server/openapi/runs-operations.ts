@@ -9,7 +9,7 @@ import {
   signOffRequestSchema,
   signOffSchema,
   verificationSchema,
-} from '../../shared/api';
+} from '@shared/api';
 import { uploadFieldsSchema } from '../runs/upload-fields';
 import type { Operation } from './operation';
 
@@ -29,6 +29,9 @@ const ACQUISITION_RECIPE = `**Acquisition recipe** (an acquisition computer with
 // The form's fields as documented; `seed` is left out, and refused when sent.
 const multipartUpload = uploadFieldsSchema.omit({ seed: true }).extend({ log: z.string().meta({ format: 'binary', description: 'The round log (CSV, or gzip of it).' }) });
 
+/** The tus servers' refusal of a request without its protocol version. */
+const TUS_VERSION = 'No `Tus-Resumable: 1.0.0` header: the request is not of tus 1.0.';
+
 /** Runs: uploads, lists, the run page's reads, sign-off, and the integrity checks and exports. */
 export const RUNS_OPERATIONS: Operation[] = [
   {
@@ -43,6 +46,7 @@ export const RUNS_OPERATIONS: Operation[] = [
     bodyType: 'multipart/form-data',
     status: 201,
     response: runSchema,
+    alsoAnswers: { status: 200, description: 'A repeat with the Idempotency-Key of a run already made: that run.', response: runSchema },
     errors: {
       403: 'The uploader may not upload here: another setup’s token, or a profile chosen against the booking.',
       409: 'A replay of an earlier run’s bytes, a window not yet open, or the same Idempotency-Key still being received.',
@@ -132,7 +136,14 @@ export const RUNS_OPERATIONS: Operation[] = [
     tags: ['Runs'],
     access: 'uploader',
     status: 201,
-    errors: { 413: 'The log is over the upload limit.', 507: 'The server’s disk is full.' },
+    errors: {
+      400: 'A field of `Upload-Metadata` is not valid; `field` names it.',
+      403: 'The uploader may not upload here: another setup’s token, or a profile chosen against the booking.',
+      409: 'A window not yet open, or a booking already kept.',
+      412: TUS_VERSION,
+      413: 'The log is over the upload limit.',
+      507: 'The server’s disk is full.',
+    },
   },
   {
     method: 'head',
@@ -141,7 +152,7 @@ export const RUNS_OPERATIONS: Operation[] = [
     description: 'The offset is in `Upload-Offset`.',
     tags: ['Runs'],
     access: 'uploader',
-    errors: { 404: 'No upload of this uploader has this id.' },
+    errors: { 404: 'No upload of this uploader has this id.', 412: TUS_VERSION },
   },
   {
     method: 'patch',
@@ -152,7 +163,12 @@ export const RUNS_OPERATIONS: Operation[] = [
     access: 'uploader',
     status: 204,
     alsoAnswers: { status: 201, description: 'The last bytes are in: the run they made.', response: runSchema },
-    errors: { 404: 'No upload of this uploader has this id.', 409: 'The offset is not where the upload stands.', 507: 'The server’s disk is full: what was written is kept.' },
+    errors: {
+      404: 'No upload of this uploader has this id.',
+      409: 'The offset is not where the upload stands.',
+      412: TUS_VERSION,
+      507: 'The server’s disk is full: what was written is kept.',
+    },
   },
   {
     method: 'get',

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { auditActorSchema, auditFilterSchema, auditPageSchema, auditQuerySchema, healthSchema, readinessSchema, signingKeySchema, trailCheckSchema } from '../../shared/api';
+import { auditActorSchema, auditFilterSchema, auditPageSchema, auditQuerySchema, healthSchema, readinessSchema, signingKeySchema, trailCheckSchema } from '@shared/api';
 import type { Operation } from './operation';
 
 /** The system trail, the published keys, and what operators and monitoring read. */
@@ -50,6 +50,7 @@ export const SYSTEM_OPERATIONS: Operation[] = [
     tags: ['Operations'],
     access: 'public',
     response: readinessSchema,
+    alsoAnswers: { status: 503, description: 'Not ready: the body names the part that does not answer, or that the API is stopping.', response: readinessSchema },
   },
   {
     method: 'get',

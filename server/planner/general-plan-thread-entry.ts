@@ -1,7 +1,7 @@
 import { parentPort, workerData } from 'node:worker_threads';
-import type { GeneralAttackPlanDto } from '../../shared/api';
-import { generalPlanProblem, planGeneralAttack } from '../../shared/planner/plan-general-attack';
-import { PlanInputError, type PlanInput } from '../../shared/planner/plan-rounds';
+import type { GeneralAttackPlanDto } from '@shared/api';
+import { generalPlanProblem, planGeneralAttack } from '@shared/planner/plan-general-attack';
+import { PlanInputError, type PlanInput } from '@shared/planner/plan-rounds';
 
 /** What the thread is given: the planner input and the N the collective plan chose. */
 export interface ThreadTask {

@@ -1,7 +1,7 @@
 import path from 'node:path';
-import { startTypeScriptWorker } from '../../shared/analysis/node/typescript-worker';
-import type { GeneralAttackPlanDto } from '../../shared/api';
-import { PlanInputError } from '../../shared/planner/plan-rounds';
+import { startTypeScriptWorker } from '@shared/analysis/node/typescript-worker';
+import type { GeneralAttackPlanDto } from '@shared/api';
+import { PlanInputError } from '@shared/planner/plan-rounds';
 import type { ThreadReply, ThreadTask } from './general-plan-thread-entry';
 
 /** The thread's file: TypeScript beside this one, or JavaScript when this one is compiled (dist/server/). */

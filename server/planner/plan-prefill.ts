@@ -1,5 +1,5 @@
-import type { AnalysisResult } from '../../shared/analysis/result';
-import type { PlanPrefillDto } from '../../shared/api';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { PlanPrefillDto } from '@shared/api';
 import type { Models } from '../database/models';
 import type { ProfilesService } from '../profiles/profiles.service';
 import type { SetupsService } from '../setups/setups.service';

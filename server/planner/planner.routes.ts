@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
-import { planPrefillQuerySchema, planQuerySchema } from '../../shared/api';
-import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
-import { planRounds, PlanInputError, type PlanInput } from '../../shared/planner/plan-rounds';
+import { planPrefillQuerySchema, planQuerySchema } from '@shared/api';
+import { winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { planRounds, PlanInputError, type PlanInput } from '@shared/planner/plan-rounds';
 import type { Guards } from '../auth/passport';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

@@ -1,6 +1,6 @@
 import { QueryTypes, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
-import { parseProfile } from '../../shared/analysis/profile';
-import type { CreateProfileRequest, CreateProfileVersionRequest, ProfileDto, ProfileVersionDto } from '../../shared/api';
+import { parseProfile } from '@shared/analysis/profile';
+import type { CreateProfileRequest, CreateProfileVersionRequest, ProfileDto, ProfileVersionDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

@@ -1,5 +1,5 @@
-import type { KeySummary } from '../../shared/analysis/report/key-summary';
-import type { SecuritySummary } from '../../shared/analysis/report/security-summary';
+import type { KeySummary } from '@shared/analysis/report/key-summary';
+import type { SecuritySummary } from '@shared/analysis/report/security-summary';
 
 /** An attack model a key figure is computed under. */
 export type AttackModel = SecuritySummary['model'];

@@ -1,5 +1,5 @@
-import { missingRoundsState, missingShareText, type MissingRoundsState, type MissingRoundsSummary } from '../../shared/analysis/report/missing-rounds';
-import { formatCount } from '../../shared/format/numbers';
+import { missingRoundsState, missingShareText, type MissingRoundsState, type MissingRoundsSummary } from '@shared/analysis/report/missing-rounds';
+import { formatCount } from '@shared/format/numbers';
 
 /** The missing rounds of a log: its state and the sentence with every figure. */
 export interface MissingRoundsWords {

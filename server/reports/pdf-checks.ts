@@ -1,7 +1,7 @@
-import type { CheckResult, CheckStatus } from '../../shared/analysis/checks/check-result';
-import { formatPValue } from '../../shared/format/numbers';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { formatScientific } from '../../shared/format/numbers';
+import type { CheckResult, CheckStatus } from '@shared/analysis/checks/check-result';
+import { formatPValue } from '@shared/format/numbers';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { formatScientific } from '@shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { TONE, TYPE } from './pdf-style';
 

@@ -1,6 +1,6 @@
-import { criteriaTable } from '../../shared/analysis/report/criteria-table';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { formatScientific } from '../../shared/format/numbers';
+import { criteriaTable } from '@shared/analysis/report/criteria-table';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { formatScientific } from '@shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { PERCENT_DECIMALS, TONE, TYPE, WIN_DECIMALS } from './pdf-style';
 

@@ -1,8 +1,8 @@
-import type { FractionInterval } from '../../shared/analysis/report/block-summary';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { winThresholdOf } from '../../shared/analysis/report/win-threshold';
-import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '../../shared/analysis/statistics/bell-bounds';
-import { formatFixed, formatPercent, formatScientific } from '../../shared/format/numbers';
+import type { FractionInterval } from '@shared/analysis/report/block-summary';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { winThresholdOf } from '@shared/analysis/report/win-threshold';
+import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { formatFixed, formatPercent, formatScientific } from '@shared/format/numbers';
 import { ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';
 import { TONE, TYPE, WIN_DECIMALS } from './pdf-style';
 

@@ -1,4 +1,4 @@
-import type { RunReportDto } from '../../shared/api';
+import type { RunReportDto } from '@shared/api';
 import { textColumn, useType } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
 import { TONE, TYPE } from './pdf-style';

@@ -1,5 +1,5 @@
-import type { RunReportDto } from '../../shared/api';
-import { bookingWords } from '../../shared/format/booking-words';
+import type { RunReportDto } from '@shared/api';
+import { bookingWords } from '@shared/format/booking-words';
 import { fields, textColumn, useType } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
 import { TONE, TYPE } from './pdf-style';

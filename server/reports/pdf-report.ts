@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import type { RunReportDto } from '../../shared/api';
+import type { RunReportDto } from '@shared/api';
 import { heading } from './pdf-blocks';
 import { writeChecks } from './pdf-checks';
 import { writeCriteria } from './pdf-criteria';

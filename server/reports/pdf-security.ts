@@ -1,5 +1,5 @@
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { formatCount, formatScientific } from '../../shared/format/numbers';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { formatCount, formatScientific } from '@shared/format/numbers';
 import { writeAbsentPart } from './pdf-absent-part';
 import { fields, grid } from './pdf-blocks';
 import { writeCaution } from './pdf-caution';

@@ -1,6 +1,6 @@
-import type { ChshSummary } from '../../shared/analysis/report/chsh-summary';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import { formatCount, formatFixed, formatScientific } from '../../shared/format/numbers';
+import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import type { AnalysisResult } from '@shared/analysis/result';
+import { formatCount, formatFixed, formatScientific } from '@shared/format/numbers';
 import { writeAbsentPart } from './pdf-absent-part';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { TONE, TYPE, WIN_DECIMALS } from './pdf-style';

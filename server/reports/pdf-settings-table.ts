@@ -1,6 +1,6 @@
-import type { AnalysisResult } from '../../shared/analysis/result';
-import type { CountTable } from '../../shared/analysis/tally/count-table';
-import { formatCount, formatFixed } from '../../shared/format/numbers';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { CountTable } from '@shared/analysis/tally/count-table';
+import { formatCount, formatFixed } from '@shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { TONE } from './pdf-style';
 

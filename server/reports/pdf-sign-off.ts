@@ -1,4 +1,4 @@
-import type { ReverificationDto, RunReportDto } from '../../shared/api';
+import type { ReverificationDto, RunReportDto } from '@shared/api';
 import { bullets, fields, paragraph, type Field } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
 import { TONE } from './pdf-style';

@@ -1,4 +1,4 @@
-import type { RunReportDto } from '../../shared/api';
+import type { RunReportDto } from '@shared/api';
 import { SIGNED_STATEMENT_PREFIX } from '../integrity/signed-statement';
 import { fields, monoBlock, paragraph } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';

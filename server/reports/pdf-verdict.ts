@@ -1,6 +1,6 @@
-import type { AnalysisResult, Verdict } from '../../shared/analysis/result';
-import { formatCount } from '../../shared/format/numbers';
-import { verdictSentence } from '../../shared/format/verdict-sentence';
+import type { AnalysisResult, Verdict } from '@shared/analysis/result';
+import { formatCount } from '@shared/format/numbers';
+import { verdictSentence } from '@shared/format/verdict-sentence';
 import { bullets, ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';
 import { TONE, TYPE } from './pdf-style';
 

@@ -1,4 +1,4 @@
-import { RUN_REPORT_FORMAT, VERDICT_STATES, type RunReportDto } from '../../shared/api';
+import { RUN_REPORT_FORMAT, VERDICT_STATES, type RunReportDto } from '@shared/api';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';
 import type { ReverificationsService } from '../integrity/reverifications.service';

@@ -4,8 +4,8 @@ import { Readable } from 'node:stream';
 import { buffer } from 'node:stream/consumers';
 import zlib from 'node:zlib';
 import fc from 'fast-check';
-import { LogCensusTaker } from '../../shared/analysis/log/log-census';
-import '../../tests/support/property-seed';
+import { LogCensusTaker } from '@shared/analysis/log/log-census';
+import '@tests/support/property-seed';
 import { CensusTap } from './census-tap';
 
 const LOG = fs.readFileSync(path.join(__dirname, '..', '..', 'fixtures', 'logs', 'accepted-run.csv'));

@@ -1,8 +1,8 @@
 import { Transform, type TransformCallback } from 'node:stream';
 import zlib from 'node:zlib';
-import { LogCensusTaker, type LogCensus } from '../../shared/analysis/log/log-census';
-import { expandsLikeABomb } from '../../shared/analysis/node/decoded-log';
-import { createLineCounter } from '../../shared/analysis/node/wasm-line-counter';
+import { LogCensusTaker, type LogCensus } from '@shared/analysis/log/log-census';
+import { expandsLikeABomb } from '@shared/analysis/node/decoded-log';
+import { createLineCounter } from '@shared/analysis/node/wasm-line-counter';
 
 const GZIP_MAGIC = [0x1f, 0x8b];
 

@@ -7,7 +7,7 @@ import { Router, type Request, type RequestHandler } from 'express';
 import { FileStore } from '@tus/file-store';
 import { Server, type Upload } from '@tus/server';
 import type { Sequelize } from 'sequelize';
-import { RESUMABLE_UPLOAD_PATH, type ApiErrorBody } from '../../shared/api';
+import { RESUMABLE_UPLOAD_PATH, type ApiErrorBody } from '@shared/api';
 import { HttpError } from '../http/http-error';
 import { validationError } from '../http/validate-body';
 import type { LogStore } from '../storage/log-store';

@@ -1,5 +1,5 @@
 import { Router, type RequestHandler } from 'express';
-import { runListQuerySchema, signOffRequestSchema } from '../../shared/api';
+import { runListQuerySchema, signOffRequestSchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import type { Config } from '../config/config';
 import type { Models } from '../database/models';

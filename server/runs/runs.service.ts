@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunListQuery, type RunPageDto, type RunSortKey, type SetupDto, type SignOffDto } from '../../shared/api';
+import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunListQuery, type RunPageDto, type RunSortKey, type SetupDto, type SignOffDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { BookingRecord } from '../bookings/booking.model';
 import type { BookingsService } from '../bookings/bookings.service';

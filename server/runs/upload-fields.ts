@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { parseColumnMapping } from '../../shared/analysis/log/column-mapping';
-import { isoDate, queryId as positiveId } from '../../shared/api';
+import { parseColumnMapping } from '@shared/analysis/log/column-mapping';
+import { isoDate, queryId as positiveId } from '@shared/api';
 
 /** The fields of an upload besides the log: the multipart form's, or a resumable upload's metadata. */
 export const uploadFieldsSchema = z.strictObject({

@@ -1,5 +1,5 @@
 import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
-import type { SaveSetupRequest, SetupDto } from '../../shared/api';
+import type { SaveSetupRequest, SetupDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

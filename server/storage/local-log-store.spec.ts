@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { createLocalLogStore } from './local-log-store';
-import { describeLogStoreContract, randomLog } from '../../tests/support/log-store-contract';
+import { describeLogStoreContract, randomLog } from '@tests/support/log-store-contract';
 import { putLog } from './log-store';
 
 let dataDir: string;

@@ -3,9 +3,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { HeadBucketCommand, PutObjectCommand } from '@aws-sdk/client-s3';
-import { archiveContents } from '../../tests/support/archive-contents';
-import { startTestS3Fake, type TestS3Fake } from '../../tests/support/test-s3-fake';
-import { describeLogStoreContract, randomLog } from '../../tests/support/log-store-contract';
+import { archiveContents } from '@tests/support/archive-contents';
+import { startTestS3Fake, type TestS3Fake } from '@tests/support/test-s3-fake';
+import { describeLogStoreContract, randomLog } from '@tests/support/log-store-contract';
 import { putLog, StoredLogCorruptError } from './log-store';
 import { createS3LogStore } from './s3-log-store';
 

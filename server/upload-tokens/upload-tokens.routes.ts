@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { createUploadTokenRequestSchema } from '../../shared/api';
+import { createUploadTokenRequestSchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import { idParameter } from '../http/id-parameter';
 import { validateBody } from '../http/validate-body';

@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import { UPLOAD_TOKEN_PREFIX, type CreateUploadTokenRequest, type CreatedUploadTokenDto, type UploadTokenDto } from '../../shared/api';
+import { UPLOAD_TOKEN_PREFIX, type CreateUploadTokenRequest, type CreatedUploadTokenDto, type UploadTokenDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { HttpError } from '../http/http-error';

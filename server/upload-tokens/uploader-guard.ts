@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { UPLOAD_TOKEN_PREFIX } from '../../shared/api';
+import { UPLOAD_TOKEN_PREFIX } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import { HttpError } from '../http/http-error';
 import type { Uploader } from './uploader';

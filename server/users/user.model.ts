@@ -1,5 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize, type ModelStatic } from 'sequelize';
-import type { Role, UserDto } from '../../shared/api';
+import type { Role, UserDto } from '@shared/api';
 
 export class UserRecord extends Model<InferAttributes<UserRecord>, InferCreationAttributes<UserRecord>> {
   declare id: CreationOptional<number>;

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { createUserRequestSchema, updateUserRequestSchema } from '../../shared/api';
+import { createUserRequestSchema, updateUserRequestSchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import { idParameter } from '../http/id-parameter';
 import { validateBody } from '../http/validate-body';

@@ -1,6 +1,6 @@
 import bcrypt from 'bcryptjs';
 import { Op, UniqueConstraintError } from 'sequelize';
-import type { CreateUserRequest, UpdateUserRequest, UserDto } from '../../shared/api';
+import type { CreateUserRequest, UpdateUserRequest, UserDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import { HttpError } from '../http/http-error';
 import { toUserDto, type UserModelStatic, type UserRecord } from './user.model';
@@ -49,20 +49,28 @@ export function createUsersService(User: UserModelStatic, bcryptRounds: number, 
     },
 
     async update(id, request, actingUserId) {
-      return User.sequelize!.transaction(async (transaction) => {
-        const user = await User.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
-        if (!user) throw HttpError.notFound(`There is no user with id ${id}.`);
-        const losesAdmin = user.roles.includes('admin') && user.active && (request.active === false || (request.roles !== undefined && !request.roles.includes('admin')));
-        if (losesAdmin && id === actingUserId) {
-          throw HttpError.conflict('You cannot remove your own admin role or deactivate yourself.');
+      try {
+        return await User.sequelize!.transaction(async (transaction) => {
+          const user = await User.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+          if (!user) throw HttpError.notFound(`There is no user with id ${id}.`);
+          const losesAdmin = user.roles.includes('admin') && user.active && (request.active === false || (request.roles !== undefined && !request.roles.includes('admin')));
+          if (losesAdmin && id === actingUserId) {
+            throw HttpError.conflict('You cannot remove your own admin role or deactivate yourself.');
+          }
+          if (request.name !== undefined) user.name = request.name.trim();
+          if (request.email !== undefined) user.email = request.email.trim().toLowerCase();
+          if (request.roles !== undefined) user.roles = [...new Set(request.roles)];
+          if (request.active !== undefined) user.active = request.active;
+          await user.save({ transaction });
+          await audit.record({ actorId: actingUserId, action: 'user.changed', targetType: 'user', targetId: id, details: { ...request } }, transaction);
+          return toUserDto(user);
+        });
+      } catch (error) {
+        if (error instanceof UniqueConstraintError) {
+          throw HttpError.conflict(`A user with the e-mail ${request.email} already exists.`, 'email');
         }
-        if (request.name !== undefined) user.name = request.name.trim();
-        if (request.roles !== undefined) user.roles = [...new Set(request.roles)];
-        if (request.active !== undefined) user.active = request.active;
-        await user.save({ transaction });
-        await audit.record({ actorId: actingUserId, action: 'user.changed', targetType: 'user', targetId: id, details: { ...request } }, transaction);
-        return toUserDto(user);
-      });
+        throw error;
+      }
     },
 
     findActiveById(id) {

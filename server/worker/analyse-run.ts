@@ -1,8 +1,8 @@
 import os from 'node:os';
 import type { Sequelize } from 'sequelize';
-import { AnalysisCancelledError } from '../../shared/analysis/node';
-import type { AnalysisProgress } from '../../shared/analysis/node';
-import { FINISHED_STATES, WORKER_HEARTBEAT_SECONDS, STATE_OF_VERDICT } from '../../shared/api';
+import { AnalysisCancelledError } from '@shared/analysis/node';
+import type { AnalysisProgress } from '@shared/analysis/node';
+import { FINISHED_STATES, WORKER_HEARTBEAT_SECONDS, STATE_OF_VERDICT } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { signStatement } from '../integrity/signed-statement';

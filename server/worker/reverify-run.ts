@@ -1,7 +1,7 @@
 import os from 'node:os';
 import type { Sequelize } from 'sequelize';
-import { AnalysisCancelledError } from '../../shared/analysis/node';
-import type { ReverificationState } from '../../shared/api';
+import { AnalysisCancelledError } from '@shared/analysis/node';
+import type { ReverificationState } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import { resultDifferences } from '../integrity/result-differences';

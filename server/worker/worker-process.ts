@@ -1,7 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { PROJECT_ROOT } from '../config/config';
-import { withEngineMemory } from '../../shared/analysis/node';
+import { withEngineMemory } from '@shared/analysis/node';
 
 /** What a worker prints once it takes jobs (server/worker/main.ts). */
 export const TAKING_JOBS = 'is taking analysis jobs';

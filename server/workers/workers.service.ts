@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import os from 'node:os';
 import { Op } from 'sequelize';
-import { WORKER_DYING_ENDS_PER_HOUR, WORKER_HEARTBEAT_SECONDS, WORKER_SILENT_AFTER_BEATS, type WorkerCondition, type WorkerDto, type WorkersOverviewDto } from '../../shared/api';
+import { WORKER_DYING_ENDS_PER_HOUR, WORKER_HEARTBEAT_SECONDS, WORKER_SILENT_AFTER_BEATS, type WorkerCondition, type WorkerDto, type WorkersOverviewDto } from '@shared/api';
 import type { Models } from '../database/models';
 import type { WorkerRecord } from './worker-record.model';
 

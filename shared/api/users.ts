@@ -19,11 +19,12 @@ export const MIN_PASSWORD_LENGTH = 10;
 
 const rolesField = /* @__PURE__ */ z.array(z.enum(ROLES)).min(1, 'needs at least one role');
 const personName = /* @__PURE__ */ z.string().trim().min(1, 'is required').max(200);
+const emailField = /* @__PURE__ */ z.string().trim().max(320).pipe(z.email('is not an e-mail address'));
 
 /** Body of `POST /api/users` (admin). */
 export const createUserRequestSchema = /* @__PURE__ */ z
   .strictObject({
-    email: z.string().trim().max(320).pipe(z.email('is not an e-mail address')),
+    email: emailField,
     name: personName,
     password: z.string().min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`).max(200),
     roles: rolesField,
@@ -33,7 +34,7 @@ export type CreateUserRequest = z.infer<typeof createUserRequestSchema>;
 
 /** Body of `PATCH /api/users/:id` (admin): each field optional, at least one given. */
 export const updateUserRequestSchema = /* @__PURE__ */ z
-  .strictObject({ name: personName.optional(), roles: rolesField.optional(), active: z.boolean().optional() })
-  .refine((body) => Object.keys(body).length > 0, 'give at least one of name, roles, active')
+  .strictObject({ name: personName.optional(), email: emailField.optional(), roles: rolesField.optional(), active: z.boolean().optional() })
+  .refine((body) => Object.keys(body).length > 0, 'give at least one of name, email, roles, active')
   .meta({ id: 'UpdateUserRequest' });
 export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;

@@ -1,7 +1,7 @@
 import { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 
-import type { Role } from '../../shared/api';
+import type { Role } from '@shared/api';
 import { Session } from '../app/auth/session';
 
 /** Who a spec signs in as; the token is `token-<first name in lower case>`. */

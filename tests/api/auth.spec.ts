@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
-import type { ApiErrorBody, LoginResponse, UserDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { ApiErrorBody, LoginResponse, UserDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { createTestApp, TEST_JWT_SECRET, type TestApp } from '../support/test-app';
 
 const ADMIN = 'maren.holt@kestrelfen.example';

@@ -4,10 +4,10 @@ import os from 'node:os';
 import http from 'node:http';
 import path from 'node:path';
 import request from 'supertest';
-import type { ApiErrorBody, AuditEventDto, BookingDto, CreatedUploadTokenDto, RunDto, UploadTokenDto } from '../../shared/api';
-import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
-import { writeModelLog } from '../../fixtures/model-log-file';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { ApiErrorBody, AuditEventDto, BookingDto, CreatedUploadTokenDto, RunDto, UploadTokenDto } from '@shared/api';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import { writeModelLog } from '@fixtures/model-log-file';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { setupId, uploadLog, waitForMail } from '../support/runs-api';
 

@@ -2,7 +2,7 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { PROJECT_ROOT } from '../../server/config/config';
+import { PROJECT_ROOT } from '@server/config/config';
 import { freePort } from '../support/free-port';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
 

@@ -1,9 +1,9 @@
 import request from 'supertest';
-import { formatCount } from '../../shared/format/numbers';
-import { chshCriterion } from '../../shared/analysis/report/verdict';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto, SetupDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { formatCount } from '@shared/format/numbers';
+import { chshCriterion } from '@shared/analysis/report/verdict';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { ApiErrorBody, ProfileDto, RunDto, RunPageDto, SetupDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { pdfText } from '../support/pdf-text';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';

@@ -1,9 +1,9 @@
 import fs from 'node:fs';
 import express from 'express';
 import request from 'supertest';
-import { healthRoutes } from '../../server/http/health.routes';
-import type { ReadinessDto, RunDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { healthRoutes } from '@server/http/health.routes';
+import type { ReadinessDto, RunDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
 

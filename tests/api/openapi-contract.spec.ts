@@ -1,6 +1,6 @@
 import fs from 'node:fs';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
-import type { CreatedUploadTokenDto, ProfileDto, RunDto, UserDto } from '../../shared/api';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
+import type { CreatedUploadTokenDto, ProfileDto, RunDto, UserDto } from '@shared/api';
 import { contractCheckedRequest, createContractChecker, documentedOperations } from '../support/api-contract';
 import { fixtureLog, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';

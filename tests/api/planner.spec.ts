@@ -1,9 +1,9 @@
 import request from 'supertest';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import type { ApiErrorBody, GeneralAttackPlanDto, PlanDto, PlanPrefillDto, ProfileDto, RunDto } from '../../shared/api';
-import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
-import { planRounds } from '../../shared/planner/plan-rounds';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { ApiErrorBody, GeneralAttackPlanDto, PlanDto, PlanPrefillDto, ProfileDto, RunDto } from '@shared/api';
+import { winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { planRounds } from '@shared/planner/plan-rounds';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 

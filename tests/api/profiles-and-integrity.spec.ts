@@ -1,6 +1,6 @@
 import request from 'supertest';
-import type { ApiErrorBody, ProfileDto, SetupDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { ApiErrorBody, ProfileDto, SetupDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { archiveContents, settledArchiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { breakOffUpload, fixtureLog, setupId, uploadLog } from '../support/runs-api';

@@ -2,9 +2,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
-import type { RunDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { configureLog, log } from '../../server/system/log';
+import type { RunDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
+import { configureLog, log } from '@server/system/log';
 import { fixtureLog, setupId, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
 

@@ -1,6 +1,6 @@
 import request from 'supertest';
-import { ROLES, type Role, type SigningKeyDto } from '../../shared/api';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
+import { ROLES, type Role, type SigningKeyDto } from '@shared/api';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**

@@ -1,10 +1,10 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import request from 'supertest';
-import { analyseLog } from '../../shared/analysis/node';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import type { ApiErrorBody, AuditEventDto, RunDto, RunPageDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { analyseLog } from '@shared/analysis/node';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { ApiErrorBody, AuditEventDto, RunDto, RunPageDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { archiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, inbox, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';

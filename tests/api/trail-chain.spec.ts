@@ -1,8 +1,8 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import request from 'supertest';
-import { TRAIL_CHECK_PROBLEM_LIMIT, type AuditEventDto, type RunDto, type TrailCheckDto, type VerificationDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import type { AuditEntry } from '../../server/audit/audit-trail';
+import { TRAIL_CHECK_PROBLEM_LIMIT, type AuditEventDto, type RunDto, type TrailCheckDto, type VerificationDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
+import type { AuditEntry } from '@server/audit/audit-trail';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
 

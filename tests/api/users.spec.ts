@@ -1,6 +1,6 @@
 import request from 'supertest';
-import type { ApiErrorBody, UserDto } from '../../shared/api';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
+import type { ApiErrorBody, UserDto } from '@shared/api';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 interface CaughtMail {
@@ -80,6 +80,19 @@ describe('user management (admin)', () => {
       .expect(200);
     expect((changed.body as UserDto).roles).toEqual(['shift-lead', 'admin']);
     await request(testApp.app).get('/api/users').set('Authorization', `Bearer ${luciaToken}`).expect(200);
+  });
+
+  it("changes a person's name and e-mail (signing in with the new address), and refuses an e-mail another person has", async () => {
+    const ada = await userByEmail('ada.reyes@kestrelfen.example');
+    const changed = await request(testApp.app).patch(`/api/users/${ada.id}`).set(asAdmin()).send({ name: 'Ada Reyes-Lind', email: ' Ada.Lind@KestrelFen.example ' }).expect(200);
+    expect(changed.body as UserDto).toMatchObject({ id: ada.id, name: 'Ada Reyes-Lind', email: 'ada.lind@kestrelfen.example' });
+    await testApp.signIn('ada.lind@kestrelfen.example', DEMO_PASSWORD);
+    await request(testApp.app).post('/api/auth/login').send({ email: 'ada.reyes@kestrelfen.example', password: DEMO_PASSWORD }).expect(401);
+
+    const taken = await request(testApp.app).patch(`/api/users/${ada.id}`).set(asAdmin()).send({ email: 'lucia.brandt@kestrelfen.example' }).expect(409);
+    expect((taken.body as ApiErrorBody).error).toMatchObject({ code: 'conflict', field: 'email' });
+    await request(testApp.app).patch(`/api/users/${ada.id}`).set(asAdmin()).send({ email: 'not an address' }).expect(400);
+    await request(testApp.app).patch(`/api/users/${ada.id}`).set(asAdmin()).send({ email: 'ada.reyes@kestrelfen.example', name: 'Ada Reyes' }).expect(200);
   });
 
   it('deactivating a user stops their token at once and refuses their sign-in; reactivating restores it', async () => {

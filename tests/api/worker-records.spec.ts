@@ -1,7 +1,7 @@
 import os from 'node:os';
 import request from 'supertest';
-import type { WorkersOverviewDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { WorkersOverviewDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { fixtureLog, setupId, uploadLog } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
 

@@ -3,12 +3,12 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
-import type { RunDto } from '../../shared/api';
-import { spawnWorkerProcess, stopWorkerProcess, untilTakingJobs } from '../../server/worker/worker-process';
-import { ENGINE_MALLOC_TUNABLES } from '../../shared/analysis/node';
-import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
-import { writeModelLog } from '../../fixtures/model-log-file';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { RunDto } from '@shared/api';
+import { spawnWorkerProcess, stopWorkerProcess, untilTakingJobs } from '@server/worker/worker-process';
+import { ENGINE_MALLOC_TUNABLES } from '@shared/analysis/node';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import { writeModelLog } from '@fixtures/model-log-file';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 

@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { gzipSync } from 'node:zlib';
-import type { AnalysisResult } from '../../shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis/result';
 import { fixture, runAnalyse, SEED } from './run-analyse';
 
 const CONTRACT_KEYS = [

@@ -1,6 +1,6 @@
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
-import type { GeneralAttackKeyLength } from '../../shared/analysis/entropy-accumulation';
+import type { GeneralAttackKeyLength } from '@shared/analysis/entropy-accumulation';
 import { ROOT } from './run-analyse';
 
 function runKeyLength(...args: string[]) {

@@ -2,10 +2,10 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { GeneralAttackPlanDto, PlanDto } from '../../shared/api';
-import { winFractionFromChshValue } from '../../shared/analysis/statistics/chsh-value';
-import { generalKeyPoint, generalPlanProblem, type GeneralPlanProblem } from '../../shared/planner/plan-general-attack';
-import { planRounds } from '../../shared/planner/plan-rounds';
+import type { GeneralAttackPlanDto, PlanDto } from '@shared/api';
+import { winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { generalKeyPoint, generalPlanProblem, type GeneralPlanProblem } from '@shared/planner/plan-general-attack';
+import { planRounds } from '@shared/planner/plan-rounds';
 import { ROOT } from './run-analyse';
 
 function runPlan(...args: string[]) {

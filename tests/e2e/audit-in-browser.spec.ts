@@ -1,8 +1,8 @@
 import fs from 'node:fs';
 import type { Page } from 'playwright-core';
-import type { AnalysisResult } from '../../shared/analysis/result';
-import type { RunDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { RunDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { startBrowserSession, type BrowserSession } from '../support/browser-session';
 import { pdfText } from '../support/pdf-text';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';

@@ -1,6 +1,6 @@
-import { formatCount } from '../../shared/format/numbers';
-import { generalKeyPoint, generalPlanProblem } from '../../shared/planner/plan-general-attack';
-import { planRounds } from '../../shared/planner/plan-rounds';
+import { formatCount } from '@shared/format/numbers';
+import { generalKeyPoint, generalPlanProblem } from '@shared/planner/plan-general-attack';
+import { planRounds } from '@shared/planner/plan-rounds';
 import { startBrowserSession, type BrowserSession } from '../support/browser-session';
 
 /** The experimentalist plans tonight's budget in a real headless Chromium; the page's numbers are the shared planner's. */

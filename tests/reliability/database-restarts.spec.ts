@@ -2,10 +2,10 @@ import fs from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
 import { Client } from 'pg';
-import type { ApiErrorBody, LoginResponse, RunDto, SetupDto } from '../../shared/api';
-import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
-import { writeModelLog } from '../../fixtures/model-log-file';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { ApiErrorBody, LoginResponse, RunDto, SetupDto } from '@shared/api';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import { writeModelLog } from '@fixtures/model-log-file';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { api, restartCluster, startBellkeep, startFolder, untilClosed, type Started } from '../support/started-bellkeep';
 
 jest.setTimeout(240_000);

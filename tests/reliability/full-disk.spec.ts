@@ -1,5 +1,5 @@
 import path from 'node:path';
-import type { RunDto } from '../../shared/api';
+import type { RunDto } from '@shared/api';
 import type { DiskState, FullDiskReport } from '../support/full-disk-child';
 import { runOnSmallDisk } from '../support/small-disk';
 

@@ -1,11 +1,11 @@
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import type { LoginResponse, RunDto, SetupDto, WorkersOverviewDto } from '../../shared/api';
-import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
-import { writeModelLog } from '../../fixtures/model-log-file';
-import { PROJECT_ROOT } from '../../server/config/config';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import type { LoginResponse, RunDto, SetupDto, WorkersOverviewDto } from '@shared/api';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import { writeModelLog } from '@fixtures/model-log-file';
+import { PROJECT_ROOT } from '@server/config/config';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { api, processesOf, startBellkeep, startFolder, untilClosed } from '../support/started-bellkeep';
 
 jest.setTimeout(180_000);

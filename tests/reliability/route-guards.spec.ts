@@ -14,8 +14,8 @@ import {
   type RunDto,
   type SetupDto,
   type UserDto,
-} from '../../shared/api';
-import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../seeders/data/demo-people';
+} from '@shared/api';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
 import { forgedToken, unsignedToken } from '../support/forged-tokens';
 import { endpointKey, listEndpoints, type Endpoint } from '../support/route-list';
 import { fixtureLog, uploadLog } from '../support/runs-api';

@@ -1,7 +1,7 @@
 import request from 'supertest';
-import { FINISHED_STATES, type RunDto } from '../../shared/api';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
-import { VERDICT_MAIL_QUEUE } from '../../server/queue/analysis-queue';
+import { FINISHED_STATES, type RunDto } from '@shared/api';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
+import { VERDICT_MAIL_QUEUE } from '@server/queue/analysis-queue';
 import { settledArchiveContents } from '../support/archive-contents';
 import { modelLog } from '../support/model-logs';
 import { inbox, setupId, uploadLog, type CaughtMail } from '../support/runs-api';

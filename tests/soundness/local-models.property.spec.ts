@@ -1,6 +1,6 @@
 import fc from 'fast-check';
-import { analyseRounds } from '../../fixtures/adversaries/analyse-rounds';
-import { droppingLosses, localDeterministic, type Marks } from '../../fixtures/adversaries';
+import { analyseRounds } from '@fixtures/adversaries/analyse-rounds';
+import { droppingLosses, localDeterministic, type Marks } from '@fixtures/adversaries';
 
 const hex = (value: number, prefix: string) => `${prefix}${value.toString(16).padStart(64 - prefix.length, '0')}`;
 

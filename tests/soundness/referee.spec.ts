@@ -1,4 +1,4 @@
-import { analyseRounds } from '../../fixtures/adversaries/analyse-rounds';
+import { analyseRounds } from '@fixtures/adversaries/analyse-rounds';
 import {
   biasedMarks,
   driftingVisibility,
@@ -9,8 +9,8 @@ import {
   prBox,
   THREE_WIN_STRATEGIES,
   type ModelRound,
-} from '../../fixtures/adversaries';
-import type { UnsealedResult } from '../../shared/analysis/result';
+} from '@fixtures/adversaries';
+import type { UnsealedResult } from '@shared/analysis/result';
 
 /** The seed of source i (the sources' own random numbers) and of the selection j: distinct streams. */
 const sourceSeed = (i: number) => `5a${i.toString(16).padStart(62, '0')}`;

@@ -1,8 +1,8 @@
 import Ajv2020, { type ValidateFunction } from 'ajv/dist/2020';
 import addFormats from 'ajv-formats';
-import type { Express } from 'express';
+import express, { type Express } from 'express';
 import request, { type Response } from 'supertest';
-import { buildApiDocument } from '../../server/openapi/api-document';
+import { buildApiDocument } from '@server/openapi/api-document';
 import type { Endpoint } from './route-list';
 
 /** The API's OpenAPI document, as served at /api/openapi.json. */
@@ -60,23 +60,67 @@ export function createContractChecker() {
     return validators.get(key)!;
   }
 
+  /** Problems of one answer (its status, and its body when `json`) with the document: none when it fits. */
+  function problemsOfAnswer(method: string, url: string, status: number, json: { body: unknown } | null): string[] {
+    const template = templateOf(method, url);
+    if (!template) return [`${method} ${url}: no such operation in the document`];
+    const operation = (API_DOCUMENT.paths as Record<string, Operations>)[template][method.toLowerCase()];
+    const documented = operation.responses[String(status)];
+    if (!documented) return [`${method} ${template}: status ${status} is not documented`];
+    checked.add(`${method.toUpperCase()} ${template} ${status}`);
+    if (!documented.content?.['application/json']?.schema || json === null) return [];
+    const validate = validatorOf(template, method.toLowerCase(), String(status));
+    if (validate(json.body)) return [];
+    return (validate.errors ?? []).map((error) => `${method} ${template} ${status}: ${error.instancePath || '(body)'} ${error.message}`);
+  }
+
   return {
-    /** Problems of one answer with the document: none when it fits. */
+    problemsOfAnswer,
+    /** Whether the document has an operation for this method and path. */
+    knows: (method: string, url: string) => templateOf(method, url) !== undefined,
+    /** Problems of one supertest answer with the document: none when it fits. */
     problemsOf(method: string, url: string, response: Response): string[] {
-      const template = templateOf(method, url);
-      if (!template) return [`${method} ${url}: no such operation in the document`];
-      const operation = (API_DOCUMENT.paths as Record<string, Operations>)[template][method.toLowerCase()];
-      const documented = operation.responses[String(response.status)];
-      if (!documented) return [`${method} ${template}: status ${response.status} is not documented`];
-      checked.add(`${method.toUpperCase()} ${template} ${response.status}`);
-      if (!documented.content?.['application/json']?.schema || !response.type.includes('json')) return [];
-      const validate = validatorOf(template, method.toLowerCase(), String(response.status));
-      if (validate(response.body)) return [];
-      return (validate.errors ?? []).map((error) => `${method} ${template} ${response.status}: ${error.instancePath || '(body)'} ${error.message}`);
+      return problemsOfAnswer(method, url, response.status, response.type.includes('json') ? { body: response.body } : null);
     },
     /** The `METHOD /template status` answers checked so far. */
     checked,
   };
+}
+
+/** Where the front of `contractRecordingApp` keeps the app it checks (route listings look through it). */
+export const CHECKED_APP = Symbol('the app behind the contract check');
+
+/**
+ * The app behind a front that checks every answer under /api (its status, and its body when it is
+ * JSON) against the document as it goes out, keeping the misfits: the API tests run through it, so
+ * whatever they provoke must be documented. /api/reference (the page) and the document itself are
+ * not operations.
+ */
+export function contractRecordingApp(app: Express, checker: ReturnType<typeof createContractChecker>): { app: Express; misfits: string[] } {
+  const front = Object.assign(express(), { [CHECKED_APP]: app });
+  const misfits: string[] = [];
+  front.use((request, response, next) => {
+    const url = request.originalUrl;
+    // OPTIONS is Express's own answer (the Allow header), not an operation of the API.
+    if (!url.startsWith('/api/') || url.startsWith('/api/reference') || url.startsWith('/api/openapi.json') || request.method === 'OPTIONS') return next();
+    // HEAD is answered as GET, without the body, wherever no HEAD operation of its own is documented.
+    const method = request.method === 'HEAD' && !checker.knows('HEAD', url) ? 'GET' : request.method;
+    let json: { body: unknown } | null = null;
+    const send = response.json.bind(response);
+    response.json = (body: unknown) => {
+      json = { body };
+      return send(body);
+    };
+    response.on('finish', () => {
+      // A method or path the API does not have is refused (401 before the guard, 404 from the
+      // catch-all): no operation to check against. Answered with success, it would be one the document lacks.
+      const refusedUnknown = response.statusCode >= 400 && !checker.knows(method, url);
+      if (!refusedUnknown) misfits.push(...checker.problemsOfAnswer(method, url, response.statusCode, json));
+    });
+    next();
+  });
+  front.use(app);
+  return { app: front, misfits };
 }
 
 /** supertest on the app, each answer checked against the document (a misfit fails the request's test). */

@@ -1,9 +1,9 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { ListMultipartUploadsCommand, ListObjectsV2Command } from '@aws-sdk/client-s3';
-import type { Config } from '../../server/config/config';
-import { createLocalLogStore } from '../../server/storage/local-log-store';
-import { createS3LogStore } from '../../server/storage/s3-log-store';
+import type { Config } from '@server/config/config';
+import { createLocalLogStore } from '@server/storage/local-log-store';
+import { createS3LogStore } from '@server/storage/s3-log-store';
 
 /** What an archive holds: the logs kept under their names, and anything else (which should be nothing once uploads settle). */
 export interface ArchiveContents {

@@ -1,6 +1,6 @@
-import { loadConfig } from '../../server/config/config';
-import { bootstrapDatabase } from '../../server/database/bootstrap';
-import { openDatabase } from '../../server/database/sequelize';
+import { loadConfig } from '@server/config/config';
+import { bootstrapDatabase } from '@server/database/bootstrap';
+import { openDatabase } from '@server/database/sequelize';
 
 // Run by tsx in a child process: the start-up bootstrap of BELLKEEP_DATABASE_URL with the demo
 // history, as `npm start` runs it, at Node's own speed (jest's module sandbox slows the log

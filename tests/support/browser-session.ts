@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import type { Server } from 'node:http';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { launchChromium } from './chromium';
 import { freePort } from './free-port';
 import { createTestApp, type TestApp } from './test-app';

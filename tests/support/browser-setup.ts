@@ -1,5 +1,5 @@
-import { loadConfig } from '../../server/config/config';
-import { appBuildIsStale, buildApp } from '../../server/system/angular-build';
+import { loadConfig } from '@server/config/config';
+import { appBuildIsStale, buildApp } from '@server/system/angular-build';
 import setUpTestCluster from './database-setup';
 import { ensureChromium } from './chromium';
 

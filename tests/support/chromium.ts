@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import { chromium, type Browser } from 'playwright-core';
-import { installDebianPackage } from '../../local-stack/debian-package';
+import { installDebianPackage } from '@local-stack/debian-package';
 
 const CHROMIUM = '/usr/bin/chromium';
 

@@ -2,9 +2,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import PgBoss from 'pg-boss';
-import { migrate } from '../../server/database/migrate';
-import { startPostgresCluster, type RunningCluster } from '../../local-stack/postgres-cluster';
-import { openDatabase } from '../../server/database/sequelize';
+import { migrate } from '@server/database/migrate';
+import { startPostgresCluster, type RunningCluster } from '@local-stack/postgres-cluster';
+import { openDatabase } from '@server/database/sequelize';
 import { freePort } from './free-port';
 
 /** Every test database is a copy of this one, migrated once per jest run. */

@@ -1,7 +1,7 @@
-import { DEMO_PROFILES } from '../../seeders/data/demo-lab';
-import { analyseLog } from '../../shared/analysis/node';
-import type { AnalysisProfileInput } from '../../shared/analysis/profile';
-import type { AnalysisResult } from '../../shared/analysis/result';
+import { DEMO_PROFILES } from '@seeders/data/demo-lab';
+import { analyseLog } from '@shared/analysis/node';
+import type { AnalysisProfileInput } from '@shared/analysis/profile';
+import type { AnalysisResult } from '@shared/analysis/result';
 import { fixture, SEED } from '../cli/run-analyse';
 
 /** The demo lab's everyday profile. */

@@ -1,5 +1,5 @@
 import jwt from 'jsonwebtoken';
-import { TOKEN_ALGORITHM, TOKEN_ISSUER } from '../../server/auth/tokens';
+import { TOKEN_ALGORITHM, TOKEN_ISSUER } from '@server/auth/tokens';
 import { TEST_JWT_SECRET } from './test-app';
 
 /** What a forged sign-in token may get wrong; everything not given is as the server issues it. */

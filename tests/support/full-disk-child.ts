@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Response } from 'supertest';
-import { DEMO_PASSWORD } from '../../seeders/data/demo-people';
+import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { modelLog } from './model-logs';
 import { createResumableUpload, patchUpload, uploadOffset } from './resumable-api';
 import { setupId, uploadLog } from './runs-api';

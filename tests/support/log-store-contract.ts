@@ -3,9 +3,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { Readable } from 'node:stream';
-import type { Config } from '../../server/config/config';
+import type { Config } from '@server/config/config';
 import { archiveContents } from './archive-contents';
-import { putLog, StoredLogCorruptError, StoredLogMissingError, type LogStore } from '../../server/storage/log-store';
+import { putLog, StoredLogCorruptError, StoredLogMissingError, type LogStore } from '@server/storage/log-store';
 
 /** A store under test, and what the contract needs around it. */
 export interface StoreUnderTest {

@@ -1,5 +1,5 @@
-import { modelLogChunks } from '../../bench/pipeline/model-log-chunks';
-import { FIXTURE_SEED, steadyPair } from '../../fixtures/fixture-set';
+import { modelLogChunks } from '@bench/pipeline/model-log-chunks';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
 import type { LogBytes } from './runs-api';
 
 /**

@@ -1,4 +1,5 @@
 import type { Express } from 'express';
+import { CHECKED_APP } from './api-contract';
 
 /** Something the app may answer: a route's method on its path, or a middleware mounted with `use`. */
 export interface Endpoint {
@@ -22,10 +23,12 @@ interface RouterLayer {
 /**
  * Every route and middleware of an Express 5 app, read from its router stack (`app.router.stack`)
  * and the stacks of the routers mounted in it, in the order a request meets them. Error handlers
- * (four arguments) are left out: they answer only a request that failed before them.
+ * (four arguments) are left out: they answer only a request that failed before them. The test
+ * app's front that checks answers against the document (see api-contract.ts) is looked through.
  */
 export function listEndpoints(app: Express): Endpoint[] {
-  return endpointsOf((app.router as unknown as { stack: RouterLayer[] }).stack, '');
+  const inner = (app as Express & { [CHECKED_APP]?: Express })[CHECKED_APP] ?? app;
+  return endpointsOf((inner.router as unknown as { stack: RouterLayer[] }).stack, '');
 }
 
 function endpointsOf(stack: RouterLayer[], mountPath: string): Endpoint[] {

@@ -3,9 +3,9 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
-import type { RunDto, SetupDto } from '../../shared/api';
-import { FINISHED_STATES } from '../../shared/api';
-import { PROJECT_ROOT } from '../../server/config/config';
+import type { RunDto, SetupDto } from '@shared/api';
+import { FINISHED_STATES } from '@shared/api';
+import { PROJECT_ROOT } from '@server/config/config';
 
 /** A fixture log of fixtures/logs/. */
 export function fixtureLog(name: string): string {

@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
-import { PROJECT_ROOT } from '../../server/config/config';
+import { PROJECT_ROOT } from '@server/config/config';
 
 /** The environment variable that tells a harness where its small disk is mounted. */
 export const SMALL_DISK_VARIABLE = 'SMALL_DISK_FOLDER';

@@ -2,8 +2,8 @@ import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { PROJECT_ROOT } from '../../server/config/config';
-import { portAnswers } from '../../server/system/port-answers';
+import { PROJECT_ROOT } from '@server/config/config';
+import { portAnswers } from '@server/system/port-answers';
 import { freePort } from './free-port';
 
 /** `npm start` as a lab runs it, in a process group of its own, on free ports and a data folder of its own. */

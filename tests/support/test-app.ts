@@ -3,22 +3,23 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
-import type { LoginResponse } from '../../shared/api';
-import { createApp } from '../../server/app';
-import { loadConfig, type Config } from '../../server/config/config';
-import { seedDemo } from '../../server/database/migrate';
-import { startMailCatcher, type MailCatcher } from '../../local-stack/mail-catcher';
-import { createMailer, type Mailer } from '../../server/mail/mailer';
-import { createAppMail, type AppMail } from '../../server/mail/app-mail';
-import { startAnalysisQueue, type AnalysisQueue } from '../../server/queue/analysis-queue';
-import { createServices, type Services } from '../../server/services';
-import { startStorageBackend, type StorageBackend } from '../../local-stack/storage-backend';
-import { startWorker, type RunningWorker } from '../../server/worker/worker';
+import type { LoginResponse } from '@shared/api';
+import { createApp } from '@server/app';
+import { loadConfig, type Config } from '@server/config/config';
+import { seedDemo } from '@server/database/migrate';
+import { startMailCatcher, type MailCatcher } from '@local-stack/mail-catcher';
+import { createMailer, type Mailer } from '@server/mail/mailer';
+import { createAppMail, type AppMail } from '@server/mail/app-mail';
+import { startAnalysisQueue, type AnalysisQueue } from '@server/queue/analysis-queue';
+import { createServices, type Services } from '@server/services';
+import { startStorageBackend, type StorageBackend } from '@local-stack/storage-backend';
+import { startWorker, type RunningWorker } from '@server/worker/worker';
 import { freePort } from './free-port';
 
 /** The token secret of test apps (tests forge tokens with it). */
 export const TEST_JWT_SECRET = 'test-secret-that-is-long-enough-for-hs256';
 import { createTestDatabase, type TestDatabase } from './test-database';
+import { contractRecordingApp, createContractChecker } from './api-contract';
 
 export interface TestApp {
   app: Express;
@@ -73,7 +74,8 @@ export async function createTestApp(environment: Record<string, string> = {}): P
   const services = createServices(config, database, queue);
   // As `npm start` does on bootstrap: the key results are signed with is listed before any run.
   await services.signingKeys.register();
-  const app = createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, appMail, queue });
+  // Every answer the tests provoke is checked against the OpenAPI document; a misfit fails `close`.
+  const { app, misfits } = contractRecordingApp(createApp({ config, database, services, jwtSecret: TEST_JWT_SECRET, appMail, queue }), createContractChecker());
   const workers: RunningWorker[] = [];
   return {
     app,
@@ -112,6 +114,7 @@ export async function createTestApp(environment: Record<string, string> = {}): P
       await storage.stop();
       await database.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
+      if (misfits.length > 0) throw new Error(`Answers that do not fit the OpenAPI document (/api/openapi.json):\n${[...new Set(misfits)].join('\n')}`);
     },
   };
 }

@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { Client } from 'pg';
-import { openDatabase, type Database } from '../../server/database/sequelize';
+import { openDatabase, type Database } from '@server/database/sequelize';
 import { TEMPLATE_DATABASE } from './database-setup';
 
 export interface TestDatabase extends Database {

@@ -1,8 +1,8 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { S3StorageConfig } from '../../server/config/config';
-import { FAKE_S3_CREDENTIALS, startS3Fake } from '../../local-stack/s3-fake';
+import type { S3StorageConfig } from '@server/config/config';
+import { FAKE_S3_CREDENTIALS, startS3Fake } from '@local-stack/s3-fake';
 import { freePort } from './free-port';
 
 export interface TestS3Fake {

@@ -1,5 +1,5 @@
-import { analyseRounds } from '../../../fixtures/adversaries/analyse-rounds';
-import { honestQuantum } from '../../../fixtures/adversaries';
+import { analyseRounds } from '@fixtures/adversaries/analyse-rounds';
+import { honestQuantum } from '@fixtures/adversaries';
 
 const seed = 'e7'.repeat(32);
 const rounds = [...honestQuantum({ rounds: 60_000, visibility: 0.99, qber: 0.01, marks: { probability: 0.2 } }, 'f1'.repeat(32))];

@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 
-import type { ApiErrorBody } from '../../../shared/api';
+import type { ApiErrorBody } from '@shared/api';
 
 /**
  * The sentence to show for a failed API call: the server's own message when the body has the

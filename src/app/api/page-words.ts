@@ -1,7 +1,7 @@
 import { Injectable } from '@angular/core';
 import { MatPaginatorIntl } from '@angular/material/paginator';
 
-import { formatCount } from '../../../shared/format/numbers';
+import { formatCount } from '@shared/format/numbers';
 
 /** The paginator of every list in Bellkeep's words rather than the library's. */
 @Injectable()

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { AuditActor, AuditFilter, AuditPageDto, AuditQuery, SigningKeyDto, TrailCheckDto } from '../../../shared/api';
+import type { AuditActor, AuditFilter, AuditPageDto, AuditQuery, SigningKeyDto, TrailCheckDto } from '@shared/api';
 import { FileDownloads } from '../api/download';
 import { queryParams } from '../api/query-params';
 

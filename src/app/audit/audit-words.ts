@@ -1,4 +1,4 @@
-import { AUDIT_ACTIONS, AUDIT_TARGET_TYPES, type AuditTargetType } from '../../../shared/api';
+import { AUDIT_ACTIONS, AUDIT_TARGET_TYPES, type AuditTargetType } from '@shared/api';
 import { trailWords } from '../runs/trail-words';
 
 /** What a trail line is about, in words. */

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting, type TestRequest } fro
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 
-import type { RunPageDto, RunSummaryDto } from '../../../shared/api';
+import type { RunPageDto, RunSummaryDto } from '@shared/api';
 import { FinishedRuns } from './finished-runs';
 import { settle } from '../../testing/settle';
 

@@ -1,7 +1,7 @@
 import type { AbstractControl, FormControl, ValidationErrors, ValidatorFn } from '@angular/forms';
 import type { ErrorStateMatcher } from '@angular/material/core';
 
-import { RUN_SEARCH_MIN_PREFIX } from '../../../shared/api';
+import { RUN_SEARCH_MIN_PREFIX } from '@shared/api';
 
 /** Hex digits of a SHA-256 (and of a result fingerprint): no prefix can be longer. */
 const FULL_HASH_DIGITS = 64;

@@ -6,7 +6,7 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 
-import { AUDIT_ACTIONS, type AuditEventDto, type AuditPageDto } from '../../../shared/api';
+import { AUDIT_ACTIONS, type AuditEventDto, type AuditPageDto } from '@shared/api';
 import { ACTION_FAMILIES } from './audit-words';
 import { SystemTrail } from './system-trail';
 

@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { TrailCheckDto } from '../../../shared/api';
+import type { TrailCheckDto } from '@shared/api';
 import { TrailChainCheck } from './trail-chain-check';
 
 const intact: TrailCheckDto = {

@@ -6,8 +6,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { startWith, Subject, switchMap } from 'rxjs';
 
-import type { TrailCheckDto } from '../../../shared/api';
-import { formatCount } from '../../../shared/format/numbers';
+import type { TrailCheckDto } from '@shared/api';
+import { formatCount } from '@shared/format/numbers';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
 import { ShortHash } from '../runs/short-hash';
 import { AuditApi } from './audit-api';

@@ -4,7 +4,7 @@ import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter, Router } from '@angular/router';
 
-import type { Role } from '../../../shared/api';
+import type { Role } from '@shared/api';
 import { requireRoles, requireSignIn } from './role-guard';
 import { signInAs } from '../../testing/sign-in-as';
 

@@ -1,7 +1,7 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, Router } from '@angular/router';
 
-import type { Role } from '../../../shared/api';
+import type { Role } from '@shared/api';
 import { Session } from './session';
 import { signInUrl } from './sign-in-url';
 

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { provideRouter, Router } from '@angular/router';
 
-import type { UserDto } from '../../../shared/api';
+import type { UserDto } from '@shared/api';
 import { authInterceptor } from './auth-interceptor';
 import { Session } from './session';
 

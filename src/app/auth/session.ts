@@ -2,7 +2,7 @@ import { HttpClient, HttpContext, HttpContextToken, HttpErrorResponse } from '@a
 import { computed, inject, Injectable, signal } from '@angular/core';
 import { catchError, map, Observable, of, tap } from 'rxjs';
 
-import type { LoginRequest, LoginResponse, Role, UserDto } from '../../../shared/api';
+import type { LoginRequest, LoginResponse, Role, UserDto } from '@shared/api';
 
 /** Where the bearer token is kept between visits. */
 const TOKEN_KEY = 'bellkeep.token';

@@ -12,8 +12,8 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 
-import type { BookingDto, ProfileDto, Role, SetupDto } from '../../../shared/api';
-import { formatCount } from '../../../shared/format/numbers';
+import type { BookingDto, ProfileDto, Role, SetupDto } from '@shared/api';
+import { formatCount } from '@shared/format/numbers';
 import { BookNightDialog, type BookNightData } from './book-night-dialog';
 import { signInAs, SOMEONE } from '../../testing/sign-in-as';
 

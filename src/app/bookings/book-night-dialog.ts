@@ -10,8 +10,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { filter, map, pairwise, startWith } from 'rxjs';
 
-import type { BookingDto, BookNightRequest, SetupDto } from '../../../shared/api';
-import { formatCount } from '../../../shared/format/numbers';
+import type { BookingDto, BookNightRequest, SetupDto } from '@shared/api';
+import { formatCount } from '@shared/format/numbers';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded, readyValue } from '../api/loaded';
 import { Session } from '../auth/session';

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { BookingDto, BookNightRequest } from '../../../shared/api';
+import type { BookingDto, BookNightRequest } from '@shared/api';
 
 /** The client of the API's bookings area. */
 @Injectable({ providedIn: 'root' })

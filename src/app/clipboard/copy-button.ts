@@ -13,15 +13,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
         <mat-icon>content_copy</mat-icon>{{ label }}
       </button>
     } @else {
-      <button
-        mat-icon-button
-        type="button"
-        class="bk-copy-icon"
-        [cdkCopyToClipboard]="text()"
-        (cdkCopyToClipboardCopied)="announce($event)"
-        [attr.aria-label]="'Copy ' + what()"
-        [title]="'Copy ' + what()"
-      >
+      <button mat-icon-button type="button" class="bk-copy-icon" [cdkCopyToClipboard]="text()" (cdkCopyToClipboardCopied)="announce($event)" [attr.aria-label]="'Copy ' + what()" [title]="'Copy ' + what()">
         <mat-icon>content_copy</mat-icon>
       </button>
     }`,

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 
-import { ROLE_LABELS } from '../../../shared/api';
+import { ROLE_LABELS } from '@shared/api';
 import { Session } from '../auth/session';
 import { ROLE_DUTIES } from './role-duties';
 

@@ -1,4 +1,4 @@
-import type { Role } from '../../../shared/api';
+import type { Role } from '@shared/api';
 
 /** What each role does in Bellkeep, in a sentence or two for the person holding it. */
 export const ROLE_DUTIES: Readonly<Record<Role, string>> = {

@@ -1,4 +1,4 @@
-import { formatPercent, formatScientific } from '../../../shared/format/numbers';
+import { formatPercent, formatScientific } from '@shared/format/numbers';
 
 /** Tick words of a logarithmic axis: the powers of ten in scientific notation ("1e6"), the ticks between them unlabelled. */
 export function powerOfTenTick(value: number | string): string {

@@ -1,4 +1,4 @@
-import { formatCount } from '../../../shared/format/numbers';
+import { formatCount } from '@shared/format/numbers';
 
 /** Seconds in each unit a duration is written in, largest first. */
 const UNITS = [

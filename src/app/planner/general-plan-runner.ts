@@ -1,7 +1,7 @@
 import { inject, Injectable, InjectionToken } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { GeneralAttackPlanDto } from '../../../shared/api';
+import type { GeneralAttackPlanDto } from '@shared/api';
 import type { GeneralPlanPart, GeneralPlanStep, GeneralPlanTask } from './general-plan-steps';
 
 /** What the page needs of a worker: `Worker` itself in the app, an in-process one in tests. */

@@ -1,4 +1,4 @@
-import type { GeneralAttackPlanDto } from '../../../shared/api';
+import type { GeneralAttackPlanDto } from '@shared/api';
 import {
   bestGeneralTestProbability,
   generalKeyCurve,
@@ -6,8 +6,8 @@ import {
   generalPlanCautions,
   generalPlanProblem,
   roundsForPositiveGeneralKey,
-} from '../../../shared/planner/plan-general-attack';
-import { PlanInputError, type PlanInput } from '../../../shared/planner/plan-rounds';
+} from '@shared/planner/plan-general-attack';
+import { PlanInputError, type PlanInput } from '@shared/planner/plan-rounds';
 
 /**
  * The general-attack plan is split in two tasks run side by side (each key length is a full

@@ -1,5 +1,5 @@
-import { LIKELY_PASS } from '../../../shared/planner/plan-rounds';
-import { formatPercent } from '../../../shared/format/numbers';
+import { LIKELY_PASS } from '@shared/planner/plan-rounds';
+import { formatPercent } from '@shared/format/numbers';
 
 /** How a pass probability is shown: its percentage, an icon and a word, never the colour alone. */
 export interface PassLook {

@@ -1,8 +1,8 @@
 import { TestBed } from '@angular/core/testing';
 
-import { parseProfile } from '../../../shared/analysis/profile';
-import type { AnalysisProfile } from '../../../shared/analysis/profile';
-import { planRounds } from '../../../shared/planner/plan-rounds';
+import { parseProfile } from '@shared/analysis/profile';
+import type { AnalysisProfile } from '@shared/analysis/profile';
+import { planRounds } from '@shared/planner/plan-rounds';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
 import { PlanFractionChart } from './plan-fraction-chart';
 

@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { PlanDto } from '../../../shared/api';
-import { formatCount, formatPercent } from '../../../shared/format/numbers';
+import type { PlanDto } from '@shared/api';
+import { formatCount, formatPercent } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 import { percentTick } from './chart-ticks';
 import { formatProbability } from './pass-look';
@@ -22,16 +22,8 @@ const BEST_DATASET = 2;
     <p class="bk-plan-star" aria-hidden="true">✱ {{ bestNote() }}</p>
   `,
   styles: `
-    .bk-plan-canvas {
-      position: relative;
-      height: 240px;
-    }
-    .bk-plan-star {
-      margin: 4px 0 0;
-      font: var(--mat-sys-body-small);
-      color: var(--mat-sys-on-surface-variant);
-      text-align: center;
-    }
+    .bk-plan-canvas { position: relative; height: 240px; }
+    .bk-plan-star { margin: 4px 0 0; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); text-align: center; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -1,8 +1,8 @@
 import { TestBed } from '@angular/core/testing';
 
-import { parseProfile, type AnalysisProfile } from '../../../shared/analysis/profile';
-import { expectedSiftedProtocol } from '../../../shared/analysis/report/sifted-protocol';
-import type { GeneralKeyPoint } from '../../../shared/api';
+import { parseProfile, type AnalysisProfile } from '@shared/analysis/profile';
+import { expectedSiftedProtocol } from '@shared/analysis/report/sifted-protocol';
+import type { GeneralKeyPoint } from '@shared/api';
 import { PlanGeneralFigures } from './plan-general-figures';
 
 const profileWith = (requirePositiveKey: boolean) => (parseProfile({ requirePositiveKey }) as { profile: AnalysisProfile }).profile;

@@ -1,10 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
-import type { AnalysisProfile } from '../../../shared/analysis/profile';
-import type { GeneralKeyPoint } from '../../../shared/api';
-import { formatCount, formatFixed, formatScientific } from '../../../shared/format/numbers';
-import { SEARCH_LIMIT } from '../../../shared/planner/plan-rounds';
+import type { AnalysisProfile } from '@shared/analysis/profile';
+import type { GeneralKeyPoint } from '@shared/api';
+import { formatCount, formatFixed, formatScientific } from '@shared/format/numbers';
+import { SEARCH_LIMIT } from '@shared/planner/plan-rounds';
 import type { GeneralPlanProgress } from './general-plan-runner';
 import { formatProbability } from './pass-look';
 
@@ -23,7 +23,9 @@ import { formatProbability } from './pass-look';
       @if (progress().status === 'computing') {
         <mat-progress-bar mode="indeterminate" aria-label="Computing the key against general attacks" />
       }
-      <p class="bk-plan-model" data-testid="plan-general-model">Attack model: general (any attack the entropy accumulation theorem covers). {{ modelNote() }}</p>
+      <p class="bk-plan-model" data-testid="plan-general-model">
+        Attack model: general (any attack the entropy accumulation theorem covers). {{ modelNote() }}
+      </p>
       <dl class="bk-plan-figures bk-figure">
         <div class="bk-plan-row">
           <dt>Key at this N</dt>

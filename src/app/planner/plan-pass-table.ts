@@ -1,10 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { PlanPoint } from '../../../shared/api';
-import type { AnalysisProfile } from '../../../shared/analysis/profile';
-import { QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
-import { formatCount, formatFixed, formatPercent } from '../../../shared/format/numbers';
+import type { PlanPoint } from '@shared/api';
+import type { AnalysisProfile } from '@shared/analysis/profile';
+import { QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { formatCount, formatFixed, formatPercent } from '@shared/format/numbers';
 import { passLook, type PassLook } from './pass-look';
 
 /** One row of the table: a criterion, what it compares, and its pass probability. */
@@ -44,44 +44,14 @@ interface PassRow {
     </table>
   `,
   styles: `
-    .bk-pass-table {
-      width: 100%;
-      border-collapse: collapse;
-    }
-    th,
-    td {
-      padding: 6px 8px;
-      border-bottom: 1px solid var(--mat-sys-outline-variant);
-      text-align: left;
-      vertical-align: top;
-    }
-    thead th {
-      font: var(--mat-sys-label-large);
-      color: var(--mat-sys-on-surface-variant);
-    }
-    tbody th {
-      font: var(--mat-sys-label-large);
-      font-weight: 500;
-    }
-    .bk-pass-value {
-      text-align: right;
-      white-space: nowrap;
-    }
-    .bk-pass-look {
-      display: inline-flex;
-      align-items: center;
-      gap: 4px;
-    }
-    .bk-pass-look mat-icon {
-      width: 18px;
-      height: 18px;
-      font-size: 18px;
-    }
-    .bk-pass-all th,
-    .bk-pass-all td {
-      font-weight: 600;
-      border-bottom: 0;
-    }
+    .bk-pass-table { width: 100%; border-collapse: collapse; }
+    th, td { padding: 6px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); text-align: left; vertical-align: top; }
+    thead th { font: var(--mat-sys-label-large); color: var(--mat-sys-on-surface-variant); }
+    tbody th { font: var(--mat-sys-label-large); font-weight: 500; }
+    .bk-pass-value { text-align: right; white-space: nowrap; }
+    .bk-pass-look { display: inline-flex; align-items: center; gap: 4px; }
+    .bk-pass-look mat-icon { width: 18px; height: 18px; font-size: 18px; }
+    .bk-pass-all th, .bk-pass-all td { font-weight: 600; border-bottom: 0; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

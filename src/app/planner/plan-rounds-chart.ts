@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { GeneralKeyPoint, PlanDto } from '../../../shared/api';
-import { formatCount, formatScientific } from '../../../shared/format/numbers';
+import type { GeneralKeyPoint, PlanDto } from '@shared/api';
+import { formatCount, formatScientific } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 import { percentTick, powerOfTenTick } from './chart-ticks';
 import { formatProbability } from './pass-look';
@@ -20,12 +20,7 @@ import { formatProbability } from './pass-look';
       <canvas baseChart [type]="'line'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
     </div>
   `,
-  styles: `
-    .bk-plan-canvas {
-      position: relative;
-      height: 280px;
-    }
-  `,
+  styles: `.bk-plan-canvas { position: relative; height: 280px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PlanRoundsChart {

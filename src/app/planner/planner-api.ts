@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { PlanPrefillDto } from '../../../shared/api';
+import type { PlanPrefillDto } from '@shared/api';
 
 /** The client of the API's planner area; the plan itself is computed in the browser. */
 @Injectable({ providedIn: 'root' })

@@ -1,10 +1,10 @@
 import { FormControl, FormGroup, Validators } from '@angular/forms';
 
-import { QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
-import { chshValueFromWinFraction, winFractionFromChshValue } from '../../../shared/analysis/statistics/chsh-value';
-import type { PlanPrefillDto } from '../../../shared/api';
-import type { PlanInput } from '../../../shared/planner/plan-rounds';
-import { formatCount } from '../../../shared/format/numbers';
+import { QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { chshValueFromWinFraction, winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import type { PlanPrefillDto } from '@shared/api';
+import type { PlanInput } from '@shared/planner/plan-rounds';
+import { formatCount } from '@shared/format/numbers';
 import { parseRoundCount, roundCountValidator } from './round-count';
 
 /** How the expected device strength is typed: as the CHSH win fraction ω or as the CHSH value S. */

@@ -1,7 +1,7 @@
 import { FormControl, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
 
-import { parseProfile, type AnalysisProfile } from '../../../shared/analysis/profile';
-import { formatScientific } from '../../../shared/format/numbers';
+import { parseProfile, type AnalysisProfile } from '@shared/analysis/profile';
+import { formatScientific } from '@shared/format/numbers';
 
 /** How the general-attack key is set up: not at all, from design values, or from fixed ones. */
 export type GeneralBasis = 'none' | 'design' | 'fixed';

@@ -2,8 +2,8 @@ import type { HttpTestingController } from '@angular/common/http/testing';
 import { ApplicationRef } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 
-import type { ProfileDto } from '../../../shared/api';
-import { parseProfile } from '../../../shared/analysis/profile';
+import type { ProfileDto } from '@shared/api';
+import { parseProfile } from '@shared/analysis/profile';
 import { configureDialogTestBed } from '../../testing/dialog-test-bed';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 

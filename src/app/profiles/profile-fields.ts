@@ -1,6 +1,6 @@
 import type { GeneralAttackControls } from './general-attack-form';
-import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '../../../shared/analysis/profile';
-import { formatCount, formatScientific } from '../../../shared/format/numbers';
+import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '@shared/analysis/profile';
+import { formatCount, formatScientific } from '@shared/format/numbers';
 
 /** A number of the profile the form edits as text (ε's in scientific notation). */
 export type NumberField =

@@ -8,8 +8,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { filter, switchMap } from 'rxjs';
 
-import type { ProfileDto, ProfileVersionDto } from '../../../shared/api';
-import type { AnalysisProfile } from '../../../shared/analysis/profile';
+import type { ProfileDto, ProfileVersionDto } from '@shared/api';
+import type { AnalysisProfile } from '@shared/analysis/profile';
 import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { CreateProfileRequest, CreateProfileVersionRequest, ProfileDto } from '../../../shared/api';
+import type { CreateProfileRequest, CreateProfileVersionRequest, ProfileDto } from '@shared/api';
 
 /** The client of the API's acceptance profiles area. */
 @Injectable({ providedIn: 'root' })

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { RunSummaryDto } from '../../../shared/api';
+import type { RunSummaryDto } from '@shared/api';
 import { bookingNote } from './booking-note';
 
 /**

@@ -1,4 +1,4 @@
-import type { RunSummaryDto } from '../../../shared/api';
+import type { RunSummaryDto } from '@shared/api';
 
 /** A run's booking in a word or two for a list: a caution (unbooked, a replay) or a replacement's attempt. */
 export interface BookingNote {

@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '../../../shared/analysis/statistics/bell-bounds';
-import { formatFixed } from '../../../shared/format/numbers';
+import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '@shared/analysis/statistics/bell-bounds';
+import { formatFixed } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 
 /** The S axis drawn, wide enough for both bounds and every value experiments report; widened for a value beyond it. */
@@ -19,12 +19,7 @@ const S_STEP = 0.2;
   template: `<div class="bk-scale-canvas">
     <canvas baseChart [type]="'scatter'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
   </div>`,
-  styles: `
-    .bk-scale-canvas {
-      position: relative;
-      height: 120px;
-    }
-  `,
+  styles: `.bk-scale-canvas { position: relative; height: 120px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChshScaleChart {

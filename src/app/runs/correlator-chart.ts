@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { ChshSummary } from '../../../shared/analysis/report/chsh-summary';
-import { formatFixed } from '../../../shared/format/numbers';
+import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import { formatFixed } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 
 /** Each correlator of ideal devices, 1/√2 (E11 at −1/√2, drawn as −E11). */
@@ -16,12 +16,7 @@ const IDEAL_CORRELATOR = Math.SQRT1_2;
   template: `<div class="bk-correlator-canvas">
     <canvas baseChart [type]="'bar'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
   </div>`,
-  styles: `
-    .bk-correlator-canvas {
-      position: relative;
-      height: 180px;
-    }
-  `,
+  styles: `.bk-correlator-canvas { position: relative; height: 180px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CorrelatorChart {

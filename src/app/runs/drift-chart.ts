@@ -2,9 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions, PointStyle } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { BlockSummary, FractionInterval } from '../../../shared/analysis/report/block-summary';
-import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
-import { formatFixed, formatPercent } from '../../../shared/format/numbers';
+import type { BlockSummary, FractionInterval } from '@shared/analysis/report/block-summary';
+import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { formatFixed, formatPercent } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 
 /** A block's value against a threshold: which side of it counts as a failure. */
@@ -44,17 +44,9 @@ interface DriftPanel {
     }
   `,
   styles: `
-    .bk-drift-panel {
-      margin: 0 0 12px;
-    }
-    figcaption {
-      font: var(--mat-sys-label-large);
-      margin-bottom: 4px;
-    }
-    .bk-drift-canvas {
-      position: relative;
-      height: 220px;
-    }
+    .bk-drift-panel { margin: 0 0 12px; }
+    figcaption { font: var(--mat-sys-label-large); margin-bottom: 4px; }
+    .bk-drift-canvas { position: relative; height: 220px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -1,4 +1,4 @@
-import { EXPORT_FORMATS, type ExportFormat } from '../../../shared/api';
+import { EXPORT_FORMATS, type ExportFormat } from '@shared/api';
 
 /** Each export of a run in words, as the export menu and the trail name it. */
 export const EXPORT_FORMAT_LABELS: Readonly<Record<ExportFormat, string>> = {

@@ -1,5 +1,5 @@
-import { missingRoundsState, missingShareText, type MissingRoundsState, type MissingRoundsSummary } from '../../../shared/analysis/report/missing-rounds';
-import { formatCount } from '../../../shared/format/numbers';
+import { missingRoundsState, missingShareText, type MissingRoundsState, type MissingRoundsSummary } from '@shared/analysis/report/missing-rounds';
+import { formatCount } from '@shared/format/numbers';
 
 /** The missing-rounds line of a run, every figure formatted. */
 export interface MissingRoundsFigures {

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { MissingRoundsSummary } from '../../../shared/analysis/report/missing-rounds';
+import type { MissingRoundsSummary } from '@shared/analysis/report/missing-rounds';
 import { missingRoundsFigures } from './missing-rounds-figures';
 
 /** The rounds a log lacks between its first and last index: a calm line, or a warning past the profile's tolerance. */
@@ -28,15 +28,8 @@ import { missingRoundsFigures } from './missing-rounds-figures';
     }
   `,
   styles: `
-    :host {
-      display: block;
-    }
-    .bk-missing {
-      display: flex;
-      flex-wrap: wrap;
-      align-items: baseline;
-      gap: 4px 10px;
-    }
+    :host { display: block; }
+    .bk-missing { display: flex; flex-wrap: wrap; align-items: baseline; gap: 4px 10px; }
     .bk-missing-over {
       padding: 8px 10px;
       border: 1px solid var(--bk-threshold);
@@ -44,25 +37,10 @@ import { missingRoundsFigures } from './missing-rounds-figures';
       border-radius: var(--mat-sys-corner-small);
       background: color-mix(in srgb, var(--bk-threshold) 8%, transparent);
     }
-    .bk-missing-word {
-      display: inline-flex;
-      align-items: center;
-      gap: 4px;
-      font-weight: 500;
-      white-space: nowrap;
-      align-self: center;
-    }
-    .bk-missing-word:not(.bk-tone-warn) {
-      color: var(--mat-sys-on-surface-variant);
-    }
-    .bk-tone-warn {
-      color: var(--bk-threshold);
-    }
-    mat-icon {
-      width: 18px;
-      height: 18px;
-      font-size: 18px;
-    }
+    .bk-missing-word { display: inline-flex; align-items: center; gap: 4px; font-weight: 500; white-space: nowrap; align-self: center; }
+    .bk-missing-word:not(.bk-tone-warn) { color: var(--mat-sys-on-surface-variant); }
+    .bk-tone-warn { color: var(--bk-threshold); }
+    mat-icon { width: 18px; height: 18px; font-size: 18px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

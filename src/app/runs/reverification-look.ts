@@ -1,4 +1,4 @@
-import { REVERIFICATION_STATES, type ReverificationState } from '../../../shared/api';
+import { REVERIFICATION_STATES, type ReverificationState } from '@shared/api';
 import type { VerdictLook } from './verdict-look';
 
 const LOOKS: Record<ReverificationState, VerdictLook> = {

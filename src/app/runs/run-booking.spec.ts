@@ -1,8 +1,8 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 
-import type { RunBookingDto, RunDto } from '../../../shared/api';
-import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '../../../shared/format/booking-words';
+import type { RunBookingDto, RunDto } from '@shared/api';
+import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '@shared/format/booking-words';
 import { RunBooking } from './run-booking';
 
 const SEED = '9f2c4e81a7d35b60c8e1f4a29b7d03e56a1c8f42e7b90d35c6a2f81e4b7d09c3';

@@ -4,8 +4,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, from, map, of, startWith, switchMap } from 'rxjs';
 
-import type { RunDto } from '../../../shared/api';
-import { bookingWords, REVEALED_SEED_CAUTION } from '../../../shared/format/booking-words';
+import type { RunDto } from '@shared/api';
+import { bookingWords, REVEALED_SEED_CAUTION } from '@shared/format/booking-words';
 import { checkSeedCommitment, type CommitmentCheck } from '../bookings/seed-commitment';
 import { CopyButton } from '../clipboard/copy-button';
 import { runLinkParts } from './run-link-parts';

@@ -1,7 +1,7 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { CheckResult } from '../../../shared/analysis/checks/check-result';
-import type { SecuritySummary } from '../../../shared/analysis/report/security-summary';
+import type { CheckResult } from '@shared/analysis/checks/check-result';
+import type { SecuritySummary } from '@shared/analysis/report/security-summary';
 import { RunChecks } from './run-checks';
 
 const security = {

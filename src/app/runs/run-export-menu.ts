@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatSnackBar } from '@angular/material/snack-bar';
 
-import type { ExportFormat } from '../../../shared/api';
+import type { ExportFormat } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { EXPORT_FORMAT_LABELS, EXPORT_MENU_ORDER } from './export-formats';
 import { RunsApi } from './runs-api';

@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { ResultSignatureDto, VerificationDto } from '../../../shared/api';
+import type { ResultSignatureDto, VerificationDto } from '@shared/api';
 import { RunIntegrity } from './run-integrity';
 
 const signature: ResultSignatureDto = {

@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { startWith, Subject, switchMap } from 'rxjs';
 
-import type { ResultSignatureDto, VerificationCheck, VerificationDto } from '../../../shared/api';
+import type { ResultSignatureDto, VerificationCheck, VerificationDto } from '@shared/api';
 import { loaded, type Loaded } from '../api/loaded';
 import { RunsApi } from './runs-api';
 

@@ -4,7 +4,7 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter, Router } from '@angular/router';
 
-import type { Role, RunPageDto, RunSummaryDto } from '../../../shared/api';
+import type { Role, RunPageDto, RunSummaryDto } from '@shared/api';
 import { RunList } from './run-list';
 import { signInAs } from '../../testing/sign-in-as';
 import { settle } from '../../testing/settle';

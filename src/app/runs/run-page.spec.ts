@@ -4,8 +4,8 @@ import { TestBed } from '@angular/core/testing';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 
-import type { RunDto, SetupDto } from '../../../shared/api';
-import { UNBOOKED_CAUTION } from '../../../shared/format/booking-words';
+import type { RunDto, SetupDto } from '@shared/api';
+import { UNBOOKED_CAUTION } from '@shared/format/booking-words';
 import { RunPage } from './run-page';
 
 /** A run whose analysis stopped: finished, with no result to draw. */

@@ -7,14 +7,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
 
-import type { RunDto, SetupDto, SignOffDto } from '../../../shared/api';
-import { formatCount, formatFixed, formatScientific } from '../../../shared/format/numbers';
+import type { RunDto, SetupDto, SignOffDto } from '@shared/api';
+import { formatCount, formatFixed, formatScientific } from '@shared/format/numbers';
 import { loaded, type Loaded } from '../api/loaded';
 import { SetupsApi } from '../setups/setups-api';
 import { CorrelatorChart } from './correlator-chart';
 import { DriftChart } from './drift-chart';
-import { winThresholdOf } from '../../../shared/analysis/report/win-threshold';
-import { criteriaTable } from '../../../shared/analysis/report/criteria-table';
+import { winThresholdOf } from '@shared/analysis/report/win-threshold';
+import { criteriaTable } from '@shared/analysis/report/criteria-table';
 import { missingRoundsFigures } from './missing-rounds-figures';
 import { RunBooking } from './run-booking';
 import { RunChecks } from './run-checks';

@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { ReverificationDto, Role } from '../../../shared/api';
+import type { ReverificationDto, Role } from '@shared/api';
 import { RunReverifications } from './run-reverifications';
 import { signInAs } from '../../testing/sign-in-as';
 

@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { startWith, Subject, switchMap } from 'rxjs';
 
-import type { Role } from '../../../shared/api';
+import type { Role } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';

@@ -14,7 +14,7 @@ import {
   type RunPageDto,
   type SignOffDto,
   type VerificationDto,
-} from '../../../shared/api';
+} from '@shared/api';
 import { FileDownloads } from '../api/download';
 import { queryParams } from '../api/query-params';
 

@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatExpansionModule } from '@angular/material/expansion';
 
-import type { SecuritySummary } from '../../../shared/analysis/report/security-summary';
-import { formatCount, formatScientific } from '../../../shared/format/numbers';
+import type { SecuritySummary } from '@shared/analysis/report/security-summary';
+import { formatCount, formatScientific } from '@shared/format/numbers';
 import { KeyCaution } from './key-caution';
 
 /** The key figure each attack model stands for, in words. */

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
-import type { ChshSummary } from '../../../shared/analysis/report/chsh-summary';
-import { formatScientific } from '../../../shared/format/numbers';
+import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import { formatScientific } from '@shared/format/numbers';
 import { settingPairsTable } from './setting-pairs';
 
 /** The CHSH test by setting pair: each pair's rounds, wins and bound, then the balanced figure the verdict uses. */

@@ -1,5 +1,5 @@
-import { summariseChsh } from '../../../shared/analysis/report/chsh-summary';
-import { COUNT_CELLS, countCell } from '../../../shared/analysis/tally/count-table';
+import { summariseChsh } from '@shared/analysis/report/chsh-summary';
+import { COUNT_CELLS, countCell } from '@shared/analysis/tally/count-table';
 import { settingPairsTable } from './setting-pairs';
 
 const THIN = '\u2009';

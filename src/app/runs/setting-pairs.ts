@@ -1,5 +1,5 @@
-import type { ChshSummary } from '../../../shared/analysis/report/chsh-summary';
-import { formatCount, formatFixed } from '../../../shared/format/numbers';
+import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import { formatCount, formatFixed } from '@shared/format/numbers';
 
 /** One CHSH setting pair (x, y) as the run page lists it, every figure formatted. */
 export interface SettingPairRow {

@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
-import type { ChshSummary } from '../../../shared/analysis/report/chsh-summary';
-import type { CountTable } from '../../../shared/analysis/tally/count-table';
-import { formatCount, formatFixed } from '../../../shared/format/numbers';
+import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import type { CountTable } from '@shared/analysis/tally/count-table';
+import { formatCount, formatFixed } from '@shared/format/numbers';
 
 /** One cell of the settings table: setting pair (x, y), its rounds and what it is for. */
 interface SettingCell {
@@ -43,25 +43,10 @@ interface SettingCell {
     </table>
   `,
   styles: `
-    .bk-settings {
-      width: 100%;
-      border-collapse: collapse;
-    }
-    th,
-    td {
-      padding: 6px 8px;
-      border: 1px solid var(--mat-sys-outline-variant);
-      text-align: right;
-      vertical-align: top;
-    }
-    th {
-      font: var(--mat-sys-label-large);
-      background: var(--mat-sys-surface-container-low);
-    }
-    .bk-settings-note {
-      font: var(--mat-sys-label-medium);
-      color: var(--mat-sys-primary);
-    }
+    .bk-settings { width: 100%; border-collapse: collapse; }
+    th, td { padding: 6px 8px; border: 1px solid var(--mat-sys-outline-variant); text-align: right; vertical-align: top; }
+    th { font: var(--mat-sys-label-large); background: var(--mat-sys-surface-container-low); }
+    .bk-settings-note { font: var(--mat-sys-label-medium); color: var(--mat-sys-primary); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -6,7 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 
-import { FINISHED_STATES, type RunDto, type SetupDto, type SignOffDto } from '../../../shared/api';
+import { FINISHED_STATES, type RunDto, type SetupDto, type SignOffDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
 import { leadsSetup } from '../setups/setup-lead';

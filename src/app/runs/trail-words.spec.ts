@@ -1,4 +1,4 @@
-import { AUDIT_ACTIONS } from '../../../shared/api';
+import { AUDIT_ACTIONS } from '@shared/api';
 import { trailDetail, trailWords } from './trail-words';
 
 describe('trailWords', () => {

@@ -1,5 +1,5 @@
-import { isRole, ROLE_LABELS, type AuditAction, type AuditEventDto } from '../../../shared/api';
-import { formatCount } from '../../../shared/format/numbers';
+import { isRole, ROLE_LABELS, type AuditAction, type AuditEventDto } from '@shared/api';
+import { formatCount } from '@shared/format/numbers';
 import { EXPORT_FORMAT_LABELS, isExportFormat } from './export-formats';
 import { isReverificationState, lookOfReverification } from './reverification-look';
 

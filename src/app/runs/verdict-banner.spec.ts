@@ -1,7 +1,7 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { AnalysisResult } from '../../../shared/analysis/result';
-import type { RunDto } from '../../../shared/api';
+import type { AnalysisResult } from '@shared/analysis/result';
+import type { RunDto } from '@shared/api';
 import { VerdictBanner } from './verdict-banner';
 
 /** A run with only what the banner reads, its result too. */

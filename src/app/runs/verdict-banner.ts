@@ -2,9 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
-import type { RunDto } from '../../../shared/api';
-import { formatCount } from '../../../shared/format/numbers';
-import { verdictSentence } from '../../../shared/format/verdict-sentence';
+import type { RunDto } from '@shared/api';
+import { formatCount } from '@shared/format/numbers';
+import { verdictSentence } from '@shared/format/verdict-sentence';
 import { lookOfState } from './verdict-look';
 import { workerWait } from './worker-wait';
 

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { RunState } from '../../../shared/api';
+import type { RunState } from '@shared/api';
 import { lookOfState } from './verdict-look';
 
 /** A run's state as a chip: icon, word and tone. */

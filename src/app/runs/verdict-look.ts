@@ -1,4 +1,4 @@
-import { STATE_OF_VERDICT, type RunState, type Verdict } from '../../../shared/api';
+import { STATE_OF_VERDICT, type RunState, type Verdict } from '@shared/api';
 
 /** The tone of a run's state: names the `bk-tone-*` class and the `--bk-*` colour. */
 export type VerdictTone = 'accept' | 'abort' | 'invalid' | 'pending';

@@ -2,8 +2,8 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { Chart, ChartData, ChartOptions, Plugin } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '../../../shared/analysis/statistics/bell-bounds';
-import { formatFixed } from '../../../shared/format/numbers';
+import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { formatFixed } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 
 /** The stretch of win fractions the bar spans: a little below the local bound up to the quantum maximum. */
@@ -20,17 +20,8 @@ const AXIS = { min: LOCAL_WIN_FRACTION - 0.05, max: QUANTUM_WIN_FRACTION };
     </span>
   `,
   styles: `
-    .bk-win-bar {
-      display: inline-flex;
-      align-items: center;
-      gap: 8px;
-    }
-    .bk-win-canvas {
-      position: relative;
-      display: inline-block;
-      width: 96px;
-      height: 18px;
-    }
+    .bk-win-bar { display: inline-flex; align-items: center; gap: 8px; }
+    .bk-win-canvas { position: relative; display: inline-block; width: 96px; height: 18px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

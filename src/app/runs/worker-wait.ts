@@ -1,4 +1,4 @@
-import { WORKER_HEARTBEAT_SECONDS, WORKER_SILENT_AFTER_BEATS, type RunDto } from '../../../shared/api';
+import { WORKER_HEARTBEAT_SECONDS, WORKER_SILENT_AFTER_BEATS, type RunDto } from '@shared/api';
 
 /** A queued run is overdue for a worker after this long. */
 const QUEUED_OVERDUE_MS = 20_000;

@@ -10,8 +10,9 @@ import { acquisitionRecipe, UPLOAD_TOKEN_PLACEHOLDER } from './acquisition-recip
   imports: [CopyButton],
   template: `
     <p>
-      Sends a log from the acquisition computer with curl, resumably: when the link breaks off, it asks how far the upload got and goes on from there. Put an upload token of this
-      setup in place of <code>{{ placeholder }}</code>. The log goes to the booking whose window is open or closed less than a day ago; with none, the run is unbooked.
+      Sends a log from the acquisition computer with curl, resumably: when the link breaks off, it asks how far the upload got and
+      goes on from there. Put an upload token of this setup in place of <code>{{ placeholder }}</code>. The log goes to the booking
+      whose window is open or closed less than a day ago; with none, the run is unbooked.
     </p>
     <pre class="bk-recipe" data-testid="acquisition-recipe">{{ recipe() }}</pre>
     <bk-copy-button [text]="recipe()" what="the acquisition recipe" label="Copy the recipe" />

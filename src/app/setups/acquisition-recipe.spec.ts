@@ -8,7 +8,7 @@ import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 
-import { RESUMABLE_UPLOAD_PATH } from '../../../shared/api';
+import { RESUMABLE_UPLOAD_PATH } from '@shared/api';
 import { acquisitionRecipe, UPLOAD_TOKEN_PLACEHOLDER } from './acquisition-recipe';
 
 const LOG = 'round,x,y,a,b\n1,0,1,0,0\n2,1,1,1,0\n3,0,0,1,1\n4,1,0,0,0\n';

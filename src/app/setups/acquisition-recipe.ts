@@ -1,4 +1,4 @@
-import { RESUMABLE_UPLOAD_PATH } from '../../../shared/api';
+import { RESUMABLE_UPLOAD_PATH } from '@shared/api';
 
 /** What the recipe has in place of the token, which the shift lead pastes in. */
 export const UPLOAD_TOKEN_PLACEHOLDER = '<upload token>';

@@ -8,7 +8,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 
-import type { CreatedUploadTokenDto, SetupDto } from '../../../shared/api';
+import type { CreatedUploadTokenDto, SetupDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CopyButton } from '../clipboard/copy-button';
 import { SetupsApi } from './setups-api';

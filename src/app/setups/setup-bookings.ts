@@ -3,8 +3,8 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 
-import type { BookingDto } from '../../../shared/api';
-import { formatCount } from '../../../shared/format/numbers';
+import type { BookingDto } from '@shared/api';
+import { formatCount } from '@shared/format/numbers';
 import { ShortHash } from '../runs/short-hash';
 import { VerdictChip } from '../runs/verdict-chip';
 

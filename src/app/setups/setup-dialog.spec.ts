@@ -3,7 +3,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 
-import type { ProfileDto, SetupDto, UserDto } from '../../../shared/api';
+import type { ProfileDto, SetupDto, UserDto } from '@shared/api';
 import { configureDialogTestBed } from '../../testing/dialog-test-bed';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';
 

@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { catchError, map, of } from 'rxjs';
 
-import type { SaveSetupRequest, SetupDto } from '../../../shared/api';
+import type { SaveSetupRequest, SetupDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { UsersApi } from '../users/users-api';

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 
-import type { SetupDto } from '../../../shared/api';
+import type { SetupDto } from '@shared/api';
 
 /** A setup's stations, default profile, shift leads and further mail recipients, as a list of terms. */
 @Component({

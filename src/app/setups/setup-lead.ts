@@ -1,4 +1,4 @@
-import type { SetupDto, UserDto } from '../../../shared/api';
+import type { SetupDto, UserDto } from '@shared/api';
 
 /** Whether `user` holds the shift-lead role and is one of `setup`'s shift leads, who sign off its runs and keep its upload tokens. */
 export function leadsSetup(user: UserDto | null, setup: SetupDto | null): boolean {

@@ -8,7 +8,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
 
-import type { SetupDto } from '../../../shared/api';
+import type { SetupDto } from '@shared/api';
 import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';

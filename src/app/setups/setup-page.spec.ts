@@ -9,7 +9,7 @@ import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { provideRouter } from '@angular/router';
 
-import type { BookingDto, CreatedUploadTokenDto, Role, SetupDto, UploadTokenDto } from '../../../shared/api';
+import type { BookingDto, CreatedUploadTokenDto, Role, SetupDto, UploadTokenDto } from '@shared/api';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
 import { SetupPage } from './setup-page';
 import { signInAs } from '../../testing/sign-in-as';

@@ -6,7 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { of, switchMap } from 'rxjs';
 
-import type { SetupDto } from '../../../shared/api';
+import type { SetupDto } from '@shared/api';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { BookingsApi } from '../bookings/bookings-api';

@@ -4,8 +4,8 @@ import type { ChartData, ChartOptions, PointStyle } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 import { switchMap } from 'rxjs';
 
-import type { RunSummaryDto, Verdict } from '../../../shared/api';
-import { formatFixed, formatPercent } from '../../../shared/format/numbers';
+import type { RunSummaryDto, Verdict } from '@shared/api';
+import { formatFixed, formatPercent } from '@shared/format/numbers';
 import { loaded } from '../api/loaded';
 import { chartTone, type ChartTone } from '../charts/chart-tones';
 import { RunsApi } from '../runs/runs-api';
@@ -50,17 +50,8 @@ const VERDICT_MARKS: Record<Verdict, { style: PointStyle; tone: ChartTone }> = {
     }
   `,
   styles: `
-    .bk-trend-canvas {
-      position: relative;
-      height: 220px;
-    }
-    .bk-trend-legend {
-      display: flex;
-      gap: 16px;
-      margin: 4px 0 0;
-      font: var(--mat-sys-body-small);
-      color: var(--mat-sys-on-surface-variant);
-    }
+    .bk-trend-canvas { position: relative; height: 220px; }
+    .bk-trend-legend { display: flex; gap: 16px; margin: 4px 0 0; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

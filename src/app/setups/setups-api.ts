@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { CreatedUploadTokenDto, CreateUploadTokenRequest, SaveSetupRequest, SetupDto, UploadTokenDto } from '../../../shared/api';
+import type { CreatedUploadTokenDto, CreateUploadTokenRequest, SaveSetupRequest, SetupDto, UploadTokenDto } from '@shared/api';
 
 /** The client of the API's setups area. */
 @Injectable({ providedIn: 'root' })

@@ -1,4 +1,4 @@
-import type { UploadTokenDto } from '../../../shared/api';
+import type { UploadTokenDto } from '@shared/api';
 
 /** Whether an upload token still works, in words with an icon: never the colour alone. */
 export interface UploadTokenState {

@@ -8,7 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { filter, switchMap } from 'rxjs';
 
-import type { CreatedUploadTokenDto, SetupDto, UploadTokenDto } from '../../../shared/api';
+import type { CreatedUploadTokenDto, SetupDto, UploadTokenDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';

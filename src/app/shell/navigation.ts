@@ -1,4 +1,4 @@
-import { ROLES, type Role } from '../../../shared/api';
+import { ROLES, type Role } from '@shared/api';
 
 /** One entry of the side navigation, and who may open its page. */
 export interface NavItem {

@@ -4,7 +4,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter, Router } from '@angular/router';
 
-import type { Role } from '../../../shared/api';
+import type { Role } from '@shared/api';
 import { Session } from '../auth/session';
 import { Shell } from './shell';
 import { signInAs } from '../../testing/sign-in-as';

@@ -11,7 +11,7 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 
-import { ROLE_LABELS } from '../../../shared/api';
+import { ROLE_LABELS } from '@shared/api';
 import { Session } from '../auth/session';
 import { navItemsFor } from './navigation';
 import { WorkersAlert } from '../workers/workers-alert';

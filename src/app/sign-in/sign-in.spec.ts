@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
 
-import type { LoginResponse } from '../../../shared/api';
+import type { LoginResponse } from '@shared/api';
 import { Session } from '../auth/session';
 import { SignIn } from './sign-in';
 

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 
-import { isRole, ROLE_LABELS } from '../../../shared/api';
+import { isRole, ROLE_LABELS } from '@shared/api';
 import { Session } from '../auth/session';
 import { NAV_ITEMS } from '../shell/navigation';
 

@@ -1,4 +1,4 @@
-import type { BookingDto } from '../../../shared/api';
+import type { BookingDto } from '@shared/api';
 import { openBookings, replacementIn } from './booking-choice';
 
 const booking = (id: number, windowStart: string, windowEnd: string, runIds: number[] = []): BookingDto => ({

@@ -1,4 +1,4 @@
-import type { BookingDto } from '../../../shared/api';
+import type { BookingDto } from '@shared/api';
 
 /** How long after its window closes a booking still takes a log that names none (the server's rule, server/bookings). */
 const UPLOAD_GRACE_MS = 24 * 3_600_000;

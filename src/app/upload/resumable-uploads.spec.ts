@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import type { HttpRequest, HttpResponse, HttpStack } from 'tus-js-client';
 
-import type { RunDto } from '../../../shared/api';
+import type { RunDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { RESUMABLE_HTTP_STACK, ResumableUploads, type UploadProgress } from './resumable-uploads';
 import type { LogUpload } from './upload-metadata';

@@ -4,7 +4,7 @@ import { inject, Injectable, InjectionToken } from '@angular/core';
 import { catchError, firstValueFrom, Observable, of } from 'rxjs';
 import { Upload, type DetailedError, type HttpRequest, type HttpResponse, type HttpStack } from 'tus-js-client';
 
-import { RESUMABLE_UPLOAD_PATH, type RunDto } from '../../../shared/api';
+import { RESUMABLE_UPLOAD_PATH, type RunDto } from '@shared/api';
 import { Session } from '../auth/session';
 import { shouldRetryUpload, uploadFailure } from './upload-failure';
 import { uploadMetadata, type LogUpload } from './upload-metadata';

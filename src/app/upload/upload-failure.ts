@@ -1,7 +1,7 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import type { DetailedError } from 'tus-js-client';
 
-import type { ApiErrorBody } from '../../../shared/api';
+import type { ApiErrorBody } from '@shared/api';
 
 /** The server's answer as JSON, or the text itself when it is not JSON. */
 function parsedBody(text: string): unknown {

@@ -8,7 +8,7 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 import { Subject } from 'rxjs';
 
-import type { BookingDto, ProfileDto, RunDto, SetupDto } from '../../../shared/api';
+import type { BookingDto, ProfileDto, RunDto, SetupDto } from '@shared/api';
 import { ResumableUploads, type UploadProgress } from './resumable-uploads';
 import type { LogUpload } from './upload-metadata';
 import { UploadPage } from './upload-page';

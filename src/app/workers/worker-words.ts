@@ -1,4 +1,4 @@
-import type { WorkerCondition } from '../../../shared/api';
+import type { WorkerCondition } from '@shared/api';
 
 /** Each condition of a worker as an icon and words (never colour alone). */
 export const WORKER_CONDITION_WORDS: Record<WorkerCondition, { icon: string; words: string }> = {

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable, switchMap, timer } from 'rxjs';
 
-import type { WorkersOverviewDto } from '../../../shared/api';
+import type { WorkersOverviewDto } from '@shared/api';
 
 /** How often the admins' view of the workers asks again. */
 const REFRESH_MILLISECONDS = 15_000;

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 
-import type { WorkerDto } from '../../../shared/api';
+import type { WorkerDto } from '@shared/api';
 import { failureMessage, loaded, readyValue } from '../api/loaded';
 import { WORKER_CONDITION_WORDS } from './worker-words';
 import { WorkersApi } from './workers-api';
