@@ -1,47 +1,43 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, debounceTime, filter, map, of, switchMap } from 'rxjs';
+import { catchError, of } from 'rxjs';
 
-import { VERDICTS, type RunSummaryDto, type Verdict } from '../../../shared/api';
-import { loaded, pageContents } from '../api/loaded';
+import type { RunSummaryDto, Verdict } from '@shared/api';
+import { ChoiceFilter } from '../lists/choice-filter';
+import { setupChoices, VERDICT_CHOICES } from '../lists/filter-choices';
+import { ListFrame } from '../lists/list-frame';
+import { pagedList } from '../lists/paged-list';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { RunsApi, type RunQuery } from '../runs/runs-api';
 import { BookingNoteLine } from '../runs/booking-note-line';
 import { ShortHash } from '../runs/short-hash';
 import { VerdictChip } from '../runs/verdict-chip';
-import { lookOfVerdict } from '../runs/verdict-look';
-import { SetupsApi } from '../setups/setups-api';
 import { hexPrefixQuery, hexPrefixValidator, WHILE_TYPING } from './hex-prefix';
 
 /** Finished runs only, the latest nights first. */
 const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'acquiredOn', direction: 'desc', finished: true };
-
-/** How long typing may pause before the list is asked for again. */
-const TYPING_PAUSE_MILLISECONDS = 300;
 
 /** Every finished run, found by setup, verdict, profile version, night or the start of a hash. Rows open the run. */
 @Component({
   selector: 'bk-finished-runs',
   imports: [
     BookingNoteLine,
+    ChoiceFilter,
     DatePipe,
+    ListFrame,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
-    MatPaginatorModule,
-    MatProgressBarModule,
     MatSelectModule,
     MatTableModule,
     ReactiveFormsModule,
@@ -58,7 +54,8 @@ export class FinishedRuns {
   private readonly router = inject(Router);
 
   protected readonly columns = ['id', 'setup', 'acquiredOn', 'verdict', 'profile', 'fileSha256', 'fingerprint'];
-  protected readonly verdicts = VERDICTS.map((verdict) => ({ value: verdict, label: lookOfVerdict(verdict).word }));
+  protected readonly verdicts = VERDICT_CHOICES;
+  protected readonly setups = setupChoices();
   protected readonly whileTyping = WHILE_TYPING;
 
   protected readonly filters = new FormGroup({
@@ -71,12 +68,6 @@ export class FinishedRuns {
     fingerprint: new FormControl<string | null>('', hexPrefixValidator),
   });
 
-  protected readonly setups = toSignal(
-    inject(SetupsApi)
-      .list()
-      .pipe(catchError(() => of([]))),
-    { initialValue: [] },
-  );
   protected readonly profiles = toSignal(
     inject(ProfilesApi)
       .list()
@@ -84,42 +75,11 @@ export class FinishedRuns {
     { initialValue: [] },
   );
 
-  /** The filters last applied: a field with a bad hash prefix holds the list where it was. */
-  private readonly chosen = toSignal(
-    this.filters.valueChanges.pipe(
-      debounceTime(TYPING_PAUSE_MILLISECONDS),
-      filter(() => this.filters.valid),
-      map(() => this.chosenFilters()),
-    ),
-    { initialValue: {} },
-  );
-  /** Back to the first page whenever the filters change. */
-  private readonly paging = linkedSignal<Partial<RunQuery>, Pick<RunQuery, 'page' | 'pageSize'>>({
-    source: this.chosen,
-    computation: (_chosen, previous) => ({ page: 0, pageSize: previous?.value.pageSize ?? FIRST_PAGE.pageSize }),
-  });
-  private readonly reload = signal(0);
-  protected readonly query = computed<RunQuery>(() => ({ ...FIRST_PAGE, ...this.paging(), ...this.chosen() }));
-
-  protected readonly page = toSignal(
-    toObservable(computed(() => ({ query: this.query(), attempt: this.reload() }))).pipe(switchMap(({ query }) => loaded(this.runsApi.list(query)))),
-    { initialValue: { status: 'loading' } },
-  );
-  private readonly contents = computed(() => pageContents(this.page()));
-  protected readonly rows = computed(() => this.contents().rows);
-  protected readonly total = computed(() => this.contents().total);
-  protected readonly filtered = computed(() => Object.keys(this.chosen()).length > 0);
-
-  protected turnPage(event: PageEvent): void {
-    this.paging.set({ page: event.pageIndex, pageSize: event.pageSize });
-  }
+  /** Finished runs under the filters; a field with a bad hash prefix holds the list where it was. */
+  protected readonly list = pagedList({ filters: this.filters, chosen: () => this.chosenFilters(), firstPage: FIRST_PAGE, load: (query) => this.runsApi.list(query) });
 
   protected clearFilters(): void {
     this.filters.reset({ from: '', to: '', sha256: '', fingerprint: '' });
-  }
-
-  protected retry(): void {
-    this.reload.update((attempt) => attempt + 1);
   }
 
   protected openRun(run: RunSummaryDto): void {
@@ -129,7 +89,6 @@ export class FinishedRuns {
   private chosenFilters(): Partial<RunQuery> {
     const { setupId, verdict, profileVersionId, from, to } = this.filters.getRawValue();
     const { sha256, fingerprint } = this.filters.controls;
-    const chosen: Partial<RunQuery> = { setupId, verdict, profileVersionId, from, to, sha256: hexPrefixQuery(sha256), fingerprint: hexPrefixQuery(fingerprint) };
-    return Object.fromEntries(Object.entries(chosen).filter(([, value]) => value !== null && value !== ''));
+    return { setupId, verdict, profileVersionId, from, to, sha256: hexPrefixQuery(sha256), fingerprint: hexPrefixQuery(fingerprint) };
   }
 }

@@ -3,7 +3,7 @@ import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 
-import { ROLE_LABELS, ROLES, type Role } from '../../../shared/api';
+import { ROLE_LABELS, ROLES, type Role } from '@shared/api';
 
 /** A choice of one or more roles, bound to a form control that requires at least one. */
 @Component({

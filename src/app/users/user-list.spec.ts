@@ -11,7 +11,7 @@ import { MatMenuHarness } from '@angular/material/menu/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 
-import type { UserDto } from '../../../shared/api';
+import type { UserDto } from '@shared/api';
 import { UserList } from './user-list';
 
 const people: UserDto[] = [
@@ -188,12 +188,12 @@ describe('UserList', () => {
     await showList(people);
     await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Actions for Tomas Reyne"]' }))).click();
     const menu = await documentLoader.getHarness(MatMenuHarness.with({ selector: '[aria-label="Actions for Tomas Reyne"]' }));
-    await menu.clickItem({ text: /Change roles/ });
+    await menu.clickItem({ text: /Change name, e-mail or roles/ });
     const dialog = await documentLoader.getHarness(MatDialogHarness);
     const roles = await dialog.getHarness(MatSelectHarness);
     await roles.open();
     await roles.clickOptions({ text: 'Shift lead' });
-    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save roles' }))).click();
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save changes' }))).click();
 
     const request = http.expectOne('/api/users/2');
     expect(request.request.method).toBe('PATCH');
@@ -203,6 +203,25 @@ describe('UserList', () => {
 
     const roleCells = (await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['roles'].text;
     expect(roleCells).toEqual(['Auditor', 'Admin', 'Experimentalist']);
+  });
+
+  it('changes a user’s name and e-mail in the same dialog, sending only what changed, with no password field', async () => {
+    await showList(people);
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Actions for Tomas Reyne"]' }))).click();
+    const menu = await documentLoader.getHarness(MatMenuHarness.with({ selector: '[aria-label="Actions for Tomas Reyne"]' }));
+    await menu.clickItem({ text: /Change name, e-mail or roles/ });
+    const dialog = await documentLoader.getHarness(MatDialogHarness);
+    expect(await dialog.getAllHarnesses(MatInputHarness.with({ selector: '[formControlName="password"]' }))).toHaveLength(0);
+    const email = await dialog.getHarness(MatInputHarness.with({ selector: '[formControlName="email"]' }));
+    await email.setValue('t.reyne@kestrelfen.example');
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Save changes' }))).click();
+
+    const request = http.expectOne('/api/users/2');
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ email: 't.reyne@kestrelfen.example' });
+    request.flush({ ...people[1], email: 't.reyne@kestrelfen.example' });
+    await fixture.whenStable();
+    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['email'].text).toContain('t.reyne@kestrelfen.example');
   });
 
   it('deactivates a user only after the admin confirms', async () => {

@@ -13,12 +13,11 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { filter, switchMap } from 'rxjs';
 
-import { ROLE_LABELS, type Role, type UserDto } from '../../../shared/api';
+import { ROLE_LABELS, type Role, type UserDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
 import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';
-import { NewUserDialog } from './new-user-dialog';
-import { UserRolesDialog } from './user-roles-dialog';
+import { UserDialog } from './user-dialog';
 import { UsersApi } from './users-api';
 
 /** How far the list has got. */
@@ -77,7 +76,7 @@ export class UserList {
 
   protected openNewUser(): void {
     this.dialog
-      .open<NewUserDialog, void, UserDto>(NewUserDialog)
+      .open<UserDialog, null, UserDto>(UserDialog, { data: null })
       .afterClosed()
       .pipe(filter((user) => user !== undefined))
       .subscribe((user) => {
@@ -86,14 +85,14 @@ export class UserList {
       });
   }
 
-  protected openRoles(user: UserDto): void {
+  protected openChange(user: UserDto): void {
     this.dialog
-      .open<UserRolesDialog, UserDto, UserDto>(UserRolesDialog, { data: user })
+      .open<UserDialog, UserDto, UserDto>(UserDialog, { data: user })
       .afterClosed()
       .pipe(filter((updated) => updated !== undefined))
       .subscribe((updated) => {
         this.replaceUser(updated);
-        this.snackBar.open(`Roles of ${updated.name} saved.`, undefined, { duration: 4000 });
+        this.snackBar.open(`${updated.name}: changes saved.`, undefined, { duration: 4000 });
       });
   }
 

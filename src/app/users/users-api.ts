@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { CreateUserRequest, UpdateUserRequest, UserDto } from '../../../shared/api';
+import type { CreateUserRequest, UpdateUserRequest, UserDto } from '@shared/api';
 
 /** The client of the API's user management (admin only). */
 @Injectable({ providedIn: 'root' })
