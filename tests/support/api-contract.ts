@@ -112,6 +112,8 @@ export function contractRecordingApp(app: Express, checker: ReturnType<typeof cr
       return send(body);
     };
     response.on('finish', () => {
+      // 304: a browser's conditional GET answered from its cache (HTTP's, not an operation's).
+      if (response.statusCode === 304) return;
       // A method or path the API does not have is refused (401 before the guard, 404 from the
       // catch-all): no operation to check against. Answered with success, it would be one the document lacks.
       const refusedUnknown = response.statusCode >= 400 && !checker.knows(method, url);
