@@ -50,7 +50,7 @@ export function createAppMail(mailer: Mailer, publicUrl: string): AppMail {
       if (recipients.length === 0) return;
       send({
         to: recipients.join(', '),
-        subject: `[Bellkeep] ${booking.setupName}: night of ${booking.night} booked`,
+        subject: `The night of ${booking.night} on ${booking.setupName} is booked`,
         text: [
           `${booking.bookedBy} booked the night of ${booking.night} on ${booking.setupName}.`,
           '',

@@ -141,7 +141,7 @@ describe('the verdict mail', () => {
   it('gives an unreadable log its problems, in both parts, and no figures and no caution', async () => {
     const invalid = await analysed('malformed-rows.csv');
     const mail = mailOf(invalid);
-    expect(mail.subject).toBe('[Bellkeep] INVALID · Fen link · run 418 · unbooked');
+    expect(mail.subject).toBe('Run 418 of Fen link (unbooked) is analysed: no verdict was possible; it awaits sign-off');
     expect(mail.text).not.toContain('Figures:');
     expect(mail.text).not.toContain(COLLECTIVE_ATTACK_CAUTION);
     const problems = `The log has ${formatCount(invalid.errorCount)} problem(s); the first: ${invalid.errors[0].message}`;
@@ -169,7 +169,7 @@ describe('the verdict mail', () => {
     const mail = composeVerdictMail({ ...finishedRun(accepted), bookingId: 31, attempt: 2, booking, notes: 'Detector B re-cooled at 23:10.' }, 'https://bellkeep.example', [
       'night-desk@kestrelfen.example',
     ]);
-    expect(mail.subject).toBe('[Bellkeep] ACCEPT · Fen link · run 418 · attempt 2');
+    expect(mail.subject).toBe('Run 418 of Fen link (attempt 2) is analysed: ACCEPT; it awaits sign-off');
     expect(mail.text).toContain('Booked night 2025-03-13 (booking 31): attempt 2 of 2.');
     expect(mail.text).toContain(`Seed committed at booking, before acquisition: SHA-256 ${'ab'.repeat(32)}.`);
     expect(mail.text).toContain('Replaces the earlier log: The first copy was cut short.');

@@ -11,11 +11,12 @@ import { mailHtml, mailText, type MailBlock } from './mail-blocks';
 import type { OutgoingMail } from './mailer';
 import { verdictSentence } from '@shared/format/verdict-sentence';
 
-/** Words of each verdict in the mail's subject and first line. */
+/** The verdict as the subject says it: INVALID is no verdict at all. */
+const SUBJECT_VERDICT = { ACCEPT: 'ACCEPT', ABORT: 'ABORT', INVALID: 'no verdict was possible' } as const;
 
 /**
- * The verdict mail of a finished run: subject with verdict, setup and run number (and the attempt
- * or "unbooked"); booked or unbooked with the attempts; the uploader's notes; the reasons for an abort; the key figures with their bounds, the missing rounds when any, the key figure's total
+ * The verdict mail of a finished run: a subject that says, in a sentence, which run of which setup
+ * was analysed (its attempt, or that it was unbooked), the verdict, and that it awaits sign-off; booked or unbooked with the attempts; the uploader's notes; the reasons for an abort; the key figures with their bounds, the missing rounds when any, the key figure's total
  * ε and attack model, and the caution of each model shown; the checks that failed or warned; a
  * link straight to the run's sign-off.
  */
@@ -25,7 +26,7 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
   const verdict = result.verdict;
   const messagesOf = (status: CheckResult['status']) => result.checks.filter((check) => check.status === status).map((check) => check.message);
   const booking = bookingWords(run);
-  const attempt = run.booking && run.booking.attempt > 1 ? ` · attempt ${run.booking.attempt}` : run.booking ? '' : ' · unbooked';
+  const attempt = run.booking && run.booking.attempt > 1 ? ` (attempt ${run.booking.attempt})` : run.booking ? '' : ' (unbooked)';
   const blocks: MailBlock[] = [
     {
       kind: 'lead',
@@ -45,7 +46,7 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
   ];
   return {
     to: recipients.join(', '),
-    subject: `[Bellkeep] ${verdict} · ${run.setupName} · run ${run.id}${attempt}`,
+    subject: `Run ${run.id} of ${run.setupName}${attempt} is analysed: ${SUBJECT_VERDICT[verdict]}; it awaits sign-off`,
     text: mailText(blocks),
     html: mailHtml(blocks),
   };

@@ -8,7 +8,7 @@ import { formatInstant } from './pdf-dates';
 
 /**
  * Everything needed to re-derive the result from the archived log: the file, how it was read, the
- * seed and selection, the complete profile as applied, the engine and the result's fingerprint.
+ * seed and selection, the complete profile as applied, the engine and the result's digest.
  */
 export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): void {
   const { result, run, profile } = report;
@@ -27,7 +27,7 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
     { label: 'Acceptance profile', value: `${profile.name}, version ${profile.version} (profile ${profile.profileId}, version record ${profile.versionId})` },
     ...Object.entries(result.profile).map(([name, value]): Field => ({ label: `  ${name}`, value: describeValue(value) })),
     { label: 'Engine version', value: result.engineVersion },
-    { label: 'Result fingerprint', value: result.fingerprint, mono: true },
+    { label: 'Result digest', value: result.fingerprint, mono: true },
     { label: 'Uploaded', value: formatInstant(run.createdAt) },
     { label: 'Analysis finished', value: formatInstant(run.finishedAt) },
     ...(run.duplicateOf === null ? [] : [{ label: 'Same bytes as', value: `run ${run.duplicateOf}` }]),

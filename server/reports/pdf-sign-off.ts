@@ -7,7 +7,7 @@ import { TONE } from './pdf-style';
 const REVERIFICATION_STATE: Record<ReverificationDto['state'], string> = {
   queued: 'queued',
   analysing: 'analysing',
-  reproduced: 'reproduced: the same fingerprint',
+  reproduced: 'reproduced: the same result digest',
   differs: 'DIFFERS from the stored result',
   failed: 'failed to run',
 };
@@ -38,8 +38,8 @@ function writeReverification(doc: PDFKit.PDFDocument, reverification: Reverifica
       ? [{ label: 'Another seed', value: `${reverification.seed}: a fresh draw of test rounds by an admin; it never replaces the verdict`, mono: true }]
       : []),
     { label: 'Engine versions', value: `stored ${reverification.storedEngineVersion}, re-analysed ${reverification.newEngineVersion ?? '–'}` },
-    { label: 'Stored fingerprint', value: reverification.storedFingerprint, mono: true },
-    { label: 'New fingerprint', value: reverification.newFingerprint ?? '–', mono: true },
+    { label: 'Stored result digest', value: reverification.storedFingerprint, mono: true },
+    { label: 'New result digest', value: reverification.newFingerprint ?? '–', mono: true },
   ];
   if (reverification.error !== null) rows.push({ label: 'Error', value: reverification.error });
   if (reverification.differenceCount > 0) rows.push({ label: 'Differing fields', value: String(reverification.differenceCount) });

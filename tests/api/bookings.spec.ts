@@ -72,7 +72,7 @@ describe('booked nights and the acquisition computer', () => {
       expect(booking).toMatchObject({ setupId: fenLink, night: '2026-12-04', plannedRounds: 4000, profileName: 'Nightly standard', profileReason: '', seed: null, attempts: [] });
       expect(booking.seedCommitment).toMatch(/^[0-9a-f]{64}$/);
       await testApp.appMail.settled();
-      const mail = await waitForMail(testApp.mailCatcher.inboxUrl, '[Bellkeep] Fen link: night of 2026-12-04 booked');
+      const mail = await waitForMail(testApp.mailCatcher.inboxUrl, 'The night of 2026-12-04 on Fen link is booked');
       expect(mail.text).toContain(`Seed commitment: ${booking.seedCommitment}`);
       expect(mail.to.map((to) => to.address)).toContain('lucia.brandt@kestrelfen.example');
       const trail = (await request(testApp.app).get('/api/audit').query({ action: 'booking.created' }).set(bearer('maren')).expect(200)).body as { items: AuditEventDto[] };

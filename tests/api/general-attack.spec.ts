@@ -72,7 +72,7 @@ describe('a profile under the general-attack model, through the API', () => {
     expect(list.items.find((item) => item.id === run.id)!.winThreshold).toBe(threshold);
 
     // The verdict mail and the PDF report name the general-attack figure and judge by ω_thr.
-    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ${run.verdict} · Fen link · run ${run.id} · unbooked`);
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `Run ${run.id} of Fen link (unbooked) is analysed: ${run.verdict}; it awaits sign-off`);
     expect(mail.text).toContain(`no key against general attacks (entropy accumulation; over the ${formatCount(general.rounds)} CHSH test and key-setting generation rounds`);
     expect(mail.text).toContain(`(γ = 0.5000 of all ${formatCount(24_000)})`);
     expect(mail.text).toContain(`threshold ${threshold.toFixed(4)}`);

@@ -56,7 +56,7 @@ describe('the runs pipeline through the API', () => {
     const archived = await testApp.database.models.ArchiveFile.findByPk(queued.file.sha256);
     expect(archived!.census).toMatchObject({ decodedBytes: fs.statSync(fixtureLog('accepted-run.csv')).size, records: result.input.rounds + 1, marks: [] });
 
-    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ACCEPT · Fen link · run ${run.id} · unbooked`);
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `Run ${run.id} of Fen link (unbooked) is analysed: ACCEPT; it awaits sign-off`);
     expect(mail.to.map((to) => to.address).sort()).toEqual(['ada.reyes@kestrelfen.example', 'lucia.brandt@kestrelfen.example', 'night-desk@kestrelfen.example']);
     expect(mail.text).toContain(`CHSH win fraction ${result.chsh!.winFraction!.toFixed(4)}`);
     expect(mail.text).toContain(`S = ${result.chsh!.S!.toFixed(3)}`);
@@ -92,7 +92,7 @@ describe('the runs pipeline through the API', () => {
     expect(run).toMatchObject({ state: 'aborted', verdict: 'ABORT' });
     const reasons = (run.result as unknown as AnalysisResult).reasons;
     expect(reasons.length).toBeGreaterThan(0);
-    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `[Bellkeep] ABORT · Fen link · run ${run.id} · unbooked`);
+    const mail = await waitForMail(testApp.mailCatcher.inboxUrl, `Run ${run.id} of Fen link (unbooked) is analysed: ABORT; it awaits sign-off`);
     expect(mail.text).toContain(reasons[0]);
   }, 60_000);
 
@@ -232,7 +232,7 @@ describe('the runs pipeline through the API', () => {
       await new Promise((resolve) => setTimeout(resolve, 100));
     }
     await testApp.restartMailCatcher();
-    const subject = `[Bellkeep] ${run.verdict} · Fen link · run ${run.id} · unbooked`;
+    const subject = `Run ${run.id} of Fen link (unbooked) is analysed: ${run.verdict}; it awaits sign-off`;
     await waitForMail(inboxUrl, subject);
     await new Promise((resolve) => setTimeout(resolve, 2500));
     expect((await inbox(inboxUrl)).filter((mail) => mail.subject === subject)).toHaveLength(1);

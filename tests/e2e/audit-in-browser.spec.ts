@@ -39,7 +39,7 @@ describe('auditing in a real browser', () => {
     const page = await signIn('sami.virtanen@kestrelfen.example');
     await page.getByTestId('nav-audit').click();
     await page.getByTestId('audit-runs').waitFor();
-    await page.getByLabel('Fingerprint').fill(result.fingerprint.slice(0, 10));
+    await page.getByLabel('Result digest').fill(result.fingerprint.slice(0, 10));
     await page.getByTestId(`audit-run-row-${run.id}`).waitFor();
     expect(await page.getByTestId('audit-runs').locator('tbody tr').count()).toBe(1);
     await screenshot(page, 'audit-finished-runs');

@@ -77,7 +77,7 @@ describe('fifty simultaneous uploads from two experimentalists', () => {
 
   it('leaves exactly one mail per run in the catcher, none twice', () => {
     // Each run's mail carries a Message-ID of its own: a mail sent twice would show as a repeated line.
-    const expected = runs.map((run) => `<run-${run.id}-verdict@bellkeep> [Bellkeep] ${run.verdict} · Fen link · run ${run.id} · unbooked`);
+    const expected = runs.map((run) => `<run-${run.id}-verdict@bellkeep> Run ${run.id} of Fen link (unbooked) is analysed: ${run.verdict}; it awaits sign-off`);
     const caught = mails.map((mail) => `${mail.headers['message-id']} ${mail.subject}`);
     expect(caught.sort()).toEqual(expected.sort());
   });

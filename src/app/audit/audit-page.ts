@@ -24,7 +24,7 @@ import { SystemTrail } from './system-trail';
       <mat-tab label="System trail">
         <ng-template matTabContent><bk-system-trail /></ng-template>
       </mat-tab>
-      <mat-tab label="Signing keys">
+      <mat-tab label="Report-signing keys">
         <ng-template matTabContent><bk-signing-keys /></ng-template>
       </mat-tab>
     </mat-tab-group>

@@ -48,7 +48,7 @@ export const FIELD_MEANINGS: Record<
   epsilon: { label: 'Confidence ε', hint: 'Failure probability of every confidence bound, e.g. 1e-9. Common: 1e-6 to 1e-12.' },
   criterion: {
     label: 'Judged on',
-    hint: 'Confidence bounds against the thresholds (certified, the default), or observed values. Either way the win fraction’s lower bound must be above 3/4.',
+    hint: 'Confidence bounds against the thresholds (the default), or observed values. Either way the win fraction’s lower bound must be above 3/4.',
   },
   securityModel: {
     label: 'Attack model of the key',
@@ -79,7 +79,7 @@ export const FIELD_MEANINGS: Record<
   driftBlocks: { label: 'Drift blocks', hint: 'Blocks of consecutive rounds for the stationarity check and the drift chart, 2 to 1000.' },
   requirePositiveKey: { label: 'Require a positive finite key', hint: 'ACCEPT also needs a finite key estimate above 0 bits.' },
   blockingChecks: {
-    label: 'Blocking checks',
+    label: 'Tests that abort a run',
     hint: 'Checks whose failure aborts the run; the others only warn. Missing rounds past the tolerance and the log’s test marks always block, and stationarity blocks under collective attacks.',
   },
 };
@@ -117,7 +117,7 @@ export function describeProfile(profile: AnalysisProfile): { label: string; valu
   const lines = [{ ...FIELD_MEANINGS.mode, value: modeWords[selection.mode] }];
   if (selection.mode === 'fixed-fraction') lines.push({ ...FIELD_MEANINGS.fraction, value: String(selection.fraction) });
   if (selection.mode === 'bernoulli') lines.push({ ...FIELD_MEANINGS.probability, value: String(selection.probability) });
-  lines.push({ ...FIELD_MEANINGS.criterion, value: profile.criterion === 'certified' ? 'Confidence bounds (certified)' : 'Observed values' });
+  lines.push({ ...FIELD_MEANINGS.criterion, value: profile.criterion === 'certified' ? 'Confidence bounds must clear the thresholds' : 'Observed values' });
   for (const field of NUMBER_FIELDS) lines.push({ ...FIELD_MEANINGS[field], value: shownProfileNumber(field, profile[field]) });
   const general = profile.generalAttack;
   const generalWords = general

@@ -12,7 +12,7 @@ import { RunsApi } from './runs-api';
 
 /** What each check of the verification compares, in words. */
 const CHECK_NAMES: Record<VerificationCheck, string> = {
-  'result-fingerprint': 'Result fingerprint',
+  'result-fingerprint': 'Result digest',
   signature: 'Signature',
   'archive-file': 'Archived log',
   'system-trail': 'System trail',
