@@ -19,18 +19,37 @@ export interface LineCounting {
   finish(): LineCount;
 }
 
+/** The counts a line counter keeps, and how it ends: what both counters (TypeScript, WebAssembly) share. */
+export abstract class LineTally implements LineCounting {
+  protected lines = 0;
+  protected records = 0;
+  /** Bytes of the current, unfinished line seen so far. */
+  protected pending = 0;
+
+  abstract push(chunk: Uint8Array): void;
+
+  peek(): LineCount {
+    return { lines: this.lines, records: this.records };
+  }
+
+  finish(): LineCount {
+    if (this.pending > 0) {
+      this.lines++;
+      this.records++;
+      this.pending = 0;
+    }
+    return { lines: this.lines, records: this.records };
+  }
+}
+
 /**
  * The counting pass: counts lines and records (non-blank lines; a line holding only the CR of a CRLF
  * is blank) with the same rules as the byte scanner, across chunk cuts. The rule itself, in
  * TypeScript; the engine counts with node/wasm-line-counter.ts where its WebAssembly was built,
  * which must agree with this (see its spec).
  */
-export class LineCounter implements LineCounting {
-  private lines = 0;
-  private records = 0;
-  /** Bytes of the current, unfinished line seen so far. */
-  private pending = 0;
-  /** Whether that unfinished line is exactly one CR. */
+export class LineCounter extends LineTally {
+  /** Whether the unfinished line is exactly one CR. */
   private pendingIsCr = false;
 
   /** Counts the lines of one chunk. */
@@ -54,20 +73,5 @@ export class LineCounter implements LineCounting {
       this.pendingIsCr = false;
       from = newline + 1;
     }
-  }
-
-  /** The complete lines so far (a line still without its line break left out). */
-  peek(): LineCount {
-    return { lines: this.lines, records: this.records };
-  }
-
-  /** The totals, counting a last line that lacks a line break. */
-  finish(): LineCount {
-    if (this.pending > 0) {
-      this.lines++;
-      this.records++;
-      this.pending = 0;
-    }
-    return { lines: this.lines, records: this.records };
   }
 }

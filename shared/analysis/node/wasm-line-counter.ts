@@ -1,4 +1,4 @@
-import { LineCount, LineCounter, LineCounting } from '../log/line-counter';
+import { LineCounter, LineCounting, LineTally } from '../log/line-counter';
 import { instantiate, wasmModule } from './wasm-modules';
 
 /** The line count's exports (see wasm/line-count.ts). */
@@ -32,34 +32,19 @@ function lineCount(): LineCountExports | null {
  * bytes a step in WebAssembly: each piece is copied into the module's memory behind the two bytes
  * of text before it, which decide whether its first line breaks end blank lines.
  */
-class WasmLineCounter implements LineCounting {
-  private lines = 0;
-  private records = 0;
-  /** Bytes of the current, unfinished line seen so far. */
-  private pending = 0;
+class WasmLineCounter extends LineTally {
   /** The last two bytes of the text so far; before the text, two line breaks (it begins a line). */
   private beforeLast = LF;
   private last = LF;
 
-  constructor(private readonly exports: LineCountExports) {}
+  constructor(private readonly exports: LineCountExports) {
+    super();
+  }
 
   push(chunk: Uint8Array): void {
     for (let from = 0; from < chunk.length; from += PIECE_BYTES) {
       this.pushPiece(chunk.subarray(from, Math.min(from + PIECE_BYTES, chunk.length)));
     }
-  }
-
-  peek(): LineCount {
-    return { lines: this.lines, records: this.records };
-  }
-
-  finish(): LineCount {
-    if (this.pending > 0) {
-      this.lines++;
-      this.records++;
-      this.pending = 0;
-    }
-    return { lines: this.lines, records: this.records };
   }
 
   private pushPiece(piece: Uint8Array): void {
