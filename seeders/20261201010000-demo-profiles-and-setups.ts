@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import { parseProfile } from '@shared/analysis/profile';
+import { parseProfile } from '@shared/analysis';
 import type { MigrationContext } from '@server/database/migrate';
 import { DEMO_PROFILES, DEMO_SETUPS } from './data/demo-lab';
 

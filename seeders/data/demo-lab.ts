@@ -1,4 +1,4 @@
-import type { AnalysisProfileInput } from '@shared/analysis/profile';
+import type { AnalysisProfileInput } from '@shared/analysis';
 
 /** The demo lab's two acceptance profiles (values within the trade's usual ranges; common practice, no source). */
 export const DEMO_PROFILES: ReadonlyArray<{ name: string; description: string; parameters: AnalysisProfileInput }> = [

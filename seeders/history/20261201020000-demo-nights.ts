@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { analyseLog } from '@shared/analysis/node';
 import { STATE_OF_VERDICT } from '@shared/api';
 import type { SeederContext } from '@server/database/migrate';

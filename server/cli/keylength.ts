@@ -1,5 +1,5 @@
 import { parseArgs } from 'node:util';
-import { generalAttackKeyLength, GeneralAttackRequest, KeyLengthInputError } from '@shared/analysis/entropy-accumulation';
+import { generalAttackKeyLength, GeneralAttackRequest, KeyLengthInputError } from '@shared/analysis';
 import { formatCount } from '@shared/format/numbers';
 import { numberOption, UsageError, type OptionValues } from './command-options';
 

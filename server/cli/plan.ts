@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
-import { winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { winFractionFromChshValue } from '@shared/analysis';
 import { formatCount, formatPercent } from '@shared/format/numbers';
 import { generalPlanProblem, planGeneralAttack } from '@shared/planner/plan-general-attack';
 import { planRounds, PlanInputError } from '@shared/planner/plan-rounds';

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import type { FieldDifference, ReverificationState } from '@shared/api';
 
 export class SigningKeyRecord extends Model<InferAttributes<SigningKeyRecord>, InferCreationAttributes<SigningKeyRecord>> {

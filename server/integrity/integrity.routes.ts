@@ -1,6 +1,6 @@
 import { pipeline } from 'node:stream/promises';
 import { Router, type Response } from 'express';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { exportFormatSchema, reverificationRequestSchema, type ExportFormat, type RunReportDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Guards } from '../auth/passport';

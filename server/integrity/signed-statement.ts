@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import { canonicalJson } from '@shared/analysis/canonical-json';
+import { canonicalJson } from '@shared/analysis';
 import type { ResultSignatureDto, SignedStatement } from '@shared/api';
 import { signingKeyId, type SigningKey } from './signing-key';
 

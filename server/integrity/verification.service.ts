@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { resultFingerprint } from '@shared/analysis/node';
 import { formatCount } from '@shared/format/numbers';
 import { VERDICT_STATES, type VerificationCheckDto, type VerificationDto } from '@shared/api';

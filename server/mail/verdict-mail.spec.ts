@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { STATE_OF_VERDICT, type RunBookingDto, type RunDto } from '@shared/api';
 import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '@shared/format/booking-words';
 import { formatCount, formatScientific } from '@shared/format/numbers';

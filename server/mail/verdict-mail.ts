@@ -1,7 +1,4 @@
-import type { CheckResult } from '@shared/analysis/checks/check-result';
-import type { AnalysisResult } from '@shared/analysis/result';
-import { generalKeySentence } from '@shared/analysis/report/general-key-words';
-import { winThresholdOf } from '@shared/analysis/report/win-threshold';
+import { type AnalysisResult, type CheckResult, generalKeySentence, winThresholdOf } from '@shared/analysis';
 import type { RunDto } from '@shared/api';
 import { bookingWords } from '@shared/format/booking-words';
 import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '@shared/format/numbers';

@@ -1,5 +1,5 @@
 import path from 'node:path';
-import { startTypeScriptWorker } from '@shared/analysis/node/typescript-worker';
+import { startTypeScriptWorker } from '@shared/analysis/node';
 import type { GeneralAttackPlanDto } from '@shared/api';
 import { PlanInputError } from '@shared/planner/plan-rounds';
 import type { ThreadReply, ThreadTask } from './general-plan-thread-entry';

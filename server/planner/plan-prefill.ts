@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import type { PlanPrefillDto } from '@shared/api';
 import type { Models } from '../database/models';
 import type { ProfilesService } from '../profiles/profiles.service';

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { planPrefillQuerySchema, planQuerySchema } from '@shared/api';
-import { winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { winFractionFromChshValue } from '@shared/analysis';
 import { planRounds, PlanInputError, type PlanInput } from '@shared/planner/plan-rounds';
 import type { Guards } from '../auth/passport';
 import type { Models } from '../database/models';

@@ -1,5 +1,5 @@
 import { QueryTypes, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
-import { parseProfile } from '@shared/analysis/profile';
+import { parseProfile } from '@shared/analysis';
 import type { CreateProfileRequest, CreateProfileVersionRequest, ProfileDto, ProfileVersionDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';

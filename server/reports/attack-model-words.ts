@@ -1,5 +1,4 @@
-import type { KeySummary } from '@shared/analysis/report/key-summary';
-import type { SecuritySummary } from '@shared/analysis/report/security-summary';
+import type { KeySummary, SecuritySummary } from '@shared/analysis';
 
 /** An attack model a key figure is computed under. */
 export type AttackModel = SecuritySummary['model'];

@@ -1,4 +1,4 @@
-import { missingRoundsState, missingShareText, type MissingRoundsState, type MissingRoundsSummary } from '@shared/analysis/report/missing-rounds';
+import { missingRoundsState, type MissingRoundsState, type MissingRoundsSummary, missingShareText } from '@shared/analysis';
 import { formatCount } from '@shared/format/numbers';
 
 /** The missing rounds of a log: its state and the sentence with every figure. */

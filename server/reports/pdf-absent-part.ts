@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { paragraph } from './pdf-blocks';
 import { TONE } from './pdf-style';
 

@@ -1,6 +1,5 @@
-import type { CheckResult, CheckStatus } from '@shared/analysis/checks/check-result';
+import type { AnalysisResult, CheckResult, CheckStatus } from '@shared/analysis';
 import { formatPValue } from '@shared/format/numbers';
-import type { AnalysisResult } from '@shared/analysis/result';
 import { formatScientific } from '@shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { TONE, TYPE } from './pdf-style';

@@ -1,5 +1,4 @@
-import { criteriaTable } from '@shared/analysis/report/criteria-table';
-import type { AnalysisResult } from '@shared/analysis/result';
+import { type AnalysisResult, criteriaTable } from '@shared/analysis';
 import { formatScientific } from '@shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { PERCENT_DECIMALS, TONE, TYPE, WIN_DECIMALS } from './pdf-style';

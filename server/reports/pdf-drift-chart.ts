@@ -1,7 +1,4 @@
-import type { FractionInterval } from '@shared/analysis/report/block-summary';
-import type { AnalysisResult } from '@shared/analysis/result';
-import { winThresholdOf } from '@shared/analysis/report/win-threshold';
-import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { type AnalysisResult, type FractionInterval, LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION, winThresholdOf } from '@shared/analysis';
 import { formatFixed, formatPercent, formatScientific } from '@shared/format/numbers';
 import { ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';
 import { TONE, TYPE, WIN_DECIMALS } from './pdf-style';

@@ -1,9 +1,4 @@
-import type { KeySummary } from '@shared/analysis/report/key-summary';
-import type { AnalysisResult } from '@shared/analysis/result';
-import { generalKeySentence } from '@shared/analysis/report/general-key-words';
-import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '@shared/analysis/statistics/bell-bounds';
-import { hoeffdingDeviation } from '@shared/analysis/statistics/hoeffding';
-import type { AnalysisProfile } from '@shared/analysis/profile';
+import { type AnalysisProfile, type AnalysisResult, generalKeySentence, hoeffdingDeviation, type KeySummary, LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '@shared/analysis';
 import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '@shared/format/numbers';
 import { keyCautions } from './attack-model-words';
 import { ensureSpace, fields, fieldsHeight, paragraph, type Field } from './pdf-blocks';

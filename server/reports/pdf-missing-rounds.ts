@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { writeAbsentPart } from './pdf-absent-part';
 import { fields } from './pdf-blocks';
 import { missingRoundsWords } from './missing-rounds-words';

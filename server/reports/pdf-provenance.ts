@@ -1,6 +1,4 @@
-import { headerNameOf } from '@shared/analysis/log/column-mapping';
-import { ROUND_FIELDS } from '@shared/analysis/log/round-fields';
-import type { AnalysisResult } from '@shared/analysis/result';
+import { type AnalysisResult, headerNameOf, ROUND_FIELDS } from '@shared/analysis';
 import type { RunReportDto } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
 import { fields, type Field } from './pdf-blocks';

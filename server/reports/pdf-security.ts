@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import { formatCount, formatScientific } from '@shared/format/numbers';
 import { writeAbsentPart } from './pdf-absent-part';
 import { fields, grid } from './pdf-blocks';

@@ -1,5 +1,4 @@
-import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult, ChshSummary } from '@shared/analysis';
 import { formatCount, formatFixed, formatScientific } from '@shared/format/numbers';
 import { writeAbsentPart } from './pdf-absent-part';
 import { grid, paragraph, type GridCell } from './pdf-blocks';

@@ -1,5 +1,4 @@
-import type { AnalysisResult } from '@shared/analysis/result';
-import type { CountTable } from '@shared/analysis/tally/count-table';
+import type { AnalysisResult, CountTable } from '@shared/analysis';
 import { formatCount, formatFixed } from '@shared/format/numbers';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { TONE } from './pdf-style';

@@ -1,4 +1,4 @@
-import type { AnalysisResult, Verdict } from '@shared/analysis/result';
+import type { AnalysisResult, Verdict } from '@shared/analysis';
 import { formatCount } from '@shared/format/numbers';
 import { verdictSentence } from '@shared/format/verdict-sentence';
 import { bullets, ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';

@@ -1,5 +1,5 @@
 import { stringify } from 'csv-stringify/sync';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 
 /**
  * The count tables as CSV: one row per subset (test, generation) and cell (x, y, a, b), so a

@@ -4,7 +4,7 @@ import { Readable } from 'node:stream';
 import { buffer } from 'node:stream/consumers';
 import zlib from 'node:zlib';
 import fc from 'fast-check';
-import { LogCensusTaker } from '@shared/analysis/log/log-census';
+import { LogCensusTaker } from '@shared/analysis';
 import '@tests/support/property-seed';
 import { CensusTap } from './census-tap';
 

@@ -1,8 +1,7 @@
 import { Transform, type TransformCallback } from 'node:stream';
 import zlib from 'node:zlib';
-import { LogCensusTaker, type LogCensus } from '@shared/analysis/log/log-census';
-import { expandsLikeABomb } from '@shared/analysis/node/decoded-log';
-import { createLineCounter } from '@shared/analysis/node/wasm-line-counter';
+import { type LogCensus, LogCensusTaker } from '@shared/analysis';
+import { createLineCounter, expandsLikeABomb } from '@shared/analysis/node';
 
 const GZIP_MAGIC = [0x1f, 0x8b];
 

@@ -1,5 +1,5 @@
 import { PassThrough, pipeline, type Readable } from 'node:stream';
-import type { LogCensus } from '@shared/analysis/log/log-census';
+import type { LogCensus } from '@shared/analysis';
 import type { Request } from 'express';
 import type multer from 'multer';
 import { HttpError, isDiskFull } from '../http/http-error';

@@ -1,5 +1,4 @@
-import { QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
-import type { AnalysisResult } from '@shared/analysis/result';
+import { type AnalysisResult, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import type { MailDeliveryDto, ResultSignatureDto, RunDto, RunSummaryDto, SignOffDto } from '@shared/api';
 
 /** One row of the runs query in runs.service.ts: the run joined with the names it shows. */

@@ -1,7 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult, LogCensus } from '@shared/analysis';
 import type { RunState, Verdict } from '@shared/api';
-import type { LogCensus } from '@shared/analysis/log/log-census';
 
 export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAttributes<RunRecord>> {
   declare id: CreationOptional<number>;

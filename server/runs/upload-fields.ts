@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { parseColumnMapping } from '@shared/analysis/log/column-mapping';
+import { parseColumnMapping } from '@shared/analysis';
 import { isoDate, queryId as positiveId } from '@shared/api';
 
 /** The fields of an upload besides the log: the multipart form's, or a resumable upload's metadata. */

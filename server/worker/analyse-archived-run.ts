@@ -1,7 +1,7 @@
 import { analyseLog } from '@shared/analysis/node';
 import type { ProgressListener } from '@shared/analysis/node';
 import { log } from '../system/log';
-import type { AnalysisResult } from '@shared/analysis/result';
+import type { AnalysisResult } from '@shared/analysis';
 import type { Models } from '../database/models';
 import type { RunRecord } from '../runs/run.model';
 import type { LogStore } from '../storage/log-store';

@@ -6,3 +6,6 @@ export type { LogSource } from './log-source';
 export type { StoredCensus } from './census-ranges';
 export { resultFingerprint } from './fingerprint';
 export { ENGINE_MALLOC_TUNABLES, withEngineMemory } from './engine-memory';
+export { expandsLikeABomb } from './decoded-log';
+export { createLineCounter } from './wasm-line-counter';
+export { startTypeScriptWorker } from './typescript-worker';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
 import type { PlanDto } from '@shared/api';
-import type { AnalysisProfile } from '@shared/analysis/profile';
+import type { AnalysisProfile } from '@shared/analysis';
 import { formatCount, formatFixed, formatPercent, formatScientific } from '@shared/format/numbers';
 import { LIKELY_PASS } from '@shared/planner/plan-rounds';
 import { KeyCaution } from '../runs/key-caution';

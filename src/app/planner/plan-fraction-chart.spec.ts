@@ -1,7 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 
-import { parseProfile } from '@shared/analysis/profile';
-import type { AnalysisProfile } from '@shared/analysis/profile';
+import { type AnalysisProfile, parseProfile } from '@shared/analysis';
 import { planRounds } from '@shared/planner/plan-rounds';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
 import { PlanFractionChart } from './plan-fraction-chart';

@@ -1,7 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 
-import { parseProfile, type AnalysisProfile } from '@shared/analysis/profile';
-import { expectedSiftedProtocol } from '@shared/analysis/report/sifted-protocol';
+import { type AnalysisProfile, expectedSiftedProtocol, parseProfile } from '@shared/analysis';
 import type { GeneralKeyPoint } from '@shared/api';
 import { PlanGeneralFigures } from './plan-general-figures';
 

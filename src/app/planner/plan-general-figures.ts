@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
-import type { AnalysisProfile } from '@shared/analysis/profile';
+import type { AnalysisProfile } from '@shared/analysis';
 import type { GeneralKeyPoint } from '@shared/api';
 import { formatCount, formatFixed, formatScientific } from '@shared/format/numbers';
 import { SEARCH_LIMIT } from '@shared/planner/plan-rounds';

@@ -1,5 +1,5 @@
 import type { PlanDto } from '@shared/api';
-import type { AnalysisProfile } from '@shared/analysis/profile';
+import type { AnalysisProfile } from '@shared/analysis';
 import { planRounds, PlanInputError, type PlanInput } from '@shared/planner/plan-rounds';
 import { PLAN_FIELD_LABELS, planInputFrom, type PlannerFormValue } from './planner-form';
 import { takesTestRoundsFromLog, type ProfileVersionOption } from './profile-versions';

@@ -2,8 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import { MatIconModule } from '@angular/material/icon';
 
 import type { PlanPoint } from '@shared/api';
-import type { AnalysisProfile } from '@shared/analysis/profile';
-import { QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { type AnalysisProfile, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import { formatCount, formatFixed, formatPercent } from '@shared/format/numbers';
 import { passLook, type PassLook } from './pass-look';
 

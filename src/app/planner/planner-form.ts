@@ -1,7 +1,6 @@
 import { FormControl, FormGroup, Validators } from '@angular/forms';
 
-import { QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
-import { chshValueFromWinFraction, winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { chshValueFromWinFraction, QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION, winFractionFromChshValue } from '@shared/analysis';
 import type { PlanPrefillDto } from '@shared/api';
 import type { PlanInput } from '@shared/planner/plan-rounds';
 import { formatCount } from '@shared/format/numbers';

@@ -9,7 +9,7 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 
 import type { PlanPrefillDto, ProfileDto, SetupDto } from '@shared/api';
-import { parseProfile } from '@shared/analysis/profile';
+import { chshValueFromWinFraction, expectedSiftedProtocol, generalAttackKeyLength, parseProfile } from '@shared/analysis';
 import { formatCount } from '@shared/format/numbers';
 import { planRounds } from '@shared/planner/plan-rounds';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
@@ -17,9 +17,6 @@ import { formatDuration } from './duration';
 import { GENERAL_PLAN_WORKER, GeneralPlanRunner, type GeneralPlanWorker, type WorkerReply } from './general-plan-runner';
 import { generalPlanSteps, type GeneralPlanTask } from './general-plan-steps';
 import { PlannerPage } from './planner-page';
-import { generalAttackKeyLength } from '@shared/analysis/entropy-accumulation';
-import { expectedSiftedProtocol } from '@shared/analysis/report/sifted-protocol';
-import { chshValueFromWinFraction } from '@shared/analysis/statistics/chsh-value';
 
 /**
  * A planner worker in the test's own thread: it keeps the task it is given and answers only when

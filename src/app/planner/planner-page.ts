@@ -13,8 +13,7 @@ import { RouterLink } from '@angular/router';
 import { debounceTime, distinctUntilChanged, map, of, switchMap } from 'rxjs';
 
 import type { PlanDto, PlanPrefillDto } from '@shared/api';
-import { QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
-import { chshValueFromWinFraction, winFractionFromChshValue } from '@shared/analysis/statistics/chsh-value';
+import { chshValueFromWinFraction, QUANTUM_CHSH_VALUE, QUANTUM_WIN_FRACTION, winFractionFromChshValue } from '@shared/analysis';
 import { formatCount, formatFixed, formatPercent, formatScientific } from '@shared/format/numbers';
 import { LIKELY_PASS } from '@shared/planner/plan-rounds';
 import { loaded, type Loaded } from '../api/loaded';

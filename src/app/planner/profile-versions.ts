@@ -1,5 +1,5 @@
 import type { ProfileDto } from '@shared/api';
-import { parseProfile, type AnalysisProfile } from '@shared/analysis/profile';
+import { type AnalysisProfile, parseProfile } from '@shared/analysis';
 
 /** One profile version the planner can plan with. */
 export interface ProfileVersionOption {

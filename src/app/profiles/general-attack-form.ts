@@ -1,6 +1,6 @@
 import { FormControl, type AbstractControl, type ValidationErrors, type ValidatorFn } from '@angular/forms';
 
-import { parseProfile, type AnalysisProfile } from '@shared/analysis/profile';
+import { type AnalysisProfile, parseProfile } from '@shared/analysis';
 import { formatScientific } from '@shared/format/numbers';
 
 /** How the general-attack key is set up: not at all, from design values, or from fixed ones. */

@@ -3,7 +3,7 @@ import { ApplicationRef } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 
 import type { ProfileDto } from '@shared/api';
-import { parseProfile } from '@shared/analysis/profile';
+import { parseProfile } from '@shared/analysis';
 import { configureDialogTestBed } from '../../testing/dialog-test-bed';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 

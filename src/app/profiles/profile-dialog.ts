@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 
 import type { ProfileDto } from '@shared/api';
-import { parseProfile, type AnalysisProfile } from '@shared/analysis/profile';
+import { type AnalysisProfile, parseProfile } from '@shared/analysis';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CHECK_FAMILY_OPTIONS, FIELD_MEANINGS, NUMBER_FIELDS } from './profile-fields';
 import { GENERAL_FIELDS } from './general-attack-form';

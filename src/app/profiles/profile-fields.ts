@@ -1,5 +1,5 @@
 import type { GeneralAttackControls } from './general-attack-form';
-import { CHECK_FAMILIES, type AnalysisProfile, type CheckFamily } from '@shared/analysis/profile';
+import { type AnalysisProfile, CHECK_FAMILIES, type CheckFamily } from '@shared/analysis';
 import { formatCount, formatScientific } from '@shared/format/numbers';
 
 /** A number of the profile the form edits as text (ε's in scientific notation). */

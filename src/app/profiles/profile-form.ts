@@ -1,6 +1,6 @@
 import { FormControl, FormGroup, Validators } from '@angular/forms';
 
-import type { AnalysisProfile, CheckFamily, TestSelection } from '@shared/analysis/profile';
+import type { AnalysisProfile, CheckFamily, TestSelection } from '@shared/analysis';
 import { engineRule, followGeneralBasis, generalAttackControls, generalAttackParameters, numberOf, type GeneralAttackControls } from './general-attack-form';
 import { NUMBER_FIELDS, profileNumberText, type NumberField } from './profile-fields';
 

@@ -9,7 +9,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { filter, switchMap } from 'rxjs';
 
 import type { ProfileDto, ProfileVersionDto } from '@shared/api';
-import type { AnalysisProfile } from '@shared/analysis/profile';
+import type { AnalysisProfile } from '@shared/analysis';
 import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';

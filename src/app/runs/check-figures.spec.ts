@@ -1,4 +1,4 @@
-import type { CheckResult } from '@shared/analysis/checks/check-result';
+import type { CheckResult } from '@shared/analysis';
 import { checkFigures } from './check-figures';
 
 const sharing = { significance: 0.001, count: 9, perCheck: 0.001 / 9, correction: '' };

@@ -1,6 +1,5 @@
-import type { CheckResult } from '@shared/analysis/checks/check-result';
+import type { CheckResult, SecuritySummary } from '@shared/analysis';
 import { formatPValue } from '@shared/format/numbers';
-import type { SecuritySummary } from '@shared/analysis/report/security-summary';
 import { formatCount, formatScientific } from '@shared/format/numbers';
 
 /** A statistical check's p-value and the share of the significance it is held against. */

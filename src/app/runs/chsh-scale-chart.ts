@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '@shared/analysis/statistics/bell-bounds';
+import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '@shared/analysis';
 import { formatFixed } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 

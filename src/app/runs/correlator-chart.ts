@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import type { ChshSummary } from '@shared/analysis';
 import { formatFixed } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 

@@ -2,8 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { ChartData, ChartOptions, PointStyle } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import type { BlockSummary, FractionInterval } from '@shared/analysis/report/block-summary';
-import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { type BlockSummary, type FractionInterval, LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import { formatFixed, formatPercent } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { SecuritySummary } from '@shared/analysis/report/security-summary';
+import type { SecuritySummary } from '@shared/analysis';
 
 /** The one line for each attack model. */
 const LINES: Record<SecuritySummary['model'], string> = {

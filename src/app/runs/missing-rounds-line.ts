@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { MissingRoundsSummary } from '@shared/analysis/report/missing-rounds';
+import type { MissingRoundsSummary } from '@shared/analysis';
 import { missingRoundsFigures } from './missing-rounds-figures';
 
 /** The rounds a log lacks between its first and last index: a calm line, or a warning past the profile's tolerance. */

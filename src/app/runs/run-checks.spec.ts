@@ -1,7 +1,6 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { CheckResult } from '@shared/analysis/checks/check-result';
-import type { SecuritySummary } from '@shared/analysis/report/security-summary';
+import type { CheckResult, SecuritySummary } from '@shared/analysis';
 import { RunChecks } from './run-checks';
 
 const security = {

@@ -1,8 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { CheckResult, CheckStatus } from '@shared/analysis/checks/check-result';
-import type { SecuritySummary } from '@shared/analysis/report/security-summary';
+import type { CheckResult, CheckStatus, SecuritySummary } from '@shared/analysis';
 import { checkFigures } from './check-figures';
 
 /** How each outcome of a check is shown: an icon and a word, the tone only beside them. */

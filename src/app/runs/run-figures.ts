@@ -1,12 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
-import type { AnalysisResult } from '@shared/analysis/result';
+import { type AnalysisResult, winThresholdOf } from '@shared/analysis';
 import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '@shared/format/numbers';
 import { ChshScaleChart } from './chsh-scale-chart';
 import { KeyCaution } from './key-caution';
 import { MissingRoundsLine } from './missing-rounds-line';
-import { winThresholdOf } from '@shared/analysis/report/win-threshold';
 
 /** The figures of an analysed run, each with its bound and threshold; the key figures with their caution. */
 @Component({

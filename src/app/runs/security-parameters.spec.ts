@@ -1,9 +1,7 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 
-import { profileSchema } from '@shared/analysis/profile';
-import type { KeySummary } from '@shared/analysis/report/key-summary';
-import { summariseSecurity, type SecuritySummary } from '@shared/analysis/report/security-summary';
+import { type KeySummary, profileSchema, type SecuritySummary, summariseSecurity } from '@shared/analysis';
 import { SecurityParameters } from './security-parameters';
 
 // The collective model needs nothing of the key summary: the terms come from the profile.

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatExpansionModule } from '@angular/material/expansion';
 
-import type { SecuritySummary } from '@shared/analysis/report/security-summary';
+import type { SecuritySummary } from '@shared/analysis';
 import { formatCount, formatScientific } from '@shared/format/numbers';
 import { KeyCaution } from './key-caution';
 

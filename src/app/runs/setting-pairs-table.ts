@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
-import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import type { ChshSummary } from '@shared/analysis';
 import { formatScientific } from '@shared/format/numbers';
 import { settingPairsTable } from './setting-pairs';
 

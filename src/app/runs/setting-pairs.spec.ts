@@ -1,5 +1,4 @@
-import { summariseChsh } from '@shared/analysis/report/chsh-summary';
-import { COUNT_CELLS, countCell } from '@shared/analysis/tally/count-table';
+import { COUNT_CELLS, countCell, summariseChsh } from '@shared/analysis';
 import { settingPairsTable } from './setting-pairs';
 
 const THIN = '\u2009';

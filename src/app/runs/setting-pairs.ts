@@ -1,4 +1,4 @@
-import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
+import type { ChshSummary } from '@shared/analysis';
 import { formatCount, formatFixed } from '@shared/format/numbers';
 
 /** One CHSH setting pair (x, y) as the run page lists it, every figure formatted. */

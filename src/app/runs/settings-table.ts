@@ -1,7 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
-import type { ChshSummary } from '@shared/analysis/report/chsh-summary';
-import type { CountTable } from '@shared/analysis/tally/count-table';
+import type { ChshSummary, CountTable } from '@shared/analysis';
 import { formatCount, formatFixed } from '@shared/format/numbers';
 
 /** One cell of the settings table: setting pair (x, y), its rounds and what it is for. */

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { Chart, ChartData, ChartOptions, Plugin } from 'chart.js';
 import { BaseChartDirective } from 'ng2-charts';
 
-import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis/statistics/bell-bounds';
+import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import { formatFixed } from '@shared/format/numbers';
 import { chartTone } from '../charts/chart-tones';
 

@@ -1,10 +1,15 @@
-import type { ColumnMapping, OutcomeEncoding } from '@shared/analysis/log/column-mapping';
-import { splitCsvLine } from '@shared/analysis/log/csv-line';
-import { parseIntegerField } from '@shared/analysis/log/integer-field';
-import { HEAD_BYTES, readLogHead } from '@shared/analysis/log/log-head';
-import { ProblemList } from '@shared/analysis/log/log-problem';
-import { RecordChecker } from '@shared/analysis/log/record-checker';
-import { ROUND_FIELDS, type RoundField } from '@shared/analysis/log/round-fields';
+import {
+  type ColumnMapping,
+  HEAD_BYTES,
+  type OutcomeEncoding,
+  parseIntegerField,
+  ProblemList,
+  readLogHead,
+  RecordChecker,
+  ROUND_FIELDS,
+  type RoundField,
+  splitCsvLine,
+} from '@shared/analysis';
 
 /** The first bytes of a log, decompressed when it is gzip. */
 export interface LogSample {

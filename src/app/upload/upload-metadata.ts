@@ -1,5 +1,5 @@
 import { RESUMABLE_METADATA_KEYS } from '@shared/api';
-import type { ColumnMapping } from '@shared/analysis/log/column-mapping';
+import type { ColumnMapping } from '@shared/analysis';
 
 /** What the browser sends with a log. */
 export interface LogUpload {

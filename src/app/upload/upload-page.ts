@@ -12,8 +12,7 @@ import { RouterLink } from '@angular/router';
 import { catchError, map, of, switchMap } from 'rxjs';
 
 import { FINISHED_STATES, type BookingDto, type RunDto } from '@shared/api';
-import { OUTCOME_ENCODINGS, type ColumnMapping, type OutcomeEncoding } from '@shared/analysis/log/column-mapping';
-import { FIELD_MEANING, ROUND_FIELDS, type RoundField } from '@shared/analysis/log/round-fields';
+import { type ColumnMapping, FIELD_MEANING, OUTCOME_ENCODINGS, type OutcomeEncoding, ROUND_FIELDS, type RoundField } from '@shared/analysis';
 import { formatCount } from '@shared/format/numbers';
 import { apiErrorMessage } from '../api/api-error-message';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
