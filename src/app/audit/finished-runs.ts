@@ -12,7 +12,10 @@ import { Router, RouterLink } from '@angular/router';
 import { catchError, of } from 'rxjs';
 
 import type { RunSummaryDto, Verdict } from '@shared/api';
+import { type PickedDay, isoDay } from '../dates/local-dates';
 import { ChoiceFilter } from '../lists/choice-filter';
+import { DateRangeFilter } from '../lists/date-range-filter';
+import { FilterBar } from '../lists/filter-bar';
 import { setupChoices, VERDICT_CHOICES } from '../lists/filter-choices';
 import { ListFrame } from '../lists/list-frame';
 import { pagedList } from '../lists/paged-list';
@@ -33,6 +36,8 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'acquiredOn', direct
     BookingNoteLine,
     ChoiceFilter,
     DatePipe,
+    DateRangeFilter,
+    FilterBar,
     ListFrame,
     MatButtonModule,
     MatFormFieldModule,
@@ -62,8 +67,8 @@ export class FinishedRuns {
     setupId: new FormControl<number | null>(null),
     verdict: new FormControl<Verdict | null>(null),
     profileVersionId: new FormControl<number | null>(null),
-    from: new FormControl(''),
-    to: new FormControl(''),
+    from: new FormControl<PickedDay>(null),
+    to: new FormControl<PickedDay>(null),
     sha256: new FormControl<string | null>('', hexPrefixValidator),
     fingerprint: new FormControl<string | null>('', hexPrefixValidator),
   });
@@ -78,10 +83,6 @@ export class FinishedRuns {
   /** Finished runs under the filters; a field with a bad hash prefix holds the list where it was. */
   protected readonly list = pagedList({ filters: this.filters, chosen: () => this.chosenFilters(), firstPage: FIRST_PAGE, load: (query) => this.runsApi.list(query) });
 
-  protected clearFilters(): void {
-    this.filters.reset({ from: '', to: '', sha256: '', fingerprint: '' });
-  }
-
   protected openRun(run: RunSummaryDto): void {
     void this.router.navigate(['/runs', run.id]);
   }
@@ -89,6 +90,6 @@ export class FinishedRuns {
   private chosenFilters(): Partial<RunQuery> {
     const { setupId, verdict, profileVersionId, from, to } = this.filters.getRawValue();
     const { sha256, fingerprint } = this.filters.controls;
-    return { setupId, verdict, profileVersionId, from, to, sha256: hexPrefixQuery(sha256), fingerprint: hexPrefixQuery(fingerprint) };
+    return { setupId, verdict, profileVersionId, from: isoDay(from), to: isoDay(to), sha256: hexPrefixQuery(sha256), fingerprint: hexPrefixQuery(fingerprint) };
   }
 }

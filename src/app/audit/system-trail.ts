@@ -14,7 +14,10 @@ import { catchError, of } from 'rxjs';
 
 import { AUDIT_TARGET_TYPES, type AuditEventDto, type AuditFilter, type AuditQuery, type AuditTargetType } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
+import { type PickedDay, isoDay } from '../dates/local-dates';
 import { ChoiceFilter } from '../lists/choice-filter';
+import { DateRangeFilter } from '../lists/date-range-filter';
+import { FilterBar } from '../lists/filter-bar';
 import { ListFrame } from '../lists/list-frame';
 import { pagedList } from '../lists/paged-list';
 import { trailDetail, trailWords } from '../runs/trail-words';
@@ -30,6 +33,8 @@ const FIRST_PAGE = { page: 0, pageSize: 50 };
   imports: [
     ChoiceFilter,
     DatePipe,
+    DateRangeFilter,
+    FilterBar,
     ListFrame,
     MatButtonModule,
     MatFormFieldModule,
@@ -58,8 +63,8 @@ export class SystemTrail {
     action: new FormControl<string | null>(null),
     targetType: new FormControl<AuditTargetType | null>(null),
     targetId: new FormControl(''),
-    from: new FormControl(''),
-    to: new FormControl(''),
+    from: new FormControl<PickedDay>(null),
+    to: new FormControl<PickedDay>(null),
   });
 
   protected readonly actors = toSignal(this.auditApi.actors().pipe(catchError(() => of([]))), { initialValue: [] });
@@ -75,10 +80,6 @@ export class SystemTrail {
   protected readonly trailWords = trailWords;
   protected readonly trailDetail = trailDetail;
   protected readonly targetWords = targetWords;
-
-  protected clearFilters(): void {
-    this.filters.reset({ targetId: '', from: '', to: '' });
-  }
 
   /** Downloads every line under the filters now applied, not only the page shown. */
   protected exportCsv(): void {
@@ -99,8 +100,8 @@ export class SystemTrail {
       action: action ?? undefined,
       targetType: targetType ?? undefined,
       targetId: targetId?.trim(),
-      from: from ?? undefined,
-      to: to ?? undefined,
+      from: isoDay(from),
+      to: isoDay(to),
     };
   }
 }

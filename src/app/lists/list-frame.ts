@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -10,7 +10,7 @@ import type { PagedList, PageQuery } from './paged-list';
  * What a paged list shows around its table: a bar while it loads, the failure with "Try again",
  * the empty list (no match under the filters, with "Clear filters"; or the content marked
  * `bkListEmpty` when there is nothing at all), and once there are rows the table (the content)
- * with the paginator under it.
+ * or its panels, with the paginator under it.
  */
 @Component({
   selector: 'bk-list-frame',
@@ -34,13 +34,13 @@ import type { PagedList, PageQuery } from './paged-list';
           <div class="bk-state" [attr.data-testid]="emptyTestId()">
             @if (list().filtered()) {
               <p>{{ noMatch() }}</p>
-              <button mat-stroked-button type="button" (click)="clear.emit()">Clear filters</button>
+              <button mat-stroked-button type="button" (click)="list().clear()">Clear filters</button>
             } @else {
               <ng-content select="[bkListEmpty]" />
             }
           </div>
         } @else {
-          <div class="bk-table-frame">
+          <div [class.bk-table-frame]="framed()">
             <ng-content />
             <mat-paginator
               [length]="list().total()"
@@ -64,8 +64,8 @@ export class ListFrame {
   /** The sentence when no row matches the filters. */
   readonly noMatch = input.required<string>();
   readonly emptyTestId = input<string | null>(null);
-  /** Clear filters, asked from the empty list. */
-  readonly clear = output();
+  /** Whether the rows are a table, drawn in a frame that scrolls sideways; panels (false) stand on their own. */
+  readonly framed = input(true);
 
   protected readonly capitalised = computed(() => this.what().charAt(0).toUpperCase() + this.what().slice(1));
   protected readonly failure = computed(() => failureMessage(this.list().page()));

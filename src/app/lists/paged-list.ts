@@ -32,7 +32,10 @@ export interface PagedListOptions<Query extends PageQuery, Item> {
   typingPauseMilliseconds?: number;
 }
 
-/** A server-side filtered, paged (and sortable) list, as the runs list, the finished runs and the system trail show it. */
+/**
+ * A filtered, paged (and sortable) list: the runs list, the finished runs and the system trail
+ * page on the server; setups and profiles, a lab's few, page the whole list with {@link pageOfWhole}.
+ */
 export interface PagedList<Query extends PageQuery, Item> {
   /** The query last asked for. */
   query: Signal<Query>;
@@ -48,6 +51,8 @@ export interface PagedList<Query extends PageQuery, Item> {
   sortBy(sort: string | undefined, direction: 'asc' | 'desc' | ''): void;
   /** Asks for the same page again (after a failure). */
   retry(): void;
+  /** Empties every filter field: the whole list again, from the first page. */
+  clear(): void;
 }
 
 const DEFAULT_TYPING_PAUSE_MILLISECONDS = 300;
@@ -97,5 +102,19 @@ export function pagedList<Query extends PageQuery, Item>(options: PagedListOptio
         ...(sort !== undefined && direction !== '' ? { sort, direction } : { sort: firstPage.sort, direction: firstPage.direction }),
       })),
     retry: () => attempt.update((count) => count + 1),
+    clear: () => filters.reset(),
   };
+}
+
+/** The page `query` asks for of a whole list the API answers at once, keeping the items that `matches`. */
+export function pageOfWhole<Item>(items: readonly Item[], query: PageQuery, matches: (item: Item) => boolean): ListPage<Item> {
+  const kept = items.filter(matches);
+  const start = query.page * query.pageSize;
+  return { items: kept.slice(start, start + query.pageSize), total: kept.length };
+}
+
+/** Whether any of `texts` holds `search` (either case; an empty search holds everywhere). */
+export function textHolds(search: string | undefined, ...texts: (string | null | undefined)[]): boolean {
+  const wanted = search?.trim().toLocaleLowerCase() ?? '';
+  return wanted === '' || texts.some((text) => text?.toLocaleLowerCase().includes(wanted) === true);
 }

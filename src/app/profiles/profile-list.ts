@@ -1,17 +1,20 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { filter, switchMap } from 'rxjs';
+import { filter, map } from 'rxjs';
 
 import type { ProfileDto, ProfileVersionDto } from '@shared/api';
 import type { AnalysisProfile } from '@shared/analysis';
-import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
+import { FilterBar } from '../lists/filter-bar';
+import { ListFrame } from '../lists/list-frame';
+import { pagedList, pageOfWhole, textHolds } from '../lists/paged-list';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 import { describeProfile } from './profile-fields';
 import { ProfilesApi } from './profiles-api';
@@ -19,7 +22,7 @@ import { ProfilesApi } from './profiles-api';
 /** The acceptance profiles with their versions; each version readable as it was; admins add versions. */
 @Component({
   selector: 'bk-profile-list',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [DatePipe, FilterBar, ListFrame, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
   templateUrl: './profile-list.html',
   styleUrl: './profile-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -28,15 +31,22 @@ export class ProfileList {
   private readonly profilesApi = inject(ProfilesApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly reload = signal(0);
 
   protected readonly isAdmin = inject(Session).hasAnyRole(['admin']);
-  protected readonly profiles = toSignal(toObservable(this.reload).pipe(switchMap(() => loaded(this.profilesApi.list()))), {
-    initialValue: { status: 'loading' },
-  });
-  protected readonly list = computed(() => {
-    const profiles = this.profiles();
-    return profiles.status === 'ready' ? profiles.value : [];
+  protected readonly filters = new FormGroup({ search: new FormControl('') });
+  /** The profiles, found by their name, description or a version's note. */
+  protected readonly list = pagedList({
+    filters: this.filters,
+    chosen: () => ({ search: this.filters.controls.search.value ?? '' }),
+    firstPage: { page: 0, pageSize: 10, search: '' },
+    load: (query) =>
+      this.profilesApi
+        .list()
+        .pipe(
+          map((profiles) =>
+            pageOfWhole(profiles, query, (profile) => textHolds(query.search, profile.name, profile.description, ...profile.versions.map((version) => version.note))),
+          ),
+        ),
   });
   /** The version shown in full, per profile id (the latest unless another was picked). */
   private readonly picked = signal<Record<number, number>>({});
@@ -54,10 +64,6 @@ export class ProfileList {
     return describeProfile(version.parameters as AnalysisProfile);
   }
 
-  protected retry(): void {
-    this.reload.update((attempt) => attempt + 1);
-  }
-
   protected openEditor(profile: ProfileDto | null): void {
     this.dialog
       .open<ProfileDialog, ProfileDialogData, ProfileDto>(ProfileDialog, { data: { profile }, width: '760px', maxWidth: '96vw', autoFocus: 'first-tabbable' })
@@ -65,7 +71,7 @@ export class ProfileList {
       .pipe(filter((saved) => saved !== undefined))
       .subscribe((saved) => {
         this.picked.update((picked) => ({ ...picked, [saved.id]: saved.latestVersionId }));
-        this.retry();
+        this.list.retry();
         this.snackBar.open(`${saved.name} version ${saved.versions[0]?.version} saved.`, undefined, { duration: 4000 });
       });
   }

@@ -95,14 +95,17 @@ describe('RunList', () => {
   });
 
   it('asks again from the first page with a filter, and says when no run matches, with a way back', async () => {
+    // A British browser types the day first: 01/12/2026 is the first of December.
+    const language = jest.spyOn(navigator, 'language', 'get').mockReturnValue('en-GB');
     await openAs(['experimentalist']);
     runRequests()[0].flush(pageOf([night], 60));
     await settle(fixture);
+    expect(text()).toContain('e.g. 31/12/2026');
 
-    const from = host.querySelector<HTMLInputElement>('input[formcontrolname="from"]')!;
-    from.value = '2026-12-01';
+    const from = host.querySelector<HTMLInputElement>('input[aria-label="Uploaded from"]')!;
+    from.value = '01/12/2026';
     from.dispatchEvent(new Event('input'));
-    await settle(fixture);
+    await settle(fixture, 300);
     const [filtered] = runRequests();
     expect(filtered.request.params.get('from')).toBe('2026-12-01');
     expect(filtered.request.params.get('page')).toBe('0');
@@ -113,12 +116,13 @@ describe('RunList', () => {
     Array.from(host.querySelectorAll<HTMLButtonElement>('[data-testid="runs-empty"] button'))
       .find((button) => button.textContent.includes('Clear filters'))!
       .click();
-    await settle(fixture);
+    await settle(fixture, 300);
     const [cleared] = runRequests();
     expect(cleared.request.params.has('from')).toBe(false);
     cleared.flush(pageOf([night]));
     await settle(fixture);
     expect(host.querySelector('[data-testid="run-row-31"]')).not.toBeNull();
+    language.mockRestore();
   });
 
   it('tells an experimentalist with no runs yet to upload the first night, and someone else who does', async () => {

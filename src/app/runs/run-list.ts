@@ -15,7 +15,10 @@ import { catchError, of } from 'rxjs';
 import { RUN_SORT_KEYS, RUN_STATES, type RunSortKey, type RunState, type RunSummaryDto, type Verdict } from '@shared/api';
 import { formatCount, formatFixed, formatPercent } from '@shared/format/numbers';
 import { Session } from '../auth/session';
+import { type PickedDay, isoDay } from '../dates/local-dates';
 import { ChoiceFilter } from '../lists/choice-filter';
+import { DateRangeFilter } from '../lists/date-range-filter';
+import { FilterBar } from '../lists/filter-bar';
 import { setupChoices, VERDICT_CHOICES } from '../lists/filter-choices';
 import { ListFrame } from '../lists/list-frame';
 import { pagedList } from '../lists/paged-list';
@@ -36,6 +39,8 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'createdAt', directi
     BookingNoteLine,
     ChoiceFilter,
     DatePipe,
+    DateRangeFilter,
+    FilterBar,
     ListFrame,
     MatButtonModule,
     MatFormFieldModule,
@@ -67,8 +72,8 @@ export class RunList {
     setupId: new FormControl<number | null>(null),
     verdict: new FormControl<Verdict | null>(null),
     state: new FormControl<RunState | null>(null),
-    from: new FormControl(''),
-    to: new FormControl(''),
+    from: new FormControl<PickedDay>(null),
+    to: new FormControl<PickedDay>(null),
     uploadedBy: new FormControl<number | null>(null),
   });
 
@@ -83,13 +88,15 @@ export class RunList {
     { initialValue: [] },
   );
 
-  /** Every change of the filters asks at once (they are menus and dates, nothing typed). */
+  /** Runs under the filters; a day typed only in part holds the list where it was. */
   protected readonly list = pagedList({
     filters: this.filters,
-    chosen: () => this.filters.getRawValue() as Partial<RunQuery>,
+    chosen: () => {
+      const { from, to, ...chosen } = this.filters.getRawValue();
+      return { ...chosen, from: isoDay(from), to: isoDay(to) };
+    },
     firstPage: FIRST_PAGE,
     load: (query) => this.runsApi.list(query),
-    typingPauseMilliseconds: 0,
   });
 
   protected readonly count = formatCount;
@@ -105,10 +112,6 @@ export class RunList {
   protected sortBy(sort: Sort): void {
     const key = sort.active as RunSortKey;
     this.list.sortBy(RUN_SORT_KEYS.includes(key) ? key : undefined, sort.direction);
-  }
-
-  protected clearFilters(): void {
-    this.filters.reset();
   }
 
   protected openRun(run: RunSummaryDto): void {

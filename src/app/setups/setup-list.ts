@@ -1,16 +1,19 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
-import { filter, switchMap } from 'rxjs';
+import { filter, map } from 'rxjs';
 
 import type { SetupDto } from '@shared/api';
-import { loaded } from '../api/loaded';
 import { Session } from '../auth/session';
+import { FilterBar } from '../lists/filter-bar';
+import { ListFrame } from '../lists/list-frame';
+import { pagedList, pageOfWhole, textHolds } from '../lists/paged-list';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';
 import { SetupFacts } from './setup-facts';
 import { SetupTrendChart } from './setup-trend-chart';
@@ -19,7 +22,7 @@ import { SetupsApi } from './setups-api';
 /** The setups, each with its shift leads and the trend of its nightly runs; admins edit them. */
 @Component({
   selector: 'bk-setup-list',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, SetupFacts, SetupTrendChart],
+  imports: [FilterBar, ListFrame, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule, RouterLink, SetupFacts, SetupTrendChart],
   templateUrl: './setup-list.html',
   styleUrl: './setup-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -28,20 +31,33 @@ export class SetupList {
   private readonly setupsApi = inject(SetupsApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
-  private readonly reload = signal(0);
 
   protected readonly isAdmin = inject(Session).hasAnyRole(['admin']);
-  protected readonly setups = toSignal(toObservable(this.reload).pipe(switchMap(() => loaded(this.setupsApi.list()))), {
-    initialValue: { status: 'loading' },
+  protected readonly filters = new FormGroup({ search: new FormControl('') });
+  /** The lab's setups, found by any of their words: name, description, stations, shift leads, profile. */
+  protected readonly list = pagedList({
+    filters: this.filters,
+    chosen: () => ({ search: this.filters.controls.search.value ?? '' }),
+    firstPage: { page: 0, pageSize: 10, search: '' },
+    load: (query) =>
+      this.setupsApi
+        .list()
+        .pipe(
+          map((setups) =>
+            pageOfWhole(setups, query, (setup) =>
+              textHolds(
+                query.search,
+                setup.name,
+                setup.description,
+                setup.stationALabel,
+                setup.stationBLabel,
+                setup.defaultProfileName,
+                ...setup.shiftLeads.map((lead) => lead.name),
+              ),
+            ),
+          ),
+        ),
   });
-  protected readonly list = computed(() => {
-    const setups = this.setups();
-    return setups.status === 'ready' ? setups.value : [];
-  });
-
-  protected retry(): void {
-    this.reload.update((attempt) => attempt + 1);
-  }
 
   protected openEditor(setup: SetupDto | null): void {
     this.dialog
@@ -49,7 +65,7 @@ export class SetupList {
       .afterClosed()
       .pipe(filter((saved) => saved !== undefined))
       .subscribe((saved) => {
-        this.retry();
+        this.list.retry();
         this.snackBar.open(`${saved.name} saved.`, undefined, { duration: 4000 });
       });
   }
