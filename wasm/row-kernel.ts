@@ -149,10 +149,31 @@ function decide(): u32 {
   const u = load<f64>(UNIFORMS + (<usize>uniformsUsed << 3));
   uniformsUsed++;
   if (selectionMode == 1) return <u32>(u < probability);
-  const chosen = <u32>(u < remainingTests / remainingTriggers);
+  const chosen = selectionSampling(u, remainingTests, remainingTriggers);
   remainingTriggers -= 1;
   remainingTests -= <f64>chosen;
   return chosen;
+}
+
+/** 2^−49: scaling by it is exact. */
+const TWO_TO_MINUS_49: f64 = 1.7763568394002505e-15;
+
+/**
+ * Algorithm S's decision u < n/N (the quotient rounded to a double, as the TypeScript selector
+ * computes it), mostly without the division, whose latency would chain each decision to the last:
+ * with p = u·N rounded, p(1 + 2^−49) < n proves u < fl(n/N), and p(1 − 2^−49) > n proves the
+ * contrary (each rounding errs by a factor 1 ± 2^−53 at most; three of them stay inside the
+ * 2^−49 margin). Only between the two, about one decision in 2^47, is the quotient computed.
+ * Both bounds depend on u and N alone, so a decision waits for the last one by a comparison.
+ */
+@inline
+function selectionSampling(u: f64, n: f64, triggers: f64): u32 {
+  const p = u * triggers;
+  const margin = p * TWO_TO_MINUS_49;
+  const surelyBelow = <u32>(p + margin < n);
+  const surelyAbove = <u32>(p - margin > n);
+  if ((surelyBelow | surelyAbove) != 0) return surelyBelow;
+  return <u32>(u < n / triggers);
 }
 
 /**
@@ -160,47 +181,86 @@ function decide(): u32 {
  * gap count, the test decisions of the triggers missing before it and of its own, the counts and the
  * block's statistics. Stops before a row it cannot take so: a round index not above the last or
  * outside [next round, span's last], the block's end, too few uniform numbers left. Returns where it
- * stopped; the rows taken: `rows()`.
+ * stopped; the rows taken: `rows()`. The state lives in locals while it runs (a WebAssembly global
+ * is a memory access each time, a local a register) and goes back to the globals at the end.
  */
 export function step(from: i32, end: i32): i32 {
+  const mode = selectionMode;
+  const gamma = probability;
+  const uniformsHandedIn = uniformCount;
+  const spanLast = spanLastRound;
+  let used = uniformsUsed;
+  let tests = remainingTests;
+  let triggers = remainingTriggers;
+  let last = lastRound;
+  let next = nextRound;
+  let blockLeft = recordsLeftInBlock;
+  let gapCount = gaps;
+  let testCount = testRounds;
+  let blockFirst = blockFirstRound;
+  let blockLast = blockLastRound;
+  let stat0 = blockStat0;
+  let stat1 = blockStat1;
+  let stat2 = blockStat2;
+  let stat3 = blockStat3;
   let taken: i32 = 0;
   let at = from;
   for (;;) {
     // Each row takes a uniform number at least (with a keystream) and a place in the block.
-    const uniformsLeft = selectionMode == 2 ? BATCH : uniformCount - uniformsUsed;
-    const limit = <i32>min(<f64>min(uniformsLeft, BATCH), recordsLeftInBlock);
+    const uniformsLeft = mode == 2 ? BATCH : uniformsHandedIn - used;
+    const limit = <i32>min(<f64>min(uniformsLeft, BATCH), blockLeft);
     if (limit <= 0) break;
     const stop = scan(at, end, limit);
     const n = rowsRead;
     let k: i32 = 0;
     for (; k < n; k++) {
       const round = load<f64>(ROUNDS + (<usize>k << 3));
-      if (!(round > lastRound) || round < nextRound || !(round <= spanLastRound) || recordsLeftInBlock < 1) break;
-      const missing = round - nextRound;
-      if (selectionMode != 2 && <f64>(uniformCount - uniformsUsed) < missing + 1) break;
+      if (!(round > last) || round < next || !(round <= spanLast) || blockLeft < 1) break;
+      const missing = round - next;
+      if (mode != 2 && <f64>(uniformsHandedIn - used) < missing + 1) break;
       const code = <u32>load<u8>(CODES + <usize>k);
-      gaps += round - lastRound - 1;
-      lastRound = round;
-      recordsLeftInBlock -= 1;
-      if (selectionMode == 2) {
-        missingTestRounds += missing;
-      } else {
-        for (let j: f64 = 0; j < missing; j++) missingTestRounds += <f64>decide();
+      gapCount += round - last - 1;
+      last = round;
+      blockLeft -= 1;
+      if (missing > 0) {
+        // Rare: the triggers of missing rounds take their decisions (the globals' way, then back).
+        uniformsUsed = used;
+        remainingTests = tests;
+        remainingTriggers = triggers;
+        if (mode == 2) missingTestRounds += missing;
+        else for (let j: f64 = 0; j < missing; j++) missingTestRounds += <f64>decide();
+        used = uniformsUsed;
+        tests = remainingTests;
+        triggers = remainingTriggers;
       }
-      nextRound = round + 1;
-      const isTest: u32 = selectionMode == 2 ? code >> 5 : decide();
-      testRounds += <f64>isTest;
+      next = round + 1;
+      let isTest: u32;
+      if (mode == 2) {
+        isTest = code >> 5;
+      } else {
+        // `decide` on the locals.
+        const u = load<f64>(UNIFORMS + (<usize>used << 3));
+        used++;
+        if (mode == 1) {
+          isTest = <u32>(u < gamma);
+        } else {
+          isTest = selectionSampling(u, tests, triggers);
+          triggers -= 1;
+          tests -= <f64>isTest;
+        }
+      }
+      testCount += <f64>isTest;
       const cell = code & 31;
-      const counted = COUNTS + ((<usize>(isTest * <u32>CELLS + cell)) << 3);
+      const counted = COUNTS + (<usize>(isTest * <u32>CELLS + cell) << 3);
       store<f64>(counted, load<f64>(counted) + 1);
-      if (isNaN(blockFirstRound)) blockFirstRound = round;
-      blockLastRound = round;
+      if (isNaN(blockFirst)) blockFirst = round;
+      blockLast = round;
       if (isTest) {
         const adds = BLOCK_ADDS + (<usize>cell << 5);
-        blockStat0 += load<f64>(adds);
-        blockStat1 += load<f64>(adds, 8);
-        blockStat2 += load<f64>(adds, 16);
-        blockStat3 += load<f64>(adds, 24);
+        stat0 += load<f64>(adds);
+        stat1 += load<f64>(adds, 8);
+        stat2 += load<f64>(adds, 16);
+        stat3 += load<f64>(adds, 24);
       }
     }
     taken += k;
@@ -212,6 +272,20 @@ export function step(from: i32, end: i32): i32 {
     at = stop;
     if (n < limit) break;
   }
+  uniformsUsed = used;
+  remainingTests = tests;
+  remainingTriggers = triggers;
+  lastRound = last;
+  nextRound = next;
+  recordsLeftInBlock = blockLeft;
+  gaps = gapCount;
+  testRounds = testCount;
+  blockFirstRound = blockFirst;
+  blockLastRound = blockLast;
+  blockStat0 = stat0;
+  blockStat1 = stat1;
+  blockStat2 = stat2;
+  blockStat3 = stat3;
   rowsRead = taken;
   return at;
 }
@@ -223,6 +297,66 @@ function lineStartAfter(from: i32, lines: i32): i32 {
     if (load<u8>(p) == <u8>LF) seen++;
   }
   return <i32>(p - INPUT);
+}
+
+// The plain layout `round,x,y,a,b` with 0/1 outcomes and LF line ends, the most common by far, is
+// read eight bytes at a time (SWAR: SIMD within a register): the round index's digits, then
+// "x,y,a,b\n" checked and decoded in one 64-bit word. A row that does not fit (more than 8 digits,
+// CR LF, anything unusual) goes to the general loop below, which gives the same values or refuses.
+const ASCII_ZEROS: u64 = 0x3030303030303030;
+const HIGH_NIBBLES: u64 = 0xf0f0f0f0f0f0f0f0;
+const SIXES: u64 = 0x0606060606060606;
+/** "0,0,0,0\n" as a little-endian word: byte 0 is x. */
+const PLAIN_TAIL: u64 = 0x0a302c302c302c30;
+/** After XOR with PLAIN_TAIL: the separators' bytes (must be 0) and the bits above each value's range. */
+const TAIL_SEPARATORS: u64 = 0xff00ff00ff00ff00;
+const TAIL_OUT_OF_RANGE: u64 = 0x00fe00fe00fc00fe;
+
+/** Whether the columns are exactly round, x, y, a, b with 0/1 outcomes. */
+function isPlainLayout(): bool {
+  if (columns != 5 || plusMinus) return false;
+  for (let column = 0; column < 5; column++) {
+    if (<i32>load<u8>(KINDS + <usize>column) != column + 1) return false;
+  }
+  return true;
+}
+
+/**
+ * Reads one row of the plain layout at `p` as row `n` (its round index and code, as `scan` stores
+ * them); returns its length in bytes, or 0 when the row is not of the plain shape (nothing stored).
+ * Reads up to 17 bytes from `p`; the input's stop byte (0) and the 16 bytes `reserve` keeps after
+ * it make every such read land in memory, and a 0 byte never fits a digit, a separator or a value.
+ */
+@inline
+function plainRow(p: usize, n: i32): usize {
+  const word = load<u64>(p);
+  // A byte is a digit when its high nibble is 3 before and after adding 6; carries and borrows
+  // start only at a byte that is not, so the bytes before the first non-digit read true.
+  const notDigits = ((word & HIGH_NIBBLES) ^ ASCII_ZEROS) | (((word + SIXES) & HIGH_NIBBLES) ^ ASCII_ZEROS);
+  const digits = <usize>(ctz<u64>(notDigits) >> 3);
+  if (digits == 0 || <u32>load<u8>(p + digits) != COMMA) return 0;
+  const tail = load<u64>(p + digits + 1) ^ PLAIN_TAIL;
+  if ((tail & (TAIL_SEPARATORS | TAIL_OUT_OF_RANGE)) != 0) return 0;
+  const x = <u32>tail & 0xff;
+  const y = <u32>(tail >> 16) & 0xff;
+  const a = <u32>(tail >> 32) & 0xff;
+  const b = <u32>(tail >> 48) & 0xff;
+  if (y == 3) return 0;
+  store<f64>(ROUNDS + (<usize>n << 3), <f64>eightDigits((word - ASCII_ZEROS) << ((8 - <u64>digits) << 3)));
+  store<u8>(CODES + <usize>n, <u8>(((x * 3 + y) * 2 + a) * 2 + b));
+  return digits + 9;
+}
+
+/**
+ * The number written by eight decimal digits, one a byte (values 0–9), the first digit in the lowest
+ * byte: pairs, then fours, then all eight, with three multiplications (the SWAR parsing described in
+ * Lemire, "Fast Number Parsing", and in simdjson's parse_eight_digits_unrolled).
+ */
+@inline
+function eightDigits(digits: u64): u64 {
+  const pairs = (digits * 10 + (digits >> 8)) & 0x00ff00ff00ff00ff;
+  const fours = ((pairs * (1 + (100 << 16))) >> 16) & 0x0000ffff0000ffff;
+  return (fours * (1 + (<u64>10000 << 32))) >> 32;
 }
 
 /** Rows read by the last `scan`. */
@@ -241,10 +375,19 @@ export function scan(from: i32, end: i32, limit: i32): i32 {
   let p: usize = INPUT + <usize>from;
   const columnCount = columns;
   const pm = plusMinus;
+  const plain = isPlainLayout();
   let n: i32 = 0;
   const most = min(limit, BATCH);
   while (n < most) {
     const start = p;
+    if (plain) {
+      const taken = plainRow(p, n);
+      if (taken != 0) {
+        p += taken;
+        n++;
+        continue;
+      }
+    }
     let round: u64 = 0;
     let x: u32 = 0;
     let y: u32 = 0;
