@@ -28,6 +28,7 @@ import type { Services } from './services';
 import { setupsRoutes } from './setups/setups.routes';
 import { uploaderGuard } from './upload-tokens/uploader-guard';
 import { uploadTokensRoutes } from './upload-tokens/upload-tokens.routes';
+import { ledgerRoutes } from './ledger/ledger.routes';
 import { usersRoutes } from './users/users.routes';
 import { workersRoutes } from './workers/workers.routes';
 
@@ -60,8 +61,8 @@ export function createApp({ config, database, services, jwtSecret, appMail, queu
 
   app.use('/api', healthRoutes({ database, queue, logStore: services.logStore, lifecycle }));
   app.use('/api', openApiRoutes());
-  app.use('/api/auth', authRoutes(config, jwtSecret, services.users, guards));
-  app.use('/api/users', usersRoutes(services.users, guards, appMail));
+  app.use('/api/auth', authRoutes(config, jwtSecret, services.users, services.passwords, guards));
+  app.use('/api/users', usersRoutes(services.users, services.passwords, guards, appMail));
   app.use('/api/profiles', profilesRoutes(services.profiles, guards));
   const uploader = uploaderGuard(guards, services.uploadTokens);
   app.use('/api/setups/:id/upload-tokens', uploadTokensRoutes({ tokens: services.uploadTokens, guards }));
@@ -70,6 +71,7 @@ export function createApp({ config, database, services, jwtSecret, appMail, queu
   app.use('/api/planner', plannerRoutes({ models: database.models, setups: services.setups, profiles: services.profiles, guards }));
   app.use('/api/signing-keys', signingKeysRoutes(services.signingKeys));
   app.use('/api/workers', workersRoutes(services.workers, guards));
+  app.use('/api', ledgerRoutes(services.ledger, guards));
   app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
   app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));
   app.use('/api/runs', runsRoutes({ config, runs: services.runs, logStore: services.logStore, models: database.models, guards, uploader }));

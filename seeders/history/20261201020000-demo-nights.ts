@@ -5,7 +5,7 @@ import path from 'node:path';
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { AnalysisResult } from '@shared/analysis';
 import { analyseLog } from '@shared/analysis/node';
-import { STATE_OF_VERDICT } from '@shared/api';
+import { STATE_OF_VERDICT, type SignOffDecision } from '@shared/api';
 import type { SeederContext } from '@server/database/migrate';
 import { seedCommitment } from '@server/bookings/seed-commitment';
 import { signStatement } from '@server/integrity/signed-statement';
@@ -109,17 +109,17 @@ export async function up({ queryInterface, transaction, logStore, signingKey, pr
           // Every night but the last two is signed off; of a replaced night, the last attempt only.
           if (log === logs[logs.length - 1]) progress?.(++nightsDone, totalNights);
           if (night < DEMO_NIGHTS - 2 && log === logs[logs.length - 1]) {
-            const comment = result.verdict === 'ACCEPT' ? 'Key kept.' : 'Key discarded; hardware checked in the morning.';
+            const { decision, comment } = demoSignOff(result);
             const finishedAt = `${acquiredOn}T07:00:00.000Z`;
-            await sequelize.query('INSERT INTO run_sign_offs (run_id, user_id, comment, created_at) VALUES (:id, :lead, :comment, :finishedAt)', {
+            await sequelize.query('INSERT INTO run_sign_offs (run_id, user_id, decision, comment, created_at) VALUES (:id, :lead, :decision, :comment, :finishedAt)', {
               transaction,
-              replacements: { id: runId, lead: lead.id, comment, finishedAt },
+              replacements: { id: runId, lead: lead.id, decision, comment, finishedAt },
             });
             await sequelize.query(
               "INSERT INTO audit_events (actor_id, action, target_type, target_id, details, created_at) VALUES (:lead, 'run.signed-off', 'run', :id, :details, :finishedAt)",
               {
                 transaction,
-                replacements: { lead: lead.id, id: String(runId), details: JSON.stringify({ comment, verdict: result.verdict }), finishedAt },
+                replacements: { lead: lead.id, id: String(runId), details: JSON.stringify({ decision, comment, verdict: result.verdict }), finishedAt },
               },
             );
           }
@@ -215,4 +215,11 @@ export async function down({ queryInterface, transaction }: SeederContext): Prom
   await queryInterface.sequelize.query('DELETE FROM run_sign_offs WHERE run_id IN (SELECT id FROM runs WHERE notes = :note)', { transaction, replacements: { note: DEMO_NOTE } });
   await queryInterface.sequelize.query('DELETE FROM runs WHERE notes = :note', { transaction, replacements: { note: DEMO_NOTE } });
   await queryInterface.sequelize.query('DELETE FROM bookings WHERE id NOT IN (SELECT booking_id FROM runs WHERE booking_id IS NOT NULL)', { transaction });
+}
+
+/** The shift lead's decision on a demo night: a key is kept when there is one; an ABORT sends someone to the hardware. */
+function demoSignOff(result: AnalysisResult): { decision: SignOffDecision; comment: string } {
+  if (result.verdict === 'ACCEPT' && (result.key?.finiteKeyBits ?? 0) > 0) return { decision: 'key-kept', comment: 'Steady night.' };
+  if (result.verdict === 'ACCEPT') return { decision: 'key-discarded', comment: 'The criteria hold, but the night was too short for a key.' };
+  return { decision: 'hardware-action', comment: 'Alignment checked in the morning before the next night.' };
 }

@@ -6,7 +6,7 @@ import { ROLE_LABELS } from '@shared/api';
 import { HttpError } from '../http/http-error';
 import type { UserRecord } from '../users/user.model';
 import type { UsersService } from '../users/users.service';
-import { TOKEN_ALGORITHM, TOKEN_ISSUER } from './tokens';
+import { TOKEN_ALGORITHM, TOKEN_ISSUER, type TokenClaims } from './tokens';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -38,10 +38,11 @@ export function createGuards(secret: string, users: UsersService): Guards {
         issuer: TOKEN_ISSUER,
         algorithms: [TOKEN_ALGORITHM],
       },
-      (payload: { sub?: string }, done: (error: unknown, user?: UserRecord | false) => void) => {
+      (payload: TokenClaims, done: (error: unknown, user?: UserRecord | false) => void) => {
         users
           .findActiveById(Number(payload.sub))
-          .then((user) => done(null, user ?? false))
+          // A token from before the last password change is refused: changing it ends the other sessions.
+          .then((user) => done(null, user !== null && user.passwordVersion === (payload.pv ?? 0) ? user : false))
           .catch((error: unknown) => done(error));
       },
     ),

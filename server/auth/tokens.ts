@@ -9,12 +9,18 @@ export interface IssuedToken {
   expiresAt: Date;
 }
 
-/** Signs a bearer token whose subject is the user's id. */
-export function issueToken(userId: number, secret: string, ttlSeconds: number): IssuedToken {
-  const token = jwt.sign({}, secret, {
+/** What a token names besides its subject: the password version it was issued under. */
+export interface TokenClaims {
+  sub?: string;
+  pv?: number;
+}
+
+/** Signs a bearer token whose subject is the user's id, under the user's current password version. */
+export function issueToken(user: { id: number; passwordVersion: number }, secret: string, ttlSeconds: number): IssuedToken {
+  const token = jwt.sign({ pv: user.passwordVersion }, secret, {
     algorithm: TOKEN_ALGORITHM,
     issuer: TOKEN_ISSUER,
-    subject: String(userId),
+    subject: String(user.id),
     expiresIn: ttlSeconds,
   });
   const { exp } = jwt.decode(token) as { exp: number };

@@ -6,11 +6,12 @@ import { defineProfileModels, type ProfileModels } from '../profiles/profile.mod
 import { defineRunModels, type RunModels } from '../runs/run.model';
 import { defineSetupModels, type SetupModels } from '../setups/setup.model';
 import { defineUploadTokenModel, type UploadTokenRecord } from '../upload-tokens/upload-token.model';
-import { defineUserModel, type UserModelStatic } from '../users/user.model';
+import { definePasswordResetModel, defineUserModel, type PasswordResetRecord, type UserModelStatic } from '../users/user.model';
 import { defineWorkerRecordModel, type WorkerRecord } from '../workers/worker-record.model';
 
 export interface Models extends ProfileModels, SetupModels, RunModels, IntegrityModels {
   User: UserModelStatic;
+  PasswordReset: ModelStatic<PasswordResetRecord>;
   AuditEvent: ModelStatic<AuditEventRecord>;
   Booking: ModelStatic<BookingRecord>;
   UploadToken: ModelStatic<UploadTokenRecord>;
@@ -21,6 +22,7 @@ export interface Models extends ProfileModels, SetupModels, RunModels, Integrity
 export function defineModels(sequelize: Sequelize): Models {
   return {
     User: defineUserModel(sequelize),
+    PasswordReset: definePasswordResetModel(sequelize),
     AuditEvent: defineAuditEventModel(sequelize),
     Booking: defineBookingModel(sequelize),
     UploadToken: defineUploadTokenModel(sequelize),

@@ -2,6 +2,7 @@ import { ROLE_LABELS, type BookingDto, type UserDto } from '@shared/api';
 import type { Mailer, OutgoingMail } from './mailer';
 import { faultLines, oneLine } from '../system/fault-lines';
 import { log } from '../system/log';
+import { HttpError } from '../http/http-error';
 
 /** The mails the API sends itself (the verdict mail is the worker's). */
 export interface AppMail {
@@ -9,6 +10,8 @@ export interface AppMail {
   welcome(user: UserDto, createdBy: string): void;
   /** The booking mail to the setup's shift leads: the night, its profile and the seed commitment. */
   booked(booking: BookingDto, recipients: string[]): void;
+  /** The single-use reset link to its user, sent now: rejects with a 502 when the mail server does not take it. */
+  passwordResetLink(user: { name: string; email: string }, secret: string, expiresAt: Date, admin: string): Promise<void>;
   /** Resolves when every mail started so far has been handed over (or has failed and been logged). */
   settled(): Promise<void>;
 }
@@ -65,6 +68,28 @@ export function createAppMail(mailer: Mailer, publicUrl: string): AppMail {
           `The booking: ${publicUrl}/setups/${booking.setupId}`,
         ].join('\n'),
       });
+    },
+    async passwordResetLink(user, secret, expiresAt, admin) {
+      try {
+        await mailer.send({
+          to: user.email,
+          subject: 'A link to set your Bellkeep password',
+          text: [
+            `Hello ${user.name},`,
+            '',
+            `${admin} has asked Bellkeep to let you set a new password. Open this link and choose one:`,
+            '',
+            `${publicUrl}/reset-password#${secret}`,
+            '',
+            `The link works once, until ${expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC. Setting the password signs you out everywhere else.`,
+            'If you did not expect this mail, tell your admin; your current password stays until the link is used.',
+          ].join('\n'),
+        });
+      } catch (error) {
+        mailFaults(error);
+        log.warn({ subject: 'password reset link', error: oneLine(error) }, 'mail failed');
+        throw new HttpError(502, 'mail-failed', `The mail server did not take the reset link for ${user.email}: ${oneLine(error)}. No link was made; try again.`);
+      }
     },
     async settled() {
       await Promise.all([...pending]);

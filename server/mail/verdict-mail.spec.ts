@@ -46,6 +46,8 @@ function finishedRun(result: AnalysisResult): RunDto {
     result,
     signature: null,
     signOff: null,
+    uploadedById: 2,
+    fourEyes: true,
     deliveries: [],
     bookingId: null,
     attempt: null,

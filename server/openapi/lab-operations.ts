@@ -8,6 +8,8 @@ import {
   createProfileVersionRequestSchema,
   createUploadTokenRequestSchema,
   generalAttackPlanSchema,
+  ledgerQuerySchema,
+  ledgerSchema,
   planPrefillQuerySchema,
   planPrefillSchema,
   planQuerySchema,
@@ -17,6 +19,7 @@ import {
   setupSchema,
   uploadTokenSchema,
   workersOverviewSchema,
+  worklistSchema,
 } from '@shared/api';
 import type { Operation } from './operation';
 
@@ -26,6 +29,27 @@ const NO_PROFILE = { 404: 'No such profile.' };
 
 /** The lab's setups, acceptance profiles, booked nights and their upload tokens, the planner and the workers. */
 export const LAB_OPERATIONS: Operation[] = [
+  {
+    method: 'get',
+    path: '/api/ledger',
+    summary: 'The ledger of nights',
+    description: 'Every setup, with each night of the range that has a booking or a log: the booking, how many logs came, the latest one with its verdict and sign-off.',
+    tags: ['Ledger'],
+    access: 'signed-in',
+    query: ledgerQuerySchema,
+    response: ledgerSchema,
+    errors: { 400: 'A date is not YYYY-MM-DD, the range is reversed, or it is longer than the ledger shows.' },
+  },
+  {
+    method: 'get',
+    path: '/api/worklist',
+    summary: 'What waits for you',
+    description:
+      'One list per role that has one: runs awaiting your sign-off (shift lead; under the four-eyes rule not your own uploads), your uploads being analysed or without a verdict (experimentalist), the re-verifications you asked for (auditor, admin).',
+    tags: ['Ledger'],
+    access: 'signed-in',
+    response: worklistSchema,
+  },
   { method: 'get', path: '/api/setups', summary: 'List the setups', tags: ['Setups'], access: 'signed-in', response: z.array(setupSchema) },
   { method: 'get', path: '/api/setups/{id}', summary: 'One setup', tags: ['Setups'], access: 'signed-in', response: setupSchema, errors: NO_SETUP },
   {

@@ -1,5 +1,15 @@
 import { z } from 'zod';
-import { createUserRequestSchema, loginRequestSchema, loginResponseSchema, updateUserRequestSchema, userSchema } from '@shared/api';
+import {
+  changePasswordRequestSchema,
+  createUserRequestSchema,
+  loginRequestSchema,
+  loginResponseSchema,
+  passwordResetLinkSchema,
+  RESET_LINK_HOURS,
+  resetPasswordRequestSchema,
+  updateUserRequestSchema,
+  userSchema,
+} from '@shared/api';
 import type { Operation } from './operation';
 
 /** Signing in and the people of the lab. */
@@ -16,6 +26,31 @@ export const PEOPLE_OPERATIONS: Operation[] = [
     errors: { 401: 'The e-mail or the password is wrong, or the account is deactivated.', 429: 'Too many sign-ins from this address or for this account; wait.' },
   },
   { method: 'get', path: '/api/auth/me', summary: 'Who the token belongs to', tags: ['Signing in'], access: 'signed-in', response: userSchema },
+  {
+    method: 'post',
+    path: '/api/auth/password',
+    summary: 'Change your own password',
+    description: 'Answers a new token for this session; every token issued before stops working.',
+    tags: ['Signing in'],
+    access: 'signed-in',
+    body: changePasswordRequestSchema,
+    response: loginResponseSchema,
+    errors: { 400: 'The current password is not right, or the new one is the current one or too short.' },
+  },
+  {
+    method: 'post',
+    path: '/api/auth/password-reset',
+    summary: 'Set a password by a mailed reset link',
+    description: `The secret is the part after \`#\` of the link an admin had mailed; it works once, for ${RESET_LINK_HOURS} hours. Every token of that person stops working. Limited per client address.`,
+    tags: ['Signing in'],
+    access: 'public',
+    body: resetPasswordRequestSchema,
+    status: 204,
+    errors: {
+      400: 'The link is used, replaced by a newer one, expired, or of a deactivated account; or the password is too short.',
+      429: 'Too many attempts from this address; wait.',
+    },
+  },
   { method: 'get', path: '/api/users', summary: 'List the users', tags: ['Users'], access: ['admin'], response: z.array(userSchema) },
   {
     method: 'post',
@@ -38,5 +73,16 @@ export const PEOPLE_OPERATIONS: Operation[] = [
     body: updateUserRequestSchema,
     response: userSchema,
     errors: { 404: 'No such user.', 409: 'Another user has that e-mail, or an admin would remove their own admin role or deactivate themselves.' },
+  },
+  {
+    method: 'post',
+    path: '/api/users/{id}/password-reset-link',
+    summary: 'Mail a person a single-use link to set their password',
+    description: `The link works once, for ${RESET_LINK_HOURS} hours; an earlier unused link stops working. The current password stays until the link is used.`,
+    tags: ['Users'],
+    access: ['admin'],
+    status: 201,
+    response: passwordResetLinkSchema,
+    errors: { 404: 'No such user.', 409: 'The account is deactivated.', 502: 'The mail server did not take the mail; no link was made.' },
   },
 ];

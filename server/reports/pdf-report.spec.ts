@@ -53,7 +53,7 @@ function signedReport(result: AnalysisResult): RunReportDto {
     result,
     signature,
     publicKey: { keyId: key.keyId, algorithm: 'Ed25519', publicKeyPem: key.publicKeyPem, createdAt: '2025-01-06T08:00:00.000Z', retiredAt: null },
-    signOff: { userId: 3, userName: 'Lucia Brandt', comment: SIGN_OFF_COMMENT, createdAt: SIGNED_OFF_AT },
+    signOff: { userId: 3, userName: 'Lucia Brandt', decision: 'key-kept', comment: SIGN_OFF_COMMENT, createdAt: SIGNED_OFF_AT },
     reverifications: [],
   };
 }
@@ -150,7 +150,7 @@ describe('the PDF report of a run', () => {
     });
 
     it('says who signed the run off, when, and with which comment', () => {
-      expect(text).toContain(`Signed off by Lucia Brandt on 2025-03-14 07:10:00 UTC: ${SIGN_OFF_COMMENT}`);
+      expect(text).toContain(`Signed off by Lucia Brandt on 2025-03-14 07:10:00 UTC. Key kept: ${SIGN_OFF_COMMENT}`);
     });
 
     it('puts the collective-attack caution beside the key figures', () => {

@@ -1,4 +1,4 @@
-import type { ReverificationDto, RunReportDto } from '@shared/api';
+import { SIGN_OFF_DECISION_WORDS, type ReverificationDto, type RunReportDto } from '@shared/api';
 import { bullets, fields, paragraph, type Field } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
 import { TONE } from './pdf-style';
@@ -19,7 +19,10 @@ const LISTED_DIFFERENCES = 12;
 export function writeSignOff(doc: PDFKit.PDFDocument, report: RunReportDto): void {
   const { signOff } = report;
   const comment = signOff?.comment.trim() ? `: ${signOff.comment.trim()}` : '.';
-  paragraph(doc, signOff === null ? 'Not signed off yet.' : `Signed off by ${signOff.userName} on ${formatInstant(signOff.createdAt)}${comment}`);
+  paragraph(
+    doc,
+    signOff === null ? 'Not signed off yet.' : `Signed off by ${signOff.userName} on ${formatInstant(signOff.createdAt)}. ${SIGN_OFF_DECISION_WORDS[signOff.decision]}${comment}`,
+  );
   doc.y += 4;
   if (report.reverifications.length === 0) {
     paragraph(doc, 'No re-verification has been asked for.', { colour: TONE.muted });

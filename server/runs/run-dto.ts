@@ -76,6 +76,8 @@ export interface RunDetails {
   result: AnalysisResult | null;
   signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
+  uploadedById: number | null;
+  fourEyes: boolean;
   deliveries: MailDeliveryDto[];
   booking: RunDto['booking'];
 }

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
 import type { AnalysisResult, LogCensus } from '@shared/analysis';
-import type { RunState, Verdict } from '@shared/api';
+import type { RunState, SignOffDecision, Verdict } from '@shared/api';
 
 export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAttributes<RunRecord>> {
   declare id: CreationOptional<number>;
@@ -51,6 +51,7 @@ export class ArchiveFileRecord extends Model<InferAttributes<ArchiveFileRecord>,
 export class SignOffRecord extends Model<InferAttributes<SignOffRecord>, InferCreationAttributes<SignOffRecord>> {
   declare runId: number;
   declare userId: number;
+  declare decision: SignOffDecision;
   declare comment: string;
   declare createdAt: CreationOptional<Date>;
 }
@@ -131,6 +132,7 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
     {
       runId: { type: DataTypes.INTEGER, primaryKey: true, field: 'run_id' },
       userId: { type: DataTypes.INTEGER, allowNull: false, field: 'user_id' },
+      decision: { type: DataTypes.STRING(20), allowNull: false },
       comment: { type: DataTypes.TEXT, allowNull: false },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
     },

@@ -58,7 +58,7 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: 
   });
 
   router.post('/:id/sign-off', guards.requireRole('shift-lead'), validateBody(signOffRequestSchema), async (request, response) => {
-    const signOff = await runs.signOff(idParameter(request, 'run'), request.body.comment, request.user!);
+    const signOff = await runs.signOff(idParameter(request, 'run'), request.body, request.user!);
     response.status(201).json(signOff);
   });
 

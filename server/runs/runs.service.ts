@@ -1,5 +1,15 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { FINISHED_STATES, VERDICT_STATES, type RunDto, type RunListQuery, type RunPageDto, type RunSortKey, type SetupDto, type SignOffDto } from '@shared/api';
+import {
+  FINISHED_STATES,
+  VERDICT_STATES,
+  type RunDto,
+  type RunListQuery,
+  type RunPageDto,
+  type RunSortKey,
+  type SetupDto,
+  type SignOffDto,
+  type SignOffRequest,
+} from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { BookingRecord } from '../bookings/booking.model';
 import type { BookingsService } from '../bookings/bookings.service';
@@ -43,7 +53,12 @@ export interface RunsService {
   refuseEarly(run: Omit<NewRun, 'log' | 'originalName'>, uploader: Uploader): Promise<void>;
   list(filter: RunListQuery): Promise<RunPageDto>;
   get(id: number, transaction?: Transaction): Promise<RunDto>;
-  signOff(id: number, comment: string, actor: { id: number; name: string }): Promise<SignOffDto>;
+  /**
+   * A shift lead of the run's setup signs off its verdict with a decision and a comment; under the
+   * setup's four-eyes rule not the person who uploaded it, and a key is kept only from an ACCEPT
+   * that has one.
+   */
+  signOff(id: number, request: SignOffRequest, actor: { id: number; name: string }): Promise<SignOffDto>;
 }
 
 const SORT_COLUMNS: Record<RunSortKey, string> = {
@@ -163,6 +178,7 @@ export function createRunsService(deps: {
     const file = (await models.ArchiveFile.findByPk(run.fileSha256, { transaction }))!;
     const signOff = await models.SignOff.findByPk(id, { transaction });
     const signer = signOff ? await models.User.findByPk(signOff.userId, { transaction }) : null;
+    const setup = (await models.Setup.findByPk(run.setupId, { transaction }))!;
     const deliveries = await models.MailDelivery.findAll({ where: { runId: id }, order: [['attemptedAt', 'ASC']], transaction });
     const booking = run.bookingId === null ? null : await bookings.get(run.bookingId, transaction);
     return toRunDto(row, {
@@ -177,7 +193,10 @@ export function createRunsService(deps: {
       heartbeatAt: run.heartbeatAt ?? null,
       result: run.result ?? null,
       signature: storedSignature(run),
-      signOff: signOff && signer ? { userId: signer.id, userName: signer.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,
+      signOff:
+        signOff && signer ? { userId: signer.id, userName: signer.name, decision: signOff.decision, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,
+      uploadedById: run.uploadedBy,
+      fourEyes: setup.fourEyes,
       booking: booking && {
         bookingId: booking.id,
         night: booking.night,
@@ -283,6 +302,7 @@ export function createRunsService(deps: {
       add("r.file_sha256 LIKE :sha256 || '%'", 'sha256', filter.sha256);
       add("r.result ->> 'fingerprint' LIKE :fingerprint || '%'", 'fingerprint', filter.fingerprint);
       add('r.state IN (:finishedStates)', 'finishedStates', filter.finished ? FINISHED_STATES : undefined);
+      add('r.state IN (:verdictStates) AND NOT EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id)', 'verdictStates', filter.awaitingSignOff ? VERDICT_STATES : undefined);
       const where = conditions.length > 0 ? `WHERE ${conditions.join(' AND ')}` : '';
       const order = `${SORT_COLUMNS[filter.sort]} ${filter.direction === 'asc' ? 'ASC' : 'DESC'} NULLS LAST, r.id DESC`;
       const rows = await sequelize.query<RunRow>(`${RUN_SELECT} ${where} ORDER BY ${order} LIMIT :limit OFFSET :offset`, {
@@ -293,23 +313,31 @@ export function createRunsService(deps: {
       return { items: rows.map(toRunSummary), total: Number(total), page: filter.page, pageSize: filter.pageSize };
     },
 
-    async signOff(id, comment, actor) {
+    async signOff(id, { decision, comment }, actor) {
       return sequelize.transaction(async (transaction) => {
         const run = await models.Run.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
         if (!run) throw HttpError.notFound(`There is no run with id ${id}.`);
         if (!(await setups.isShiftLeadOf(run.setupId, actor.id))) {
           throw HttpError.forbidden('Only a shift lead assigned to this run’s setup can sign it off.');
         }
+        const setup = (await models.Setup.findByPk(run.setupId, { transaction }))!;
+        if (setup.fourEyes && run.uploadedBy === actor.id) {
+          throw HttpError.forbidden(`You uploaded run ${id}; under the four-eyes rule of ${setup.name} another shift lead signs it off.`);
+        }
         if (!VERDICT_STATES.includes(run.state)) {
           throw HttpError.conflict(`Run ${id} is ${run.state}; a run is signed off once its verdict is in.`);
         }
+        if (decision === 'key-kept' && !(run.verdict === 'ACCEPT' && (run.result?.key?.finiteKeyBits ?? 0) > 0)) {
+          const why = run.verdict === 'ACCEPT' ? 'its finite key is 0 bits at this size' : `its verdict is ${run.verdict}`;
+          throw HttpError.badRequest(`No key can be kept from run ${id}: ${why}. Sign it off as key discarded or hardware action needed.`, 'decision');
+        }
         if (await models.SignOff.findByPk(id, { transaction })) throw HttpError.conflict(`Run ${id} is already signed off.`);
-        const signOff = await models.SignOff.create({ runId: id, userId: actor.id, comment: comment.trim() }, { transaction });
+        const signOff = await models.SignOff.create({ runId: id, userId: actor.id, decision, comment: comment.trim() }, { transaction });
         await audit.record(
-          { actorId: actor.id, action: 'run.signed-off', targetType: 'run', targetId: id, details: { comment: signOff.comment, verdict: run.verdict } },
+          { actorId: actor.id, action: 'run.signed-off', targetType: 'run', targetId: id, details: { decision, comment: signOff.comment, verdict: run.verdict } },
           transaction,
         );
-        return { userId: actor.id, userName: actor.name, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() };
+        return { userId: actor.id, userName: actor.name, decision, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() };
       });
     },
   };

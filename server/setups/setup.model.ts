@@ -8,6 +8,7 @@ export class SetupRecord extends Model<InferAttributes<SetupRecord>, InferCreati
   declare stationBLabel: string;
   declare defaultProfileId: number;
   declare extraRecipients: CreationOptional<string[]>;
+  declare fourEyes: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -34,6 +35,7 @@ export function defineSetupModels(sequelize: Sequelize): SetupModels {
       stationBLabel: { type: DataTypes.STRING(120), allowNull: false, field: 'station_b_label' },
       defaultProfileId: { type: DataTypes.INTEGER, allowNull: false, field: 'default_profile_id' },
       extraRecipients: { type: DataTypes.ARRAY(DataTypes.STRING(320)), allowNull: false, defaultValue: [], field: 'extra_recipients' },
+      fourEyes: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true, field: 'four_eyes' },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     },

@@ -2,6 +2,7 @@ import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
 import type { SaveSetupRequest, SetupDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
+import type { SetupRecord } from './setup.model';
 import { HttpError } from '../http/http-error';
 
 export interface SetupsService {
@@ -38,6 +39,7 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
         .map((user) => ({ id: user.id, name: user.name, email: user.email }))
         .sort((a, b) => a.name.localeCompare(b.name)),
       extraRecipients: [...setup.extraRecipients],
+      fourEyes: setup.fourEyes,
       createdAt: setup.createdAt.toISOString(),
     }));
   }
@@ -69,17 +71,20 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
       stationBLabel: request.stationBLabel.trim(),
       defaultProfileId: request.defaultProfileId,
       extraRecipients: [...new Set((request.extraRecipients ?? []).map((address) => address.trim().toLowerCase()))],
+      // Left out: on for a new setup, unchanged for an existing one.
+      ...(request.fourEyes === undefined ? {} : { fourEyes: request.fourEyes }),
     };
     try {
       return await sequelize.transaction(async (transaction) => {
-        let setupId: number;
+        let setup: SetupRecord;
         if (id === undefined) {
-          setupId = (await Setup.create(fields, { transaction })).id;
+          setup = await Setup.create(fields, { transaction });
         } else {
-          const [changed] = await Setup.update(fields, { where: { id }, transaction });
-          if (changed === 0) throw HttpError.notFound(`There is no setup with id ${id}.`);
-          setupId = id;
+          const existing = await Setup.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+          if (!existing) throw HttpError.notFound(`There is no setup with id ${id}.`);
+          setup = await existing.update(fields, { transaction });
         }
+        const setupId = setup.id;
         await SetupShiftLead.destroy({ where: { setupId }, transaction });
         await SetupShiftLead.bulkCreate(
           [...new Set(request.shiftLeadIds)].map((userId) => ({ setupId, userId })),
@@ -91,7 +96,7 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
             action: id === undefined ? 'setup.created' : 'setup.changed',
             targetType: 'setup',
             targetId: setupId,
-            details: { ...fields, shiftLeadIds: request.shiftLeadIds },
+            details: { ...fields, fourEyes: setup.fourEyes, shiftLeadIds: request.shiftLeadIds },
           },
           transaction,
         );

@@ -8,6 +8,8 @@ export class UserRecord extends Model<InferAttributes<UserRecord>, InferCreation
   declare passwordHash: string;
   declare roles: Role[];
   declare active: CreationOptional<boolean>;
+  /** Raised at each password change: tokens issued under an older version are refused. */
+  declare passwordVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -27,12 +29,41 @@ export function defineUserModel(sequelize: Sequelize): UserModelStatic {
       passwordHash: { type: DataTypes.STRING(100), allowNull: false, field: 'password_hash' },
       roles: { type: DataTypes.ARRAY(DataTypes.STRING(32)), allowNull: false },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+      passwordVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0, field: 'password_version' },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     },
     { sequelize, tableName: 'users', modelName: 'User' },
   );
   return User;
+}
+
+export class PasswordResetRecord extends Model<InferAttributes<PasswordResetRecord>, InferCreationAttributes<PasswordResetRecord>> {
+  declare id: CreationOptional<number>;
+  declare userId: number;
+  declare secretSha256: string;
+  declare requestedBy: number;
+  declare expiresAt: Date;
+  declare usedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+/** The `password_resets` table: the reset links an admin mailed, by the SHA-256 of their secret. */
+export function definePasswordResetModel(sequelize: Sequelize): ModelStatic<PasswordResetRecord> {
+  class PasswordReset extends PasswordResetRecord {}
+  PasswordReset.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      userId: { type: DataTypes.INTEGER, allowNull: false, field: 'user_id' },
+      secretSha256: { type: DataTypes.CHAR(64), allowNull: false, field: 'secret_sha256' },
+      requestedBy: { type: DataTypes.INTEGER, allowNull: false, field: 'requested_by' },
+      expiresAt: { type: DataTypes.DATE, allowNull: false, field: 'expires_at' },
+      usedAt: { type: DataTypes.DATE, allowNull: true, field: 'used_at' },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+    },
+    { sequelize, tableName: 'password_resets', modelName: 'PasswordReset', updatedAt: false },
+  );
+  return PasswordReset;
 }
 
 /** The API's view of a user: never the hash. */

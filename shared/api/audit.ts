@@ -43,6 +43,9 @@ export type AuditPageDto = z.infer<typeof auditPageSchema>;
 export const AUDIT_ACTIONS = [
   'user.created',
   'user.changed',
+  'user.password-changed',
+  'user.password-reset-link-sent',
+  'user.password-reset',
   'setup.created',
   'setup.changed',
   'profile.created',

@@ -1,6 +1,17 @@
 import { z } from 'zod';
 
-export const API_ERROR_CODES = ['validation', 'unauthorized', 'forbidden', 'not-found', 'conflict', 'rate-limited', 'busy', 'insufficient-storage', 'internal'] as const;
+export const API_ERROR_CODES = [
+  'validation',
+  'unauthorized',
+  'forbidden',
+  'not-found',
+  'conflict',
+  'rate-limited',
+  'busy',
+  'insufficient-storage',
+  'mail-failed',
+  'internal',
+] as const;
 export type ApiErrorCode = (typeof API_ERROR_CODES)[number];
 
 /** The one JSON shape of every API error. */

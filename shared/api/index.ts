@@ -7,6 +7,7 @@ export * from './auth';
 export * from './bookings';
 export * from './errors';
 export * from './integrity';
+export * from './ledger';
 export * from './planner';
 export * from './profiles';
 export * from './query-fields';

@@ -31,8 +31,21 @@ export const analysisResultSchema = /* @__PURE__ */ z
     },
   });
 
+/** What a shift lead decides of a finished run's night. */
+export const SIGN_OFF_DECISIONS = ['key-kept', 'key-discarded', 'hardware-action'] as const;
+export type SignOffDecision = (typeof SIGN_OFF_DECISIONS)[number];
+
+/** Each decision in the lab's words (app, mail, PDF). */
+export const SIGN_OFF_DECISION_WORDS: Record<SignOffDecision, string> = {
+  'key-kept': 'Key kept',
+  'key-discarded': 'Key discarded',
+  'hardware-action': 'Hardware action needed',
+};
+
 /** A shift lead's sign-off of a finished run. */
-export const signOffSchema = /* @__PURE__ */ z.object({ userId: z.number().int(), userName: z.string(), comment: z.string(), createdAt: z.string() }).meta({ id: 'SignOffDto' });
+export const signOffSchema = /* @__PURE__ */ z
+  .object({ userId: z.number().int(), userName: z.string(), decision: z.enum(SIGN_OFF_DECISIONS), comment: z.string(), createdAt: z.string() })
+  .meta({ id: 'SignOffDto' });
 export type SignOffDto = z.infer<typeof signOffSchema>;
 
 const nullableNumber = /* @__NO_SIDE_EFFECTS__ */ (description: string) => z.number().nullable().meta({ description });
@@ -91,6 +104,8 @@ export const runSchema = /* @__PURE__ */ runSummarySchema
     result: z.union([analysisResultSchema, z.null()]),
     signature: resultSignatureSchema.nullable().meta({ description: "The server's signature over the stored result, when analysed." }),
     signOff: z.union([signOffSchema, z.null()]),
+    uploadedById: z.number().int().nullable().meta({ description: 'The person who uploaded the log; null for an upload token.' }),
+    fourEyes: z.boolean().meta({ description: "The setup's four-eyes rule: whoever uploaded a run may not sign it off." }),
     deliveries: z.array(mailDeliverySchema),
     booking: runBookingSchema.nullable().meta({ description: 'The booking, its commitment and every attempt; null when unbooked.' }),
   })
@@ -135,13 +150,23 @@ export const runListQuerySchema = /* @__PURE__ */ z
       .transform((flag) => flag === 'true')
       .optional()
       .meta({ description: 'Only runs whose analysis has ended (with a verdict or failed).' }),
+    awaitingSignOff: z
+      .enum(['true'], { error: 'must be true' })
+      .transform(() => true)
+      .optional()
+      .meta({ description: 'Only runs with a verdict that no shift lead has signed off yet.' }),
   })
   .meta({ description: 'The filters, sort and page of the run list.' });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
 
 /** Body of `POST /api/runs/:id/sign-off` (a shift lead of the run's setup). */
 export const signOffRequestSchema = /* @__PURE__ */ z
-  .strictObject({ comment: z.string().trim().min(1, 'is required: say what you decided').max(4000) })
+  .strictObject({
+    decision: z.enum(SIGN_OFF_DECISIONS, { error: `must be one of ${SIGN_OFF_DECISIONS.join(', ')}` }).meta({
+      description: 'key-kept (ACCEPT with a key only), key-discarded, or hardware-action (the setup needs work before the next night).',
+    }),
+    comment: z.string().trim().min(1, 'is required: say what you decided').max(4000),
+  })
   .meta({ id: 'SignOffRequest' });
 export type SignOffRequest = z.infer<typeof signOffRequestSchema>;
 

@@ -16,6 +16,7 @@ export const setupSchema = /* @__PURE__ */ z
     defaultProfileName: z.string(),
     shiftLeads: z.array(setupShiftLeadSchema),
     extraRecipients: z.array(z.string()).meta({ description: 'Further addresses that get the verdict mail.' }),
+    fourEyes: z.boolean().meta({ description: 'Whoever uploaded a run may not sign it off (on unless an admin turns it off).' }),
     createdAt: z.string(),
   })
   .meta({ id: 'SetupDto' });
@@ -36,6 +37,7 @@ export const saveSetupRequestSchema = /* @__PURE__ */ z
       .array(z.string().trim().pipe(z.email('is not an e-mail address')))
       .max(50)
       .optional(),
+    fourEyes: z.boolean({ error: 'must be true or false' }).optional().meta({ description: 'The four-eyes rule; left out: on for a new setup, unchanged for an existing one.' }),
   })
   .meta({ id: 'SaveSetupRequest' });
 export type SaveSetupRequest = z.infer<typeof saveSetupRequestSchema>;

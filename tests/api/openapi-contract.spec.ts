@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '@seeders/data/demo-people';
 import type { CreatedUploadTokenDto, ProfileDto, RunDto, UserDto } from '@shared/api';
 import { contractCheckedRequest, createContractChecker, documentedOperations } from '../support/api-contract';
-import { fixtureLog, waitForFinishedRun } from '../support/runs-api';
+import { fixtureLog, inbox, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(120_000);
@@ -59,6 +59,14 @@ describe('every operation answers as the OpenAPI document says', () => {
       .set(admin())
       .send({ roles: ['auditor', 'shift-lead'] })
       .expect(200);
+
+    const own = { Authorization: `Bearer ${await testApp.signIn('contract.check@kestrelfen.example', 'long-enough-2026')}` };
+    await api.post('/api/auth/password').set(own).send({ currentPassword: 'long-enough-2026', newPassword: 'longer-still-2027' }).expect(200);
+    await api.post(`/api/users/${created.id}/password-reset-link`).set(admin()).expect(201);
+    const mail = (await inbox(testApp.mailCatcher.inboxUrl)).find((caught) => caught.subject === 'A link to set your Bellkeep password')!;
+    const secret = /#([0-9a-f]{64})/.exec(mail.text)![1];
+    await api.post('/api/auth/password-reset').send({ secret, newPassword: 'reset-by-link-2027' }).expect(204);
+    await api.post('/api/auth/password-reset').send({ secret, newPassword: 'reset-by-link-2028' }).expect(400);
   });
 
   it('setups, profiles, bookings, upload tokens, the planner and the workers', async () => {
@@ -100,6 +108,9 @@ describe('every operation answers as the OpenAPI document says', () => {
     await api.get('/api/planner/general-attack?qber=0.02&winFraction=0.84&profileVersionId=1&rounds=100000000').set(auditor()).expect(200);
     await api.get('/api/planner/prefill?setupId=1').set(auditor()).expect(200);
     await api.get('/api/workers').set(admin()).expect(200);
+    await api.get('/api/ledger').set(auditor()).expect(200);
+    await api.get('/api/ledger?from=2026-12-05&to=2026-11-01').set(auditor()).expect(400);
+    await api.get('/api/worklist').set(shiftLead()).expect(200);
   });
 
   it('runs: a multipart upload and a resumable one, their reads, the sign-off, the integrity checks and the exports', async () => {
@@ -130,7 +141,7 @@ describe('every operation answers as the OpenAPI document says', () => {
     await api.get(`/api/runs/${uploaded.id}`).set(auditor()).expect(200);
     await api.get(`/api/runs/${uploaded.id}/blocks`).set(auditor()).expect(200);
     await api.get(`/api/runs/${uploaded.id}/trail`).set(auditor()).expect(200);
-    await api.post(`/api/runs/${uploaded.id}/sign-off`).set(shiftLead()).send({ comment: 'Checked against the contract.' }).expect(201);
+    await api.post(`/api/runs/${uploaded.id}/sign-off`).set(shiftLead()).send({ decision: 'key-discarded', comment: 'Checked against the contract.' }).expect(201);
     await api.get(`/api/runs/${uploaded.id}/verification`).set(auditor()).expect(200);
     await api.post(`/api/runs/${uploaded.id}/reverifications`).set(auditor()).send({}).expect(201);
     await api.get(`/api/runs/${uploaded.id}/reverifications`).set(auditor()).expect(200);

@@ -9,9 +9,13 @@ import { createTestApp, type TestApp } from '../support/test-app';
  */
 const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: string; roles: Role[] | 'any' }> = [
   { method: 'get', path: '/api/auth/me', roles: 'any' },
+  { method: 'post', path: '/api/auth/password', roles: 'any' },
+  { method: 'get', path: '/api/ledger', roles: 'any' },
+  { method: 'get', path: '/api/worklist', roles: 'any' },
   { method: 'get', path: '/api/users', roles: ['admin'] },
   { method: 'post', path: '/api/users', roles: ['admin'] },
   { method: 'patch', path: '/api/users/1', roles: ['admin'] },
+  { method: 'post', path: '/api/users/1/password-reset-link', roles: ['admin'] },
   { method: 'get', path: '/api/profiles', roles: 'any' },
   { method: 'get', path: '/api/profiles/1', roles: 'any' },
   { method: 'post', path: '/api/profiles', roles: ['admin'] },

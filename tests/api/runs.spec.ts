@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import request from 'supertest';
 import { analyseLog } from '@shared/analysis/node';
 import type { AnalysisResult } from '@shared/analysis/result';
-import type { ApiErrorBody, AuditEventDto, RunDto, RunPageDto } from '@shared/api';
+import type { ApiErrorBody, AuditEventDto, AuditPageDto, RunDto, RunPageDto, SetupDto, UserDto } from '@shared/api';
 import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { archiveContents } from '../support/archive-contents';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -23,6 +23,7 @@ describe('the runs pipeline through the API', () => {
       lucia: 'lucia.brandt@kestrelfen.example',
       sami: 'sami.virtanen@kestrelfen.example',
       ada: 'ada.reyes@kestrelfen.example',
+      maren: 'maren.holt@kestrelfen.example',
     })) {
       tokens[who] = await testApp.signIn(email, DEMO_PASSWORD);
     }
@@ -67,22 +68,56 @@ describe('the runs pipeline through the API', () => {
     const delivered = (await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('lucia')).expect(200)).body as RunDto;
     expect(delivered.deliveries).toEqual([expect.objectContaining({ status: 'sent', messageId: `<run-${run.id}-verdict@bellkeep>` })]);
 
-    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('sami')).send({ comment: 'looks fine' }).expect(403);
-    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('lucia')).send({ comment: '' }).expect(400);
-    const signOff = await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('lucia')).send({ comment: 'Key kept; fibre swap tomorrow.' }).expect(201);
-    expect(signOff.body).toMatchObject({ userName: 'Lucia Brandt', comment: 'Key kept; fibre swap tomorrow.' });
-    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('ada')).send({ comment: 'again' }).expect(409);
+    const signOffOf = (who: string, body: object) => request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer(who)).send(body);
+    await signOffOf('sami', { decision: 'key-discarded', comment: 'looks fine' }).expect(403);
+    await signOffOf('lucia', { decision: 'key-discarded', comment: '' }).expect(400);
+    const undecided = await signOffOf('lucia', { comment: 'no decision' }).expect(400);
+    expect((undecided.body as ApiErrorBody).error.field).toBe('decision');
+    // This ACCEPT extracts no key at its size: none can be kept.
+    expect(result.key!.finiteKeyBits).toBe(0);
+    const noKey = await signOffOf('lucia', { decision: 'key-kept', comment: 'keep it' }).expect(400);
+    expect((noKey.body as ApiErrorBody).error.message).toBe(
+      `No key can be kept from run ${run.id}: its finite key is 0 bits at this size. Sign it off as key discarded or hardware action needed.`,
+    );
+    const signOff = await signOffOf('lucia', { decision: 'key-discarded', comment: 'Too short for a key; fibre swap tomorrow.' }).expect(201);
+    expect(signOff.body).toMatchObject({ userName: 'Lucia Brandt', decision: 'key-discarded', comment: 'Too short for a key; fibre swap tomorrow.' });
+    await signOffOf('ada', { decision: 'hardware-action', comment: 'again' }).expect(409);
+    expect(((await request(testApp.app).get(`/api/runs/${run.id}`).set(bearer('dev')).expect(200)).body as RunDto).signOff).toMatchObject({ decision: 'key-discarded' });
 
     const trail = (await request(testApp.app).get(`/api/runs/${run.id}/trail`).set(bearer('sami')).expect(200)).body as AuditEventDto[];
     expect(trail.map((event) => event.action)).toEqual(['run.uploaded', 'run.analysis-started', 'run.finished', 'run.mail-sent', 'run.signed-off']);
     expect(trail[0].actor).toBe('Dev Okafor');
   }, 60_000);
 
+  it('under the four-eyes rule nobody signs off a run they uploaded, until an admin turns the rule off for the setup, which the trail records', async () => {
+    const created = (await uploadLog(testApp.app, tokens['ada'], fixtureLog('accepted-run.csv'), { setupId: fenLink }).expect(201)).body as RunDto;
+    const run = await waitForFinishedRun(testApp.app, tokens['ada'], created.id);
+    const ada = (await request(testApp.app).get('/api/auth/me').set(bearer('ada')).expect(200)).body as UserDto;
+    expect(run).toMatchObject({ uploadedById: ada.id, fourEyes: true });
+    const refused = await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('ada')).send({ decision: 'key-discarded', comment: 'mine' }).expect(403);
+    expect((refused.body as ApiErrorBody).error.message).toBe(`You uploaded run ${run.id}; under the four-eyes rule of Fen link another shift lead signs it off.`);
+
+    const setup = (await request(testApp.app).get(`/api/setups/${fenLink}`).set(bearer('maren')).expect(200)).body as SetupDto;
+    const { id: _id, defaultProfileName: _profile, shiftLeads, createdAt: _created, ...fields } = setup;
+    const saved = { ...fields, shiftLeadIds: shiftLeads.map((lead) => lead.id), fourEyes: false };
+    await request(testApp.app).put(`/api/setups/${fenLink}`).set(bearer('lucia')).send(saved).expect(403);
+    expect(((await request(testApp.app).put(`/api/setups/${fenLink}`).set(bearer('maren')).send(saved).expect(200)).body as SetupDto).fourEyes).toBe(false);
+    const trail = (await request(testApp.app).get('/api/audit').query({ action: 'setup.changed' }).set(bearer('sami')).expect(200)).body as AuditPageDto;
+    expect(trail.items[0].details).toMatchObject({ fourEyes: false });
+
+    await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('ada')).send({ decision: 'hardware-action', comment: 'Detector B needs cooling.' }).expect(201);
+    await request(testApp.app)
+      .put(`/api/setups/${fenLink}`)
+      .set(bearer('maren'))
+      .send({ ...saved, fourEyes: true })
+      .expect(200);
+  }, 60_000);
+
   it('a shift lead of another setup cannot sign off', async () => {
     const bench = await setupId(testApp.app, tokens['dev'], 'Mill Lane bench');
     const created = (await uploadLog(testApp.app, tokens['dev'], fixtureLog('accepted-run.csv'), { setupId: bench }).expect(201)).body as RunDto;
     await waitForFinishedRun(testApp.app, tokens['dev'], created.id);
-    const refused = await request(testApp.app).post(`/api/runs/${created.id}/sign-off`).set(bearer('lucia')).send({ comment: 'not mine' }).expect(403);
+    const refused = await request(testApp.app).post(`/api/runs/${created.id}/sign-off`).set(bearer('lucia')).send({ decision: 'key-discarded', comment: 'not mine' }).expect(403);
     expect((refused.body as ApiErrorBody).error.message).toMatch(/assigned to this run’s setup/);
   }, 60_000);
 

@@ -109,12 +109,16 @@ describe('runs in a real browser', () => {
     await page.getByTestId('sign-off-form').waitFor();
     await screenshot(page, 'run-sign-off-form');
     await page.getByRole('button', { name: 'Sign off' }).click();
-    // The form refuses an empty decision and says why, before anything is sent.
-    await page.getByText('Say what you decided before signing off.').waitFor();
-    await page.getByLabel('Decision and comment').fill('Low CHSH all night: the Mill Lane detector is being realigned; no key kept.');
+    // The form refuses an empty decision and comment and says why, before anything is sent; an ABORT keeps no key.
+    await page.getByText('Choose a decision before signing off.').waitFor();
+    await page.getByText('Say why before signing off.').waitFor();
+    expect(await page.getByRole('radio', { name: 'Key kept' }).isDisabled()).toBe(true);
+    await page.getByRole('radio', { name: 'Hardware action needed' }).check();
+    await page.getByLabel('Comment').fill('Low CHSH all night: the Mill Lane detector is being realigned.');
     await page.getByRole('button', { name: 'Sign off' }).click();
     await page.getByTestId('recorded-sign-off').waitFor();
     expect(await page.getByTestId('recorded-sign-off').innerText()).toContain('Signed off by Lucia Brandt');
+    expect(await page.getByTestId('recorded-sign-off').innerText()).toContain('Hardware action needed');
     await page.getByTestId('trail').getByText('Signed off', { exact: true }).waitFor();
     await screenshot(page, 'run-signed-off');
     await page.close();

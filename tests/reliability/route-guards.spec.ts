@@ -3,6 +3,7 @@ import {
   auditFilterSchema,
   auditQuerySchema,
   bookingListQuerySchema,
+  ledgerQuerySchema,
   planPrefillQuerySchema,
   planQuerySchema,
   ROLES,
@@ -24,6 +25,7 @@ import { createTestApp, type TestApp } from '../support/test-app';
 /** Routes anyone may call, each with the reason it is public. */
 const PUBLIC_ROUTES: Record<string, string> = {
   'POST /api/auth/login': 'signing in is how one gets a token; limited per address (tested below)',
+  'POST /api/auth/password-reset': 'a mailed link sets the password of someone who cannot sign in; it needs the link’s 256-bit secret, works once, and is limited per address',
   'GET /api/health': 'the liveness probe of the lab’s monitoring; it says "ok" and nothing else',
   'GET /api/ready': 'the readiness probe of a load balancer; it names the parts that answer or not, and nothing of the data',
   'GET /api/signing-keys': 'public keys, published so that partner labs can check exported reports',
@@ -62,10 +64,14 @@ const UPLOADERS: Guard = { roles: ['experimentalist'], uploadToken: true };
  */
 const GUARDED_ROUTES: Record<string, Guard> = {
   'GET /api/auth/me': SIGNED_IN,
+  'POST /api/auth/password': SIGNED_IN,
+  'GET /api/ledger': SIGNED_IN,
+  'GET /api/worklist': SIGNED_IN,
   'ALL /api/users': ADMIN,
   'GET /api/users': ADMIN,
   'POST /api/users': ADMIN,
   'PATCH /api/users/:id': ADMIN,
+  'POST /api/users/:id/password-reset-link': ADMIN,
   'GET /api/workers': ADMIN,
   'GET /metrics': ADMIN,
   'GET /api/profiles': SIGNED_IN,
@@ -294,6 +300,7 @@ const QUERY_PARAMETERS: Record<string, { parameters: readonly string[]; base?: R
   'GET /api/audit': { parameters: Object.keys(auditQuerySchema.shape) },
   'GET /api/audit/export.csv': { parameters: Object.keys(auditFilterSchema.shape) },
   'GET /api/bookings': { parameters: Object.keys(bookingListQuerySchema.shape) },
+  'GET /api/ledger': { parameters: Object.keys(ledgerQuerySchema.shape) },
   'GET /api/planner': PLAN_QUERY,
   'GET /api/planner/general-attack': PLAN_QUERY,
   'GET /api/planner/prefill': { parameters: Object.keys(planPrefillQuerySchema.shape) },

@@ -31,6 +31,7 @@ const setup: SetupDto = {
   defaultProfileName: 'Nightly standard',
   shiftLeads: [{ id: 4, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
   extraRecipients: [],
+  fourEyes: true,
   createdAt: '2026-11-01T08:00:00Z',
 };
 

@@ -13,6 +13,7 @@ import {
   type RunListQuery,
   type RunPageDto,
   type SignOffDto,
+  type SignOffRequest,
   type VerificationDto,
 } from '@shared/api';
 import { FileDownloads } from '../api/download';
@@ -62,8 +63,8 @@ export class RunsApi {
   }
 
   /** A shift lead's sign-off of a finished run. */
-  signOff(id: number, comment: string): Observable<SignOffDto> {
-    return this.http.post<SignOffDto>(`/api/runs/${id}/sign-off`, { comment });
+  signOff(id: number, request: SignOffRequest): Observable<SignOffDto> {
+    return this.http.post<SignOffDto>(`/api/runs/${id}/sign-off`, request);
   }
 
   /**

@@ -67,6 +67,10 @@ describe('trailDetail', () => {
 
   it('keeps a sign-off’s comment, a mail’s recipients and an analysis error', () => {
     expect(trailDetail({ action: 'run.signed-off', details: { comment: 'Detector realigned.', verdict: 'ABORT' } })).toBe('“Detector realigned.”');
+    expect(trailDetail({ action: 'run.signed-off', details: { decision: 'hardware-action', comment: 'Detector realigned.', verdict: 'ABORT' } })).toBe(
+      'Hardware action needed: “Detector realigned.”',
+    );
+    expect(trailDetail({ action: 'setup.changed', details: { name: 'Fen link', fourEyes: false } })).toBe('Fen link · four-eyes rule off');
     expect(trailDetail({ action: 'run.mail-sent', details: { recipients: ['lucia.brandt@kestrelfen.example'] } })).toBe('To lucia.brandt@kestrelfen.example');
     expect(trailDetail({ action: 'run.failed', details: { error: 'The log ended mid-row.' } })).toBe('The log ended mid-row.');
   });

@@ -1,4 +1,4 @@
-import { isRole, ROLE_LABELS, type AuditAction, type AuditEventDto } from '@shared/api';
+import { isRole, ROLE_LABELS, SIGN_OFF_DECISION_WORDS, SIGN_OFF_DECISIONS, type AuditAction, type AuditEventDto, type SignOffDecision } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
 import { EXPORT_FORMAT_LABELS, isExportFormat } from './export-formats';
 import { isReverificationState, lookOfReverification } from './reverification-look';
@@ -7,6 +7,9 @@ import { isReverificationState, lookOfReverification } from './reverification-lo
 const ACTION_WORDS: Record<AuditAction, string> = {
   'user.created': 'User added',
   'user.changed': 'User changed',
+  'user.password-changed': 'Changed their password',
+  'user.password-reset-link-sent': 'Password reset link mailed',
+  'user.password-reset': 'Password set by a reset link',
   'setup.created': 'Setup added',
   'setup.changed': 'Setup changed',
   'profile.created': 'Profile added',
@@ -64,7 +67,12 @@ const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string
   'profile.created': ({ name, version }) => (typeof name !== 'string' ? '' : typeof version === 'number' ? `${name} v${version}` : name),
   'profile.version-created': ({ version }) => (typeof version === 'number' ? `Version ${version}` : ''),
   'setup.created': ({ name }) => (typeof name === 'string' ? name : ''),
-  'setup.changed': ({ name }) => (typeof name === 'string' ? name : ''),
+  'setup.changed': ({ name, fourEyes }) =>
+    [typeof name === 'string' ? name : '', fourEyes === false ? 'four-eyes rule off' : fourEyes === true ? 'four-eyes rule on' : ''].filter(Boolean).join(' · '),
+  'user.password-reset-link-sent': ({ email, expiresAt }) =>
+    typeof email === 'string' ? `To ${email}${typeof expiresAt === 'string' ? `, usable until ${expiresAt.slice(0, 16).replace('T', ' ')} UTC` : ''}` : '',
+  'run.signed-off': ({ decision, comment }) =>
+    [isSignOffDecision(decision) ? SIGN_OFF_DECISION_WORDS[decision] : '', typeof comment === 'string' && comment !== '' ? `“${comment}”` : ''].filter(Boolean).join(': '),
   'signing-key.retired': ({ replacedBy }) => (typeof replacedBy === 'string' ? `Replaced by key ${replacedBy}` : ''),
   'audit.exported': ({ rows }) => (typeof rows === 'number' ? countOf(rows, 'line') : ''),
 };
@@ -97,4 +105,8 @@ function countOf(count: number, noun: string): string {
 function roleWords(roles: unknown): string {
   if (!Array.isArray(roles)) return '';
   return roles.length === 0 ? 'No roles' : `Roles: ${roles.map((role) => (isRole(role) ? ROLE_LABELS[role] : String(role))).join(', ')}`;
+}
+
+function isSignOffDecision(value: unknown): value is SignOffDecision {
+  return SIGN_OFF_DECISIONS.includes(value as SignOffDecision);
 }

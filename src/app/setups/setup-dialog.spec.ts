@@ -17,6 +17,7 @@ const heronReach: SetupDto = {
   defaultProfileName: 'Nightly standard',
   shiftLeads: [{ id: 3, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
   extraRecipients: ['night-desk@kestrelfen.example'],
+  fourEyes: true,
   createdAt: '2026-11-01T08:00:00Z',
 };
 
@@ -81,6 +82,8 @@ describe('SetupDialog', () => {
 
     await type('extraRecipients', 'night-desk@kestrelfen.example,  boathouse@kestrelfen.example ');
     await type('stationBLabel', '  Boathouse east ');
+    // The four-eyes rule, on for this setup, is turned off.
+    host.querySelector<HTMLInputElement>('mat-checkbox input')!.click();
     await submit();
     const put = http.expectOne({ method: 'PUT', url: '/api/setups/2' });
     expect(put.request.body).toEqual({
@@ -91,6 +94,7 @@ describe('SetupDialog', () => {
       defaultProfileId: 1,
       shiftLeadIds: [3],
       extraRecipients: ['night-desk@kestrelfen.example', 'boathouse@kestrelfen.example'],
+      fourEyes: false,
     });
     const saved = { ...heronReach, stationBLabel: 'Boathouse east' };
     put.flush(saved);
@@ -122,7 +126,7 @@ describe('SetupDialog', () => {
     await profiles.clickOptions({ text: 'Calibration' });
     await submit();
     const post = http.expectOne({ method: 'POST', url: '/api/setups' });
-    expect(post.request.body).toMatchObject({ name: 'Mill Lane link', defaultProfileId: 2, shiftLeadIds: [4], extraRecipients: [] });
+    expect(post.request.body).toMatchObject({ name: 'Mill Lane link', defaultProfileId: 2, shiftLeadIds: [4], extraRecipients: [], fourEyes: true });
     post.flush({ error: { code: 'conflict', message: 'A setup named Mill Lane link exists already.' } }, { status: 409, statusText: 'Conflict' });
     await fixture.whenStable();
     fixture.detectChanges();

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators, type AbstractControl, type ValidationErrors } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -35,7 +36,7 @@ function recipientsValidator(control: AbstractControl<string>): ValidationErrors
 /** The admin's form for a setup: names, stations, default profile, shift leads and extra recipients. */
 @Component({
   selector: 'bk-setup-dialog',
-  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [MatButtonModule, MatCheckboxModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './setup-dialog.html',
   styles: `
     .bk-setup-form {
@@ -82,6 +83,7 @@ export class SetupDialog {
     defaultProfileId: new FormControl<number | null>(this.setup?.defaultProfileId ?? null, Validators.required),
     shiftLeadIds: new FormControl<number[]>(this.setup?.shiftLeads.map((lead) => lead.id) ?? [], { nonNullable: true }),
     extraRecipients: new FormControl(this.setup?.extraRecipients.join(', ') ?? '', { nonNullable: true, validators: [recipientsValidator] }),
+    fourEyes: new FormControl(this.setup?.fourEyes ?? true, { nonNullable: true }),
   });
   protected readonly saving = signal(false);
   protected readonly failure = signal('');
@@ -100,6 +102,7 @@ export class SetupDialog {
       defaultProfileId: value.defaultProfileId!,
       shiftLeadIds: value.shiftLeadIds,
       extraRecipients: recipientList(value.extraRecipients),
+      fourEyes: value.fourEyes,
     };
     this.saving.set(true);
     this.failure.set('');

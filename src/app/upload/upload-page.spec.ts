@@ -24,6 +24,7 @@ const setups: SetupDto[] = [
     defaultProfileName: 'Nightly standard',
     shiftLeads: [],
     extraRecipients: [],
+    fourEyes: true,
     createdAt: '2026-11-01T08:00:00Z',
   },
 ];
