@@ -10,6 +10,11 @@ export const routes: Routes = [
     loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    path: 'reset-password',
+    title: 'Set your password · Bellkeep',
+    loadComponent: () => import('./passwords/reset-password').then((m) => m.ResetPassword),
+  },
+  {
     path: '',
     canActivate: [requireSignIn],
     loadComponent: () => import('./shell/shell').then((m) => m.Shell),

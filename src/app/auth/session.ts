@@ -2,7 +2,7 @@ import { HttpClient, HttpContext, HttpContextToken, HttpErrorResponse } from '@a
 import { computed, inject, Injectable, signal } from '@angular/core';
 import { catchError, map, Observable, of, tap } from 'rxjs';
 
-import type { LoginRequest, LoginResponse, Role, UserDto } from '@shared/api';
+import type { ChangePasswordRequest, LoginRequest, LoginResponse, Role, UserDto } from '@shared/api';
 
 /** Where the bearer token is kept between visits. */
 const TOKEN_KEY = 'bellkeep.token';
@@ -31,7 +31,17 @@ export class Session {
 
   /** Signs in with e-mail and password and keeps the token for later visits. */
   signIn(credentials: LoginRequest): Observable<UserDto> {
-    return this.http.post<LoginResponse>('/api/auth/login', credentials).pipe(
+    return this.keep(this.http.post<LoginResponse>('/api/auth/login', credentials));
+  }
+
+  /** Changes the signed-in user's password; this session goes on with the new token, every other one ends. */
+  changePassword(request: ChangePasswordRequest): Observable<UserDto> {
+    return this.keep(this.http.post<LoginResponse>('/api/auth/password', request));
+  }
+
+  /** Keeps the token and user of a sign-in answer. */
+  private keep(answer: Observable<LoginResponse>): Observable<UserDto> {
+    return answer.pipe(
       tap(({ token, user }) => {
         localStorage.setItem(TOKEN_KEY, token);
         this.currentToken.set(token);

@@ -2,12 +2,14 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 
 import { ROLE_LABELS } from '@shared/api';
 import { Session } from '../auth/session';
+import { NightLedger } from '../ledger/night-ledger';
+import { Worklists } from '../ledger/worklists';
 import { ROLE_DUTIES } from './role-duties';
 
-/** The first page after signing in: who you are here and what your roles let you do. */
+/** The first page after signing in: what waits for you, the ledger of every setup's nights, and what your roles let you do. */
 @Component({
   selector: 'bk-overview',
-  imports: [],
+  imports: [NightLedger, Worklists],
   templateUrl: './overview.html',
   styleUrl: './overview.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -12,7 +12,7 @@ import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { catchError, of } from 'rxjs';
 
-import { RUN_SORT_KEYS, RUN_STATES, type RunSortKey, type RunState, type RunSummaryDto, type Verdict } from '@shared/api';
+import { RUN_SORT_KEYS, RUN_STATES, VERDICT_STATES, type RunSortKey, type RunState, type RunSummaryDto, type Verdict } from '@shared/api';
 import { formatCount, formatFixed, formatPercent } from '@shared/format/numbers';
 import { Session } from '../auth/session';
 import { type PickedDay, isoDay } from '../dates/local-dates';
@@ -64,7 +64,9 @@ export class RunList {
   private readonly session = inject(Session);
 
   protected readonly columns = ['verdict', 'id', 'setup', 'acquiredOn', 'winFraction', 'qber', 'chsh', 'finiteKey', 'createdAt', 'signedOff'];
-  protected readonly states = RUN_STATES.map((state) => ({ value: state, label: lookOfState(state).word }));
+  /** The states of an analysis without its verdict (the verdicts have their own filter). */
+  protected readonly states = RUN_STATES.filter((state) => !VERDICT_STATES.includes(state)).map((state) => ({ value: state, label: lookOfState(state).word }));
+  protected readonly signOffChoices = [{ value: true as const, label: 'Awaiting sign-off' }];
   protected readonly verdicts = VERDICT_CHOICES;
   protected readonly canUpload = this.session.hasAnyRole(['experimentalist']);
 
@@ -72,6 +74,7 @@ export class RunList {
     setupId: new FormControl<number | null>(null),
     verdict: new FormControl<Verdict | null>(null),
     state: new FormControl<RunState | null>(null),
+    awaitingSignOff: new FormControl<true | null>(null),
     from: new FormControl<PickedDay>(null),
     to: new FormControl<PickedDay>(null),
     uploadedBy: new FormControl<number | null>(null),
@@ -104,9 +107,11 @@ export class RunList {
   protected readonly percent = formatPercent;
 
   constructor() {
-    // The setups page links here with its setup chosen.
-    const setupId = Number(inject(ActivatedRoute).snapshot.queryParamMap.get('setupId'));
+    // The setups page links here with its setup chosen, a worklist with the runs awaiting sign-off.
+    const asked = inject(ActivatedRoute).snapshot.queryParamMap;
+    const setupId = Number(asked.get('setupId'));
     if (Number.isInteger(setupId) && setupId > 0) this.filters.controls.setupId.setValue(setupId);
+    if (asked.get('awaitingSignOff') === 'true') this.filters.controls.awaitingSignOff.setValue(true);
   }
 
   protected sortBy(sort: Sort): void {

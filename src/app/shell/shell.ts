@@ -2,17 +2,20 @@ import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatDividerModule } from '@angular/material/divider';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatMenuModule } from '@angular/material/menu';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { map } from 'rxjs';
+import { filter, map } from 'rxjs';
 
 import { ROLE_LABELS } from '@shared/api';
 import { Session } from '../auth/session';
+import { PasswordDialog } from '../passwords/password-dialog';
 import { navItemsFor } from './navigation';
 import { WorkersAlert } from '../workers/workers-alert';
 import { ProductMark } from './product-mark';
@@ -44,6 +47,8 @@ const WIDE_LAYOUT = '(min-width: 1000px)';
 export class Shell {
   private readonly session = inject(Session);
   private readonly router = inject(Router);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
 
   protected readonly user = this.session.user;
   protected readonly navItems = computed(() => navItemsFor(this.session.roles()));
@@ -61,6 +66,14 @@ export class Shell {
       .pipe(map((state) => state.matches)),
     { initialValue: true },
   );
+
+  protected changePassword(): void {
+    this.dialog
+      .open<PasswordDialog, void, true>(PasswordDialog, { autoFocus: 'first-tabbable' })
+      .afterClosed()
+      .pipe(filter((changed) => changed === true))
+      .subscribe(() => this.snackBar.open('Your password is changed; your other sessions have ended.', undefined, { duration: 5000 }));
+  }
 
   protected signOut(): void {
     this.session.end();

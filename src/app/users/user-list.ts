@@ -13,7 +13,7 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableDataSource, MatTableModule } from '@angular/material/table';
 import { filter, switchMap } from 'rxjs';
 
-import { ROLE_LABELS, type Role, type UserDto } from '@shared/api';
+import { ROLE_LABELS, type Role, type UserDto, RESET_LINK_HOURS } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
 import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';
@@ -123,6 +123,26 @@ export class UserList {
           const outcome = updated.active ? 'is active again' : 'is deactivated';
           this.snackBar.open(`${updated.name} ${outcome}.`, undefined, { duration: 4000 });
         },
+        error: (error: unknown) => this.snackBar.open(apiErrorMessage(error), 'Dismiss'),
+      });
+  }
+
+  protected confirmResetLink(user: UserDto): void {
+    const question: ConfirmQuestion = {
+      title: `Mail ${user.name} a password link?`,
+      message: `${user.email} gets a link to set a new password, usable once within ${RESET_LINK_HOURS} hours. Their current password stays until the link is used; using it signs them out everywhere.`,
+      confirmLabel: 'Mail the link',
+    };
+    this.dialog
+      .open<ConfirmDialog, ConfirmQuestion, boolean>(ConfirmDialog, { data: question })
+      .afterClosed()
+      .pipe(
+        filter((confirmed) => confirmed === true),
+        switchMap(() => this.usersApi.mailResetLink(user.id)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: (sent) => this.snackBar.open(`Link mailed to ${sent.sentTo}.`, undefined, { duration: 5000 }),
         error: (error: unknown) => this.snackBar.open(apiErrorMessage(error), 'Dismiss'),
       });
   }

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { CreateUserRequest, UpdateUserRequest, UserDto } from '@shared/api';
+import type { CreateUserRequest, PasswordResetLinkDto, UpdateUserRequest, UserDto } from '@shared/api';
 
 /** The client of the API's user management (admin only). */
 @Injectable({ providedIn: 'root' })
@@ -22,5 +22,10 @@ export class UsersApi {
   /** Changes a user's name, roles or active state. */
   update(id: number, changes: UpdateUserRequest): Observable<UserDto> {
     return this.http.patch<UserDto>(`/api/users/${id}`, changes);
+  }
+
+  /** Mails the user a single-use link to set their password. */
+  mailResetLink(id: number): Observable<PasswordResetLinkDto> {
+    return this.http.post<PasswordResetLinkDto>(`/api/users/${id}/password-reset-link`, {});
   }
 }
