@@ -2,7 +2,6 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import {
   LEDGER_DEFAULT_NIGHTS,
   LEDGER_MAX_NIGHTS,
-  VERDICT_STATES,
   type LedgerCellDto,
   type LedgerDto,
   type LedgerQuery,
@@ -14,6 +13,7 @@ import {
   type WorklistDto,
 } from '@shared/api';
 import { HttpError } from '../http/http-error';
+import { AWAITING_SIGN_OFF, AWAITING_SIGN_OFF_REPLACEMENTS } from '../runs/awaiting-sign-off';
 
 export interface LedgerService {
   /** Every setup's nights in the range: bookings, logs, the latest verdict and its sign-off. */
@@ -123,10 +123,10 @@ export function createLedgerService(sequelize: Sequelize): LedgerService {
             `${base}, 'awaits your sign-off' AS note
                FROM runs r JOIN setups s ON s.id = r.setup_id
                JOIN setup_shift_leads l ON l.setup_id = r.setup_id AND l.user_id = :me
-              WHERE r.state IN (:verdictStates) AND NOT EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id)
+              WHERE ${AWAITING_SIGN_OFF}
                 AND NOT (s.four_eyes AND r.uploaded_by IS NOT DISTINCT FROM :me)
               ORDER BY r.finished_at DESC NULLS LAST, r.id DESC`,
-            { me: person.id, verdictStates: VERDICT_STATES },
+            { me: person.id, ...AWAITING_SIGN_OFF_REPLACEMENTS },
           ),
         );
       }

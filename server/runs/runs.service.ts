@@ -26,6 +26,7 @@ import { storedSignature } from '../integrity/stored-signature';
 import { uploaderInTrail, type Uploader } from '../upload-tokens/uploader';
 import type { RunRecord } from './run.model';
 import { toRunDto, toRunSummary, type RunRow } from './run-dto';
+import { AWAITING_SIGN_OFF } from './awaiting-sign-off';
 
 export interface NewRun {
   setupId: number;
@@ -302,7 +303,7 @@ export function createRunsService(deps: {
       add("r.file_sha256 LIKE :sha256 || '%'", 'sha256', filter.sha256);
       add("r.result ->> 'fingerprint' LIKE :fingerprint || '%'", 'fingerprint', filter.fingerprint);
       add('r.state IN (:finishedStates)', 'finishedStates', filter.finished ? FINISHED_STATES : undefined);
-      add('r.state IN (:verdictStates) AND NOT EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id)', 'verdictStates', filter.awaitingSignOff ? VERDICT_STATES : undefined);
+      add(AWAITING_SIGN_OFF, 'verdictStates', filter.awaitingSignOff ? VERDICT_STATES : undefined);
       const where = conditions.length > 0 ? `WHERE ${conditions.join(' AND ')}` : '';
       const order = `${SORT_COLUMNS[filter.sort]} ${filter.direction === 'asc' ? 'ASC' : 'DESC'} NULLS LAST, r.id DESC`;
       const rows = await sequelize.query<RunRow>(`${RUN_SELECT} ${where} ORDER BY ${order} LIMIT :limit OFFSET :offset`, {

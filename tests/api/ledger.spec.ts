@@ -1,5 +1,10 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import type { LedgerDto, RunDto, RunPageDto, WorklistDto } from '@shared/api';
+import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
+import { writeModelLog } from '@fixtures/model-log-file';
 import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -95,6 +100,37 @@ describe('the ledger of nights and the worklists', () => {
     expect(sami.lists).toEqual([{ kind: 'reverifications', count: 0, items: [] }]);
     await request(testApp.app).post(`/api/runs/${accepted.id}/reverifications`).set(bearer('sami')).send({}).expect(201);
     expect((await worklist('sami')).lists[0]).toMatchObject({ count: 1, items: [{ runId: accepted.id }] });
+  }, 60_000);
+
+  it('counts a replaced log of a booked night as no longer awaiting sign-off: its replacement is', async () => {
+    const scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-ledger-'));
+    const log = async (n: number) => {
+      const file = path.join(scratch, `night-${n}.csv`);
+      await writeModelLog(file, { ...steadyPair, rounds: 4000 }, FIXTURE_SEED.slice(0, 56) + n.toString(16).padStart(8, '0'));
+      return file;
+    };
+    const now = Date.now();
+    const booking = (
+      await request(testApp.app)
+        .post('/api/bookings')
+        .set(bearer('dev'))
+        .send({ setupId: fenLink, night: '2026-11-20', windowStart: new Date(now - 60_000).toISOString(), windowEnd: new Date(now + 3_600_000).toISOString(), plannedRounds: 4000 })
+        .expect(201)
+    ).body as { id: number };
+    const upload = async (n: number, fields: Record<string, string | number>) =>
+      waitForFinishedRun(testApp.app, tokens['dev'], ((await uploadLog(testApp.app, tokens['dev'], await log(n), { setupId: fenLink, ...fields }).expect(201)).body as RunDto).id);
+    const first = await upload(1, { bookingId: booking.id });
+    const second = await upload(2, { bookingId: booking.id, replacementReason: 'The first copy was cut short.' });
+    fs.rmSync(scratch, { recursive: true, force: true });
+
+    const awaiting = (await request(testApp.app).get('/api/runs').query({ awaitingSignOff: 'true', pageSize: 200 }).set(bearer('sami')).expect(200)).body as RunPageDto;
+    expect(awaiting.items.map((run) => run.id)).toContain(second.id);
+    expect(awaiting.items.map((run) => run.id)).not.toContain(first.id);
+    const signOffs = (await worklist('lucia')).lists[0].items.map((item) => item.runId);
+    expect(signOffs).toContain(second.id);
+    expect(signOffs).not.toContain(first.id);
+    const night = (await ledger('?from=2026-11-20&to=2026-11-20')).setups.find((setup) => setup.setupId === fenLink)!.cells[0];
+    expect(night).toMatchObject({ bookingId: booking.id, attempts: 2, run: { id: second.id } });
   }, 60_000);
 
   it('lists the runs awaiting sign-off', async () => {
