@@ -86,4 +86,52 @@ describe('Shell', () => {
     expect(localStorage.getItem('bellkeep.token')).toBeNull();
     expect(navigateByUrl).toHaveBeenCalledWith('/sign-in');
   });
+
+  it('starts with a link that moves the keyboard focus past the bar and the navigation to the page', async () => {
+    const fixture = await renderFor(['auditor']);
+    const page = fixture.nativeElement as HTMLElement;
+    document.body.appendChild(page);
+    const skip = page.querySelector<HTMLAnchorElement>('a')!;
+    expect(skip.textContent.trim()).toBe('Skip to the page’s content');
+    skip.click();
+    expect(document.activeElement).toBe(page.querySelector('main'));
+    page.remove();
+  });
+
+  it('changes your own password from the user menu, and says so once done', async () => {
+    const fixture = await renderFor(['auditor']);
+    const page = fixture.nativeElement as HTMLElement;
+    page.querySelector<HTMLButtonElement>('[data-testid="user-menu"]')!.click();
+    await fixture.whenStable();
+    document.querySelector<HTMLButtonElement>('[data-testid="change-password"]')!.click();
+    await fixture.whenStable();
+    const field = (label: string) =>
+      Array.from(document.querySelectorAll<HTMLElement>('bk-password-dialog mat-form-field'))
+        .find((formField) => formField.querySelector('mat-label')!.textContent.trim() === label)!
+        .querySelector('input')!;
+    const type = (label: string, value: string) => {
+      field(label).value = value;
+      field(label).dispatchEvent(new Event('input'));
+    };
+    type('Current password', 'fen-demo-2026');
+    type('New password', 'heron-watch-2027');
+    type('New password again', 'heron-watch-2028');
+    const submit = document.querySelector<HTMLButtonElement>('bk-password-dialog button[type="submit"]')!;
+    submit.click();
+    await fixture.whenStable();
+    expect(document.querySelector('bk-password-dialog')!.textContent).toContain('The two new passwords differ.');
+
+    type('New password again', 'heron-watch-2027');
+    submit.click();
+    const request = TestBed.inject(HttpTestingController).expectOne('/api/auth/password');
+    expect(request.request.body).toEqual({ currentPassword: 'fen-demo-2026', newPassword: 'heron-watch-2027' });
+    request.flush({
+      token: 'token-new',
+      expiresAt: '2027-03-16T18:00:00Z',
+      user: { id: 5, name: 'Noor Achterberg', email: 'noor.achterberg@kestrelfen.example', roles: ['auditor'], active: true, createdAt: '2026-10-01T08:00:00Z' },
+    });
+    await fixture.whenStable();
+    expect(localStorage.getItem('bellkeep.token')).toBe('token-new');
+    expect(document.querySelector('bk-password-dialog')).toBeNull();
+  });
 });

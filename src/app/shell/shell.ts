@@ -67,6 +67,12 @@ export class Shell {
     { initialValue: true },
   );
 
+  /** Moves the focus past the bar and the navigation to the page itself (the link's target would only scroll). */
+  protected skipToMain(event: Event): void {
+    event.preventDefault();
+    document.getElementById('bk-main')?.focus();
+  }
+
   protected changePassword(): void {
     this.dialog
       .open<PasswordDialog, void, true>(PasswordDialog, { autoFocus: 'first-tabbable' })
