@@ -1,9 +1,13 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatTabsModule } from '@angular/material/tabs';
+import { ActivatedRoute, Router } from '@angular/router';
 
 import { FinishedRuns } from './finished-runs';
 import { SigningKeys } from './signing-keys';
 import { SystemTrail } from './system-trail';
+
+/** The tabs as the address names them, in their order. */
+const TABS = ['runs', 'trail', 'keys'] as const;
 
 /** The auditor's screen: finished runs to re-open, the system-wide trail, and the keys results are signed with. */
 @Component({
@@ -17,7 +21,7 @@ import { SystemTrail } from './system-trail';
       </div>
     </header>
     <!-- Each tab loads only when opened: the trail and the keys are not asked for until wanted. -->
-    <mat-tab-group mat-stretch-tabs="false" animationDuration="0ms">
+    <mat-tab-group mat-stretch-tabs="false" animationDuration="0ms" [selectedIndex]="shownTab" (selectedIndexChange)="showTab($event)">
       <mat-tab label="Finished runs">
         <ng-template matTabContent><bk-finished-runs /></ng-template>
       </mat-tab>
@@ -31,4 +35,14 @@ import { SystemTrail } from './system-trail';
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class AuditPage {}
+export class AuditPage {
+  private readonly router = inject(Router);
+
+  /** The tab named by the address (`?tab=trail`), the first one otherwise. */
+  protected readonly shownTab = Math.max(0, TABS.indexOf(inject(ActivatedRoute).snapshot.queryParamMap.get('tab') as (typeof TABS)[number]));
+
+  /** Names the tab in the address; the other tab's filters go, the new tab writes its own. */
+  protected showTab(index: number): void {
+    void this.router.navigate([], { queryParams: { tab: index === 0 ? null : TABS[index] }, replaceUrl: true });
+  }
+}

@@ -81,7 +81,13 @@ export class FinishedRuns {
   );
 
   /** Finished runs under the filters; a field with a bad hash prefix holds the list where it was. */
-  protected readonly list = pagedList({ filters: this.filters, chosen: () => this.chosenFilters(), firstPage: FIRST_PAGE, load: (query) => this.runsApi.list(query) });
+  protected readonly list = pagedList({
+    filters: this.filters,
+    chosen: () => this.chosenFilters(),
+    firstPage: FIRST_PAGE,
+    load: (query) => this.runsApi.list(query),
+    url: { setupId: 'id', verdict: 'text', profileVersionId: 'id', from: 'day', to: 'day', sha256: 'text', fingerprint: 'text' },
+  });
 
   protected openRun(run: RunSummaryDto): void {
     void this.router.navigate(['/runs', run.id]);

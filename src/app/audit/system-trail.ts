@@ -74,6 +74,7 @@ export class SystemTrail {
     chosen: () => this.chosenFilters(),
     firstPage: FIRST_PAGE,
     load: (query) => this.auditApi.trail(query),
+    url: { actorId: 'id', action: 'text', targetType: 'text', targetId: 'text', from: 'day', to: 'day' },
   });
   protected readonly exporting = signal(false);
 

@@ -1,10 +1,12 @@
-import { computed, linkedSignal, signal, type Signal } from '@angular/core';
+import { computed, inject, linkedSignal, signal, type Signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import type { FormGroup } from '@angular/forms';
 import type { PageEvent } from '@angular/material/paginator';
+import { ActivatedRoute } from '@angular/router';
 import { debounceTime, filter, map, type Observable, switchMap } from 'rxjs';
 
 import { loaded, pageContents, type Loaded } from '../api/loaded';
+import { readUrlFilters, readUrlPaging, writeQueryToUrl, type UrlFilters } from './url-filters';
 
 /** What every list query of the API holds: the page, its size, and for sortable lists the sort. */
 export interface PageQuery {
@@ -30,6 +32,11 @@ export interface PagedListOptions<Query extends PageQuery, Item> {
   load: (query: Query) => Observable<ListPage<Item>>;
   /** How long typing may pause before the list is asked for again. */
   typingPauseMilliseconds?: number;
+  /**
+   * The filters kept in the address with the page and sort, so a reload or a shared link opens
+   * the same list: read from it at start, written to it on each change.
+   */
+  url?: UrlFilters;
 }
 
 /**
@@ -57,6 +64,13 @@ export interface PagedList<Query extends PageQuery, Item> {
 
 const DEFAULT_TYPING_PAUSE_MILLISECONDS = 300;
 
+/** Fills the filter form from the address and answers the page and sort it names. Call in an injection context. */
+function readAddress(filters: FormGroup, url: UrlFilters): Partial<PageQuery> {
+  const params = inject(ActivatedRoute).snapshot.queryParamMap;
+  readUrlFilters(filters, url, params);
+  return readUrlPaging(params);
+}
+
 /** The fields that hold a value. */
 function withoutEmpty<T extends object>(fields: T): Partial<T> {
   return Object.fromEntries(Object.entries(fields).filter(([, value]) => value !== null && value !== undefined && value !== '')) as Partial<T>;
@@ -69,6 +83,7 @@ function withoutEmpty<T extends object>(fields: T): Partial<T> {
  */
 export function pagedList<Query extends PageQuery, Item>(options: PagedListOptions<Query, Item>): PagedList<Query, Item> {
   const { filters, firstPage } = options;
+  const fromAddress = options.url === undefined ? {} : readAddress(filters, options.url);
   const chosen = toSignal(
     filters.valueChanges.pipe(
       debounceTime(options.typingPauseMilliseconds ?? DEFAULT_TYPING_PAUSE_MILLISECONDS),
@@ -79,7 +94,8 @@ export function pagedList<Query extends PageQuery, Item>(options: PagedListOptio
   );
   const paging = linkedSignal<Partial<Query>, PageQuery>({
     source: chosen,
-    computation: (_chosen, previous) => ({ ...(previous?.value ?? firstPage), page: 0 }),
+    // The first computation takes the page and sort of the address; each filter change goes back to the first page.
+    computation: (_chosen, previous) => (previous === undefined ? { ...firstPage, ...fromAddress } : { ...previous.value, page: 0 }),
   });
   const attempt = signal(0);
   const query = computed<Query>(() => ({ ...firstPage, ...paging(), ...chosen() }));
@@ -87,6 +103,7 @@ export function pagedList<Query extends PageQuery, Item>(options: PagedListOptio
     initialValue: { status: 'loading' },
   });
   const contents = computed(() => pageContents(page()));
+  if (options.url !== undefined) writeQueryToUrl(query, options.url, firstPage);
   return {
     query,
     chosen,

@@ -156,4 +156,23 @@ describe('RunList', () => {
     await settle(fixture);
     expect(host.querySelector('[data-testid="run-row-31"]')).not.toBeNull();
   });
+
+  it('opens with the filters, page and sort of the address, and writes each change back to it (a reload or a shared link keeps the list)', async () => {
+    const router = TestBed.inject(Router);
+    await router.navigateByUrl('/?setupId=2&awaitingSignOff=true&from=2026-12-01&page=2&sort=acquiredOn&direction=asc&verdict=ACCEPT');
+    await openAs(['experimentalist']);
+    const [first] = runRequests();
+    const asked = Object.fromEntries(first.request.params.keys().map((key) => [key, first.request.params.get(key)]));
+    expect(asked).toEqual({ page: '2', pageSize: '25', sort: 'acquiredOn', direction: 'asc', setupId: '2', verdict: 'ACCEPT', awaitingSignOff: 'true', from: '2026-12-01' });
+    first.flush(pageOf([night], 80));
+    await settle(fixture);
+
+    // Another verdict: back to the first page, and the address says so.
+    fixture.componentInstance['filters'].controls.verdict.setValue('ABORT');
+    await settle(fixture, 300);
+    runRequests()[0].flush(pageOf([]));
+    await settle(fixture);
+    const address = new URL(router.url, 'http://bellkeep.invalid').searchParams;
+    expect(Object.fromEntries(address.entries())).toEqual({ setupId: '2', awaitingSignOff: 'true', from: '2026-12-01', sort: 'acquiredOn', direction: 'asc', verdict: 'ABORT' });
+  });
 });

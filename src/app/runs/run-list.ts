@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { ActivatedRoute, Router, RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { catchError, of } from 'rxjs';
 
 import { RUN_SORT_KEYS, RUN_STATES, VERDICT_STATES, type RunSortKey, type RunState, type RunSummaryDto, type Verdict } from '@shared/api';
@@ -100,19 +100,13 @@ export class RunList {
     },
     firstPage: FIRST_PAGE,
     load: (query) => this.runsApi.list(query),
+    // The setups page links here with its setup chosen, a worklist with the runs awaiting sign-off.
+    url: { setupId: 'id', verdict: 'text', state: 'text', awaitingSignOff: 'flag', from: 'day', to: 'day', uploadedBy: 'id' },
   });
 
   protected readonly count = formatCount;
   protected readonly fixed = formatFixed;
   protected readonly percent = formatPercent;
-
-  constructor() {
-    // The setups page links here with its setup chosen, a worklist with the runs awaiting sign-off.
-    const asked = inject(ActivatedRoute).snapshot.queryParamMap;
-    const setupId = Number(asked.get('setupId'));
-    if (Number.isInteger(setupId) && setupId > 0) this.filters.controls.setupId.setValue(setupId);
-    if (asked.get('awaitingSignOff') === 'true') this.filters.controls.awaitingSignOff.setValue(true);
-  }
 
   protected sortBy(sort: Sort): void {
     const key = sort.active as RunSortKey;
