@@ -1,8 +1,9 @@
-import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
+import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import type { SaveSetupRequest, SetupDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import type { SetupRecord } from './setup.model';
+import { fieldChanges, type FieldChange } from '../audit/field-changes';
 import { HttpError } from '../http/http-error';
 
 export interface SetupsService {
@@ -62,6 +63,24 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
     }
   }
 
+  /** The changes with the shift leads and the default profile by name, as the trail shows them. */
+  async function namedChanges(changes: Record<string, FieldChange>, transaction: Transaction): Promise<Record<string, FieldChange>> {
+    const { shiftLeadIds, defaultProfileId, ...named } = changes;
+    if (shiftLeadIds) {
+      const ids = [...(shiftLeadIds.from as number[]), ...(shiftLeadIds.to as number[])];
+      const people = new Map((await User.findAll({ where: { id: ids }, transaction })).map((user) => [user.id, user.name]));
+      const namesOf = (list: unknown) => (list as number[]).map((leadId) => people.get(leadId) ?? `user ${leadId}`);
+      named.shiftLeads = { from: namesOf(shiftLeadIds.from), to: namesOf(shiftLeadIds.to) };
+    }
+    if (defaultProfileId) {
+      const profiles = new Map(
+        (await Profile.findAll({ where: { id: [defaultProfileId.from as number, defaultProfileId.to as number] }, transaction })).map((profile) => [profile.id, profile.name]),
+      );
+      named.defaultProfile = { from: profiles.get(defaultProfileId.from as number), to: profiles.get(defaultProfileId.to as number) };
+    }
+    return named;
+  }
+
   async function save(id: number | undefined, request: SaveSetupRequest, actorId: number): Promise<number> {
     await checkReferences(request);
     const fields = {
@@ -77,11 +96,15 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
     try {
       return await sequelize.transaction(async (transaction) => {
         let setup: SetupRecord;
+        let changes = {};
+        const shiftLeadIds = [...new Set(request.shiftLeadIds)].sort((a, b) => a - b);
         if (id === undefined) {
           setup = await Setup.create(fields, { transaction });
         } else {
           const existing = await Setup.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
           if (!existing) throw HttpError.notFound(`There is no setup with id ${id}.`);
+          const leadsBefore = (await SetupShiftLead.findAll({ where: { setupId: id }, transaction })).map((lead) => lead.userId).sort((a, b) => a - b);
+          changes = await namedChanges(fieldChanges({ ...existing.get(), shiftLeadIds: leadsBefore }, { ...fields, shiftLeadIds }), transaction);
           setup = await existing.update(fields, { transaction });
         }
         const setupId = setup.id;
@@ -96,7 +119,7 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
             action: id === undefined ? 'setup.created' : 'setup.changed',
             targetType: 'setup',
             targetId: setupId,
-            details: { ...fields, fourEyes: setup.fourEyes, shiftLeadIds: request.shiftLeadIds },
+            details: { ...fields, fourEyes: setup.fourEyes, shiftLeadIds, ...(id === undefined ? {} : { changes }) },
           },
           transaction,
         );

@@ -3,6 +3,7 @@ import { Op, UniqueConstraintError } from 'sequelize';
 import type { CreateUserRequest, UpdateUserRequest, UserDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import { HttpError } from '../http/http-error';
+import { fieldChanges } from '../audit/field-changes';
 import { toUserDto, type UserModelStatic, type UserRecord } from './user.model';
 
 /** Compared against when the e-mail is unknown, so a miss takes as long as a wrong password. */
@@ -57,12 +58,14 @@ export function createUsersService(User: UserModelStatic, bcryptRounds: number, 
           if (losesAdmin && id === actingUserId) {
             throw HttpError.conflict('You cannot remove your own admin role or deactivate yourself.');
           }
+          const before = toUserDto(user);
           if (request.name !== undefined) user.name = request.name.trim();
           if (request.email !== undefined) user.email = request.email.trim().toLowerCase();
           if (request.roles !== undefined) user.roles = [...new Set(request.roles)];
           if (request.active !== undefined) user.active = request.active;
           await user.save({ transaction });
-          await audit.record({ actorId: actingUserId, action: 'user.changed', targetType: 'user', targetId: id, details: { ...request } }, transaction);
+          const changes = fieldChanges(before, toUserDto(user));
+          await audit.record({ actorId: actingUserId, action: 'user.changed', targetType: 'user', targetId: id, details: { ...request, changes } }, transaction);
           return toUserDto(user);
         });
       } catch (error) {

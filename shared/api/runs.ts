@@ -178,7 +178,8 @@ export const auditEventSchema = /* @__PURE__ */ z
     action: z.string(),
     targetType: z.string(),
     targetId: z.string(),
-    details: z.record(z.string(), z.unknown()),
+    targetName: z.string().nullable().meta({ description: 'The person, setup, profile, booking or upload token by name; null where the id is the name (a run, a key).' }),
+    details: z.record(z.string(), z.unknown()).meta({ description: 'What the line needs; a change carries `changes`: each field changed, with `from` and `to`.' }),
     createdAt: z.string(),
   })
   .meta({ id: 'AuditEventDto' });

@@ -103,7 +103,8 @@ describe('the runs pipeline through the API', () => {
     await request(testApp.app).put(`/api/setups/${fenLink}`).set(bearer('lucia')).send(saved).expect(403);
     expect(((await request(testApp.app).put(`/api/setups/${fenLink}`).set(bearer('maren')).send(saved).expect(200)).body as SetupDto).fourEyes).toBe(false);
     const trail = (await request(testApp.app).get('/api/audit').query({ action: 'setup.changed' }).set(bearer('sami')).expect(200)).body as AuditPageDto;
-    expect(trail.items[0].details).toMatchObject({ fourEyes: false });
+    // The line names the setup and says what changed, field by field.
+    expect(trail.items[0]).toMatchObject({ targetName: 'Fen link', details: { fourEyes: false, changes: { fourEyes: { from: true, to: false } } } });
 
     await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('ada')).send({ decision: 'hardware-action', comment: 'Detector B needs cooling.' }).expect(201);
     await request(testApp.app)

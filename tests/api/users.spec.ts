@@ -80,6 +80,18 @@ describe('user management (admin)', () => {
       .expect(200);
     expect((changed.body as UserDto).roles).toEqual(['shift-lead', 'admin']);
     await request(testApp.app).get('/api/users').set('Authorization', `Bearer ${luciaToken}`).expect(200);
+
+    // The trail names the person and keeps what changed, field by field.
+    const trail = (
+      await request(testApp.app)
+        .get('/api/audit')
+        .query({ action: 'user.changed', targetId: String(lucia.id) })
+        .set(asAdmin())
+        .expect(200)
+    ).body as {
+      items: { targetName: string | null; details: Record<string, unknown> }[];
+    };
+    expect(trail.items[0]).toMatchObject({ targetName: 'Lucia Brandt', details: { changes: { roles: { from: ['shift-lead'], to: ['shift-lead', 'admin'] } } } });
   });
 
   it("changes a person's name and e-mail (signing in with the new address), and refuses an e-mail another person has", async () => {

@@ -29,6 +29,6 @@ export const ACTION_FAMILIES: readonly ActionFamily[] = AUDIT_TARGET_TYPES.map((
 }));
 
 /** A trail line's target in words: "Run 12", "Signing key 5c1e0a9b7d2f4e38", "Audit trail". */
-export function targetWords(targetType: string, targetId: string): string {
-  return `${TARGET_WORDS[targetType as AuditTargetType] ?? targetType} ${targetId}`;
+export function targetWords(targetType: string, targetId: string, targetName: string | null = null): string {
+  return targetName ?? `${TARGET_WORDS[targetType as AuditTargetType] ?? targetType} ${targetId}`;
 }

@@ -11,9 +11,27 @@ import { ACTION_FAMILIES } from './audit-words';
 import { SystemTrail } from './system-trail';
 
 const lines: AuditEventDto[] = [
-  { id: 41, actor: 'Sami Virtanen', action: 'run.exported', targetType: 'run', targetId: '12', details: { format: 'json' }, createdAt: '2027-03-02T09:20:00Z' },
-  { id: 40, actor: null, action: 'run.reverification-finished', targetType: 'run', targetId: '12', details: { state: 'reproduced' }, createdAt: '2027-03-02T09:03:00Z' },
-  { id: 7, actor: 'Ines Halloran', action: 'profile.version-created', targetType: 'profile', targetId: '2', details: { version: 3 }, createdAt: '2026-11-02T08:00:00Z' },
+  { id: 41, actor: 'Sami Virtanen', action: 'run.exported', targetType: 'run', targetId: '12', targetName: null, details: { format: 'json' }, createdAt: '2027-03-02T09:20:00Z' },
+  {
+    id: 40,
+    actor: null,
+    action: 'run.reverification-finished',
+    targetType: 'run',
+    targetId: '12',
+    targetName: null,
+    details: { state: 'reproduced' },
+    createdAt: '2027-03-02T09:03:00Z',
+  },
+  {
+    id: 7,
+    actor: 'Ines Halloran',
+    action: 'profile.version-created',
+    targetType: 'profile',
+    targetId: '2',
+    targetName: 'Nightly standard',
+    details: { version: 3 },
+    createdAt: '2026-11-02T08:00:00Z',
+  },
 ];
 
 const pageOf = (items: AuditEventDto[]): AuditPageDto => ({ items, total: items.length, page: 0, pageSize: 50 });
@@ -51,7 +69,7 @@ describe('SystemTrail', () => {
     expect(rows).toEqual([
       ['Sami Virtanen', 'Exported', 'Run 12', 'JSON report'],
       ['System', 'Re-verification finished', 'Run 12', 'Reproduced'],
-      ['Ines Halloran', 'Profile version added', 'Profile 2', 'Version 3'],
+      ['Ines Halloran', 'Profile version added', 'Nightly standard', 'Version 3'],
     ]);
     expect(Array.from(host.querySelectorAll('[data-testid="audit-trail"] a'), (link) => link.getAttribute('href'))).toEqual(['/runs/12', '/runs/12']);
   });

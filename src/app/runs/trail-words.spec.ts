@@ -71,6 +71,23 @@ describe('trailDetail', () => {
       'Hardware action needed: “Detector realigned.”',
     );
     expect(trailDetail({ action: 'setup.changed', details: { name: 'Fen link', fourEyes: false } })).toBe('Fen link · four-eyes rule off');
+    expect(
+      trailDetail({
+        action: 'setup.changed',
+        details: {
+          name: 'Fen link',
+          changes: {
+            fourEyes: { from: true, to: false },
+            shiftLeads: { from: ['Ada Reyes', 'Lucia Brandt'], to: ['Lucia Brandt'] },
+            description: { from: '', to: 'North Hall to Mill Lane' },
+          },
+        },
+      }),
+    ).toBe('Four-eyes rule: on → off · Shift leads: Ada Reyes, Lucia Brandt → Lucia Brandt · Description: (empty) → North Hall to Mill Lane');
+    expect(
+      trailDetail({ action: 'user.changed', details: { active: false, changes: { active: { from: true, to: false }, roles: { from: ['auditor'], to: ['auditor', 'admin'] } } } }),
+    ).toBe('Account: active → deactivated · Roles: Auditor → Auditor, Admin');
+    expect(trailDetail({ action: 'setup.changed', details: { name: 'Fen link', changes: {} } })).toBe('No field changed');
     expect(trailDetail({ action: 'run.mail-sent', details: { recipients: ['lucia.brandt@kestrelfen.example'] } })).toBe('To lucia.brandt@kestrelfen.example');
     expect(trailDetail({ action: 'run.failed', details: { error: 'The log ended mid-row.' } })).toBe('The log ended mid-row.');
   });

@@ -1,6 +1,7 @@
 import { isRole, ROLE_LABELS, SIGN_OFF_DECISION_WORDS, SIGN_OFF_DECISIONS, type AuditAction, type AuditEventDto, type SignOffDecision } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
 import { EXPORT_FORMAT_LABELS, isExportFormat } from './export-formats';
+import { changeWords } from './trail-changes';
 import { isReverificationState, lookOfReverification } from './reverification-look';
 
 /** The trail's actions in words: every action the server records. */
@@ -62,13 +63,17 @@ const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string
     return state === 'differs' && typeof differenceCount === 'number' ? `${word} in ${countOf(differenceCount, 'field')}` : word;
   },
   'user.created': ({ email, roles }) => [typeof email === 'string' ? email : '', roleWords(roles)].filter(Boolean).join(' · '),
-  'user.changed': ({ name, roles, active }) =>
-    [typeof name === 'string' ? `Name ${name}` : '', roleWords(roles), active === true ? 'Reactivated' : active === false ? 'Deactivated' : ''].filter(Boolean).join(' · '),
+  'user.changed': ({ name, roles, active, changes }) =>
+    isChanges(changes)
+      ? changeWords(changes)
+      : [typeof name === 'string' ? `Name ${name}` : '', roleWords(roles), active === true ? 'Reactivated' : active === false ? 'Deactivated' : ''].filter(Boolean).join(' · '),
   'profile.created': ({ name, version }) => (typeof name !== 'string' ? '' : typeof version === 'number' ? `${name} v${version}` : name),
   'profile.version-created': ({ version }) => (typeof version === 'number' ? `Version ${version}` : ''),
   'setup.created': ({ name }) => (typeof name === 'string' ? name : ''),
-  'setup.changed': ({ name, fourEyes }) =>
-    [typeof name === 'string' ? name : '', fourEyes === false ? 'four-eyes rule off' : fourEyes === true ? 'four-eyes rule on' : ''].filter(Boolean).join(' · '),
+  'setup.changed': ({ name, fourEyes, changes }) =>
+    isChanges(changes)
+      ? changeWords(changes)
+      : [typeof name === 'string' ? name : '', fourEyes === false ? 'four-eyes rule off' : fourEyes === true ? 'four-eyes rule on' : ''].filter(Boolean).join(' · '),
   'user.password-reset-link-sent': ({ email, expiresAt }) =>
     typeof email === 'string' ? `To ${email}${typeof expiresAt === 'string' ? `, usable until ${expiresAt.slice(0, 16).replace('T', ' ')} UTC` : ''}` : '',
   'run.signed-off': ({ decision, comment }) =>
@@ -109,4 +114,8 @@ function roleWords(roles: unknown): string {
 
 function isSignOffDecision(value: unknown): value is SignOffDecision {
   return SIGN_OFF_DECISIONS.includes(value as SignOffDecision);
+}
+
+function isChanges(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
