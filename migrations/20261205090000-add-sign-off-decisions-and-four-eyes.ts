@@ -9,7 +9,9 @@ export async function up({ queryInterface, transaction }: MigrationContext): Pro
   const run = (sql: string) => queryInterface.sequelize.query(sql, { transaction });
   await run('ALTER TABLE setups ADD COLUMN four_eyes boolean NOT NULL DEFAULT true');
   await run('ALTER TABLE run_sign_offs ADD COLUMN decision varchar(20)');
-  await run(`UPDATE run_sign_offs o SET decision = CASE WHEN r.verdict = 'ACCEPT' AND (r.result #>> '{key,finiteKeyBits}')::float8 > 0 THEN 'key-kept' ELSE 'key-discarded' END FROM runs r WHERE r.id = o.run_id`);
+  await run(
+    `UPDATE run_sign_offs o SET decision = CASE WHEN r.verdict = 'ACCEPT' AND (r.result #>> '{key,finiteKeyBits}')::float8 > 0 THEN 'key-kept' ELSE 'key-discarded' END FROM runs r WHERE r.id = o.run_id`,
+  );
   await run('ALTER TABLE run_sign_offs ALTER COLUMN decision SET NOT NULL');
   await run(`ALTER TABLE run_sign_offs ADD CONSTRAINT run_sign_offs_decision_known CHECK (decision IN ('key-kept', 'key-discarded', 'hardware-action'))`);
 }

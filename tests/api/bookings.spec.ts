@@ -7,7 +7,7 @@ import request from 'supertest';
 import type { ApiErrorBody, AuditEventDto, BookingDto, CreatedUploadTokenDto, RunDto, UploadTokenDto } from '@shared/api';
 import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
 import { writeModelLog } from '@fixtures/model-log-file';
-import { DEMO_PASSWORD } from '@seeders/data/demo-people';
+import { demoTokens } from '../support/demo-tokens';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { setupId, uploadLog, waitForMail } from '../support/runs-api';
 
@@ -48,14 +48,7 @@ describe('booked nights and the acquisition computer', () => {
   beforeAll(async () => {
     testApp = await createTestApp();
     scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-bookings-'));
-    for (const [who, email] of Object.entries({
-      dev: 'dev.okafor@kestrelfen.example',
-      lucia: 'lucia.brandt@kestrelfen.example',
-      maren: 'maren.holt@kestrelfen.example',
-      ada: 'ada.reyes@kestrelfen.example',
-    })) {
-      tokens[who] = await testApp.signIn(email, DEMO_PASSWORD);
-    }
+    Object.assign(tokens, await demoTokens(testApp, ['dev', 'lucia', 'maren', 'ada']));
     fenLink = await setupId(testApp.app, tokens['dev'], 'Fen link');
     millLane = await setupId(testApp.app, tokens['dev'], 'Mill Lane bench');
   }, 60_000);

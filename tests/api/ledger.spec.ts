@@ -5,8 +5,8 @@ import request from 'supertest';
 import type { LedgerDto, RunDto, RunPageDto, WorklistDto } from '@shared/api';
 import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
 import { writeModelLog } from '@fixtures/model-log-file';
-import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
+import { demoTokens } from '../support/demo-tokens';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 describe('the ledger of nights and the worklists', () => {
@@ -20,14 +20,7 @@ describe('the ledger of nights and the worklists', () => {
   beforeAll(async () => {
     testApp = await createTestApp();
     await testApp.startWorker();
-    for (const [who, email] of Object.entries({
-      dev: 'dev.okafor@kestrelfen.example',
-      lucia: 'lucia.brandt@kestrelfen.example',
-      sami: 'sami.virtanen@kestrelfen.example',
-      ada: 'ada.reyes@kestrelfen.example',
-    })) {
-      tokens[who] = await testApp.signIn(email, DEMO_PASSWORD);
-    }
+    Object.assign(tokens, await demoTokens(testApp, ['dev', 'lucia', 'sami', 'ada']));
     fenLink = await setupId(testApp.app, tokens['dev'], 'Fen link');
     // The night of 1 December: a first log, replaced by a second; 2 December: a log with no rounds.
     await waitForFinishedRun(

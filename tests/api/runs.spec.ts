@@ -4,8 +4,8 @@ import request from 'supertest';
 import { analyseLog } from '@shared/analysis/node';
 import type { AnalysisResult } from '@shared/analysis/result';
 import type { ApiErrorBody, AuditEventDto, AuditPageDto, RunDto, RunPageDto, SetupDto, UserDto } from '@shared/api';
-import { DEMO_PASSWORD } from '@seeders/data/demo-people';
 import { archiveContents } from '../support/archive-contents';
+import { demoTokens } from '../support/demo-tokens';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { fixtureLog, inbox, setupId, uploadLog, waitForFinishedRun, waitForMail } from '../support/runs-api';
 
@@ -18,15 +18,7 @@ describe('the runs pipeline through the API', () => {
   beforeAll(async () => {
     testApp = await createTestApp();
     await testApp.startWorker();
-    for (const [who, email] of Object.entries({
-      dev: 'dev.okafor@kestrelfen.example',
-      lucia: 'lucia.brandt@kestrelfen.example',
-      sami: 'sami.virtanen@kestrelfen.example',
-      ada: 'ada.reyes@kestrelfen.example',
-      maren: 'maren.holt@kestrelfen.example',
-    })) {
-      tokens[who] = await testApp.signIn(email, DEMO_PASSWORD);
-    }
+    Object.assign(tokens, await demoTokens(testApp, ['dev', 'lucia', 'sami', 'ada', 'maren']));
     fenLink = await setupId(testApp.app, tokens['dev'], 'Fen link');
   }, 60_000);
   afterAll(() => testApp.close());

@@ -5,14 +5,14 @@ import { MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 
-import { MIN_PASSWORD_LENGTH } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
+import { NEW_PASSWORD_VALIDATORS, NewPasswordFields } from './new-password-fields';
 import { Session } from '../auth/session';
 
 /** The signed-in person changes their own password: the current one, then the new one twice. Closes with true once changed. */
 @Component({
   selector: 'bk-password-dialog',
-  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, ReactiveFormsModule],
+  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule, NewPasswordFields, ReactiveFormsModule],
   templateUrl: './password-dialog.html',
   styleUrl: './password-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -21,10 +21,9 @@ export class PasswordDialog {
   private readonly session = inject(Session);
   private readonly dialogRef = inject<MatDialogRef<PasswordDialog, true>>(MatDialogRef);
 
-  protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
     currentPassword: ['', Validators.required],
-    newPassword: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(200)]],
+    newPassword: ['', NEW_PASSWORD_VALIDATORS],
     repeated: ['', Validators.required],
   });
   protected readonly saving = signal(false);

@@ -1,12 +1,10 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 
-import { MIN_PASSWORD_LENGTH } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
+import { NEW_PASSWORD_VALIDATORS, NewPasswordFields } from './new-password-fields';
 import { ProductMark } from '../shell/product-mark';
 import { PasswordsApi } from './passwords-api';
 
@@ -16,7 +14,7 @@ const SECRET = /^[0-9a-f]{64}$/;
 /** The page a mailed reset link opens: choose a new password, then sign in with it. */
 @Component({
   selector: 'bk-reset-password',
-  imports: [MatButtonModule, MatFormFieldModule, MatInputModule, ProductMark, ReactiveFormsModule, RouterLink],
+  imports: [MatButtonModule, NewPasswordFields, ProductMark, ReactiveFormsModule, RouterLink],
   templateUrl: './reset-password.html',
   styleUrl: '../sign-in/sign-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -26,9 +24,8 @@ export class ResetPassword {
 
   protected readonly secret = inject(ActivatedRoute).snapshot.fragment ?? '';
   protected readonly secretLooksRight = SECRET.test(this.secret);
-  protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
-    newPassword: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH), Validators.maxLength(200)]],
+    newPassword: ['', NEW_PASSWORD_VALIDATORS],
     repeated: ['', Validators.required],
   });
   protected readonly saving = signal(false);

@@ -40,7 +40,7 @@ describe('ProfileList', () => {
   const shownNames = (): string[] => Array.from(host.querySelectorAll('section h2')).map((heading) => heading.textContent.trim());
 
   async function search(words: string): Promise<void> {
-    const field = host.querySelector<HTMLInputElement>('input[formcontrolname="search"]')!;
+    const field = host.querySelector<HTMLInputElement>('bk-word-search input')!;
     field.value = words;
     field.dispatchEvent(new Event('input'));
     await settle(fixture, 300);

@@ -1,20 +1,16 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { filter, map } from 'rxjs';
+import { filter } from 'rxjs';
 
 import type { ProfileDto, ProfileVersionDto } from '@shared/api';
 import type { AnalysisProfile } from '@shared/analysis';
 import { Session } from '../auth/session';
-import { FilterBar } from '../lists/filter-bar';
 import { ListFrame } from '../lists/list-frame';
-import { pagedList, pageOfWhole, textHolds } from '../lists/paged-list';
+import { searchedList, WordSearch } from '../lists/word-search';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 import { describeProfile } from './profile-fields';
 import { ProfilesApi } from './profiles-api';
@@ -22,7 +18,7 @@ import { ProfilesApi } from './profiles-api';
 /** The acceptance profiles with their versions; each version readable as it was; admins add versions. */
 @Component({
   selector: 'bk-profile-list',
-  imports: [DatePipe, FilterBar, ListFrame, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
+  imports: [DatePipe, ListFrame, MatButtonModule, MatIconModule, WordSearch],
   templateUrl: './profile-list.html',
   styleUrl: './profile-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -33,21 +29,11 @@ export class ProfileList {
   private readonly snackBar = inject(MatSnackBar);
 
   protected readonly isAdmin = inject(Session).hasAnyRole(['admin']);
-  protected readonly filters = new FormGroup({ search: new FormControl('') });
   /** The profiles, found by their name, description or a version's note. */
-  protected readonly list = pagedList({
-    filters: this.filters,
-    chosen: () => ({ search: this.filters.controls.search.value ?? '' }),
-    firstPage: { page: 0, pageSize: 10, search: '' },
-    load: (query) =>
-      this.profilesApi
-        .list()
-        .pipe(
-          map((profiles) =>
-            pageOfWhole(profiles, query, (profile) => textHolds(query.search, profile.name, profile.description, ...profile.versions.map((version) => version.note))),
-          ),
-        ),
-  });
+  protected readonly list = searchedList(
+    () => this.profilesApi.list(),
+    (profile) => [profile.name, profile.description, ...profile.versions.map((version) => version.note)],
+  );
   /** The version shown in full, per profile id (the latest unless another was picked). */
   private readonly picked = signal<Record<number, number>>({});
 
