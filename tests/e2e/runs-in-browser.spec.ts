@@ -50,7 +50,9 @@ describe('runs in a real browser', () => {
 
     await page.getByTestId('upload-button').click();
     await page.getByTestId('upload-progress').waitFor();
+    // "Open run" comes as soon as the run exists; "Upload another log" once its verdict is in.
     await page.getByTestId('open-run').waitFor({ timeout: 30_000 });
+    await page.getByRole('button', { name: 'Upload another log' }).waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('upload-progress').getAttribute('aria-valuenow')).toBe('100');
     await screenshot(page, `upload-verdict-${path.basename(file, '.csv')}`);
     const word = await page.getByTestId('verdict-word').innerText();

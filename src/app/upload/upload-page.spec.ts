@@ -5,7 +5,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import { provideRouter } from '@angular/router';
+import { provideRouter, Router } from '@angular/router';
 import { Subject } from 'rxjs';
 
 import type { BookingDto, ProfileDto, RunDto, SetupDto } from '@shared/api';
@@ -144,14 +144,33 @@ describe('UploadPage', () => {
     progress.next({ kind: 'sending', fraction: 0.5 });
     await fixture.whenStable();
     expect(host.querySelector('[data-testid="upload-progress"]')?.getAttribute('aria-valuenow')).toBe('50');
-    progress.next({ kind: 'done', run: { id: 42, state: 'queued' } as RunDto });
+    progress.next({ kind: 'done', run: { id: 42, state: 'queued', progress: 0, result: null, error: null } as unknown as RunDto });
     progress.complete();
+    await fixture.whenStable();
+    // The run exists: it can be opened at once, and the address names it, so a reload comes back to it.
+    expect(text('open-run')).toContain('Open run 42');
+    expect(TestBed.inject(Router).url).toBe('/?run=42');
     // The analysis is followed by polling, whose first request waits for a timer.
     await new Promise((resolve) => setTimeout(resolve, 0));
     http.expectOne('/api/runs/42').flush({ id: 42, state: 'accepted', progress: 1, result: null, error: null });
     await fixture.whenStable();
     expect(text('open-run')).toContain('Open run 42');
     expect(host.querySelector('[data-testid="open-run"]')?.getAttribute('href')).toBe('/runs/42');
+  });
+
+  it('comes back to the run being analysed when the page is opened again with it in the address', async () => {
+    await TestBed.inject(Router).navigateByUrl('/?run=42');
+    const reopened = TestBed.createComponent(UploadPage);
+    await reopened.whenStable();
+    http.expectOne('/api/setups').flush(setups);
+    http.expectOne('/api/profiles').flush(profiles);
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    http.expectOne('/api/runs/42').flush({ id: 42, state: 'analysing', progress: 0.3, result: null, error: null, file: { originalName: 'night-14.csv' } });
+    await reopened.whenStable();
+    const page = reopened.nativeElement as HTMLElement;
+    expect(page.querySelector('#bk-upload-progress-title')!.textContent).toBe('night-14.csv');
+    expect(page.querySelector('[data-testid="open-run"]')!.textContent).toContain('Open run 42');
+    reopened.destroy();
   });
 
   it('asks why, and says which attempt it will be, when the night has a log already', async () => {

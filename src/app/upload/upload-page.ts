@@ -8,8 +8,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { RouterLink } from '@angular/router';
-import { catchError, map, of, switchMap } from 'rxjs';
+import { ActivatedRoute, Router, RouterLink } from '@angular/router';
+import { catchError, map, type Observable, of, switchMap, tap } from 'rxjs';
 
 import { FINISHED_STATES, type BookingDto, type RunDto } from '@shared/api';
 import { type ColumnMapping, FIELD_MEANING, OUTCOME_ENCODINGS, type OutcomeEncoding, ROUND_FIELDS, type RoundField } from '@shared/analysis';
@@ -49,6 +49,7 @@ export class UploadPage {
   private readonly bookingsApi = inject(BookingsApi);
   private readonly uploads = inject(ResumableUploads);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly router = inject(Router);
 
   protected readonly fields = ROUND_FIELDS.map((field) => ({ field, meaning: FIELD_MEANING[field] }));
   protected readonly encodings = OUTCOME_ENCODINGS;
@@ -134,6 +135,20 @@ export class UploadPage {
   protected readonly count = formatCount;
 
   constructor() {
+    const shownRun = Number(inject(ActivatedRoute).snapshot.queryParamMap.get('run'));
+    if (Number.isSafeInteger(shownRun) && shownRun > 0) {
+      this.uploaded.set(1);
+      this.watchRun(shownRun)
+        .pipe(
+          catchError((error: unknown) => {
+            this.failure.set(apiErrorMessage(error));
+            this.phase.set('choosing');
+            return of(null);
+          }),
+          takeUntilDestroyed(this.destroyRef),
+        )
+        .subscribe();
+    }
     const { bookingId, replacementReason, profileVersionId, acquiredOn } = this.form.controls;
     // The booking the server would pick is chosen; "unbooked" is there only when none is open.
     effect(() => {
@@ -211,8 +226,10 @@ export class UploadPage {
             return of(null);
           }
           this.uploaded.set(1);
-          this.phase.set('analysing');
-          return this.runsApi.watch(progress.run.id);
+          this.run.set(progress.run);
+          // The address names the run: a reload while it is analysed comes back to it.
+          void this.router.navigate([], { queryParams: { run: progress.run.id }, replaceUrl: true });
+          return this.watchRun(progress.run.id);
         }),
         catchError((error: unknown) => {
           this.failure.set(apiErrorMessage(error));
@@ -221,14 +238,22 @@ export class UploadPage {
         }),
         takeUntilDestroyed(this.destroyRef),
       )
-      .subscribe((run) => {
-        if (run === null) return;
+      .subscribe();
+  }
+
+  /** Follows the run until its analysis ends, keeping the page's run up to date. */
+  private watchRun(runId: number): Observable<RunDto> {
+    this.phase.set('analysing');
+    return this.runsApi.watch(runId).pipe(
+      tap((run) => {
         this.run.set(run);
         if (FINISHED_STATES.includes(run.state)) this.phase.set('finished');
-      });
+      }),
+    );
   }
 
   protected startAgain(): void {
+    void this.router.navigate([], { queryParams: { run: null }, replaceUrl: true });
     this.phase.set('choosing');
     this.run.set(null);
     this.file.set(null);
