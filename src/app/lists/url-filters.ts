@@ -1,3 +1,4 @@
+import { Location } from '@angular/common';
 import { effect, inject, untracked, type Signal } from '@angular/core';
 import type { FormGroup } from '@angular/forms';
 import { ActivatedRoute, Router, type ParamMap } from '@angular/router';
@@ -53,12 +54,15 @@ export function readUrlPaging(params: ParamMap): { page?: number; pageSize?: num
 /**
  * Writes the list's query to the address whenever it changes, replacing the current entry (Back
  * leaves the list rather than stepping through its filters): the filters named, and the page, page
- * size and sort where they differ from the first page. Other parameters (an open tab) stay.
+ * size and sort where they differ from the first page. Other parameters (an open tab) stay. It
+ * rewrites the address without a router navigation, which would cancel one under way: a filter
+ * typed a moment before a row is clicked must not pull the page back to the list.
  * Call in an injection context.
  */
 export function writeQueryToUrl(query: Signal<object>, filters: UrlFilters, firstPage: object): void {
   const router = inject(Router);
   const route = inject(ActivatedRoute);
+  const location = inject(Location);
   effect(() => {
     const asked = query() as Record<string, unknown>;
     const defaults = firstPage as Record<string, unknown>;
@@ -67,6 +71,10 @@ export function writeQueryToUrl(query: Signal<object>, filters: UrlFilters, firs
     const queryParams: Record<string, string | null> = {};
     for (const name of Object.keys(filters)) queryParams[name] = written(asked[name]);
     for (const name of PAGING) queryParams[name] = asked[name] === defaults[name] ? null : written(asked[name]);
-    untracked(() => void router.navigate([], { relativeTo: route, queryParams, queryParamsHandling: 'merge', replaceUrl: true }));
+    untracked(() => {
+      // Not once the router is taking the page elsewhere: the list is about to go.
+      if (router.currentNavigation() !== null) return;
+      location.replaceState(router.serializeUrl(router.createUrlTree([], { relativeTo: route, queryParams, queryParamsHandling: 'merge' })));
+    });
   });
 }

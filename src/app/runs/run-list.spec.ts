@@ -1,3 +1,4 @@
+import { Location } from '@angular/common';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting, type TestRequest } from '@angular/common/http/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
@@ -172,7 +173,7 @@ describe('RunList', () => {
     await settle(fixture, 300);
     runRequests()[0].flush(pageOf([]));
     await settle(fixture);
-    const address = new URL(router.url, 'http://bellkeep.invalid').searchParams;
+    const address = new URL(TestBed.inject(Location).path(), 'http://bellkeep.invalid').searchParams;
     expect(Object.fromEntries(address.entries())).toEqual({ setupId: '2', awaitingSignOff: 'true', from: '2026-12-01', sort: 'acquiredOn', direction: 'asc', verdict: 'ABORT' });
   });
 });
