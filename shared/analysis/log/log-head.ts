@@ -10,6 +10,18 @@ const BOM = [0xef, 0xbb, 0xbf];
 const LF = 10;
 const CR = 13;
 
+/** Separators other labs' tools write instead of the comma, as a sentence names them. */
+const FOREIGN_SEPARATORS: readonly (readonly [string, string])[] = [
+  [';', 'semicolons (;)'],
+  ['\t', 'tabs'],
+  ['|', 'vertical bars (|)'],
+];
+
+/** The separator a one-column header line holds instead of commas, named for a sentence, or null. */
+function foreignSeparatorIn(header: string): string | null {
+  return FOREIGN_SEPARATORS.find(([separator]) => header.includes(separator))?.[1] ?? null;
+}
+
 /** The header of a log and where its data starts, or the problem that stops it being read. */
 export type LogHead = { ok: true; layout: HeaderLayout; dataOffset: number } | { ok: false; problem: LogProblem };
 
@@ -45,6 +57,10 @@ export function readLogHead(head: Uint8Array, complete: boolean, mapping: Column
   const split = splitCsvLine(text);
   if ('error' in split) {
     return fail(null, `the header line's quoting is broken: ${split.error}`);
+  }
+  const separator = split.fields.length === 1 ? foreignSeparatorIn(text) : null;
+  if (separator !== null) {
+    return fail(null, `the header line is one column: its fields are separated by ${separator}, and a round log separates them with commas`);
   }
   const resolved = resolveHeader(split.fields, mapping, needsTestColumn);
   if (!resolved.ok) {

@@ -63,6 +63,26 @@ describe('previewLog', () => {
     expect(previewLog(binary, mapping, false)).toEqual({ ok: false, cause: 'file', message: expect.stringContaining('looks binary') });
   });
 
+  it('names the separator of a log whose fields are not separated by commas', () => {
+    const mapping = { columns: {}, outcomes: '0/1' as const };
+    expect(previewLog(sampleOf('round;x;y;a;b\n0;0;2;1;1\n'), mapping, false)).toEqual({
+      ok: false,
+      cause: 'file',
+      message: 'the header line is one column: its fields are separated by semicolons (;), and a round log separates them with commas',
+    });
+    expect(previewLog(sampleOf('round\tx\ty\ta\tb\n0\t0\t2\t1\t1\n'), mapping, false)).toEqual(
+      expect.objectContaining({ ok: false, message: expect.stringContaining('separated by tabs') }),
+    );
+  });
+
+  it('refuses a header without rounds', () => {
+    expect(previewLog(sampleOf('round,x,y,a,b\n\n'), { columns: {}, outcomes: '0/1' }, false)).toEqual({
+      ok: false,
+      cause: 'file',
+      message: 'the file has its header line but no rounds',
+    });
+  });
+
   it('asks for the test column when the profile takes the test rounds from the log', () => {
     const preview = previewLog(sampleOf('round,x,y,a,b\n0,0,2,1,1\n'), { columns: {}, outcomes: '0/1' }, true);
     expect(preview.ok || preview.message).toContain('no column "test"');

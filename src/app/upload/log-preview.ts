@@ -145,10 +145,14 @@ export function previewLog(sample: LogSample, mapping: ColumnMapping, needsTestC
     return { ok: false, cause: head.problem.column === null ? 'file' : 'mapping', message: head.problem.message };
   }
   const { layout } = head;
+  const lines = dataLines(sample, rows, head.dataOffset);
+  if (lines.length === 0 && sample.complete) {
+    return { ok: false, cause: 'file', message: 'the file has its header line but no rounds' };
+  }
   const problems = new ProblemList();
   const checker = new RecordChecker(layout, problems);
   const values = new Float64Array(ROUND_FIELDS.length);
-  const previewRows = dataLines(sample, rows, head.dataOffset).map(({ line, text }): PreviewRow => {
+  const previewRows = lines.map(({ line, text }): PreviewRow => {
     const before = problems.listed.length;
     const split = splitCsvLine(text);
     if ('error' in split) {

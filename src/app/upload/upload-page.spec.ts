@@ -110,13 +110,13 @@ describe('UploadPage', () => {
   const text = (testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
 
   /** Chooses Fen link, answers its bookings, and picks the log. */
-  async function prepare(bookings: BookingDto[]): Promise<void> {
+  async function prepare(bookings: BookingDto[], log = LOG): Promise<void> {
     const setup = await select('setup-select');
     await setup.open();
     await setup.clickOptions({ text: 'Fen link' });
     http.expectOne('/api/bookings?setupId=2').flush(bookings);
     await fixture.whenStable();
-    await (fixture.componentInstance as unknown as { chooseLog(file: File): Promise<void> }).chooseLog(new File([LOG], 'night-14.csv'));
+    await (fixture.componentInstance as unknown as { chooseLog(file: File): Promise<void> }).chooseLog(new File([log], 'night-14.csv'));
     await fixture.whenStable();
   }
 
@@ -203,6 +203,14 @@ describe('UploadPage', () => {
     acquiredOn.dispatchEvent(new Event('input'));
     await clickUpload();
     expect(sent[0]).toMatchObject({ bookingId: null, acquiredOn: '2027-03-10' });
+  });
+
+  it('refuses to send a log whose preview shows rows that break the log rules', async () => {
+    await prepare([lastNight()], 'round,x,y,a,b\n1,0,1,0,0\n2,1,7,1,0\n');
+    expect(text('preview-status')).toContain('1 of the first 2 rows break the log rules, so no verdict would be possible (INVALID)');
+    expect(host.querySelector<HTMLButtonElement>('[data-testid="upload-button"]')!.disabled).toBe(true);
+    await clickUpload();
+    expect(sent).toHaveLength(0);
   });
 
   it('shows the server’s refusal and lets the user try again', async () => {

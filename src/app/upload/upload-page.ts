@@ -127,6 +127,9 @@ export class UploadPage {
     return preview?.ok ? preview.rows.filter((row) => row.round === null).length : 0;
   });
 
+  /** Whether the preview already shows the run would be INVALID: no header fit, no rounds, or rows breaking the rules. */
+  protected readonly previewRefuses = computed(() => !this.preview()?.ok || this.badRows() > 0);
+
   protected readonly phase = signal<UploadPhase>('choosing');
   protected readonly uploaded = signal(0);
   protected readonly run = signal<RunDto | null>(null);
@@ -210,7 +213,7 @@ export class UploadPage {
     // A second click before the page shows the upload must not send the log again.
     if (this.phase() !== 'choosing') return;
     const { setupId, bookingId, replacementReason, acquiredOn, notes } = this.form.getRawValue();
-    if (this.form.invalid || file === null || setupId === null || !this.preview()?.ok || this.bookingsLoading()) {
+    if (this.form.invalid || file === null || setupId === null || this.previewRefuses() || this.bookingsLoading()) {
       this.form.markAllAsTouched();
       return;
     }
