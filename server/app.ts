@@ -74,7 +74,7 @@ export function createApp({ config, database, services, jwtSecret, appMail, queu
   app.use('/api', ledgerRoutes(services.ledger, guards));
   app.use('/api/audit', auditRoutes({ models: database.models, audit: services.audit, guards }));
   app.use('/api/runs', runIntegrityRoutes({ ...services, models: database.models, guards }));
-  app.use('/api/runs', runsRoutes({ config, runs: services.runs, logStore: services.logStore, models: database.models, guards, uploader }));
+  app.use('/api/runs', runsRoutes({ config, runs: services.runs, setups: services.setups, appMail, logStore: services.logStore, models: database.models, guards, uploader }));
   app.use(
     RESUMABLE_UPLOAD_PATH,
     resumableUploads({ sequelize: database.sequelize, runs: services.runs, logStore: services.logStore, uploader, dataDir: config.dataDir, limitBytes: config.uploadLimitBytes }),

@@ -37,6 +37,7 @@ interface NightRunRow {
   state: RunState;
   verdict: Verdict | null;
   decision: SignOffDecision | null;
+  withdrawn: boolean;
 }
 
 interface WorkRow {
@@ -80,8 +81,8 @@ export function createLedgerService(sequelize: Sequelize): LedgerService {
       );
       // Every log of a night, latest first; the first of each (setup, night) is the one the cell shows.
       const runs = await select<NightRunRow>(
-        `SELECT r.setup_id, to_char(r.acquired_on, 'YYYY-MM-DD') AS night, r.id, r.state, r.verdict, o.decision
-           FROM runs r LEFT JOIN run_sign_offs o ON o.run_id = r.id
+        `SELECT r.setup_id, to_char(r.acquired_on, 'YYYY-MM-DD') AS night, r.id, r.state, r.verdict, o.decision, w.run_id IS NOT NULL AS withdrawn
+           FROM runs r LEFT JOIN run_sign_offs o ON o.run_id = r.id LEFT JOIN run_withdrawals w ON w.run_id = r.id
           WHERE r.acquired_on BETWEEN :from AND :to
           ORDER BY r.setup_id, r.acquired_on, r.id DESC`,
         { from, to },
@@ -97,7 +98,7 @@ export function createLedgerService(sequelize: Sequelize): LedgerService {
       for (const run of runs) {
         const cell = cellOf(run.setup_id, run.night);
         cell.attempts++;
-        cell.run ??= { id: run.id, state: run.state, verdict: run.verdict, signedOff: run.decision !== null, decision: run.decision };
+        cell.run ??= { id: run.id, state: run.state, verdict: run.verdict, signedOff: run.decision !== null, decision: run.decision, withdrawn: run.withdrawn };
       }
       return {
         from,
@@ -137,6 +138,7 @@ export function createLedgerService(sequelize: Sequelize): LedgerService {
             `${base}, CASE WHEN r.state IN ('queued', 'analysing') THEN 'being analysed' WHEN r.state = 'failed' THEN 'the analysis failed' ELSE 'no verdict was possible' END AS note
                FROM runs r JOIN setups s ON s.id = r.setup_id
               WHERE r.uploaded_by = :me
+                AND NOT EXISTS (SELECT 1 FROM run_withdrawals w WHERE w.run_id = r.id)
                 AND (r.state IN ('queued', 'analysing') OR (r.state IN ('failed', 'invalid') AND r.created_at > now() - make_interval(days => :days)))
               ORDER BY r.created_at DESC, r.id DESC`,
             { me: person.id, days: ATTENTION_DAYS },

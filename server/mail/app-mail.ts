@@ -1,4 +1,4 @@
-import { ROLE_LABELS, type BookingDto, type UserDto } from '@shared/api';
+import { ROLE_LABELS, type BookingDto, type RunDto, type UserDto, type WithdrawalDto } from '@shared/api';
 import type { Mailer, OutgoingMail } from './mailer';
 import { faultLines, oneLine } from '../system/fault-lines';
 import { log } from '../system/log';
@@ -10,6 +10,8 @@ export interface AppMail {
   welcome(user: UserDto, createdBy: string): void;
   /** The booking mail to the setup's shift leads: the night, its profile and the seed commitment. */
   booked(booking: BookingDto, recipients: string[]): void;
+  /** The short mail to a run's verdict recipients that its upload was withdrawn and awaits no sign-off. */
+  withdrawn(run: RunDto, withdrawal: WithdrawalDto, recipients: string[]): void;
   /** The single-use reset link to its user, sent now: rejects with a 502 when the mail server does not take it. */
   passwordResetLink(user: { name: string; email: string }, secret: string, expiresAt: Date, admin: string): Promise<void>;
   /** Resolves when every mail started so far has been handed over (or has failed and been logged). */
@@ -66,6 +68,24 @@ export function createAppMail(mailer: Mailer, publicUrl: string): AppMail {
           'the run then shows it, and `printf %s <seed> | sha256sum` must print this commitment.',
           '',
           `The booking: ${publicUrl}/setups/${booking.setupId}`,
+        ].join('\n'),
+      });
+    },
+    withdrawn(run, withdrawal, recipients) {
+      if (recipients.length === 0) return;
+      const outcome = run.verdict === null ? `before its analysis ended (${run.state})` : `after its verdict (${run.verdict})`;
+      send({
+        to: recipients.join(', '),
+        subject: `Run ${run.id} of ${run.setupName} was withdrawn as a mistaken upload; it needs no sign-off`,
+        text: [
+          `${withdrawal.userName} withdrew run ${run.id} of ${run.setupName} (${run.file.originalName}, acquired ${run.acquiredOn ?? 'on an unrecorded date'}) ${outcome}.`,
+          '',
+          `Why: ${withdrawal.reason}`,
+          '',
+          'Its log stays in the archive and the run in the trail, marked withdrawn; it no longer awaits a sign-off.',
+          run.bookingId === null ? 'The run was unbooked.' : 'Its night stays booked: a new upload of the night becomes its next attempt.',
+          '',
+          `The run: ${publicUrl}/runs/${run.id}`,
         ].join('\n'),
       });
     },

@@ -9,6 +9,8 @@ import {
   signOffRequestSchema,
   signOffSchema,
   verificationSchema,
+  withdrawalSchema,
+  withdrawRequestSchema,
 } from '@shared/api';
 import { uploadFieldsSchema } from '../runs/upload-fields';
 import type { Operation } from './operation';
@@ -86,6 +88,19 @@ export const RUNS_OPERATIONS: Operation[] = [
     status: 201,
     response: signOffSchema,
     errors: { ...NO_RUN, 409: 'The run has no verdict yet, or is signed off already.' },
+  },
+  {
+    method: 'post',
+    path: '/api/runs/{id}/withdraw',
+    summary: 'Withdraw a mistaken upload before its sign-off',
+    description:
+      'By the person who uploaded it or an admin (a log sent by an upload token: any experimentalist). The run, its log and its trail stay, marked withdrawn; it awaits no sign-off, its verdict mail is not sent if the analysis had not ended, and the verdict recipients get a short mail.',
+    tags: ['Runs'],
+    access: 'signed-in',
+    body: withdrawRequestSchema,
+    status: 201,
+    response: withdrawalSchema,
+    errors: { ...NO_RUN, 403: 'Neither its uploader nor an admin.', 409: 'The run is signed off or withdrawn already.' },
   },
   {
     method: 'get',

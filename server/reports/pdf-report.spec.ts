@@ -291,6 +291,15 @@ describe('the PDF report of a run', () => {
     expect(text).toContain(`block${failing.length === 1 ? '' : 's'} ${failing.join(', ')} on the failing side of the threshold`);
   });
 
+  it('marks a withdrawn upload under its verdict and in its sign-off section', async () => {
+    const withdrawal = { userId: 2, userName: 'Dev Okafor', reason: 'Wrong setup: the Reed bench log.', createdAt: '2025-03-14T07:00:00.000Z' };
+    const text = await flatText(await pdfBytes({ ...signedReport(accepted), signOff: null, withdrawal }));
+    expect(text).toContain('UPLOAD WITHDRAWN by Dev Okafor on');
+    expect(text).toContain('no key is kept and no sign-off is made on this run.');
+    expect(text).toContain('as a mistake: Wrong setup: the Reed bench log. It awaits no sign-off.');
+    expect(text).not.toContain('Not signed off yet.');
+  });
+
   it('says plainly that a result has no signature and no sign-off', async () => {
     const report: RunReportDto = { ...signedReport(accepted), signature: null, publicKey: null, signOff: null };
     const text = await flatText(await pdfBytes(report));

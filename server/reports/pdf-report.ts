@@ -16,7 +16,7 @@ import { writeSettingsTable } from './pdf-settings-table';
 import { writeSignOff } from './pdf-sign-off';
 import { writeSignature } from './pdf-signature';
 import { PAGE } from './pdf-style';
-import { writeVerdict } from './pdf-verdict';
+import { writeVerdict, writeWithdrawn } from './pdf-verdict';
 
 /** The sections after the verdict, in order; `keepWith` keeps a title on the page of its first lines. */
 const SECTIONS: ReadonlyArray<{ title: string; keepWith?: number; write: (doc: PDFKit.PDFDocument, report: RunReportDto) => void }> = [
@@ -57,6 +57,7 @@ export function createPdfReport(report: RunReportDto): PDFKit.PDFDocument {
   registerFonts(doc);
   writeHeader(doc, report);
   writeVerdict(doc, report.result);
+  if (report.withdrawal) writeWithdrawn(doc, report.withdrawal);
   for (const section of SECTIONS) {
     heading(doc, section.title, section.keepWith);
     section.write(doc, report);

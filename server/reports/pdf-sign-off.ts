@@ -15,13 +15,17 @@ const REVERIFICATION_STATE: Record<ReverificationDto['state'], string> = {
 /** How many differing fields of one re-verification the report lists. */
 const LISTED_DIFFERENCES = 12;
 
-/** The shift lead's sign-off, then every re-verification of the archived log. */
+/** The shift lead's sign-off (or the upload's withdrawal), then every re-verification of the archived log. */
 export function writeSignOff(doc: PDFKit.PDFDocument, report: RunReportDto): void {
-  const { signOff } = report;
+  const { signOff, withdrawal } = report;
   const comment = signOff?.comment.trim() ? `: ${signOff.comment.trim()}` : '.';
   paragraph(
     doc,
-    signOff === null ? 'Not signed off yet.' : `Signed off by ${signOff.userName} on ${formatInstant(signOff.createdAt)}. ${SIGN_OFF_DECISION_WORDS[signOff.decision]}${comment}`,
+    withdrawal
+      ? `Upload withdrawn by ${withdrawal.userName} on ${formatInstant(withdrawal.createdAt)} as a mistake: ${withdrawal.reason} It awaits no sign-off.`
+      : signOff === null
+        ? 'Not signed off yet.'
+        : `Signed off by ${signOff.userName} on ${formatInstant(signOff.createdAt)}. ${SIGN_OFF_DECISION_WORDS[signOff.decision]}${comment}`,
   );
   doc.y += 4;
   if (report.reverifications.length === 0) {

@@ -1,5 +1,7 @@
 import type { AnalysisResult, Verdict } from '@shared/analysis';
+import type { WithdrawalDto } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
+import { formatInstant } from './pdf-dates';
 import { verdictSentence } from '@shared/format/verdict-sentence';
 import { bullets, ensureSpace, paragraph, textColumn, useType } from './pdf-blocks';
 import { TONE, TYPE } from './pdf-style';
@@ -41,6 +43,18 @@ export function writeVerdict(doc: PDFKit.PDFDocument, result: AnalysisResult): v
     const more = result.errorCount - Math.min(result.errors.length, LISTED_PROBLEMS);
     if (more > 0) paragraph(doc, `… and ${formatCount(more)} more (${formatCount(result.errorCount)} in all).`, { colour: TONE.muted });
   }
+}
+
+/** The mark of a withdrawn upload, under its verdict: the verdict stands in the record, but nobody acts on it. */
+export function writeWithdrawn(doc: PDFKit.PDFDocument, withdrawal: WithdrawalDto): void {
+  const { left, width } = textColumn(doc);
+  useType(doc, 'bold', TYPE.body, TONE.abort).text(
+    `UPLOAD WITHDRAWN by ${withdrawal.userName} on ${formatInstant(withdrawal.createdAt)}: no key is kept and no sign-off is made on this run.`,
+    left,
+    doc.y + 4,
+    { width },
+  );
+  doc.y += 4;
 }
 
 function problemLine(problem: AnalysisResult['errors'][number]): string {

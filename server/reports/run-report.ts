@@ -51,6 +51,7 @@ export async function buildRunReport(runId: number, exportedBy: string, deps: Ru
     signature: run.signature,
     publicKey: run.signature ? await deps.signingKeys.find(run.signature.keyId) : null,
     signOff: run.signOff,
+    withdrawal: run.withdrawal,
     reverifications: await deps.reverifications.list(runId),
   };
 }

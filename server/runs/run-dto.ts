@@ -1,5 +1,5 @@
 import { type AnalysisResult, QUANTUM_WIN_FRACTION } from '@shared/analysis';
-import type { MailDeliveryDto, ResultSignatureDto, RunDto, RunSummaryDto, SignOffDto } from '@shared/api';
+import type { MailDeliveryDto, ResultSignatureDto, RunDto, RunSummaryDto, SignOffDto, WithdrawalDto } from '@shared/api';
 
 /** One row of the runs query in runs.service.ts: the run joined with the names it shows. */
 export interface RunRow {
@@ -28,6 +28,7 @@ export interface RunRow {
   attempt: number | null;
   replay_of: number | null;
   signed_off: boolean;
+  withdrawn: boolean;
   file_sha256: string;
   fingerprint: string | null;
 }
@@ -58,6 +59,7 @@ export function toRunSummary(row: RunRow): RunSummaryDto {
     attempt: row.attempt,
     replayOf: row.replay_of,
     signedOff: row.signed_off,
+    withdrawn: row.withdrawn,
     fileSha256: row.file_sha256,
     fingerprint: row.fingerprint,
   };
@@ -76,6 +78,7 @@ export interface RunDetails {
   result: AnalysisResult | null;
   signature: ResultSignatureDto | null;
   signOff: SignOffDto | null;
+  withdrawal: WithdrawalDto | null;
   uploadedById: number | null;
   fourEyes: boolean;
   deliveries: MailDeliveryDto[];

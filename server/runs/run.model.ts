@@ -56,6 +56,13 @@ export class SignOffRecord extends Model<InferAttributes<SignOffRecord>, InferCr
   declare createdAt: CreationOptional<Date>;
 }
 
+export class WithdrawalRecord extends Model<InferAttributes<WithdrawalRecord>, InferCreationAttributes<WithdrawalRecord>> {
+  declare runId: number;
+  declare userId: number;
+  declare reason: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
 export class MailDeliveryRecord extends Model<InferAttributes<MailDeliveryRecord>, InferCreationAttributes<MailDeliveryRecord>> {
   declare id: CreationOptional<number>;
   declare runId: number;
@@ -70,10 +77,11 @@ export interface RunModels {
   Run: ModelStatic<RunRecord>;
   ArchiveFile: ModelStatic<ArchiveFileRecord>;
   SignOff: ModelStatic<SignOffRecord>;
+  Withdrawal: ModelStatic<WithdrawalRecord>;
   MailDelivery: ModelStatic<MailDeliveryRecord>;
 }
 
-/** `runs`, the `archive_files` they read, their sign-offs and verdict-mail deliveries. */
+/** `runs`, the `archive_files` they read, their sign-offs, withdrawals and verdict-mail deliveries. */
 export function defineRunModels(sequelize: Sequelize): RunModels {
   class Run extends RunRecord {}
   Run.init(
@@ -138,6 +146,16 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
     },
     { sequelize, tableName: 'run_sign_offs', modelName: 'SignOff', updatedAt: false },
   );
+  class Withdrawal extends WithdrawalRecord {}
+  Withdrawal.init(
+    {
+      runId: { type: DataTypes.INTEGER, primaryKey: true, field: 'run_id' },
+      userId: { type: DataTypes.INTEGER, allowNull: false, field: 'user_id' },
+      reason: { type: DataTypes.TEXT, allowNull: false },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+    },
+    { sequelize, tableName: 'run_withdrawals', modelName: 'Withdrawal', updatedAt: false },
+  );
   class MailDelivery extends MailDeliveryRecord {}
   MailDelivery.init(
     {
@@ -151,5 +169,5 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
     },
     { sequelize, tableName: 'mail_deliveries', modelName: 'MailDelivery', createdAt: 'attemptedAt', updatedAt: false },
   );
-  return { Run, ArchiveFile, SignOff, MailDelivery };
+  return { Run, ArchiveFile, SignOff, Withdrawal, MailDelivery };
 }

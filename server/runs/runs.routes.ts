@@ -1,20 +1,34 @@
 import { Router, type RequestHandler } from 'express';
-import { runListQuerySchema, signOffRequestSchema } from '@shared/api';
+import { runListQuerySchema, signOffRequestSchema, withdrawRequestSchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import type { Config } from '../config/config';
 import type { Models } from '../database/models';
 import { idParameter } from '../http/id-parameter';
 import { validateBody, validationError, validQuery } from '../http/validate-body';
 import { toAuditEventDtos } from '../audit/audit-event-dto';
+import type { AppMail } from '../mail/app-mail';
+import type { SetupsService } from '../setups/setups.service';
 import type { LogStore } from '../storage/log-store';
 import type { RunsService } from './runs.service';
 import { discardUpload, logUpload, uploadedLog } from './upload-middleware';
 import { uploadFieldsSchema } from './upload-fields';
 import { uploadKeys } from './upload-keys';
 
-/** `/api/runs`: experimentalists and upload tokens upload; everyone signed in reads; shift leads sign off. */
-export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: LogStore; models: Models; guards: Guards; uploader: RequestHandler }): Router {
-  const { config, runs, logStore, models, guards, uploader } = deps;
+/**
+ * `/api/runs`: experimentalists and upload tokens upload; everyone signed in reads; shift leads sign
+ * off; an uploader or admin withdraws a mistaken upload (the service checks who).
+ */
+export function runsRoutes(deps: {
+  config: Config;
+  runs: RunsService;
+  setups: SetupsService;
+  appMail: AppMail;
+  logStore: LogStore;
+  models: Models;
+  guards: Guards;
+  uploader: RequestHandler;
+}): Router {
+  const { config, runs, setups, appMail, logStore, models, guards, uploader } = deps;
   const router = Router();
 
   const idempotency = uploadKeys(models.Run.sequelize!, runs);
@@ -60,6 +74,14 @@ export function runsRoutes(deps: { config: Config; runs: RunsService; logStore: 
   router.post('/:id/sign-off', guards.requireRole('shift-lead'), validateBody(signOffRequestSchema), async (request, response) => {
     const signOff = await runs.signOff(idParameter(request, 'run'), request.body, request.user!);
     response.status(201).json(signOff);
+  });
+
+  router.post('/:id/withdraw', guards.requireSignIn, validateBody(withdrawRequestSchema), async (request, response) => {
+    const id = idParameter(request, 'run');
+    const withdrawal = await runs.withdraw(id, request.body, request.user!);
+    const run = await runs.get(id);
+    appMail.withdrawn(run, withdrawal, await setups.verdictRecipients(run.setupId));
+    response.status(201).json(withdrawal);
   });
 
   return router;

@@ -9,6 +9,8 @@ import {
   type SetupDto,
   type SignOffDto,
   type SignOffRequest,
+  type WithdrawalDto,
+  type WithdrawRequest,
 } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { BookingRecord } from '../bookings/booking.model';
@@ -27,6 +29,7 @@ import { uploaderInTrail, type Uploader } from '../upload-tokens/uploader';
 import type { RunRecord } from './run.model';
 import { toRunDto, toRunSummary, type RunRow } from './run-dto';
 import { AWAITING_SIGN_OFF } from './awaiting-sign-off';
+import { withdrawalOf, withdrawRun, type Withdrawer } from './run-withdrawals';
 
 export interface NewRun {
   setupId: number;
@@ -60,6 +63,8 @@ export interface RunsService {
    * that has one.
    */
   signOff(id: number, request: SignOffRequest, actor: { id: number; name: string }): Promise<SignOffDto>;
+  /** Its uploader or an admin withdraws a mistaken upload before its sign-off (see run-withdrawals.ts). */
+  withdraw(id: number, request: WithdrawRequest, actor: Withdrawer): Promise<WithdrawalDto>;
 }
 
 const SORT_COLUMNS: Record<RunSortKey, string> = {
@@ -82,7 +87,8 @@ const RUN_SELECT = `
          (r.result #>> '{key,finiteKeyBits}')::float8 AS finite_key_bits,
          coalesce(u.name, 'upload token “' || t.name || '”') AS uploaded_by_name, r.booking_id, r.attempt, r.replay_of, to_char(r.acquired_on, 'YYYY-MM-DD') AS acquired_on,
          r.created_at, r.finished_at, r.duplicate_of, r.file_sha256, r.result ->> 'fingerprint' AS fingerprint,
-         EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off
+         EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off,
+         EXISTS (SELECT 1 FROM run_withdrawals w WHERE w.run_id = r.id) AS withdrawn
     FROM runs r
     JOIN setups s ON s.id = r.setup_id
     JOIN profile_versions v ON v.id = r.profile_version_id
@@ -196,6 +202,7 @@ export function createRunsService(deps: {
       signature: storedSignature(run),
       signOff:
         signOff && signer ? { userId: signer.id, userName: signer.name, decision: signOff.decision, comment: signOff.comment, createdAt: signOff.createdAt.toISOString() } : null,
+      withdrawal: await withdrawalOf(models, id, transaction),
       uploadedById: run.uploadedBy,
       fourEyes: setup.fourEyes,
       booking: booking && {
@@ -218,6 +225,7 @@ export function createRunsService(deps: {
 
   return {
     get,
+    withdraw: withdrawRun({ sequelize, models, audit }),
 
     async refuseEarly(newRun, uploader) {
       const setup = await uploadSetup(newRun, uploader);
@@ -327,6 +335,9 @@ export function createRunsService(deps: {
         }
         if (!VERDICT_STATES.includes(run.state)) {
           throw HttpError.conflict(`Run ${id} is ${run.state}; a run is signed off once its verdict is in.`);
+        }
+        if (await models.Withdrawal.findByPk(id, { transaction })) {
+          throw HttpError.conflict(`Run ${id} was withdrawn as a mistaken upload; there is nothing to sign off.`);
         }
         if (decision === 'key-kept' && !(run.verdict === 'ACCEPT' && (run.result?.key?.finiteKeyBits ?? 0) > 0)) {
           const why = run.verdict === 'ACCEPT' ? 'its finite key is 0 bits at this size' : `its verdict is ${run.verdict}`;

@@ -18,7 +18,8 @@ export interface VerdictMailDeps {
 }
 
 /**
- * One verdict-mail job: mails the shift leads of the run's setup and records the delivery. A
+ * One verdict-mail job: mails the shift leads of the run's setup and records the delivery (none for
+ * an upload withdrawn while it was analysed: its withdrawal mail said so). A
  * failure is recorded and rethrown, so the queue retries later; a run whose mail went out is never
  * mailed again (the run row is locked while sending, and at most one `sent` delivery may exist).
  */
@@ -32,11 +33,9 @@ export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Pro
     await models.Run.findByPk(runId, { transaction, lock: transaction.LOCK.UPDATE });
     if (await models.MailDelivery.findOne({ where: { runId, status: 'sent' }, transaction })) return null;
     const run = await runs.get(runId, transaction);
-    if (recipients.length === 0) {
-      await audit.record(
-        { actorId: null, action: 'run.mail-skipped', targetType: 'run', targetId: runId, details: { reason: 'the setup has no shift leads or recipients' } },
-        transaction,
-      );
+    const skipped = run.withdrawal ? 'the upload was withdrawn before its verdict' : recipients.length === 0 ? 'the setup has no shift leads or recipients' : null;
+    if (skipped !== null) {
+      await audit.record({ actorId: null, action: 'run.mail-skipped', targetType: 'run', targetId: runId, details: { reason: skipped } }, transaction);
       return null;
     }
     try {

@@ -60,6 +60,7 @@ export const AUDIT_ACTIONS = [
   'run.mail-sent',
   'run.mail-skipped',
   'run.signed-off',
+  'run.withdrawn',
   'run.exported',
   'run.reverification-requested',
   'run.reverification-finished',

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { RunBookingDto } from './bookings';
 import type { AnalysisResult } from '../analysis/result';
 import type { ResultSignatureDto, SigningKeyDto } from './integrity-signature';
-import type { SignOffDto } from './runs';
+import type { SignOffDto, WithdrawalDto } from './runs';
 
 export * from './integrity-signature';
 
@@ -110,5 +110,7 @@ export interface RunReportDto {
   signature: ResultSignatureDto | null;
   publicKey: SigningKeyDto | null;
   signOff: SignOffDto | null;
+  /** Set when the upload was withdrawn as a mistake (absent in reports made before withdrawals). */
+  withdrawal?: WithdrawalDto | null;
   reverifications: ReverificationDto[];
 }

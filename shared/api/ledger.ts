@@ -27,6 +27,7 @@ export const ledgerCellSchema = /* @__PURE__ */ z
         verdict: verdictSchema.nullable(),
         signedOff: z.boolean(),
         decision: z.enum(SIGN_OFF_DECISIONS).nullable(),
+        withdrawn: z.boolean().meta({ description: 'The log was withdrawn as a mistaken upload.' }),
       })
       .nullable()
       .meta({ description: 'The latest log of the night; null for a booked night with none yet.' }),

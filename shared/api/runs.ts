@@ -4,6 +4,7 @@ import { runBookingSchema } from './bookings';
 import { resultSignatureSchema } from './integrity-signature';
 import { isoDate, paging, queryId } from './query-fields';
 import { RUN_STATES, VERDICTS, runStateSchema, verdictSchema } from './run-states';
+import type { Role } from './roles';
 
 export * from './run-states';
 
@@ -48,6 +49,12 @@ export const signOffSchema = /* @__PURE__ */ z
   .meta({ id: 'SignOffDto' });
 export type SignOffDto = z.infer<typeof signOffSchema>;
 
+/** The withdrawal of a mistaken upload before its sign-off. */
+export const withdrawalSchema = /* @__PURE__ */ z
+  .object({ userId: z.number().int(), userName: z.string(), reason: z.string(), createdAt: z.string() })
+  .meta({ id: 'WithdrawalDto' });
+export type WithdrawalDto = z.infer<typeof withdrawalSchema>;
+
 const nullableNumber = /* @__NO_SIDE_EFFECTS__ */ (description: string) => z.number().nullable().meta({ description });
 
 /** A run as lists show it. */
@@ -76,6 +83,7 @@ export const runSummarySchema = /* @__PURE__ */ z
     attempt: nullableNumber('Attempt k of its booking (k > 1: a replacement); null when unbooked.'),
     replayOf: nullableNumber('Set when these bytes were uploaded before under another booking or night: that run.'),
     signedOff: z.boolean(),
+    withdrawn: z.boolean().meta({ description: 'The upload was withdrawn as a mistake: kept in the archive and the trail, awaiting no sign-off.' }),
     fileSha256: z.string().meta({ description: 'SHA-256 of the archived log, hex.' }),
     fingerprint: z.string().nullable().meta({ description: "The result's fingerprint, when analysed." }),
   })
@@ -104,6 +112,7 @@ export const runSchema = /* @__PURE__ */ runSummarySchema
     result: z.union([analysisResultSchema, z.null()]),
     signature: resultSignatureSchema.nullable().meta({ description: "The server's signature over the stored result, when analysed." }),
     signOff: z.union([signOffSchema, z.null()]),
+    withdrawal: z.union([withdrawalSchema, z.null()]),
     uploadedById: z.number().int().nullable().meta({ description: 'The person who uploaded the log; null for an upload token.' }),
     fourEyes: z.boolean().meta({ description: "The setup's four-eyes rule: whoever uploaded a run may not sign it off." }),
     deliveries: z.array(mailDeliverySchema),
@@ -169,6 +178,21 @@ export const signOffRequestSchema = /* @__PURE__ */ z
   })
   .meta({ id: 'SignOffRequest' });
 export type SignOffRequest = z.infer<typeof signOffRequestSchema>;
+
+/** Body of `POST /api/runs/:id/withdraw` (its uploader, or an admin). */
+export const withdrawRequestSchema = /* @__PURE__ */ z
+  .strictObject({ reason: z.string().trim().min(1, 'is required: say why the upload was a mistake').max(2000) })
+  .meta({ id: 'WithdrawRequest' });
+export type WithdrawRequest = z.infer<typeof withdrawRequestSchema>;
+
+/**
+ * Whether a person may withdraw a run's upload: the person who uploaded it, an admin, or, for a log
+ * a station's upload token sent (no person uploaded it), any experimentalist. Server and app ask the same.
+ */
+export function mayWithdrawUpload(run: { uploadedById: number | null }, person: { id: number; roles: readonly Role[] }): boolean {
+  if (person.roles.includes('admin')) return true;
+  return run.uploadedById === null ? person.roles.includes('experimentalist') : run.uploadedById === person.id;
+}
 
 /** One line of the audit trail. */
 export const auditEventSchema = /* @__PURE__ */ z

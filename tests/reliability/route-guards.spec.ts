@@ -105,6 +105,8 @@ const GUARDED_ROUTES: Record<string, Guard> = {
   'GET /api/runs/:id/blocks': SIGNED_IN,
   'GET /api/runs/:id/trail': SIGNED_IN,
   'POST /api/runs/:id/sign-off': { roles: ['shift-lead'] },
+  // Who may withdraw (the uploader, an admin) is the service's check: tests/api/withdrawals.spec.ts.
+  'POST /api/runs/:id/withdraw': SIGNED_IN,
   'ALL /api/uploads': UPLOADERS,
   'GET /api/uploads/:id': UPLOADERS,
 };

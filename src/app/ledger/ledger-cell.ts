@@ -27,6 +27,10 @@ export function lookOfCell(cell: LedgerCellDto, setupName: string): CellLook {
   }
   const look = lookOfState(run.state);
   const attempts = cell.attempts > 1 ? `${cell.attempts} logs` : '';
+  if (run.withdrawn) {
+    const note = [attempts, look.word].filter(Boolean).join(' · ');
+    return { icon: 'undo', word: 'Withdrawn', tone: 'pending', note, label: `${night}: the log (${look.word}) was withdrawn as a mistaken upload`, runId: run.id };
+  }
   const signOff = run.decision !== null ? DECISION_NOTES[run.decision] : run.verdict !== null ? AWAITING_NOTE : '';
   const spoken = run.decision !== null ? SIGN_OFF_DECISION_WORDS[run.decision].toLowerCase() : run.verdict !== null ? 'awaiting sign-off' : '';
   const note = [attempts, signOff].filter(Boolean).join(' · ');

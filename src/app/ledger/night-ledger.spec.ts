@@ -5,6 +5,7 @@ import { provideRouter } from '@angular/router';
 
 import type { LedgerDto } from '@shared/api';
 import { settle } from '../../testing/settle';
+import { lookOfCell } from './ledger-cell';
 import { NightLedger } from './night-ledger';
 
 /** Two setups of the invented lab: the Fen link with a replaced, signed night and a booked night without a log; the bench with an ABORT awaiting sign-off. */
@@ -16,14 +17,14 @@ const LEDGER: LedgerDto = {
       setupId: 1,
       name: 'Fen link',
       cells: [
-        { night: '2026-12-01', bookingId: 7, attempts: 2, run: { id: 31, state: 'accepted', verdict: 'ACCEPT', signedOff: true, decision: 'key-kept' } },
+        { night: '2026-12-01', bookingId: 7, attempts: 2, run: { id: 31, state: 'accepted', verdict: 'ACCEPT', signedOff: true, decision: 'key-kept', withdrawn: false } },
         { night: '2026-12-05', bookingId: 9, attempts: 0, run: null },
       ],
     },
     {
       setupId: 2,
       name: 'Mill Lane bench',
-      cells: [{ night: '2026-12-02', bookingId: null, attempts: 1, run: { id: 33, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null } }],
+      cells: [{ night: '2026-12-02', bookingId: null, attempts: 1, run: { id: 33, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null, withdrawn: false } }],
     },
   ],
 };
@@ -86,5 +87,22 @@ describe('NightLedger', () => {
     await settle(fixture);
     const asked = http.expectOne((request) => request.url === '/api/ledger');
     expect([asked.request.params.get('from'), asked.request.params.get('to')]).toEqual(['2026-11-08', '2026-11-28']);
+  });
+});
+
+describe('lookOfCell', () => {
+  it('shows a withdrawn log as withdrawn, with the verdict it had, and says so in full', () => {
+    const look = lookOfCell(
+      { night: '2026-12-03', bookingId: null, attempts: 2, run: { id: 40, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null, withdrawn: true } },
+      'Fen link',
+    );
+    expect(look).toEqual({
+      icon: 'undo',
+      word: 'Withdrawn',
+      tone: 'pending',
+      note: '2 logs · ABORT',
+      label: 'Fen link, night of 2026-12-03: the log (ABORT) was withdrawn as a mistaken upload',
+      runId: 40,
+    });
   });
 });

@@ -30,7 +30,9 @@ const run = {
   replayOf: null,
   booking: null,
   signedOff: false,
+  withdrawn: false,
   signOff: null,
+  withdrawal: null,
   deliveries: [],
 } as unknown as RunDto;
 

@@ -7,7 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 import { catchError, distinctUntilChanged, filter, of, switchMap } from 'rxjs';
 
-import type { RunDto, SetupDto, SignOffDto } from '@shared/api';
+import type { RunDto, SetupDto, SignOffDto, WithdrawalDto } from '@shared/api';
 import { formatCount, formatFixed, formatScientific } from '@shared/format/numbers';
 import { loaded, type Loaded } from '../api/loaded';
 import { SetupsApi } from '../setups/setups-api';
@@ -21,6 +21,7 @@ import { RunExportMenu } from './run-export-menu';
 import { RunFigures } from './run-figures';
 import { RunIntegrity } from './run-integrity';
 import { RunReverifications } from './run-reverifications';
+import { RunWithdrawal } from './run-withdrawal';
 import { RunsApi } from './runs-api';
 import { SecurityParameters } from './security-parameters';
 import { SettingPairsTable } from './setting-pairs-table';
@@ -49,6 +50,7 @@ const SIGN_OFF_ANCHOR = 'sign-off';
     RunFigures,
     RunIntegrity,
     RunReverifications,
+    RunWithdrawal,
     SecurityParameters,
     SettingPairsTable,
     SettingsTable,
@@ -78,12 +80,18 @@ export class RunPage {
     { initialValue: { status: 'loading' } },
   );
 
-  /** The run, with a sign-off made on this page. */
+  private readonly recordedWithdrawal = signal<WithdrawalDto | null>(null);
+  /** The run, with a sign-off or withdrawal made on this page. */
   protected readonly run = computed<RunDto | null>(() => {
     const live = this.live();
     if (live.status !== 'ready') return null;
     const signOff = this.recordedSignOff();
-    return signOff === null ? live.value : { ...live.value, signOff, signedOff: true };
+    const withdrawal = this.recordedWithdrawal();
+    return {
+      ...live.value,
+      ...(signOff && { signOff, signedOff: true }),
+      ...(withdrawal && { withdrawal, withdrawn: true }),
+    };
   });
   protected readonly failure = computed(() => {
     const live = this.live();
@@ -112,7 +120,7 @@ export class RunPage {
     toObservable(
       computed(() => {
         const run = this.run();
-        return run === null ? null : `${run.id}:${run.state}:${run.signedOff}:${run.deliveries.length}`;
+        return run === null ? null : `${run.id}:${run.state}:${run.signedOff}:${run.withdrawn}:${run.deliveries.length}`;
       }),
     ).pipe(
       distinctUntilChanged(),
@@ -146,5 +154,9 @@ export class RunPage {
 
   protected keepSignOff(signOff: SignOffDto): void {
     this.recordedSignOff.set(signOff);
+  }
+
+  protected keepWithdrawal(withdrawal: WithdrawalDto): void {
+    this.recordedWithdrawal.set(withdrawal);
   }
 }

@@ -15,6 +15,8 @@ import {
   type SignOffDto,
   type SignOffRequest,
   type VerificationDto,
+  type WithdrawalDto,
+  type WithdrawRequest,
 } from '@shared/api';
 import { FileDownloads } from '../api/download';
 import { queryParams } from '../api/query-params';
@@ -65,6 +67,11 @@ export class RunsApi {
   /** A shift lead's sign-off of a finished run. */
   signOff(id: number, request: SignOffRequest): Observable<SignOffDto> {
     return this.http.post<SignOffDto>(`/api/runs/${id}/sign-off`, request);
+  }
+
+  /** Withdraws a mistaken upload before its sign-off (its uploader or an admin). */
+  withdraw(id: number, request: WithdrawRequest): Observable<WithdrawalDto> {
+    return this.http.post<WithdrawalDto>(`/api/runs/${id}/withdraw`, request);
   }
 
   /**

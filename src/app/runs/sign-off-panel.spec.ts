@@ -23,6 +23,7 @@ function runOf(verdict: 'ACCEPT' | 'ABORT', keyBits: number): RunDto {
     uploadedById: ADA.id,
     fourEyes: true,
     signOff: null,
+    withdrawal: null,
   } as unknown as RunDto;
 }
 

@@ -25,6 +25,7 @@ const ACTION_WORDS: Record<AuditAction, string> = {
   'run.mail-sent': 'Verdict mail sent',
   'run.mail-skipped': 'Verdict mail not sent',
   'run.signed-off': 'Signed off',
+  'run.withdrawn': 'Upload withdrawn',
   'run.exported': 'Exported',
   'run.reverification-requested': 'Re-verification requested',
   'run.reverification-finished': 'Re-verification finished',
@@ -78,6 +79,7 @@ const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string
     typeof email === 'string' ? `To ${email}${typeof expiresAt === 'string' ? `, usable until ${expiresAt.slice(0, 16).replace('T', ' ')} UTC` : ''}` : '',
   'run.signed-off': ({ decision, comment }) =>
     [isSignOffDecision(decision) ? SIGN_OFF_DECISION_WORDS[decision] : '', typeof comment === 'string' && comment !== '' ? `“${comment}”` : ''].filter(Boolean).join(': '),
+  'run.withdrawn': ({ reason }) => (typeof reason === 'string' ? `“${reason}”` : ''),
   'signing-key.retired': ({ replacedBy }) => (typeof replacedBy === 'string' ? `Replaced by key ${replacedBy}` : ''),
   'audit.exported': ({ rows }) => (typeof rows === 'number' ? countOf(rows, 'line') : ''),
 };
