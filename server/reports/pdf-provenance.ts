@@ -1,5 +1,6 @@
-import { type AnalysisResult, headerNameOf, ROUND_FIELDS } from '@shared/analysis';
+import { type AnalysisResult, ROUND_FIELDS } from '@shared/analysis';
 import type { RunReportDto } from '@shared/api';
+import { mappingWords } from '@shared/format/mapping-words';
 import { formatCount } from '@shared/format/numbers';
 import { fields, type Field } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
@@ -39,7 +40,7 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
 function mappingLine(result: AnalysisResult): string {
   const { mapping } = result.input;
   const read = ROUND_FIELDS.filter((field) => field !== 'test' || result.profile.testSelection.mode === 'from-log');
-  return `${read.map((field) => `${field} ← “${headerNameOf(field, mapping)}”`).join(', ')}; outcomes written ${mapping.outcomes}`;
+  return mappingWords(mapping, read);
 }
 
 /** How the test rounds were chosen, in words. */

@@ -258,7 +258,8 @@ export function createRunsService(deps: {
               uploadedBy: uploader.kind === 'person' ? uploader.user.id : null,
               uploadTokenId: uploader.kind === 'token' ? uploader.token.id : null,
               notes: newRun.notes ?? '',
-              mapping: newRun.mapping ?? null,
+              // An upload naming no mapping is read with its setup's saved one; the run keeps the one it used.
+              mapping: newRun.mapping ?? setup.columnMapping ?? null,
               ...place,
             },
             { transaction },

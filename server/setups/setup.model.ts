@@ -1,3 +1,4 @@
+import type { ColumnMapping } from '@shared/analysis';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
 
 export class SetupRecord extends Model<InferAttributes<SetupRecord>, InferCreationAttributes<SetupRecord>> {
@@ -9,6 +10,8 @@ export class SetupRecord extends Model<InferAttributes<SetupRecord>, InferCreati
   declare defaultProfileId: number;
   declare extraRecipients: CreationOptional<string[]>;
   declare fourEyes: CreationOptional<boolean>;
+  /** The saved column mapping of the setup's logs, or null: guessed from each header. */
+  declare columnMapping: CreationOptional<ColumnMapping | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -36,6 +39,7 @@ export function defineSetupModels(sequelize: Sequelize): SetupModels {
       defaultProfileId: { type: DataTypes.INTEGER, allowNull: false, field: 'default_profile_id' },
       extraRecipients: { type: DataTypes.ARRAY(DataTypes.STRING(320)), allowNull: false, defaultValue: [], field: 'extra_recipients' },
       fourEyes: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true, field: 'four_eyes' },
+      columnMapping: { type: DataTypes.JSONB, field: 'column_mapping' },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     },

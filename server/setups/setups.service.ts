@@ -1,4 +1,5 @@
 import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
+import type { ColumnMapping } from '@shared/analysis';
 import type { SaveSetupRequest, SetupDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
@@ -11,6 +12,8 @@ export interface SetupsService {
   get(id: number): Promise<SetupDto>;
   create(request: SaveSetupRequest, actorId: number): Promise<SetupDto>;
   update(id: number, request: SaveSetupRequest, actorId: number): Promise<SetupDto>;
+  /** Saves (or, with null, forgets) the column mapping the setup's uploads start from; the trail keeps both. */
+  saveColumnMapping(id: number, mapping: ColumnMapping | null, actorId: number): Promise<SetupDto>;
   /** Addresses of the verdict mail: the active shift leads of the setup and its extra recipients. */
   verdictRecipients(id: number): Promise<string[]>;
   /** Whether the user is an assigned shift lead of the setup. */
@@ -41,6 +44,7 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
         .sort((a, b) => a.name.localeCompare(b.name)),
       extraRecipients: [...setup.extraRecipients],
       fourEyes: setup.fourEyes,
+      columnMapping: setup.columnMapping ?? null,
       createdAt: setup.createdAt.toISOString(),
     }));
   }
@@ -136,6 +140,17 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
     get,
     create: async (request, actorId) => get(await save(undefined, request, actorId)),
     update: async (id, request, actorId) => get(await save(id, request, actorId)),
+
+    async saveColumnMapping(id, columnMapping, actorId) {
+      await sequelize.transaction(async (transaction) => {
+        const setup = await Setup.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+        if (!setup) throw HttpError.notFound(`There is no setup with id ${id}.`);
+        const changes = fieldChanges({ columnMapping: setup.columnMapping ?? null }, { columnMapping });
+        await setup.update({ columnMapping }, { transaction });
+        await audit.record({ actorId, action: 'setup.changed', targetType: 'setup', targetId: id, details: { name: setup.name, changes } }, transaction);
+      });
+      return get(id);
+    },
 
     async verdictRecipients(id) {
       const setup = await get(id);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { columnMappingSchema } from '../analysis/log/column-mapping';
 
 /** A shift lead assigned to a setup. */
 export const setupShiftLeadSchema = /* @__PURE__ */ z.object({ id: z.number().int(), name: z.string(), email: z.string() }).meta({ id: 'SetupShiftLeadDto' });
@@ -17,6 +18,11 @@ export const setupSchema = /* @__PURE__ */ z
     shiftLeads: z.array(setupShiftLeadSchema),
     extraRecipients: z.array(z.string()).meta({ description: 'Further addresses that get the verdict mail.' }),
     fourEyes: z.boolean().meta({ description: 'Whoever uploaded a run may not sign it off (on unless an admin turns it off).' }),
+    columnMapping: columnMappingSchema
+      .nullable()
+      .meta({
+        description: "The saved column mapping of the setup's logs: the upload page starts from it, and an upload naming none is read with it. Null: each header's own names.",
+      }),
     createdAt: z.string(),
   })
   .meta({ id: 'SetupDto' });
@@ -41,3 +47,7 @@ export const saveSetupRequestSchema = /* @__PURE__ */ z
   })
   .meta({ id: 'SaveSetupRequest' });
 export type SaveSetupRequest = z.infer<typeof saveSetupRequestSchema>;
+
+/** Body of `PUT /api/setups/:id/column-mapping` (experimentalists and admins): the mapping to save, or null to forget it. */
+export const saveColumnMappingRequestSchema = /* @__PURE__ */ z.strictObject({ mapping: columnMappingSchema.nullable() }).meta({ id: 'SaveColumnMappingRequest' });
+export type SaveColumnMappingRequest = z.infer<typeof saveColumnMappingRequestSchema>;

@@ -81,6 +81,11 @@ describe('every operation answers as the OpenAPI document says', () => {
       .set(admin())
       .send({ ...setup, description: 'Checked against the contract.' })
       .expect(200);
+    await api
+      .put(`/api/setups/${made.id}/column-mapping`)
+      .set(experimentalist())
+      .send({ mapping: { columns: { round: 'RoundNo' }, outcomes: '±1' } })
+      .expect(200);
 
     await api.get('/api/profiles').set(auditor()).expect(200);
     const profile = (await api.get('/api/profiles/1').set(auditor()).expect(200)).body as ProfileDto;

@@ -24,6 +24,7 @@ const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: 
   { method: 'get', path: '/api/setups/1', roles: 'any' },
   { method: 'post', path: '/api/setups', roles: ['admin'] },
   { method: 'put', path: '/api/setups/1', roles: ['admin'] },
+  { method: 'put', path: '/api/setups/1/column-mapping', roles: ['experimentalist', 'admin'] },
   { method: 'get', path: '/api/runs', roles: 'any' },
   { method: 'post', path: '/api/runs', roles: ['experimentalist'] },
   { method: 'get', path: '/api/runs/1', roles: 'any' },

@@ -85,6 +85,7 @@ const GUARDED_ROUTES: Record<string, Guard> = {
   'GET /api/setups/:id': SIGNED_IN,
   'POST /api/setups': ADMIN,
   'PUT /api/setups/:id': ADMIN,
+  'PUT /api/setups/:id/column-mapping': { roles: ['experimentalist', 'admin'] },
   'POST /api/bookings': { roles: ['experimentalist', 'shift-lead', 'admin'] },
   'GET /api/bookings': SIGNED_IN,
   'GET /api/bookings/:id': SIGNED_IN,

@@ -32,6 +32,7 @@ const setup: SetupDto = {
   shiftLeads: [{ id: 4, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
   extraRecipients: [],
   fourEyes: true,
+  columnMapping: null,
   createdAt: '2026-11-01T08:00:00Z',
 };
 

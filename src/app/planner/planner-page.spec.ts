@@ -96,6 +96,7 @@ const setups: SetupDto[] = [
     shiftLeads: [],
     extraRecipients: [],
     fourEyes: true,
+    columnMapping: null,
     createdAt: '2026-11-01T08:00:00Z',
   },
 ];

@@ -1,4 +1,6 @@
+import { parseColumnMapping } from '@shared/analysis';
 import { isRole, ROLE_LABELS } from '@shared/api';
+import { savedMappingWords } from '@shared/format/mapping-words';
 
 /** The fields a change line names, in the trail's words. */
 const FIELD_WORDS: Record<string, string> = {
@@ -13,11 +15,16 @@ const FIELD_WORDS: Record<string, string> = {
   shiftLeads: 'Shift leads',
   extraRecipients: 'Also mailed',
   fourEyes: 'Four-eyes rule',
+  columnMapping: 'Column mapping',
 };
 
 /** One value of a changed field in words: flags by what they mean, lists joined, roles by their labels. */
 function valueWords(field: string, value: unknown): string {
   if (field === 'fourEyes') return value === true ? 'on' : 'off';
+  if (field === 'columnMapping') {
+    const parsed = value === null ? null : parseColumnMapping(value);
+    return parsed === null ? 'none' : parsed.ok ? savedMappingWords(parsed.mapping) : '–';
+  }
   if (field === 'active') return value === true ? 'active' : 'deactivated';
   if (Array.isArray(value)) return value.length === 0 ? 'none' : value.map((item) => (field === 'roles' && isRole(item) ? ROLE_LABELS[item] : String(item))).join(', ');
   if (typeof value === 'string') return value === '' ? '(empty)' : value;

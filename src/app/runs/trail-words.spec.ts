@@ -88,6 +88,11 @@ describe('trailDetail', () => {
       trailDetail({ action: 'user.changed', details: { active: false, changes: { active: { from: true, to: false }, roles: { from: ['auditor'], to: ['auditor', 'admin'] } } } }),
     ).toBe('Account: active → deactivated · Roles: Auditor → Auditor, Admin');
     expect(trailDetail({ action: 'setup.changed', details: { name: 'Fen link', changes: {} } })).toBe('No field changed');
+    const millLane = { columns: { round: 'RoundNo', x: 'SetNorth' }, outcomes: '±1' };
+    expect(trailDetail({ action: 'setup.changed', details: { changes: { columnMapping: { from: null, to: millLane } } } })).toBe(
+      'Column mapping: none → round ← “RoundNo”, x ← “SetNorth”; outcomes written ±1',
+    );
+    expect(trailDetail({ action: 'run.withdrawn', details: { reason: 'Wrong setup.', verdict: 'ACCEPT' } })).toBe('“Wrong setup.”');
     expect(trailDetail({ action: 'run.mail-sent', details: { recipients: ['lucia.brandt@kestrelfen.example'] } })).toBe('To lucia.brandt@kestrelfen.example');
     expect(trailDetail({ action: 'run.failed', details: { error: 'The log ended mid-row.' } })).toBe('The log ended mid-row.');
   });

@@ -18,6 +18,7 @@ const heronReach: SetupDto = {
   shiftLeads: [{ id: 3, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
   extraRecipients: ['night-desk@kestrelfen.example'],
   fourEyes: true,
+  columnMapping: null,
   createdAt: '2026-11-01T08:00:00Z',
 };
 

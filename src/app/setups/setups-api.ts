@@ -2,7 +2,8 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import { Observable } from 'rxjs';
 
-import type { CreatedUploadTokenDto, CreateUploadTokenRequest, SaveSetupRequest, SetupDto, UploadTokenDto } from '@shared/api';
+import type { ColumnMapping } from '@shared/analysis';
+import type { CreatedUploadTokenDto, CreateUploadTokenRequest, SaveColumnMappingRequest, SaveSetupRequest, SetupDto, UploadTokenDto } from '@shared/api';
 
 /** The client of the API's setups area. */
 @Injectable({ providedIn: 'root' })
@@ -27,6 +28,11 @@ export class SetupsApi {
   /** Replaces a setup's details and shift leads (admin). */
   update(id: number, request: SaveSetupRequest): Observable<SetupDto> {
     return this.http.put<SetupDto>(`/api/setups/${id}`, request);
+  }
+
+  /** Saves the column mapping the setup's uploads start from, or forgets it with null (experimentalists, admins). */
+  saveColumnMapping(id: number, mapping: ColumnMapping | null): Observable<SetupDto> {
+    return this.http.put<SetupDto>(`/api/setups/${id}/column-mapping`, { mapping } satisfies SaveColumnMappingRequest);
   }
 
   /** The setup's upload tokens, newest first, never the tokens themselves (admin or the setup's shift lead). */

@@ -1,6 +1,7 @@
 import {
   type ColumnMapping,
   HEAD_BYTES,
+  headerNameOf,
   type OutcomeEncoding,
   parseIntegerField,
   ProblemList,
@@ -123,6 +124,29 @@ export function guessMapping(sample: LogSample): ColumnMapping {
     }
   }
   return { columns, outcomes: outcomeEncoding(sample, names, [columns.a, columns.b]) };
+}
+
+/** The mapping an upload starts from, and where it came from in a sentence. */
+export interface StartingMapping {
+  mapping: ColumnMapping;
+  /** Empty when the mapping was guessed and no saved one was there to try. */
+  note: string;
+}
+
+/**
+ * The mapping to start from: the setup's saved one when the header fits it, else the guess from the
+ * header, saying why the saved one was not used.
+ */
+export function startingMapping(sample: LogSample, saved: ColumnMapping | null, setupName: string, needsTestColumn: boolean): StartingMapping {
+  if (saved === null) return { mapping: guessMapping(sample), note: '' };
+  const head = readLogHead(sample.head, sample.complete, saved, needsTestColumn);
+  if (head.ok) return { mapping: saved, note: `Filled in from the mapping saved for ${setupName}.` };
+  return { mapping: guessMapping(sample), note: `The mapping saved for ${setupName} does not fit this file (${head.problem.message}); the columns are guessed from its header.` };
+}
+
+/** Whether two mappings read every field from the same column, with the same outcome encoding. */
+export function sameMapping(one: ColumnMapping, other: ColumnMapping): boolean {
+  return one.outcomes === other.outcomes && ROUND_FIELDS.every((field) => headerNameOf(field, one) === headerNameOf(field, other));
 }
 
 function outcomeEncoding(sample: LogSample, names: string[], outcomeColumns: (string | undefined)[]): OutcomeEncoding {

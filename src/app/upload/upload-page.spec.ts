@@ -25,9 +25,26 @@ const setups: SetupDto[] = [
     shiftLeads: [],
     extraRecipients: [],
     fourEyes: true,
+    columnMapping: null,
+    createdAt: '2026-11-01T08:00:00Z',
+  },
+  {
+    id: 3,
+    name: 'Mill Lane bench',
+    description: '',
+    stationALabel: 'North Hall',
+    stationBLabel: 'Mill Lane',
+    defaultProfileId: 1,
+    defaultProfileName: 'Nightly standard',
+    shiftLeads: [],
+    extraRecipients: [],
+    fourEyes: true,
+    columnMapping: { columns: { round: 'RoundNo', x: 'SetNorth', y: 'SetMill', a: 'OutNorth', b: 'OutMill' }, outcomes: '±1' },
     createdAt: '2026-11-01T08:00:00Z',
   },
 ];
+
+const MILL_LANE_LOG = 'RoundNo,SetNorth,SetMill,OutNorth,OutMill\n1,0,1,+1,-1\n2,1,1,-1,-1\n';
 
 const version = (id: number, profileId: number, number: number) => ({
   id,
@@ -110,11 +127,11 @@ describe('UploadPage', () => {
   const text = (testId: string) => host.querySelector(`[data-testid="${testId}"]`)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
 
   /** Chooses Fen link, answers its bookings, and picks the log. */
-  async function prepare(bookings: BookingDto[], log = LOG): Promise<void> {
+  async function prepare(bookings: BookingDto[], log = LOG, setupName = 'Fen link'): Promise<void> {
     const setup = await select('setup-select');
     await setup.open();
-    await setup.clickOptions({ text: 'Fen link' });
-    http.expectOne('/api/bookings?setupId=2').flush(bookings);
+    await setup.clickOptions({ text: setupName });
+    http.expectOne(`/api/bookings?setupId=${setups.find((candidate) => candidate.name === setupName)!.id}`).flush(bookings);
     await fixture.whenStable();
     await (fixture.componentInstance as unknown as { chooseLog(file: File): Promise<void> }).chooseLog(new File([log], 'night-14.csv'));
     await fixture.whenStable();
@@ -211,6 +228,32 @@ describe('UploadPage', () => {
     expect(host.querySelector<HTMLButtonElement>('[data-testid="upload-button"]')!.disabled).toBe(true);
     await clickUpload();
     expect(sent).toHaveLength(0);
+  });
+
+  it('starts from the setup’s saved mapping when the header fits it, and from the header’s guess when not', async () => {
+    await prepare([], MILL_LANE_LOG, 'Mill Lane bench');
+    expect(text('mapping-note')).toContain('Filled in from the mapping saved for Mill Lane bench.');
+    expect(await (await select('mapping-outcomes')).getValueText()).toBe('±1 (+1 → 0, −1 → 1)');
+    expect(text('mapping-saved')).toContain('This is the mapping saved for Mill Lane bench.');
+    expect(text('preview-status')).toContain('The first 2 rows read cleanly under this mapping.');
+
+    await (fixture.componentInstance as unknown as { chooseLog(file: File): Promise<void> }).chooseLog(new File([LOG], 'night-15.csv'));
+    await fixture.whenStable();
+    expect(text('mapping-note')).toContain('The mapping saved for Mill Lane bench does not fit this file (the header has no column "RoundNo"');
+    expect(text('preview-status')).toContain('The first 3 rows read cleanly under this mapping.');
+  });
+
+  it('saves the mapping on screen for the setup', async () => {
+    await prepare([lastNight()]);
+    expect(text('mapping-note')).toContain('Filled in from the header.');
+    host.querySelector<HTMLButtonElement>('[data-testid="save-mapping"]')!.click();
+    const saved = http.expectOne('/api/setups/2/column-mapping');
+    expect(saved.request.method).toBe('PUT');
+    const mapping = { columns: { round: 'round', x: 'x', y: 'y', a: 'a', b: 'b' }, outcomes: '0/1' };
+    expect(saved.request.body).toEqual({ mapping });
+    saved.flush({ ...setups[0], columnMapping: mapping });
+    await fixture.whenStable();
+    expect(text('mapping-saved')).toContain('This is the mapping saved for Fen link.');
   });
 
   it('shows the server’s refusal and lets the user try again', async () => {

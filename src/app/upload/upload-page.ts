@@ -23,7 +23,7 @@ import { RunsApi } from '../runs/runs-api';
 import { VerdictBanner } from '../runs/verdict-banner';
 import { SetupsApi } from '../setups/setups-api';
 import { openBookings, replacementIn } from './booking-choice';
-import { guessMapping, headerNames, previewLog, readLogSample, type LogSample } from './log-preview';
+import { headerNames, previewLog, readLogSample, sameMapping, startingMapping, type LogSample } from './log-preview';
 import { ResumableUploads } from './resumable-uploads';
 
 /** Where the upload is. */
@@ -50,6 +50,7 @@ export class UploadPage {
   private readonly uploads = inject(ResumableUploads);
   private readonly destroyRef = inject(DestroyRef);
   private readonly router = inject(Router);
+  private readonly setupsApi = inject(SetupsApi);
 
   protected readonly fields = ROUND_FIELDS.map((field) => ({ field, meaning: FIELD_MEANING[field] }));
   protected readonly encodings = OUTCOME_ENCODINGS;
@@ -70,7 +71,7 @@ export class UploadPage {
     outcomes: new FormControl<OutcomeEncoding>('0/1', { nonNullable: true }),
   });
 
-  protected readonly setups = toSignal(loaded(inject(SetupsApi).list()), { initialValue: { status: 'loading' } });
+  protected readonly setups = toSignal(loaded(this.setupsApi.list()), { initialValue: { status: 'loading' } });
   protected readonly profiles = toSignal(loaded(inject(ProfilesApi).list()), { initialValue: { status: 'loading' } });
   protected readonly setupList = computed(() => readyValue(this.setups()) ?? []);
   protected readonly versions = computed(() => profileVersionOptions(readyValue(this.profiles()) ?? []));
@@ -118,6 +119,25 @@ export class UploadPage {
     const columns = Object.fromEntries(ROUND_FIELDS.flatMap((field) => (value[field] ? [[field, value[field]]] : [])));
     return { columns, outcomes: value.outcomes };
   });
+  protected readonly chosenSetup = computed(() => this.setupList().find((setup) => setup.id === this.setupId()) ?? null);
+  /** Mappings saved on this page, by setup: they replace what the setup list said when it loaded. */
+  private readonly savedHere = signal<ReadonlyMap<number, ColumnMapping | null>>(new Map());
+  /** The chosen setup's saved column mapping, or null. */
+  protected readonly savedMapping = computed(() => {
+    const setup = this.chosenSetup();
+    if (setup === null) return null;
+    return this.savedHere().has(setup.id) ? this.savedHere().get(setup.id)! : setup.columnMapping;
+  });
+  /** Where the mapping on screen started from, in a sentence. */
+  protected readonly mappingNote = signal('');
+  /** Whether the mapping on screen is the one saved for the setup. */
+  protected readonly mappingIsSaved = computed(() => {
+    const saved = this.savedMapping();
+    return saved !== null && sameMapping(saved, this.columnMapping());
+  });
+  protected readonly mappingSaving = signal(false);
+  protected readonly mappingSaveFailure = signal('');
+
   protected readonly preview = computed(() => {
     const sample = this.sample();
     return sample === null ? null : previewLog(sample, this.columnMapping(), this.needsTestColumn());
@@ -152,6 +172,21 @@ export class UploadPage {
         )
         .subscribe();
     }
+    // A new file or another setup starts the mapping again: from the setup's saved one when the header fits it.
+    effect(() => {
+      const sample = this.sample();
+      const saved = this.savedMapping();
+      const setupName = this.chosenSetup()?.name ?? '';
+      if (sample === null) return;
+      untracked(() => {
+        const { mapping, note } = startingMapping(sample, saved, setupName, this.needsTestColumn());
+        this.mapping.setValue({
+          ...(Object.fromEntries(ROUND_FIELDS.map((field) => [field, mapping.columns[field] ?? null])) as Record<RoundField, string | null>),
+          outcomes: mapping.outcomes,
+        });
+        this.mappingNote.set(note);
+      });
+    });
     const { bookingId, replacementReason, profileVersionId, acquiredOn } = this.form.controls;
     // The booking the server would pick is chosen; "unbooked" is there only when none is open.
     effect(() => {
@@ -190,22 +225,35 @@ export class UploadPage {
     if (file) void this.chooseLog(file);
   }
 
-  /** Reads the start of the file and fills the mapping in from its header. */
+  /** Reads the start of the file; the mapping is then filled in (see the constructor). */
   async chooseLog(file: File): Promise<void> {
     this.file.set(file);
     this.sample.set(null);
     this.sampleFailure.set('');
     try {
-      const sample = await readLogSample(file);
-      const guessed = guessMapping(sample);
-      this.mapping.setValue({
-        ...(Object.fromEntries(ROUND_FIELDS.map((field) => [field, guessed.columns[field] ?? null])) as Record<RoundField, string | null>),
-        outcomes: guessed.outcomes,
-      });
-      this.sample.set(sample);
+      this.sample.set(await readLogSample(file));
     } catch {
       this.sampleFailure.set('The file could not be read: it may be damaged gzip. Choose another file.');
     }
+  }
+
+  /** Saves the mapping on screen for the chosen setup: its later uploads start from it. */
+  protected saveMapping(): void {
+    const setup = this.chosenSetup();
+    if (setup === null || this.mappingSaving()) return;
+    const mapping = this.columnMapping();
+    this.mappingSaving.set(true);
+    this.mappingSaveFailure.set('');
+    this.setupsApi.saveColumnMapping(setup.id, mapping).subscribe({
+      next: (saved) => {
+        this.mappingSaving.set(false);
+        this.savedHere.update((map) => new Map(map).set(setup.id, saved.columnMapping));
+      },
+      error: (error: unknown) => {
+        this.mappingSaving.set(false);
+        this.mappingSaveFailure.set(apiErrorMessage(error));
+      },
+    });
   }
 
   protected upload(): void {
