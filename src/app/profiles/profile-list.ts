@@ -11,6 +11,7 @@ import type { AnalysisProfile } from '@shared/analysis';
 import { Session } from '../auth/session';
 import { ListFrame } from '../lists/list-frame';
 import { searchedList, WordSearch } from '../lists/word-search';
+import { ProfileComparison } from './profile-comparison';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
 import { describeProfile } from './profile-fields';
 import { ProfilesApi } from './profiles-api';
@@ -18,7 +19,7 @@ import { ProfilesApi } from './profiles-api';
 /** The acceptance profiles with their versions; each version readable as it was; admins add versions. */
 @Component({
   selector: 'bk-profile-list',
-  imports: [DatePipe, ListFrame, MatButtonModule, MatIconModule, WordSearch],
+  imports: [DatePipe, ListFrame, MatButtonModule, MatIconModule, ProfileComparison, WordSearch],
   templateUrl: './profile-list.html',
   styleUrl: './profile-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
