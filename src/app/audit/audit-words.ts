@@ -9,7 +9,7 @@ export const TARGET_WORDS: Readonly<Record<AuditTargetType, string>> = {
   setup: 'Setup',
   booking: 'Booked night',
   'upload-token': 'Upload token',
-  'signing-key': 'Signing key',
+  'signing-key': 'Report-signing key',
   audit: 'Audit',
 };
 
@@ -28,7 +28,7 @@ export const ACTION_FAMILIES: readonly ActionFamily[] = AUDIT_TARGET_TYPES.map((
   actions: AUDIT_ACTIONS.filter((action) => action.startsWith(`${type}.`)).map((action) => ({ value: action, label: trailWords(action) })),
 }));
 
-/** A trail line's target in words: "Run 12", "Signing key 5c1e0a9b7d2f4e38", "Audit trail". */
+/** A trail line's target in words: "Run 12", "Report-signing key 5c1e0a9b7d2f4e38", "Audit trail". */
 export function targetWords(targetType: string, targetId: string, targetName: string | null = null): string {
   return targetName ?? `${TARGET_WORDS[targetType as AuditTargetType] ?? targetType} ${targetId}`;
 }

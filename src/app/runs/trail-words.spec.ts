@@ -11,8 +11,8 @@ describe('trailWords', () => {
     expect(trailWords('run.exported')).toBe('Exported');
     expect(trailWords('run.reverification-requested')).toBe('Re-verification requested');
     expect(trailWords('run.reverification-finished')).toBe('Re-verification finished');
-    expect(trailWords('signing-key.registered')).toBe('Signing key put in use');
-    expect(trailWords('signing-key.retired')).toBe('Signing key retired');
+    expect(trailWords('signing-key.registered')).toBe('Report-signing key put in use');
+    expect(trailWords('signing-key.retired')).toBe('Report-signing key retired');
     expect(trailWords('audit.exported')).toBe('Trail exported');
   });
 

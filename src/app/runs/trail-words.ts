@@ -29,8 +29,8 @@ const ACTION_WORDS: Record<AuditAction, string> = {
   'run.exported': 'Exported',
   'run.reverification-requested': 'Re-verification requested',
   'run.reverification-finished': 'Re-verification finished',
-  'signing-key.registered': 'Signing key put in use',
-  'signing-key.retired': 'Signing key retired',
+  'signing-key.registered': 'Report-signing key put in use',
+  'signing-key.retired': 'Report-signing key retired',
   'audit.exported': 'Trail exported',
 };
 
