@@ -8,6 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
+import { DateTime } from 'luxon';
 import { filter, map, pairwise, startWith } from 'rxjs';
 
 import type { BookingDto, BookNightRequest, SetupDto } from '@shared/api';
@@ -16,6 +17,8 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { loaded, readyValue } from '../api/loaded';
 import { Session } from '../auth/session';
 import { CopyButton } from '../clipboard/copy-button';
+import { DayField } from '../dates/day-field';
+import { isoDay, type PickedDay } from '../dates/local-dates';
 import { parseRoundCount, roundCountValidator } from '../planner/round-count';
 import { profileVersionOptions } from '../planner/profile-versions';
 import { ProfilesApi } from '../profiles/profiles-api';
@@ -36,7 +39,7 @@ export interface BookNightData {
  */
 @Component({
   selector: 'bk-book-night-dialog',
-  imports: [CopyButton, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule, RouterLink],
+  imports: [CopyButton, DayField, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule, RouterLink],
   templateUrl: './book-night-dialog.html',
   styleUrl: './book-night-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -50,7 +53,7 @@ export class BookNightDialog {
   private readonly tonight = tonightWindow(new Date());
 
   protected readonly form = new FormGroup({
-    night: new FormControl(this.tonight.night, { nonNullable: true, validators: Validators.required }),
+    night: new FormControl<PickedDay>(DateTime.fromISO(this.tonight.night), Validators.required),
     windowStart: new FormControl(this.tonight.windowStart, { nonNullable: true, validators: Validators.required }),
     windowEnd: new FormControl(this.tonight.windowEnd, { nonNullable: true, validators: Validators.required }),
     plannedRounds: new FormControl(this.data.plannedRounds === null ? '' : formatCount(this.data.plannedRounds), {
@@ -89,7 +92,8 @@ export class BookNightDialog {
     night.valueChanges
       .pipe(
         startWith(night.value),
-        filter((value) => value !== ''),
+        map(isoDay),
+        filter((value) => value !== undefined),
         pairwise(),
         takeUntilDestroyed(),
       )
@@ -123,7 +127,7 @@ export class BookNightDialog {
     }
     const request: BookNightRequest = {
       setupId: this.data.setup.id,
-      night: value.night,
+      night: isoDay(value.night)!,
       windowStart: isoFromLocal(value.windowStart),
       windowEnd: isoFromLocal(value.windowEnd),
       plannedRounds,

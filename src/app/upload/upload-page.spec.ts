@@ -147,7 +147,7 @@ describe('UploadPage', () => {
     const booking = await select('booking-select');
     expect(await booking.getValueText()).toBe('Night of 14 Mar 2027 (booking 7)');
     expect(await (await select('profile-select')).getValueText()).toBe('Nightly standard v1');
-    expect(host.querySelector<HTMLInputElement>('input[formControlName="acquiredOn"]')?.disabled).toBe(true);
+    expect(host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')?.disabled).toBe(true);
     expect(host.querySelector('[data-testid="replacement"]')).toBeNull();
 
     // A double click: the second lands before the page shows the upload, and sends nothing.
@@ -214,9 +214,10 @@ describe('UploadPage', () => {
     expect(text('unbooked-hint')).toContain('No booking is open: the run will be unbooked');
     expect(await (await select('profile-select')).getValueText()).toBe('Nightly standard v2');
 
-    const acquiredOn = host.querySelector<HTMLInputElement>('input[formControlName="acquiredOn"]')!;
+    const acquiredOn = host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')!;
     expect(acquiredOn.disabled).toBe(false);
-    acquiredOn.value = '2027-03-10';
+    // Typed in the browser's date order (jsdom's is en-US).
+    acquiredOn.value = '3/10/2027';
     acquiredOn.dispatchEvent(new Event('input'));
     await clickUpload();
     expect(sent[0]).toMatchObject({ bookingId: null, acquiredOn: '2027-03-10' });

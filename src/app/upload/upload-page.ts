@@ -9,6 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
+import { DateTime } from 'luxon';
 import { catchError, map, type Observable, of, switchMap, tap } from 'rxjs';
 
 import { FINISHED_STATES, type BookingDto, type RunDto } from '@shared/api';
@@ -17,6 +18,8 @@ import { formatCount } from '@shared/format/numbers';
 import { apiErrorMessage } from '../api/api-error-message';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
 import { BookingsApi } from '../bookings/bookings-api';
+import { DayField } from '../dates/day-field';
+import { isoDay, type PickedDay } from '../dates/local-dates';
 import { profileVersionOptions, takesTestRoundsFromLog } from '../planner/profile-versions';
 import { ProfilesApi } from '../profiles/profiles-api';
 import { RunsApi } from '../runs/runs-api';
@@ -39,7 +42,19 @@ type MappingControls = Record<RoundField, FormControl<string | null>> & { outcom
  */
 @Component({
   selector: 'bk-upload-page',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, ReactiveFormsModule, RouterLink, VerdictBanner],
+  imports: [
+    DatePipe,
+    DayField,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    ReactiveFormsModule,
+    RouterLink,
+    VerdictBanner,
+  ],
   templateUrl: './upload-page.html',
   styleUrl: './upload-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -63,7 +78,7 @@ export class UploadPage {
     replacementReason: new FormControl('', { nonNullable: true, validators: Validators.maxLength(2000) }),
     // Shown, never chosen: a run is judged under its booking's profile, or its setup's (the server refuses another).
     profileVersionId: new FormControl<number | null>({ value: null, disabled: true }),
-    acquiredOn: new FormControl('', { nonNullable: true }),
+    acquiredOn: new FormControl<PickedDay>(null),
     notes: new FormControl('', { nonNullable: true, validators: Validators.maxLength(4000) }),
   });
   protected readonly mapping = new FormGroup<MappingControls>({
@@ -203,10 +218,10 @@ export class UploadPage {
         replacementReason.updateValueAndValidity();
         // A booked log is of its booking's night: the server refuses another date.
         if (booking) {
-          acquiredOn.setValue(booking.night);
+          acquiredOn.setValue(DateTime.fromISO(booking.night));
           acquiredOn.disable();
         } else if (acquiredOn.disabled) {
-          acquiredOn.reset('');
+          acquiredOn.reset(null);
           acquiredOn.enable();
         }
       });
@@ -269,7 +284,15 @@ export class UploadPage {
     this.uploaded.set(0);
     this.failure.set('');
     this.uploads
-      .send({ log: file, setupId, mapping: this.columnMapping(), bookingId, replacementReason, acquiredOn: bookingId === null ? acquiredOn : '', notes })
+      .send({
+        log: file,
+        setupId,
+        mapping: this.columnMapping(),
+        bookingId,
+        replacementReason,
+        acquiredOn: bookingId === null ? (isoDay(acquiredOn) ?? '') : '',
+        notes,
+      })
       .pipe(
         switchMap((progress) => {
           if (progress.kind === 'sending') {
@@ -311,7 +334,7 @@ export class UploadPage {
     this.sample.set(null);
     this.form.controls.notes.reset('');
     this.form.controls.replacementReason.reset('');
-    if (this.form.controls.acquiredOn.enabled) this.form.controls.acquiredOn.reset('');
+    if (this.form.controls.acquiredOn.enabled) this.form.controls.acquiredOn.reset(null);
     this.reloadBookings.update((attempt) => attempt + 1);
   }
 }
