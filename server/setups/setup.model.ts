@@ -12,6 +12,11 @@ export class SetupRecord extends Model<InferAttributes<SetupRecord>, InferCreati
   declare fourEyes: CreationOptional<boolean>;
   /** The saved column mapping of the setup's logs, or null: guessed from each header. */
   declare columnMapping: CreationOptional<ColumnMapping | null>;
+  /** Straight-line distance between the stations, metres; null: unknown. */
+  declare stationDistanceM: CreationOptional<number | null>;
+  /** Station B's clock minus station A's at the same instant, ns, and its uncertainty; both null: unknown. */
+  declare clockOffsetNs: CreationOptional<number | null>;
+  declare clockUncertaintyNs: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -40,6 +45,9 @@ export function defineSetupModels(sequelize: Sequelize): SetupModels {
       extraRecipients: { type: DataTypes.ARRAY(DataTypes.STRING(320)), allowNull: false, defaultValue: [], field: 'extra_recipients' },
       fourEyes: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true, field: 'four_eyes' },
       columnMapping: { type: DataTypes.JSONB, field: 'column_mapping' },
+      stationDistanceM: { type: DataTypes.DOUBLE, field: 'station_distance_m' },
+      clockOffsetNs: { type: DataTypes.DOUBLE, field: 'clock_offset_ns' },
+      clockUncertaintyNs: { type: DataTypes.DOUBLE, field: 'clock_uncertainty_ns' },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
       updatedAt: { type: DataTypes.DATE, field: 'updated_at' },
     },

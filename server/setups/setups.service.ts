@@ -45,6 +45,9 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
       extraRecipients: [...setup.extraRecipients],
       fourEyes: setup.fourEyes,
       columnMapping: setup.columnMapping ?? null,
+      stationDistanceM: setup.stationDistanceM ?? null,
+      clockOffsetNs: setup.clockOffsetNs ?? null,
+      clockUncertaintyNs: setup.clockUncertaintyNs ?? null,
       createdAt: setup.createdAt.toISOString(),
     }));
   }
@@ -96,6 +99,8 @@ export function createSetupsService(sequelize: Sequelize, models: Models, audit:
       extraRecipients: [...new Set((request.extraRecipients ?? []).map((address) => address.trim().toLowerCase()))],
       // Left out: on for a new setup, unchanged for an existing one.
       ...(request.fourEyes === undefined ? {} : { fourEyes: request.fourEyes }),
+      ...(request.stationDistanceM === undefined ? {} : { stationDistanceM: request.stationDistanceM }),
+      ...(request.clockOffsetNs === undefined ? {} : { clockOffsetNs: request.clockOffsetNs, clockUncertaintyNs: request.clockUncertaintyNs ?? null }),
     };
     try {
       return await sequelize.transaction(async (transaction) => {

@@ -18,11 +18,12 @@ export const setupSchema = /* @__PURE__ */ z
     shiftLeads: z.array(setupShiftLeadSchema),
     extraRecipients: z.array(z.string()).meta({ description: 'Further addresses that get the verdict mail.' }),
     fourEyes: z.boolean().meta({ description: 'Whoever uploaded a run may not sign it off (on unless an admin turns it off).' }),
-    columnMapping: columnMappingSchema
-      .nullable()
-      .meta({
-        description: "The saved column mapping of the setup's logs: the upload page starts from it, and an upload naming none is read with it. Null: each header's own names.",
-      }),
+    columnMapping: columnMappingSchema.nullable().meta({
+      description: "The saved column mapping of the setup's logs: the upload page starts from it, and an upload naming none is read with it. Null: each header's own names.",
+    }),
+    stationDistanceM: z.number().nullable().meta({ description: 'Straight-line distance between the stations, metres (the timing check of two station logs); null: unknown.' }),
+    clockOffsetNs: z.number().nullable().meta({ description: "Station B's clock minus station A's at the same instant, ns; null: unknown." }),
+    clockUncertaintyNs: z.number().nullable().meta({ description: 'The uncertainty of the clock offset, ns (counted against the lab in the timing check).' }),
     createdAt: z.string(),
   })
   .meta({ id: 'SetupDto' });
@@ -44,6 +45,29 @@ export const saveSetupRequestSchema = /* @__PURE__ */ z
       .max(50)
       .optional(),
     fourEyes: z.boolean({ error: 'must be true or false' }).optional().meta({ description: 'The four-eyes rule; left out: on for a new setup, unchanged for an existing one.' }),
+    stationDistanceM: z
+      .number({ error: 'must be a number of metres' })
+      .positive('must be above 0')
+      .max(1e9, 'must be at most 10⁹ m')
+      .nullable()
+      .optional()
+      .meta({ description: 'Metres; null: unknown; left out: unknown for a new setup, unchanged for an existing one.' }),
+    clockOffsetNs: z
+      .number({ error: 'must be a number of nanoseconds' })
+      .min(-1e12, 'must be within ±10¹² ns')
+      .max(1e12, 'must be within ±10¹² ns')
+      .nullable()
+      .optional()
+      .meta({ description: "Station B's clock minus A's, ns; given with clockUncertaintyNs or not at all." }),
+    clockUncertaintyNs: z.number({ error: 'must be a number of nanoseconds' }).min(0, 'must be 0 or more').max(1e12).nullable().optional(),
+  })
+  .refine((body) => (body.clockOffsetNs ?? null) === null || (body.clockUncertaintyNs ?? null) !== null, {
+    path: ['clockUncertaintyNs'],
+    message: 'is required with a clock offset: how well the clocks were compared',
+  })
+  .refine((body) => (body.clockUncertaintyNs ?? null) === null || (body.clockOffsetNs ?? null) !== null, {
+    path: ['clockOffsetNs'],
+    message: 'is required with a clock uncertainty',
   })
   .meta({ id: 'SaveSetupRequest' });
 export type SaveSetupRequest = z.infer<typeof saveSetupRequestSchema>;

@@ -82,6 +82,26 @@ describe('profiles, setups and what the database itself guards', () => {
     expect((refused.body as ApiErrorBody).error.field).toBe('shiftLeadIds');
   });
 
+  it('a setup keeps where its stations are: the distance, and a clock offset only with its uncertainty', async () => {
+    const fen = await setupId(testApp.app, admin, 'Fen link');
+    const current = (await request(testApp.app).get(`/api/setups/${fen}`).set('Authorization', `Bearer ${admin}`).expect(200)).body as SetupDto;
+    const body = {
+      name: current.name,
+      stationALabel: current.stationALabel,
+      stationBLabel: current.stationBLabel,
+      defaultProfileId: current.defaultProfileId,
+      shiftLeadIds: current.shiftLeads.map((lead) => lead.id),
+    };
+    const put = (extra: object) => request(testApp.app).put(`/api/setups/${fen}`).set('Authorization', `Bearer ${admin}`).send({ ...body, ...extra });
+    expect(((await put({ clockOffsetNs: 12.5 }).expect(400)).body as ApiErrorBody).error.field).toBe('clockUncertaintyNs');
+    expect(((await put({ stationDistanceM: -3 }).expect(400)).body as ApiErrorBody).error.field).toBe('stationDistanceM');
+    const saved = (await put({ stationDistanceM: 1200, clockOffsetNs: -12.5, clockUncertaintyNs: 0.8 }).expect(200)).body as SetupDto;
+    expect(saved).toMatchObject({ stationDistanceM: 1200, clockOffsetNs: -12.5, clockUncertaintyNs: 0.8 });
+    // Left out, they stay as they are; null forgets them.
+    expect(((await put({}).expect(200)).body as SetupDto).stationDistanceM).toBe(1200);
+    expect(((await put({ stationDistanceM: null, clockOffsetNs: null, clockUncertaintyNs: null }).expect(200)).body as SetupDto).clockOffsetNs).toBeNull();
+  });
+
   it('a log over the upload limit gets 413 and leaves nothing behind', async () => {
     const fen = await setupId(testApp.app, dev, 'Fen link');
     const response = await uploadLog(testApp.app, dev, fixtureLog('accepted-run.csv'), { setupId: fen }).expect(413);

@@ -97,6 +97,9 @@ const setups: SetupDto[] = [
     extraRecipients: [],
     fourEyes: true,
     columnMapping: null,
+    stationDistanceM: null,
+    clockOffsetNs: null,
+    clockUncertaintyNs: null,
     createdAt: '2026-11-01T08:00:00Z',
   },
 ];

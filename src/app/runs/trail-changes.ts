@@ -16,6 +16,9 @@ const FIELD_WORDS: Record<string, string> = {
   extraRecipients: 'Also mailed',
   fourEyes: 'Four-eyes rule',
   columnMapping: 'Column mapping',
+  stationDistanceM: 'Distance between the stations (m)',
+  clockOffsetNs: 'Clock offset B − A (ns)',
+  clockUncertaintyNs: 'Clock offset uncertainty (ns)',
 };
 
 /** One value of a changed field in words: flags by what they mean, lists joined, roles by their labels. */

@@ -19,6 +19,9 @@ const heronReach: SetupDto = {
   extraRecipients: ['night-desk@kestrelfen.example'],
   fourEyes: true,
   columnMapping: null,
+  stationDistanceM: null,
+  clockOffsetNs: null,
+  clockUncertaintyNs: null,
   createdAt: '2026-11-01T08:00:00Z',
 };
 
@@ -85,6 +88,13 @@ describe('SetupDialog', () => {
     await type('stationBLabel', '  Boathouse east ');
     // The four-eyes rule, on for this setup, is turned off.
     host.querySelector<HTMLInputElement>('mat-checkbox input')!.click();
+    // Where the stations are: a clock offset alone is refused until its uncertainty is given.
+    await type('stationDistanceM', '1200');
+    await type('clockOffsetNs', '-12.5');
+    await submit();
+    expect(host.textContent).toContain('Give the clock offset and its uncertainty together, or neither.');
+    http.expectNone({ method: 'PUT', url: '/api/setups/2' });
+    await type('clockUncertaintyNs', '0.8');
     await submit();
     const put = http.expectOne({ method: 'PUT', url: '/api/setups/2' });
     expect(put.request.body).toEqual({
@@ -96,6 +106,9 @@ describe('SetupDialog', () => {
       shiftLeadIds: [3],
       extraRecipients: ['night-desk@kestrelfen.example', 'boathouse@kestrelfen.example'],
       fourEyes: false,
+      stationDistanceM: 1200,
+      clockOffsetNs: -12.5,
+      clockUncertaintyNs: 0.8,
     });
     const saved = { ...heronReach, stationBLabel: 'Boathouse east' };
     put.flush(saved);

@@ -33,7 +33,13 @@ function recipientsValidator(control: AbstractControl<string>): ValidationErrors
   return wrong === undefined ? null : { recipients: `“${wrong}” is not an e-mail address.` };
 }
 
-/** The admin's form for a setup: names, stations, default profile, shift leads and extra recipients. */
+/** A clock offset and its uncertainty come together or not at all. */
+function clockPairValidator(form: AbstractControl<{ clockOffsetNs: number | null; clockUncertaintyNs: number | null }>): ValidationErrors | null {
+  const { clockOffsetNs, clockUncertaintyNs } = form.value;
+  return ((clockOffsetNs ?? null) === null) === ((clockUncertaintyNs ?? null) === null) ? null : { clockPair: true };
+}
+
+/** The admin's form for a setup: names, stations (with their distance and clocks), default profile, shift leads and extra recipients. */
 @Component({
   selector: 'bk-setup-dialog',
   imports: [MatButtonModule, MatCheckboxModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
@@ -75,16 +81,22 @@ export class SetupDialog {
     { initialValue: [] },
   );
 
-  protected readonly form = new FormGroup({
-    name: new FormControl(this.setup?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
-    description: new FormControl(this.setup?.description ?? '', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
-    stationALabel: new FormControl(this.setup?.stationALabel ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(80)] }),
-    stationBLabel: new FormControl(this.setup?.stationBLabel ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(80)] }),
-    defaultProfileId: new FormControl<number | null>(this.setup?.defaultProfileId ?? null, Validators.required),
-    shiftLeadIds: new FormControl<number[]>(this.setup?.shiftLeads.map((lead) => lead.id) ?? [], { nonNullable: true }),
-    extraRecipients: new FormControl(this.setup?.extraRecipients.join(', ') ?? '', { nonNullable: true, validators: [recipientsValidator] }),
-    fourEyes: new FormControl(this.setup?.fourEyes ?? true, { nonNullable: true }),
-  });
+  protected readonly form = new FormGroup(
+    {
+      name: new FormControl(this.setup?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
+      description: new FormControl(this.setup?.description ?? '', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+      stationALabel: new FormControl(this.setup?.stationALabel ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(80)] }),
+      stationBLabel: new FormControl(this.setup?.stationBLabel ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(80)] }),
+      defaultProfileId: new FormControl<number | null>(this.setup?.defaultProfileId ?? null, Validators.required),
+      shiftLeadIds: new FormControl<number[]>(this.setup?.shiftLeads.map((lead) => lead.id) ?? [], { nonNullable: true }),
+      extraRecipients: new FormControl(this.setup?.extraRecipients.join(', ') ?? '', { nonNullable: true, validators: [recipientsValidator] }),
+      fourEyes: new FormControl(this.setup?.fourEyes ?? true, { nonNullable: true }),
+      stationDistanceM: new FormControl<number | null>(this.setup?.stationDistanceM ?? null, [Validators.min(Number.MIN_VALUE), Validators.max(1e9)]),
+      clockOffsetNs: new FormControl<number | null>(this.setup?.clockOffsetNs ?? null, [Validators.min(-1e12), Validators.max(1e12)]),
+      clockUncertaintyNs: new FormControl<number | null>(this.setup?.clockUncertaintyNs ?? null, [Validators.min(0), Validators.max(1e12)]),
+    },
+    { validators: clockPairValidator },
+  );
   protected readonly saving = signal(false);
   protected readonly failure = signal('');
 
@@ -103,6 +115,9 @@ export class SetupDialog {
       shiftLeadIds: value.shiftLeadIds,
       extraRecipients: recipientList(value.extraRecipients),
       fourEyes: value.fourEyes,
+      stationDistanceM: value.stationDistanceM,
+      clockOffsetNs: value.clockOffsetNs,
+      clockUncertaintyNs: value.clockUncertaintyNs,
     };
     this.saving.set(true);
     this.failure.set('');

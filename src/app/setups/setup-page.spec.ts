@@ -26,6 +26,9 @@ const setup: SetupDto = {
   extraRecipients: [],
   fourEyes: true,
   columnMapping: null,
+  stationDistanceM: null,
+  clockOffsetNs: null,
+  clockUncertaintyNs: null,
   createdAt: '2026-11-01T08:00:00Z',
 };
 

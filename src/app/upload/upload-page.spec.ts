@@ -26,6 +26,9 @@ const setups: SetupDto[] = [
     extraRecipients: [],
     fourEyes: true,
     columnMapping: null,
+    stationDistanceM: null,
+    clockOffsetNs: null,
+    clockUncertaintyNs: null,
     createdAt: '2026-11-01T08:00:00Z',
   },
   {
@@ -40,6 +43,9 @@ const setups: SetupDto[] = [
     extraRecipients: [],
     fourEyes: true,
     columnMapping: { columns: { round: 'RoundNo', x: 'SetNorth', y: 'SetMill', a: 'OutNorth', b: 'OutMill' }, outcomes: '±1' },
+    stationDistanceM: null,
+    clockOffsetNs: null,
+    clockUncertaintyNs: null,
     createdAt: '2026-11-01T08:00:00Z',
   },
 ];
