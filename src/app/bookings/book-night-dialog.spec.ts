@@ -12,32 +12,17 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 
-import type { BookingDto, ProfileDto, Role, SetupDto } from '@shared/api';
+import type { BookingDto, ProfileDto, Role } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
 import { BookNightDialog, type BookNightData } from './book-night-dialog';
 import { signInAs, SOMEONE } from '../../testing/sign-in-as';
+import { specSetup } from '../../testing/spec-setup';
 
 /** Somewhere for the dialog to open from. */
 @Component({ template: '' })
 class Host {}
 
-const setup: SetupDto = {
-  id: 2,
-  name: 'Fen link',
-  description: '',
-  stationALabel: 'North Hall',
-  stationBLabel: 'Mill Lane',
-  defaultProfileId: 1,
-  defaultProfileName: 'Nightly standard',
-  shiftLeads: [{ id: 4, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
-  extraRecipients: [],
-  fourEyes: true,
-  columnMapping: null,
-  stationDistanceM: null,
-  clockOffsetNs: null,
-  clockUncertaintyNs: null,
-  createdAt: '2026-11-01T08:00:00Z',
-};
+const setup = specSetup({ shiftLeads: [{ id: 4, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }] });
 
 const version = (id: number, profileId: number, number: number) => ({
   id,

@@ -17,6 +17,7 @@ import { formatDuration } from './duration';
 import { GENERAL_PLAN_WORKER, GeneralPlanRunner, type GeneralPlanWorker, type WorkerReply } from './general-plan-runner';
 import { generalPlanSteps, type GeneralPlanTask } from './general-plan-steps';
 import { PlannerPage } from './planner-page';
+import { specSetup } from '../../testing/spec-setup';
 
 /**
  * A planner worker in the test's own thread: it keeps the task it is given and answers only when
@@ -84,25 +85,7 @@ const profiles: ProfileDto[] = [
   },
 ];
 
-const setups: SetupDto[] = [
-  {
-    id: 2,
-    name: 'Fen link',
-    description: 'North Hall to Mill Lane over 2.4 km of campus fibre.',
-    stationALabel: 'North Hall',
-    stationBLabel: 'Mill Lane',
-    defaultProfileId: 1,
-    defaultProfileName: 'Nightly standard',
-    shiftLeads: [],
-    extraRecipients: [],
-    fourEyes: true,
-    columnMapping: null,
-    stationDistanceM: null,
-    clockOffsetNs: null,
-    clockUncertaintyNs: null,
-    createdAt: '2026-11-01T08:00:00Z',
-  },
-];
+const setups: SetupDto[] = [specSetup({ description: 'North Hall to Mill Lane over 2.4 km of campus fibre.' })];
 
 /** Past the pause the planner waits for while someone types. */
 const pause = () => new Promise((resolve) => setTimeout(resolve, 350));

@@ -3,27 +3,19 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 
-import type { ProfileDto, SetupDto, UserDto } from '@shared/api';
+import type { ProfileDto, UserDto } from '@shared/api';
 import { configureDialogTestBed } from '../../testing/dialog-test-bed';
 import { SetupDialog, type SetupDialogData } from './setup-dialog';
+import { specSetup } from '../../testing/spec-setup';
 
-const heronReach: SetupDto = {
-  id: 2,
+const heronReach = specSetup({
   name: 'Heron Reach link',
   description: 'North hall to the boathouse',
   stationALabel: 'North hall',
   stationBLabel: 'Boathouse',
-  defaultProfileId: 1,
-  defaultProfileName: 'Nightly standard',
   shiftLeads: [{ id: 3, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
   extraRecipients: ['night-desk@kestrelfen.example'],
-  fourEyes: true,
-  columnMapping: null,
-  stationDistanceM: null,
-  clockOffsetNs: null,
-  clockUncertaintyNs: null,
-  createdAt: '2026-11-01T08:00:00Z',
-};
+});
 
 const profile = (id: number, name: string): ProfileDto => ({ id, name, description: '', latestVersionId: id * 10, createdAt: '2026-11-01T08:00:00Z', versions: [] });
 const person = (id: number, name: string, roles: UserDto['roles'], active = true): UserDto => ({

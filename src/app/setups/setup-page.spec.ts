@@ -9,28 +9,16 @@ import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { provideRouter } from '@angular/router';
 
-import type { BookingDto, CreatedUploadTokenDto, Role, SetupDto, UploadTokenDto } from '@shared/api';
+import type { BookingDto, CreatedUploadTokenDto, Role, UploadTokenDto } from '@shared/api';
 import { CHART_PROVIDERS } from '../charts/chart-providers';
 import { SetupPage } from './setup-page';
 import { signInAs } from '../../testing/sign-in-as';
+import { specSetup } from '../../testing/spec-setup';
 
-const setup: SetupDto = {
-  id: 2,
-  name: 'Fen link',
+const setup = specSetup({
   description: 'North Hall to Mill Lane over 2.4 km of campus fibre.',
-  stationALabel: 'North Hall',
-  stationBLabel: 'Mill Lane',
-  defaultProfileId: 1,
-  defaultProfileName: 'Nightly standard',
   shiftLeads: [{ id: 4, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' }],
-  extraRecipients: [],
-  fourEyes: true,
-  columnMapping: null,
-  stationDistanceM: null,
-  clockOffsetNs: null,
-  clockUncertaintyNs: null,
-  createdAt: '2026-11-01T08:00:00Z',
-};
+});
 
 const commitment = '777ddf8cec451a4bdc78edf2e608beeaa3a6b5faa240f5c2edae085b77d51ee6';
 

@@ -12,42 +12,15 @@ import type { BookingDto, ProfileDto, RunDto, SetupDto } from '@shared/api';
 import { ResumableUploads, type UploadProgress } from './resumable-uploads';
 import type { LogUpload } from './upload-metadata';
 import { UploadPage } from './upload-page';
+import { specSetup } from '../../testing/spec-setup';
 
 const setups: SetupDto[] = [
-  {
-    id: 2,
-    name: 'Fen link',
-    description: '',
-    stationALabel: 'North Hall',
-    stationBLabel: 'Mill Lane',
-    defaultProfileId: 1,
-    defaultProfileName: 'Nightly standard',
-    shiftLeads: [],
-    extraRecipients: [],
-    fourEyes: true,
-    columnMapping: null,
-    stationDistanceM: null,
-    clockOffsetNs: null,
-    clockUncertaintyNs: null,
-    createdAt: '2026-11-01T08:00:00Z',
-  },
-  {
+  specSetup(),
+  specSetup({
     id: 3,
     name: 'Mill Lane bench',
-    description: '',
-    stationALabel: 'North Hall',
-    stationBLabel: 'Mill Lane',
-    defaultProfileId: 1,
-    defaultProfileName: 'Nightly standard',
-    shiftLeads: [],
-    extraRecipients: [],
-    fourEyes: true,
     columnMapping: { columns: { round: 'RoundNo', x: 'SetNorth', y: 'SetMill', a: 'OutNorth', b: 'OutMill' }, outcomes: '±1' },
-    stationDistanceM: null,
-    clockOffsetNs: null,
-    clockUncertaintyNs: null,
-    createdAt: '2026-11-01T08:00:00Z',
-  },
+  }),
 ];
 
 const MILL_LANE_LOG = 'RoundNo,SetNorth,SetMill,OutNorth,OutMill\n1,0,1,+1,-1\n2,1,1,-1,-1\n';
