@@ -1,13 +1,12 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 
 import type { ProfileDto } from '@shared/api';
 import { parseProfile } from '@shared/analysis';
 import { settle } from '../../testing/settle';
 import { signInAs } from '../../testing/sign-in-as';
 import { ProfileList } from './profile-list';
+import { configureApiTestBed } from '../../testing/dialog-test-bed';
 
 const parameters = (parseProfile({}) as { profile: Record<string, unknown> }).profile;
 
@@ -48,8 +47,7 @@ describe('ProfileList', () => {
 
   beforeEach(async () => {
     jest.useFakeTimers();
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }] });
-    http = TestBed.inject(HttpTestingController);
+    http = configureApiTestBed();
     signInAs(['auditor']);
     fixture = TestBed.createComponent(ProfileList);
     host = fixture.nativeElement as HTMLElement;

@@ -1,12 +1,11 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 
 import type { Role, RunDto, WithdrawalDto } from '@shared/api';
 import { settle } from '../../testing/settle';
 import { signInAs, type SpecPerson } from '../../testing/sign-in-as';
 import { RunWithdrawal } from './run-withdrawal';
+import { configureApiTestBed } from '../../testing/dialog-test-bed';
 
 const DEV: SpecPerson = { id: 2, name: 'Dev Okafor', email: 'dev.okafor@kestrelfen.example' };
 const LUCIA: SpecPerson = { id: 3, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' };
@@ -32,8 +31,7 @@ describe('RunWithdrawal', () => {
 
   beforeEach(() => {
     jest.useFakeTimers();
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }] });
-    http = TestBed.inject(HttpTestingController);
+    http = configureApiTestBed();
   });
 
   afterEach(() => {

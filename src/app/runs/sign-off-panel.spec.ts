@@ -1,12 +1,11 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import type { HttpTestingController } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 
 import type { RunDto, SetupDto, SignOffDto } from '@shared/api';
 import { settle } from '../../testing/settle';
 import { signInAs, type SpecPerson } from '../../testing/sign-in-as';
 import { SignOffPanel } from './sign-off-panel';
+import { configureApiTestBed } from '../../testing/dialog-test-bed';
 
 const LUCIA: SpecPerson = { id: 3, name: 'Lucia Brandt', email: 'lucia.brandt@kestrelfen.example' };
 const ADA: SpecPerson = { id: 5, name: 'Ada Reyes', email: 'ada.reyes@kestrelfen.example' };
@@ -44,8 +43,7 @@ describe('SignOffPanel', () => {
 
   beforeEach(() => {
     jest.useFakeTimers();
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } }] });
-    http = TestBed.inject(HttpTestingController);
+    http = configureApiTestBed();
   });
 
   afterEach(() => {
