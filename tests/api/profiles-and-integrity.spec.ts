@@ -92,7 +92,11 @@ describe('profiles, setups and what the database itself guards', () => {
       defaultProfileId: current.defaultProfileId,
       shiftLeadIds: current.shiftLeads.map((lead) => lead.id),
     };
-    const put = (extra: object) => request(testApp.app).put(`/api/setups/${fen}`).set('Authorization', `Bearer ${admin}`).send({ ...body, ...extra });
+    const put = (extra: object) =>
+      request(testApp.app)
+        .put(`/api/setups/${fen}`)
+        .set('Authorization', `Bearer ${admin}`)
+        .send({ ...body, ...extra });
     expect(((await put({ clockOffsetNs: 12.5 }).expect(400)).body as ApiErrorBody).error.field).toBe('clockUncertaintyNs');
     expect(((await put({ stationDistanceM: -3 }).expect(400)).body as ApiErrorBody).error.field).toBe('stationDistanceM');
     const saved = (await put({ stationDistanceM: 1200, clockOffsetNs: -12.5, clockUncertaintyNs: 0.8 }).expect(200)).body as SetupDto;
