@@ -90,7 +90,7 @@ describe('the runs pipeline through the API', () => {
     expect((refused.body as ApiErrorBody).error.message).toBe(`You uploaded run ${run.id}; under the four-eyes rule of Fen link another shift lead signs it off.`);
 
     const setup = (await request(testApp.app).get(`/api/setups/${fenLink}`).set(bearer('maren')).expect(200)).body as SetupDto;
-    const { id: _id, defaultProfileName: _profile, shiftLeads, createdAt: _created, ...fields } = setup;
+    const { id: _id, defaultProfileName: _profile, shiftLeads, createdAt: _created, columnMapping: _mapping, ...fields } = setup;
     const saved = { ...fields, shiftLeadIds: shiftLeads.map((lead) => lead.id), fourEyes: false };
     await request(testApp.app).put(`/api/setups/${fenLink}`).set(bearer('lucia')).send(saved).expect(403);
     expect(((await request(testApp.app).put(`/api/setups/${fenLink}`).set(bearer('maren')).send(saved).expect(200)).body as SetupDto).fourEyes).toBe(false);
