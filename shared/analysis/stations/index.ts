@@ -1,0 +1,30 @@
+// Two stations, two logs: the pure pieces (browser-safe). Reading a file or a gzip stream is
+// `./node`. Not yet wired into the engine's entries (`@shared/analysis`, `@shared/analysis/node`).
+export { ALIGNMENT_SIGNIFICANCE, decideAlignment } from './alignment-decision';
+export type { AlignmentDecision, OffsetEvidence } from './alignment-decision';
+export { alignmentSentence, signedRounds } from './alignment-words';
+export { chshValueDeviation } from './chsh-value-deviation';
+export type { JoinedRound, RoundTimes } from './joined-round';
+export { lightTime, SPEED_OF_LIGHT_M_PER_S } from './light-time';
+export type { LightTime } from './light-time';
+export { MARGIN_BIN_COUNT } from './margin-histogram';
+export type { MarginBin } from './margin-histogram';
+export { ALIGNMENT_WINDOW_ROUNDS, OFFSET_REACH, scanOffsets } from './offset-scan';
+export type { OffsetFit, OffsetScan, OffsetScanOptions } from './offset-scan';
+export { LATEST_PICOSECOND_TIME, parsePicosecondTime } from './picosecond-time';
+export { LISTED_LACKING } from './record-gaps';
+export type { RecordGaps, RoundRun } from './record-gaps';
+export type { StatedOffset } from './stated-offset';
+export { STATION_COLUMNS } from './station-columns';
+export type { Station } from './station-columns';
+export { timingFrame } from './station-geometry';
+export type { StationGeometry, TimingFrame } from './station-geometry';
+export { JOINED_BATCH_ROUNDS, StationJoin } from './station-join';
+export type { StationJoinOptions, StationJoinSummary } from './station-join';
+export { StationLogReader } from './station-log-reader';
+export type { StationLogSummary } from './station-log-reader';
+export type { StationRow } from './station-row';
+export { LISTED_NOT_SPACE_LIKE, TimingCheck } from './timing-check';
+export type { SmallestMargin, TimingSummary } from './timing-check';
+export { roundMargins } from './timing-margins';
+export type { RoundMargins } from './timing-margins';
