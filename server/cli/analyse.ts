@@ -1,7 +1,8 @@
 import { readFile } from 'node:fs/promises';
 import { AnalysisResult } from '@shared/analysis';
 import { analyseLog, AnalysisProgress, AnalysisRequestError } from '@shared/analysis/node';
-import { parseAnalyseArguments, USAGE, UsageError } from './analyse-arguments';
+import { analyseStationPair } from '@shared/analysis/stations/node';
+import { AnalyseArguments, parseAnalyseArguments, USAGE, UsageError } from './analyse-arguments';
 
 /** Exit codes of the contract: the verdict, or 2 for a usage or I/O error. */
 const EXIT_CODE: Record<AnalysisResult['verdict'], number> = { ACCEPT: 0, ABORT: 1, INVALID: 3 };
@@ -34,18 +35,26 @@ function progressPrinter(): (progress: AnalysisProgress) => void {
   };
 }
 
-async function main(): Promise<number> {
-  const args = parseAnalyseArguments(process.argv.slice(2));
-  const result = await analyseLog(
+/** The analysis the command line asks for: one round log, or two station logs as a pair. */
+async function analyse(args: AnalyseArguments): Promise<AnalysisResult> {
+  const profile = args.profile === undefined ? undefined : await readJson(args.profile, 'profile');
+  if (args.stationB !== undefined) {
+    return analyseStationPair({ path: args.log }, { path: args.stationB }, { profile, seed: args.seed, statedOffset: args.statedOffset, geometry: args.geometry });
+  }
+  return analyseLog(
     { path: args.log },
     {
-      profile: args.profile === undefined ? undefined : await readJson(args.profile, 'profile'),
+      profile,
       mapping: args.mapping === undefined ? undefined : await readJson(args.mapping, 'mapping'),
       seed: args.seed,
       threads: args.threads,
       onProgress: progressPrinter(),
     },
   );
+}
+
+async function main(): Promise<number> {
+  const result = await analyse(parseAnalyseArguments(process.argv.slice(2)));
   process.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
   process.stderr.write(`verdict: ${result.verdict}\n`);
   return EXIT_CODE[result.verdict];

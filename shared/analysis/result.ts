@@ -8,6 +8,7 @@ import { KeySummary } from './report/key-summary';
 import { MissingRoundsSummary } from './report/missing-rounds';
 import { QberSummary } from './report/qber-summary';
 import { SecuritySummary } from './report/security-summary';
+import { StationPairSummary } from './stations/station-pair-summary';
 import { CountTable } from './tally/count-table';
 
 /** The verdict on a run. */
@@ -64,6 +65,11 @@ export interface AnalysisResult {
   errors: LogProblem[];
   /** All problems found. */
   errorCount: number;
+  /**
+   * Only for two station logs analysed as a pair: both files, their join, alignment and timing.
+   * `input` then stands for the pair (see `analyseStationPair`).
+   */
+  stations?: StationPairSummary;
   /** SHA-256 of the canonical JSON of everything else (see `canonicalJson`). */
   fingerprint: string;
 }

@@ -203,6 +203,20 @@ export class RangeAnalysis {
     return values;
   }
 
+  /**
+   * Takes the test decisions of the triggers after the last record, up to the span's last round.
+   * A log's span ends at its own last record, so there are none; a joined stream of two station
+   * records ends where either record ends, and a round only one station recorded after the last
+   * joined round is a missing round, drawn like any other (see shared/analysis/README.md, "Missing
+   * rounds"). Call once, after the last record.
+   */
+  drawTriggersToSpanEnd(): void {
+    if (this.nextRound <= this.lastRound) {
+      this.missingTestRounds += this.selector.skip(this.lastRound - this.nextRound + 1);
+      this.nextRound = this.lastRound + 1;
+    }
+  }
+
   /** One record whose quoting could not be read. */
   malformed(line: number, text: string, message: string): void {
     this.checker.malformed(line, text, message);

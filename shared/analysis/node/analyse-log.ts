@@ -91,13 +91,18 @@ async function withIoErrors(source: LogSource, read: () => Promise<ReadOutcome>)
   try {
     return await read();
   } catch (error) {
-    if (error instanceof AnalysisCancelledError || error instanceof AnalysisRequestError) {
-      throw error;
-    }
-    if ((error as NodeJS.ErrnoException).syscall !== undefined) {
-      const name = 'path' in source ? source.path : 'the log stream';
-      throw new AnalysisRequestError(`cannot read ${name}: ${(error as Error).message}`, 'io');
-    }
-    throw error;
+    throw readingError(source, error);
   }
+}
+
+/** What to throw for an error met while reading `source`: a file-system error becomes a request error naming the file. */
+export function readingError(source: LogSource, error: unknown): unknown {
+  if (error instanceof AnalysisCancelledError || error instanceof AnalysisRequestError) {
+    return error;
+  }
+  if ((error as NodeJS.ErrnoException).syscall !== undefined) {
+    const name = 'path' in source ? source.path : 'the log stream';
+    return new AnalysisRequestError(`cannot read ${name}: ${(error as Error).message}`, 'io');
+  }
+  return error;
 }

@@ -8,6 +8,7 @@ import { testMarkCheckCount, testMarkChecks } from '../checks/test-marks';
 import { ENGINE_VERSION } from '../engine-version';
 import { LogProblem } from '../log/log-problem';
 import { RangeSummary } from '../log/range-analysis';
+import { TriggerSpan } from '../log/range-plans';
 import { AnalysisProfile, CheckFamily } from '../profile';
 import { InputSummary, UnsealedResult } from '../result';
 import { nestCounts } from '../tally/count-table';
@@ -39,14 +40,19 @@ export function blockingFamilies(profile: AnalysisProfile): CheckFamily[] {
   return profile.securityModel === 'collective' ? [...new Set<CheckFamily>([...profile.blockingChecks, 'stationarity'])] : profile.blockingChecks;
 }
 
-/** The result of a readable log, from the merged summary of all its stretches. */
-export function assembleResult(log: RangeSummary, context: RunContext): UnsealedResult {
+/**
+ * The result of a readable log, from the merged summary of all its stretches. `span` is the trigger
+ * span the records stand for: by default from the first to the last record, whose missing rounds
+ * are the gaps between records; a joined stream of two station records passes the span of both
+ * records, and the triggers it holds beyond the first and last joined round are missing rounds too
+ * (their test decisions are in `log.missingTestRounds`: `RangeAnalysis.drawTriggersToSpanEnd`).
+ */
+export function assembleResult(log: RangeSummary, context: RunContext, span: TriggerSpan = recordSpan(log)): UnsealedResult {
   const { profile } = context;
   const { test, generation } = log.counts;
   const all = test.map((count, cell) => count + generation[cell]);
-  const firstRound = log.first?.round ?? 0;
-  const lastRound = log.last?.round ?? -1;
-  const missingRounds = summariseMissingRounds({ firstRound, lastRound, triggers: lastRound - firstRound + 1 }, log.gaps, log.missingTestRounds, profile.missingRoundsTolerance);
+  const beyondRecords = span.triggers - recordSpan(log).triggers;
+  const missingRounds = summariseMissingRounds(span, log.gaps + beyondRecords, log.missingTestRounds, profile.missingRoundsTolerance);
   const chsh = summariseChsh(test, generation, profile.epsilon, log.missingTestRounds);
   const qber = summariseQber(test, generation, profile.epsilon);
   const key = summariseKey(chsh, qber, profile, log.validRecords);
@@ -83,11 +89,27 @@ export function assembleResult(log: RangeSummary, context: RunContext): Unsealed
   };
 }
 
+/** The span from a log's first to its last record (none: 0 to −1, no triggers). */
+function recordSpan(log: RangeSummary): TriggerSpan {
+  const firstRound = log.first?.round ?? 0;
+  const lastRound = log.last?.round ?? -1;
+  return { firstRound, lastRound, triggers: lastRound - firstRound + 1 };
+}
+
 /** The result of a log that cannot be analysed: its first problems and how many there are. */
 export function invalidResult(problems: readonly LogProblem[], problemCount: number, context: RunContext): UnsealedResult {
   const first = problems[0];
   const where = first ? ` The first is on line ${first.line}: ${first.message}.` : '';
   const summary = problemCount === 1 ? `The log has a problem.${where}` : `The log has ${problemCount} problems.${where}`;
+  return refusedResult([summary], problems, problemCount, context);
+}
+
+/**
+ * An INVALID result: nothing is analysed, `reasons` says why, `errors` lists the log's first
+ * problems (none when the records are sound but cannot be judged, as two station records that do
+ * not line up).
+ */
+export function refusedResult(reasons: string[], problems: readonly LogProblem[], problemCount: number, context: RunContext): UnsealedResult {
   return {
     engineVersion: ENGINE_VERSION,
     ...context,
@@ -101,7 +123,7 @@ export function invalidResult(problems: readonly LogProblem[], problemCount: num
     checks: [],
     blocks: [],
     verdict: 'INVALID',
-    reasons: [summary],
+    reasons,
     errors: [...problems],
     errorCount: problemCount,
   };

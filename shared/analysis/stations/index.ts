@@ -1,10 +1,11 @@
-// Two stations, two logs: the pure pieces (browser-safe). Reading a file or a gzip stream is
-// `./node`. Not yet wired into the engine's entries (`@shared/analysis`, `@shared/analysis/node`).
+// Two stations, two logs: the pure pieces (browser-safe). Reading a file or a gzip stream, and the
+// engine's entry for a pair (`analyseStationPair`), is `./node`.
 export { ALIGNMENT_SIGNIFICANCE, decideAlignment } from './alignment-decision';
 export type { AlignmentDecision, OffsetEvidence } from './alignment-decision';
 export { alignmentSentence, signedRounds } from './alignment-words';
 export { chshValueDeviation } from './chsh-value-deviation';
 export type { JoinedRound, RoundTimes } from './joined-round';
+export { JoinedStreamAnalysis } from './joined-stream-analysis';
 export { lightTime, SPEED_OF_LIGHT_M_PER_S } from './light-time';
 export type { LightTime } from './light-time';
 export { MARGIN_BIN_COUNT } from './margin-histogram';
@@ -16,6 +17,7 @@ export { LISTED_LACKING } from './record-gaps';
 export type { RecordGaps, RoundRun } from './record-gaps';
 export type { StatedOffset } from './stated-offset';
 export { STATION_COLUMNS } from './station-columns';
+export type { AlignmentPoint, AlignmentSummary, StationFileSummary, StationPairSummary } from './station-pair-summary';
 export type { Station } from './station-columns';
 export { timingFrame } from './station-geometry';
 export type { StationGeometry, TimingFrame } from './station-geometry';
