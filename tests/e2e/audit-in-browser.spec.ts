@@ -42,6 +42,7 @@ describe('auditing in a real browser', () => {
     await page.getByLabel('Result digest').fill(result.fingerprint.slice(0, 10));
     await page.getByTestId(`audit-run-row-${run.id}`).waitFor();
     expect(await page.getByTestId('audit-runs').locator('tbody tr').count()).toBe(1);
+    await session.expectNoAxeViolations(page, 'the finished runs tab');
     await screenshot(page, 'audit-finished-runs');
 
     await page.getByTestId(`audit-run-row-${run.id}`).click();
@@ -56,6 +57,7 @@ describe('auditing in a real browser', () => {
       .locator('[data-testid^="reverification-state-"]')
       .filter({ hasText: /reproduced/i })
       .waitFor({ timeout: 30_000 });
+    await session.expectNoAxeViolations(page, 'the run page with its integrity checked and re-verified');
     await screenshot(page, 'audit-run-integrity');
 
     await page.getByTestId('export-menu').click();
@@ -78,6 +80,7 @@ describe('auditing in a real browser', () => {
     await page.getByTestId('audit-trail').waitFor();
     await page.getByTestId('audit-trail').getByText('Sami Virtanen').first().waitFor();
     expect(await page.getByTestId('audit-trail').innerText()).toMatch(/Sami Virtanen\s+Exported\s+Run \d+\s+PDF report/);
+    await session.expectNoAxeViolations(page, 'the system trail tab');
     await screenshot(page, 'audit-system-trail');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('audit-export-csv').click()]);
@@ -91,6 +94,7 @@ describe('auditing in a real browser', () => {
     await page.getByRole('tab', { name: /keys/i }).click();
     await page.getByTestId(`signing-key-${run.signature!.keyId}`).waitFor();
     expect(await page.getByTestId('signing-keys').innerText()).toContain('BEGIN PUBLIC KEY');
+    await session.expectNoAxeViolations(page, 'the report-signing keys tab');
     await screenshot(page, 'audit-signing-keys');
     await page.close();
   }, 60_000);

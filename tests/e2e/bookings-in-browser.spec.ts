@@ -57,6 +57,7 @@ describe('booked nights in a real browser', () => {
     await lead.getByTestId('book-window-end').fill(local(new Date(now.getTime() + 10 * 3_600_000)));
     // Fen link has no accepted run here, so the Planner has no rounds to pass on.
     await lead.getByTestId('book-rounds').fill('40000');
+    await session.expectNoAxeViolations(lead, 'the book-night dialog');
     await screenshot(lead, 'booking-dialog');
     await lead.getByTestId('book-submit').click();
     const commitment = (await lead.getByTestId('booked-commitment').innerText()).trim();
@@ -74,10 +75,12 @@ describe('booked nights in a real browser', () => {
     await lead.getByTestId('token-create').click();
     const token = (await lead.getByTestId('new-token').innerText()).trim();
     expect(token).toMatch(/^bkup_/);
+    await session.expectNoAxeViolations(lead, 'the new upload token dialog');
     await lead.getByTestId('token-done').click();
     await lead.getByTestId('upload-tokens').filter({ hasText: 'North Hall acquisition PC' }).waitFor();
     const recipe = await lead.getByTestId('acquisition-recipe').innerText();
     expect(recipe).toContain(`${baseUrl}/api/uploads`);
+    await session.expectNoAxeViolations(lead, 'the setup page with a booking and an upload token');
     await screenshot(lead, 'setup-page-booked');
 
     // The acquisition computer runs the recipe with its token.
@@ -96,6 +99,7 @@ describe('booked nights in a real browser', () => {
       .getByTestId('commitment-outcome')
       .filter({ hasText: /matches/i })
       .waitFor();
+    await session.expectNoAxeViolations(lead, 'the run page of a booked night');
     await screenshot(lead, 'run-booked');
     await lead.close();
 
@@ -108,6 +112,7 @@ describe('booked nights in a real browser', () => {
     await dev.getByTestId('replacement').waitFor();
     await dev.getByTestId('replacement-reason').fill('The first file was copied before the acquisition computer had closed it.');
     await dev.getByTestId('preview-status').waitFor();
+    await session.expectNoAxeViolations(dev, 'the upload page replacing a booked log');
     await screenshot(dev, 'upload-replacement');
     await dev.getByTestId('upload-button').click();
     await dev.getByTestId('open-run').waitFor({ timeout: 60_000 });

@@ -36,6 +36,7 @@ describe('the planner in a real browser', () => {
     expect(await page.getByTestId('plan-rounds-for-pass').innerText()).toContain(formatCount(plan.roundsForLikelyPass!));
     await page.getByTestId('planner-chart-rounds').locator('canvas').waitFor();
     await page.getByTestId('planner-chart-fraction').locator('canvas').waitFor();
+    await session.expectNoAxeViolations(page, 'the planner');
     await session.screenshot(page, 'planner');
 
     // The key against general attacks comes from the page's web workers, part by part.

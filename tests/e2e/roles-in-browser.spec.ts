@@ -26,16 +26,25 @@ describe('sign-in and roles in a real browser', () => {
       .getByRole('link')
       .evaluateAll((links) => links.map((link) => link.getAttribute('data-testid')?.replace(/^nav-/, '')));
 
-  it('the admin sees Users and opens the user list; the page loads nothing from elsewhere and its fonts are its own', async () => {
+  it('the admin sees Users and opens the user list and its dialogs; the page loads nothing from elsewhere and its fonts are its own', async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
     const requested: string[] = [];
     page.on('request', (pageRequest) => requested.push(pageRequest.url()));
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').waitFor();
+    await session.expectNoAxeViolations(page, 'the sign-in page');
     await signIn(page, 'maren.holt@kestrelfen.example');
     expect(await navPages(page)).toEqual(['overview', 'runs', 'planner', 'setups', 'profiles', 'audit', 'users', 'workers']);
 
     await page.getByTestId('nav-users').click();
     await page.waitForURL(`${baseUrl}/users`);
     await page.getByRole('cell', { name: 'sami.virtanen@kestrelfen.example' }).waitFor();
+    await session.expectNoAxeViolations(page, 'the user list');
+    await session.expectDialogWithoutAxeViolations(page, 'the new user dialog', () => page.getByRole('button', { name: 'New user' }).click());
+    await session.expectDialogWithoutAxeViolations(page, 'the password dialog', async () => {
+      await page.getByTestId('user-menu').click();
+      await page.getByTestId('change-password').click();
+    });
 
     // The full stylesheet applies (helmet's policy allows how it is linked) and the shipped fonts load.
     await page.evaluate(() => document.fonts.ready);
@@ -43,6 +52,18 @@ describe('sign-in and roles in a real browser', () => {
     const loadedFonts = await page.evaluate(() => [...document.fonts].filter((face) => face.status === 'loaded').map((face) => face.family.replace(/"/g, '')));
     expect(loadedFonts).toEqual(expect.arrayContaining(['Roboto', 'Material Symbols Outlined']));
     expect(requested.filter((url) => !url.startsWith(baseUrl) && !url.startsWith('data:'))).toEqual([]);
+    await page.close();
+  }, 60_000);
+
+  it('the accessibility check fails on a broken page, naming the rule, its help and the element', async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').waitFor();
+    // A button with neither words nor a label: nobody using a screen reader can tell what it does.
+    await page.locator('form').evaluate((form) => form.insertAdjacentHTML('beforeend', '<button type="button" id="bk-nameless"></button>'));
+    await expect(session.expectNoAxeViolations(page, 'a sign-in page with a nameless button')).rejects.toThrow(
+      /broken on a sign-in page with a nameless button:\n[\s\S]*- button-name: Buttons must have discernible text\n {4}#bk-nameless\n/,
+    );
     await page.close();
   }, 60_000);
 

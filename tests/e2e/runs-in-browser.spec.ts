@@ -38,7 +38,8 @@ describe('runs in a real browser', () => {
       .getByRole('link')
       .evaluateAll((links) => links.map((link) => link.getAttribute('data-testid')?.replace(/^nav-/, '')));
 
-  async function uploadLog(page: Page, file: string, setup: string): Promise<{ word: string; reasons: string[]; runId: number }> {
+  /** Uploads `file` on the Upload screen; with `checkScreens`, axe-core checks the preview and the verdict as they show. */
+  async function uploadLog(page: Page, file: string, setup: string, checkScreens = false): Promise<{ word: string; reasons: string[]; runId: number }> {
     await page.getByTestId('setup-select').click();
     await page.getByRole('option', { name: setup }).click();
     // The setup's default profile is filled in.
@@ -46,6 +47,7 @@ describe('runs in a real browser', () => {
     await page.getByTestId('log-input').setInputFiles(path.join(FIXTURES, file));
     await page.getByTestId('preview-status').filter({ hasText: 'The first 12 rows read cleanly under this mapping.' }).waitFor();
     expect(await page.getByTestId('preview').locator('tbody tr').count()).toBe(12);
+    if (checkScreens) await session.expectNoAxeViolations(page, `the upload page previewing ${file}`);
     await screenshot(page, `upload-preview-${path.basename(file, '.csv')}`);
 
     await page.getByTestId('upload-button').click();
@@ -54,6 +56,7 @@ describe('runs in a real browser', () => {
     await page.getByTestId('open-run').waitFor({ timeout: 30_000 });
     await page.getByRole('button', { name: 'Upload another log' }).waitFor({ timeout: 30_000 });
     expect(await page.getByTestId('upload-progress').getAttribute('aria-valuenow')).toBe('100');
+    if (checkScreens) await session.expectNoAxeViolations(page, `the upload page with the verdict of ${file}`);
     await screenshot(page, `upload-verdict-${path.basename(file, '.csv')}`);
     const word = await page.getByTestId('verdict-word').innerText();
     const reasons = await page.getByTestId('verdict-reasons').locator('li').allInnerTexts();
@@ -72,7 +75,7 @@ describe('runs in a real browser', () => {
     expect(accepted.reasons).toEqual([]);
 
     await page.getByRole('button', { name: 'Upload another log' }).click();
-    const aborted = await uploadLog(page, 'aborted-low-chsh.csv', 'Fen link');
+    const aborted = await uploadLog(page, 'aborted-low-chsh.csv', 'Fen link', true);
     expect(aborted.word).toBe('ABORT');
     // The first reason is the criterion; with so few rounds the bound may also miss the local bound ¾.
     expect(aborted.reasons[0]).toMatch(/^The CHSH win fraction 0\.[78]\d+ is below the threshold 0\.823553/);
@@ -86,11 +89,13 @@ describe('runs in a real browser', () => {
     );
     expect(await page.getByTestId('figure-finite-key').innerText()).toContain('Estimate against collective (i.i.d.) attacks.');
     await page.locator('canvas').nth(3).waitFor();
+    await session.expectNoAxeViolations(page, 'the run page of an ABORT');
     await screenshot(page, 'run-aborted-experimentalist');
 
     await page.getByTestId('nav-runs').click();
     await page.getByTestId(`run-row-${abortedRunId}`).waitFor();
     expect(await page.getByTestId(`run-row-${abortedRunId}`).innerText()).toContain('ABORT');
+    await session.expectNoAxeViolations(page, 'the runs list');
     await screenshot(page, 'runs-list');
     await page.close();
   }, 120_000);
@@ -114,6 +119,7 @@ describe('runs in a real browser', () => {
     // The form refuses an empty decision and comment and says why, before anything is sent; an ABORT keeps no key.
     await page.getByText('Choose a decision before signing off.').waitFor();
     await page.getByText('Say why before signing off.').waitFor();
+    await session.expectNoAxeViolations(page, 'the sign-off form refusing an empty decision');
     expect(await page.getByRole('radio', { name: 'Key kept' }).isDisabled()).toBe(true);
     await page.getByRole('radio', { name: 'Hardware action needed' }).check();
     await page.getByLabel('Comment').fill('Low CHSH all night: the Mill Lane detector is being realigned.');

@@ -13,6 +13,7 @@ import { catchError, of } from 'rxjs';
 
 import type { RunSummaryDto, Verdict } from '@shared/api';
 import { type PickedDay, isoDay } from '../dates/local-dates';
+import { CardTable } from '../lists/card-table';
 import { ChoiceFilter } from '../lists/choice-filter';
 import { DateRangeFilter } from '../lists/date-range-filter';
 import { FilterBar } from '../lists/filter-bar';
@@ -34,6 +35,7 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'acquiredOn', direct
   selector: 'bk-finished-runs',
   imports: [
     BookingNoteLine,
+    CardTable,
     ChoiceFilter,
     DatePipe,
     DateRangeFilter,

@@ -15,6 +15,7 @@ import { catchError, of } from 'rxjs';
 import { AUDIT_TARGET_TYPES, type AuditEventDto, type AuditFilter, type AuditQuery, type AuditTargetType } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { type PickedDay, isoDay } from '../dates/local-dates';
+import { CardTable } from '../lists/card-table';
 import { ChoiceFilter } from '../lists/choice-filter';
 import { DateRangeFilter } from '../lists/date-range-filter';
 import { FilterBar } from '../lists/filter-bar';
@@ -31,6 +32,7 @@ const FIRST_PAGE = { page: 0, pageSize: 50 };
 @Component({
   selector: 'bk-system-trail',
   imports: [
+    CardTable,
     ChoiceFilter,
     DatePipe,
     DateRangeFilter,

@@ -9,7 +9,8 @@ import { MatSnackBar } from '@angular/material/snack-bar';
   selector: 'bk-copy-button',
   imports: [ClipboardModule, MatButtonModule, MatIconModule],
   template: `@if (label(); as label) {
-      <button mat-stroked-button type="button" [cdkCopyToClipboard]="text()" (cdkCopyToClipboardCopied)="announce($event)" [attr.aria-label]="'Copy ' + what()">
+      <!-- The name starts with the words on the button, so speech input finds it by them. -->
+      <button mat-stroked-button type="button" [cdkCopyToClipboard]="text()" (cdkCopyToClipboardCopied)="announce($event)" [attr.aria-label]="label + ': ' + what()">
         <mat-icon>content_copy</mat-icon>{{ label }}
       </button>
     } @else {

@@ -23,24 +23,38 @@ export function lookOfCell(cell: LedgerCellDto, setupName: string): CellLook {
   const night = `${setupName}, night of ${cell.night}`;
   const run = cell.run;
   if (run === null) {
-    return { icon: 'event_available', word: 'Booked', tone: 'booked', note: 'no log yet', label: `${night}: booked, no log yet`, runId: null };
+    return { icon: 'event_available', word: 'Booked', tone: 'booked', note: 'no log yet', label: spoken(night, 'Booked', ['no log yet'], ''), runId: null };
   }
   const look = lookOfState(run.state);
   const attempts = cell.attempts > 1 ? `${cell.attempts} logs` : '';
   if (run.withdrawn) {
-    const note = [attempts, look.word].filter(Boolean).join(' · ');
-    return { icon: 'undo', word: 'Withdrawn', tone: 'pending', note, label: `${night}: the log (${look.word}) was withdrawn as a mistaken upload`, runId: run.id };
+    const notes = [attempts, look.word].filter(Boolean);
+    return {
+      icon: 'undo',
+      word: 'Withdrawn',
+      tone: 'pending',
+      note: notes.join(' · '),
+      label: spoken(night, 'Withdrawn', notes, 'the log was withdrawn as a mistaken upload'),
+      runId: run.id,
+    };
   }
   const signOff = run.decision !== null ? DECISION_NOTES[run.decision] : run.verdict !== null ? AWAITING_NOTE : '';
-  const spoken = run.decision !== null ? SIGN_OFF_DECISION_WORDS[run.decision].toLowerCase() : run.verdict !== null ? 'awaiting sign-off' : '';
-  const note = [attempts, signOff].filter(Boolean).join(' · ');
-  const said = [attempts, spoken].filter(Boolean).join(', ');
+  const signOffInFull = run.decision !== null ? `signed off: ${SIGN_OFF_DECISION_WORDS[run.decision].toLowerCase()}` : run.verdict !== null ? 'awaiting sign-off' : '';
+  const notes = [attempts, signOff].filter(Boolean);
   return {
     icon: look.icon,
     word: look.word,
     tone: look.tone,
-    note,
-    label: `${night}: ${look.word}${said ? `, ${said}` : ''}${cell.bookingId === null ? ', unbooked' : ''}`,
+    note: notes.join(' · '),
+    label: spoken(night, look.word, notes, signOffInFull) + (cell.bookingId === null ? ', unbooked' : ''),
     runId: run.id,
   };
+}
+
+/**
+ * A cell's full sentence: the night, then the words the cell shows in their order (so a screen
+ * reader's name holds the visible words, as speech input needs), then the short notes in full.
+ */
+function spoken(night: string, word: string, notes: string[], inFull: string): string {
+  return `${night}: ${[word, ...notes].join(', ')}${inFull ? ` (${inFull})` : ''}`;
 }

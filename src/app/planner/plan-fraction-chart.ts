@@ -4,6 +4,7 @@ import { BaseChartDirective } from 'ng2-charts';
 
 import type { PlanDto } from '@shared/api';
 import { formatCount, formatPercent } from '@shared/format/numbers';
+import { type ChartTable, ChartTableView } from '../charts/chart-table';
 import { chartTone } from '../charts/chart-tones';
 import { percentTick } from './chart-ticks';
 import { formatProbability } from './pass-look';
@@ -14,12 +15,13 @@ const BEST_DATASET = 2;
 /** Expected finite key bits (and pass probability) against the test fraction at the chosen N, the best fraction and the planned one marked. */
 @Component({
   selector: 'bk-plan-fraction-chart',
-  imports: [BaseChartDirective],
+  imports: [BaseChartDirective, ChartTableView],
   template: `
     <div class="bk-plan-canvas">
       <canvas baseChart [type]="'line'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
     </div>
     <p class="bk-plan-star" aria-hidden="true">✱ {{ bestNote() }}</p>
+    <bk-chart-table [table]="table()" />
   `,
   styles: `
     .bk-plan-canvas { position: relative; height: 240px; }
@@ -47,6 +49,15 @@ export class PlanFractionChart {
     return this.anyKey()
       ? `The most key: ${formatPercent(best.testFraction, 1)} tested, ${formatCount(best.expectedFiniteKeyBits)} bits.`
       : `No test fraction gives a positive key at N = ${formatCount(this.plan().at.rounds)}: no most-key fraction to mark.`;
+  });
+
+  protected readonly table = computed<ChartTable>(() => {
+    const { testFractionCurve, at } = this.plan();
+    return {
+      caption: `Expected finite key and pass probability against the test fraction at N = ${formatCount(at.rounds)}, the planned fraction ${formatPercent(at.testFraction, 1)}. ${this.bestNote()}`,
+      columns: ['Test fraction', 'Expected finite key (bits)', 'Pass probability'],
+      rows: testFractionCurve.map((point) => [formatPercent(point.testFraction, 0), formatCount(point.expectedFiniteKeyBits), formatProbability(point.passProbability)]),
+    };
   });
 
   protected readonly data = computed<ChartData<'line', { x: number; y: number }[]>>(() => {

@@ -4,6 +4,7 @@ import { BaseChartDirective } from 'ng2-charts';
 
 import type { GeneralKeyPoint, PlanDto } from '@shared/api';
 import { formatCount, formatScientific } from '@shared/format/numbers';
+import { type ChartTable, ChartTableView } from '../charts/chart-table';
 import { chartTone } from '../charts/chart-tones';
 import { percentTick, powerOfTenTick } from './chart-ticks';
 import { formatProbability } from './pass-look';
@@ -14,11 +15,12 @@ import { formatProbability } from './pass-look';
  */
 @Component({
   selector: 'bk-plan-rounds-chart',
-  imports: [BaseChartDirective],
+  imports: [BaseChartDirective, ChartTableView],
   template: `
     <div class="bk-plan-canvas">
       <canvas baseChart [type]="'line'" [data]="data()" [options]="options" role="img" [attr.aria-label]="summary()"></canvas>
     </div>
+    <bk-chart-table [table]="table()" />
   `,
   styles: `.bk-plan-canvas { position: relative; height: 280px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,6 +39,36 @@ export class PlanRoundsChart {
       `asymptotic limit ${formatCount(at.asymptoticKeyBits)} bits.` +
       (this.generalCurve() ? ' The key against general attacks is drawn beside, from the same N.' : '')
     );
+  });
+
+  /** A row for every N of either curve (the general one comes from the workers on a grid of its own); '–' where a curve has no point. */
+  protected readonly table = computed<ChartTable>(() => {
+    const { curve, at } = this.plan();
+    const general = this.generalCurve();
+    const collective = new Map(curve.map((point) => [point.rounds, point]));
+    const generalBits = new Map((general ?? []).map((point) => [point.rounds, point.bits]));
+    const rounds = [...new Set([...collective.keys(), ...generalBits.keys()])].sort((a, b) => a - b);
+    const shown = <T>(value: T | undefined, format: (value: T) => string) => (value === undefined ? '–' : format(value));
+    return {
+      caption: `Expected key and pass probability against the round budget N; the chosen N is ${formatCount(at.rounds)}.`,
+      columns: [
+        'Rounds N',
+        'Expected finite key, collective attacks (bits)',
+        'Asymptotic key (bits)',
+        ...(general ? ['Key against general attacks (bits)'] : []),
+        'Pass probability',
+      ],
+      rows: rounds.map((n) => {
+        const point = collective.get(n);
+        return [
+          formatCount(n),
+          shown(point, (p) => formatCount(p.expectedFiniteKeyBits)),
+          shown(point, (p) => formatCount(p.asymptoticKeyBits)),
+          ...(general ? [shown(generalBits.get(n), formatCount)] : []),
+          shown(point, (p) => formatProbability(p.passProbability.all)),
+        ];
+      }),
+    };
   });
 
   protected readonly data = computed<ChartData<'line', { x: number; y: number | null }[]>>(() => {

@@ -4,6 +4,7 @@ import { BaseChartDirective } from 'ng2-charts';
 
 import { LOCAL_CHSH_VALUE, QUANTUM_CHSH_VALUE } from '@shared/analysis';
 import { formatFixed } from '@shared/format/numbers';
+import { type ChartTable, ChartTableView } from '../charts/chart-table';
 import { chartTone } from '../charts/chart-tones';
 
 /** The S axis drawn, wide enough for both bounds and every value experiments report; widened for a value beyond it. */
@@ -15,10 +16,11 @@ const S_STEP = 0.2;
 /** S and its lower bound on one axis between the local bound 2 and the quantum bound 2√2. */
 @Component({
   selector: 'bk-chsh-scale-chart',
-  imports: [BaseChartDirective],
+  imports: [BaseChartDirective, ChartTableView],
   template: `<div class="bk-scale-canvas">
-    <canvas baseChart [type]="'scatter'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
-  </div>`,
+      <canvas baseChart [type]="'scatter'" [data]="data()" [options]="options()" role="img" [attr.aria-label]="summary()"></canvas>
+    </div>
+    <bk-chart-table [table]="table()" />`,
   styles: `.bk-scale-canvas { position: relative; height: 120px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -31,6 +33,17 @@ export class ChshScaleChart {
   protected readonly summary = computed(
     () => `S ${formatFixed(this.value(), 3)}, lower bound ${formatFixed(this.lower(), 3)}, between the local bound 2 and the quantum bound ${formatFixed(QUANTUM_CHSH_VALUE, 3)}.`,
   );
+
+  protected readonly table = computed<ChartTable>(() => ({
+    caption: 'S and its lower bound, with the bounds drawn on the axis.',
+    columns: ['On the axis', 'S'],
+    rows: [
+      ['S observed', formatFixed(this.value(), 3)],
+      ['S lower bound', formatFixed(this.lower(), 3)],
+      ['Local bound', formatFixed(LOCAL_CHSH_VALUE, 3)],
+      ['Quantum bound 2√2', formatFixed(QUANTUM_CHSH_VALUE, 3)],
+    ],
+  }));
 
   protected readonly data = computed<ChartData>(() => {
     const marker = (label: string, x: number | null, style: 'circle' | 'triangle', colour: string) => ({

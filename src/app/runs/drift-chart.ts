@@ -4,6 +4,7 @@ import { BaseChartDirective } from 'ng2-charts';
 
 import { type BlockSummary, type FractionInterval, LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import { formatFixed, formatPercent } from '@shared/format/numbers';
+import { type ChartTable, ChartTableView } from '../charts/chart-table';
 import { chartTone } from '../charts/chart-tones';
 
 /** A block's value against a threshold: which side of it counts as a failure. */
@@ -23,7 +24,7 @@ interface DriftPanel {
  */
 @Component({
   selector: 'bk-drift-chart',
-  imports: [BaseChartDirective],
+  imports: [BaseChartDirective, ChartTableView],
   template: `
     @if (blocks().length === 0) {
       <p class="bk-muted">No blocks to plot: the log had no readable rounds.</p>
@@ -40,6 +41,7 @@ interface DriftPanel {
           <canvas baseChart [type]="'bar'" [data]="qber().data" [options]="qber().options" role="img" [attr.aria-label]="qber().summary"></canvas>
         </div>
       </figure>
+      <bk-chart-table [table]="table()" />
     }
   `,
   styles: `
@@ -72,6 +74,28 @@ export class DriftChart {
     ),
   );
 
+  /** Both panels' blocks as one table, a block a row. */
+  protected readonly table = computed<ChartTable>(() => {
+    const winThreshold = this.winThreshold();
+    const qberTolerance = this.qberTolerance();
+    const interval = ({ lower, upper }: FractionInterval, format: (value: number) => string) => (lower === null || upper === null ? '–' : `${format(lower)} to ${format(upper)}`);
+    return {
+      caption: `Each block's CHSH win fraction (threshold ${formatFixed(winThreshold)}) and QBER (tolerance ${formatPercent(qberTolerance)}), with their Hoeffding intervals.`,
+      columns: ['Block', 'Win fraction', 'Interval', 'QBER', 'Interval', 'Outside the threshold'],
+      rows: this.blocks().map(({ chsh, qber }, index) => {
+        const outside = [outsideThreshold(chsh, 'below', winThreshold) ? 'win fraction' : '', outsideThreshold(qber, 'above', qberTolerance) ? 'QBER' : ''];
+        return [
+          String(index + 1),
+          formatFixed(chsh.fraction),
+          interval(chsh, formatFixed),
+          formatPercent(qber.fraction),
+          interval(qber, formatPercent),
+          outside.filter(Boolean).join(' and ') || '–',
+        ];
+      }),
+    };
+  });
+
   protected readonly qber = computed(() =>
     panel(
       this.blocks().map((block) => block.qber),
@@ -99,7 +123,7 @@ function panel(
   guides: Guide[],
   range: { min?: number; max?: number; beginAtZero: boolean },
 ): DriftPanel {
-  const fails = intervals.map(({ fraction }) => fraction !== null && (failing === 'below' ? fraction < threshold : fraction > threshold));
+  const fails = intervals.map((interval) => outsideThreshold(interval, failing, threshold));
   const primary = chartTone('primary');
   const abort = chartTone('abort');
   const pointStyle: PointStyle[] = fails.map((fail) => (fail ? 'crossRot' : 'circle'));
@@ -168,6 +192,11 @@ function panel(
     `${intervals.length} blocks, observed from ${format(Math.min(...observed(intervals)))} to ${format(Math.max(...observed(intervals)))}; ` +
     (failingBlocks.length === 0 ? 'every block on the passing side of the threshold.' : `blocks ${failingBlocks.join(', ')} outside the threshold.`);
   return { data, options, summary };
+}
+
+/** Whether a block's observed value is on the failing side of its threshold. */
+function outsideThreshold({ fraction }: FractionInterval, failing: FailingSide, threshold: number): boolean {
+  return fraction !== null && (failing === 'below' ? fraction < threshold : fraction > threshold);
 }
 
 function observed(intervals: FractionInterval[]): number[] {

@@ -16,6 +16,7 @@ import { RUN_SORT_KEYS, RUN_STATES, VERDICT_STATES, type RunSortKey, type RunSta
 import { formatCount, formatFixed, formatPercent } from '@shared/format/numbers';
 import { Session } from '../auth/session';
 import { type PickedDay, isoDay } from '../dates/local-dates';
+import { CardTable } from '../lists/card-table';
 import { ChoiceFilter } from '../lists/choice-filter';
 import { DateRangeFilter } from '../lists/date-range-filter';
 import { FilterBar } from '../lists/filter-bar';
@@ -37,6 +38,7 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'createdAt', directi
   selector: 'bk-run-list',
   imports: [
     BookingNoteLine,
+    CardTable,
     ChoiceFilter,
     DatePipe,
     DateRangeFilter,

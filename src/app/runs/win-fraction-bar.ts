@@ -4,6 +4,7 @@ import { BaseChartDirective } from 'ng2-charts';
 
 import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import { formatFixed } from '@shared/format/numbers';
+import { type ChartTable, ChartTableView } from '../charts/chart-table';
 import { chartTone } from '../charts/chart-tones';
 
 /** The stretch of win fractions the bar spans: a little below the local bound up to the quantum maximum. */
@@ -12,12 +13,13 @@ const AXIS = { min: LOCAL_WIN_FRACTION - 0.05, max: QUANTUM_WIN_FRACTION };
 /** A row-sized bar of a run's CHSH win fraction with its threshold marked, and the figure beside it. */
 @Component({
   selector: 'bk-win-fraction-bar',
-  imports: [BaseChartDirective],
+  imports: [BaseChartDirective, ChartTableView],
   template: `
-    <span class="bk-win-bar" role="img" [attr.aria-label]="summary()">
+    <span class="bk-win-bar" role="img" [attr.aria-label]="summary()" [attr.aria-describedby]="figures.tableId">
       <span class="bk-win-canvas"><canvas baseChart [type]="'bar'" [data]="data()" [options]="options" [plugins]="plugins" aria-hidden="true"></canvas></span>
       <span class="bk-figure">{{ figure() }}</span>
     </span>
+    <bk-chart-table #figures [table]="table()" hiddenTable />
   `,
   styles: `
     .bk-win-bar { display: inline-flex; align-items: center; gap: 8px; }
@@ -35,6 +37,17 @@ export class WinFractionBar {
   protected readonly summary = computed(
     () => `Win fraction ${formatFixed(this.value())}, ${this.value() >= this.threshold() ? 'at or above' : 'below'} the threshold ${formatFixed(this.threshold())}`,
   );
+
+  protected readonly table = computed<ChartTable>(() => ({
+    caption: 'The CHSH win fraction and the stretch the bar spans.',
+    columns: ['On the bar', 'Win fraction'],
+    rows: [
+      ['Observed', formatFixed(this.value())],
+      ['Threshold', formatFixed(this.threshold())],
+      ['Bar starts at', formatFixed(AXIS.min)],
+      ['Bar ends at the quantum maximum', formatFixed(AXIS.max)],
+    ],
+  }));
 
   protected readonly data = computed<ChartData>(() => ({
     labels: [''],

@@ -7,6 +7,7 @@ import { switchMap } from 'rxjs';
 import type { RunSummaryDto, Verdict } from '@shared/api';
 import { formatFixed, formatPercent } from '@shared/format/numbers';
 import { loaded } from '../api/loaded';
+import { type ChartTable, ChartTableView } from '../charts/chart-table';
 import { chartTone, type ChartTone } from '../charts/chart-tones';
 import { RunsApi } from '../runs/runs-api';
 import { lookOfVerdict } from '../runs/verdict-look';
@@ -24,7 +25,7 @@ const VERDICT_MARKS: Record<Verdict, { style: PointStyle; tone: ChartTone }> = {
 /** The runs of one setup over the last weeks: S and QBER per night, each point shaped and coloured by its verdict. */
 @Component({
   selector: 'bk-setup-trend-chart',
-  imports: [BaseChartDirective],
+  imports: [BaseChartDirective, ChartTableView],
   template: `
     @switch (runs().status) {
       @case ('loading') {
@@ -45,6 +46,7 @@ const VERDICT_MARKS: Record<Verdict, { style: PointStyle; tone: ChartTone }> = {
               <span>{{ mark.symbol }} {{ mark.word }}</span>
             }
           </p>
+          <bk-chart-table [table]="table()" />
         }
       }
     }
@@ -90,6 +92,12 @@ export class SetupTrendChart {
     const count = (verdict: Verdict) => runs.filter((run) => run.verdict === verdict).length;
     return `${runs.length} runs in the last ${TREND_DAYS} days: ${count('ACCEPT')} accepted, ${count('ABORT')} aborted, ${count('INVALID')} invalid.`;
   });
+
+  protected readonly table = computed<ChartTable>(() => ({
+    caption: `S and QBER of each analysed run of the last ${TREND_DAYS} days, oldest night first.`,
+    columns: ['Night', 'Run', 'Verdict', 'S', 'QBER'],
+    rows: this.analysed().map((run) => [night(run), String(run.id), lookOfVerdict(run.verdict!).word, formatFixed(run.chshValue, 3), formatPercent(run.qber)]),
+  }));
 
   protected readonly data = computed<ChartData>(() => {
     const runs = this.analysed();

@@ -16,6 +16,7 @@ import { filter, map } from 'rxjs';
 import { ROLE_LABELS } from '@shared/api';
 import { Session } from '../auth/session';
 import { PasswordDialog } from '../passwords/password-dialog';
+import { EmailAddress } from '../users/email-address';
 import { navItemsFor } from './navigation';
 import { WorkersAlert } from '../workers/workers-alert';
 import { ProductMark } from './product-mark';
@@ -27,6 +28,7 @@ const WIDE_LAYOUT = '(min-width: 1000px)';
 @Component({
   selector: 'bk-shell',
   imports: [
+    EmailAddress,
     MatButtonModule,
     MatDividerModule,
     MatIconModule,

@@ -17,6 +17,8 @@ import { ROLE_LABELS, type Role, type UserDto, RESET_LINK_HOURS } from '@shared/
 import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
 import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';
+import { CardTable } from '../lists/card-table';
+import { EmailAddress } from './email-address';
 import { UserDialog } from './user-dialog';
 import { UsersApi } from './users-api';
 
@@ -26,7 +28,19 @@ type LoadState = 'loading' | 'ready' | 'failed';
 /** The admin's list of users: add people, change their roles, deactivate and reactivate them. */
 @Component({
   selector: 'bk-user-list',
-  imports: [DatePipe, MatButtonModule, MatChipsModule, MatIconModule, MatMenuModule, MatPaginatorModule, MatProgressBarModule, MatSortModule, MatTableModule],
+  imports: [
+    CardTable,
+    DatePipe,
+    EmailAddress,
+    MatButtonModule,
+    MatChipsModule,
+    MatIconModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSortModule,
+    MatTableModule,
+  ],
   templateUrl: './user-list.html',
   styleUrl: './user-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
