@@ -1,10 +1,12 @@
 import crypto from 'node:crypto';
-import { analyseLog, resultFingerprint } from '@shared/analysis/node';
-import { RUN_REPORT_FORMAT, type RunReportDto } from '@shared/api';
+import type { AnalysisResult } from '@shared/analysis';
+import { analyseLog, analyseStationPair, resultFingerprint } from '@shared/analysis/node';
+import { RUN_REPORT_FORMAT, type RunReportDto, type RunStationsDto } from '@shared/api';
 import { seedCommitment } from '../bookings/seed-commitment';
 import { resultDifferences } from '../integrity/result-differences';
 import { signatureProblem } from '../integrity/signed-statement';
 import { signingKeyId } from '../integrity/signing-key';
+import { stationPairOptions } from '../runs/station-pair-record';
 
 /** One line of the offline verification. */
 export interface ReportCheck {
@@ -84,27 +86,59 @@ export function seedCommitmentCheck(report: RunReportDto): ReportCheck {
 export async function rederivationChecks(report: RunReportDto, log: string): Promise<ReportCheck[]> {
   const recorded = report.result;
   const result = await analyseLog({ path: log }, { profile: report.profile.parameters, mapping: report.mapping ?? undefined, seed: report.seed });
-  const checks: ReportCheck[] = [
+  return [fileHashCheck('The log', result.input.sha256, recorded.input.sha256), fingerprintCheck(recorded, result, 'the log')];
+}
+
+/**
+ * Two station logs against the report of their run: each file's bytes (station A's as the recorded
+ * result names it, station B's as the run records it), the two together as the signed input names
+ * them (`stationPairDigest`), and the same result re-derived with the report's profile, mapping,
+ * seed, stated offset and geometry (`stationPairOptions`, as the worker builds them).
+ */
+export async function stationPairRederivationChecks(report: RunReportDto & { stations: RunStationsDto }, logA: string, logB: string): Promise<ReportCheck[]> {
+  const recorded = report.result;
+  const recordedA = recorded.stations?.files[0]?.sha256 ?? null;
+  const recordedB = report.stations.stationB.sha256;
+  const options = stationPairOptions({ fileSha256: recordedA ?? '', mapping: report.mapping, seed: report.seed, stations: report.stations }, report.profile.parameters);
+  const result = await analyseStationPair({ path: logA }, { path: logB }, options);
+  // The engine names both files in every result of a pair, INVALID ones included.
+  const [foundA, foundB] = result.stations!.files.map((file) => file.sha256);
+  const swapped = foundA === recordedB && foundB === recordedA ? " The two logs look swapped: give station A's log first." : '';
+  const checks = [
+    recordedA === null
+      ? { passed: false, text: "The report's result names no station A log: it is not the result of two station logs." }
+      : fileHashCheck("Station A's log", foundA, recordedA, swapped),
+    fileHashCheck("Station B's log", foundB, recordedB, swapped),
     result.input.sha256 === recorded.input.sha256
-      ? { passed: true, text: `The log hashes to the recorded SHA-256 ${recorded.input.sha256}.` }
-      : { passed: false, text: `The log hashes to ${result.input.sha256}, not to the recorded SHA-256 ${recorded.input.sha256}: it is not the analysed file.` },
+      ? { passed: true, text: `Together they hash to the recorded SHA-256 of the pair ${recorded.input.sha256}, the input the signature names.` }
+      : { passed: false, text: `Together they hash to ${result.input.sha256}, not to the recorded SHA-256 of the pair ${recorded.input.sha256}.` },
   ];
+  return [...checks, fingerprintCheck(recorded, result, 'the two station logs')];
+}
+
+/** A file's SHA-256 against the recorded one. */
+function fileHashCheck(file: string, found: string, recorded: string, hint = ''): ReportCheck {
+  return found === recorded
+    ? { passed: true, text: `${file} hashes to the recorded SHA-256 ${recorded}.` }
+    : { passed: false, text: `${file} hashes to ${found}, not to the recorded SHA-256 ${recorded}: it is not the analysed file.${hint}` };
+}
+
+/** The re-derived result against the recorded one: the same fingerprint, or the fields that differ. */
+function fingerprintCheck(recorded: AnalysisResult, result: AnalysisResult, source: string): ReportCheck {
   if (result.fingerprint === recorded.fingerprint) {
-    checks.push({ passed: true, text: `Re-derived from the log, the result reproduces the fingerprint ${recorded.fingerprint} (verdict ${result.verdict}).` });
-    return checks;
+    return { passed: true, text: `Re-derived from ${source}, the result reproduces the fingerprint ${recorded.fingerprint} (verdict ${result.verdict}).` };
   }
   const differences = resultDifferences(recorded, result);
   const shown = differences
     .slice(0, SHOWN_DIFFERENCES)
     .map((difference) => `  ${difference.path}: recorded ${JSON.stringify(difference.stored)}, re-derived ${JSON.stringify(difference.recomputed)}`);
   const more = differences.length > SHOWN_DIFFERENCES ? [`  ... and ${differences.length - SHOWN_DIFFERENCES} more`] : [];
-  checks.push({
+  return {
     passed: false,
     text: [
-      `Re-derived from the log, the result has fingerprint ${result.fingerprint}, not ${recorded.fingerprint}; ${differences.length} field(s) differ (engine ${recorded.engineVersion} then, ${result.engineVersion} now):`,
+      `Re-derived from ${source}, the result has fingerprint ${result.fingerprint}, not ${recorded.fingerprint}; ${differences.length} field(s) differ (engine ${recorded.engineVersion} then, ${result.engineVersion} now):`,
       ...shown,
       ...more,
     ].join('\n'),
-  });
-  return checks;
+  };
 }

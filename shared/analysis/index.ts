@@ -25,7 +25,7 @@ export type { ChshSummary } from './report/chsh-summary';
 export { criteriaTable } from './report/criteria-table';
 export { generalKeySentence } from './report/general-key-words';
 export type { KeySummary } from './report/key-summary';
-export { missingRoundsState, missingShareText } from './report/missing-rounds';
+export { missingRoundsState, missingShareText, shareText } from './report/missing-rounds';
 export type { MissingRoundsState, MissingRoundsSummary } from './report/missing-rounds';
 export { summariseSecurity } from './report/security-summary';
 export type { SecuritySummary } from './report/security-summary';
@@ -37,3 +37,16 @@ export { chshValueFromWinFraction, winFractionFromChshValue } from './statistics
 export { hoeffdingDeviation } from './statistics/hoeffding';
 export { COUNT_CELLS, countCell } from './tally/count-table';
 export type { CountTable } from './tally/count-table';
+export { alignmentSentence, lightTime, marginText, signedRounds, SPEED_OF_LIGHT_M_PER_S, STATION_COLUMNS, StationLogReader } from './stations';
+export type {
+  AlignmentPoint,
+  AlignmentSummary,
+  MarginBin,
+  SmallestMargin,
+  StationFileSummary,
+  StationGeometry,
+  StationJoinSummary,
+  StationLogSummary,
+  StationPairSummary,
+  TimingSummary,
+} from './stations';

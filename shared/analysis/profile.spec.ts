@@ -21,6 +21,7 @@ describe('parseProfile', () => {
         requirePositiveKey: false,
         blockingChecks: ['log-integrity', 'minimum-test-rounds', 'setting-uniformity', 'no-signalling'],
         securityModel: 'collective',
+        spaceLikeSeparation: 'reported',
       },
     });
   });
@@ -39,6 +40,7 @@ describe('parseProfile', () => {
     [{ blockingChecks: ['stationarity', 'luck'] }, 'blockingChecks.1', 'must be one of'],
     [{ qbertolerance: 0.1 }, 'qbertolerance', 'unknown field'],
     [{ criterion: 'strict' }, 'criterion', 'observed or certified'],
+    [{ spaceLikeSeparation: 'always' }, 'spaceLikeSeparation', 'reported or required'],
   ])('rejects %j naming the field', (input, field, words) => {
     const parsed = parseProfile(input);
     expect(parsed.ok).toBe(false);

@@ -6,6 +6,9 @@ export const CHECK_FAMILIES = ['log-integrity', 'minimum-test-rounds', 'setting-
 /** A family of checks (`setting-uniformity` covers the x, y and joint tests, and so on). */
 export type CheckFamily = (typeof CHECK_FAMILIES)[number];
 
+/** What a profile makes of the timing check of two station logs: shown only, or required to hold. */
+export const SPACE_LIKE_SEPARATION_RULES = ['reported', 'required'] as const;
+
 /** A number strictly between 0 and 1 (probabilities, fractions, ε's). */
 const openUnitInterval = (what: string) =>
   z
@@ -121,6 +124,13 @@ export const profileSchema = z
     securityModel: z.enum(['collective', 'general'], { error: 'must be collective or general' }).default('collective'),
     /** Settings of the general-attack key length; required when securityModel is general. */
     generalAttack: generalAttackSchema.optional(),
+    /**
+     * The timing check of two station logs: `reported` shows its figures and leaves the verdict to
+     * the other rules; `required` makes a run INVALID when its timing cannot be checked (one joined
+     * log, no distance, a log without times) and aborts it when any round lacks space-like
+     * separation. Default reported.
+     */
+    spaceLikeSeparation: z.enum(SPACE_LIKE_SEPARATION_RULES, { error: 'must be reported or required' }).default('reported'),
   })
   .superRefine((profile, context) => {
     if (profile.securityModel !== 'general') return;

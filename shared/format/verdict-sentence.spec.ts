@@ -22,4 +22,14 @@ describe('the sentence under a verdict', () => {
     expect(verdictSentence({ verdict: 'ABORT', key: null, security: null })).toBe('The run failed its tests: no key may be kept from it.');
     expect(verdictSentence({ verdict: 'INVALID', key: null, security: null })).toMatch(/^No verdict was possible: the log could not be read/);
   });
+
+  it('says of two station logs refused for a shift that the records are shifted, not unreadable', () => {
+    const shifted = verdictSentence({ verdict: 'INVALID', key: null, security: null, errorCount: 0, stations: { alignment: { shifted: true } } });
+    expect(shifted).toMatch(/records are shifted against each other/);
+    expect(shifted).not.toMatch(/could not be read/);
+    expect(verdictSentence({ verdict: 'INVALID', key: null, security: null, errorCount: 0, stations: { alignment: { shifted: false } } })).toMatch(
+      /could not be judged as they stand/,
+    );
+    expect(verdictSentence({ verdict: 'INVALID', key: null, security: null, errorCount: 2, stations: { alignment: null } })).toMatch(/could not be read as a round log/);
+  });
 });

@@ -17,9 +17,10 @@ export function keyBitsThatCount(result: KeyOfResult): number | null {
 /**
  * The sentence that says what a verdict means, the same under the word in the app, the mail and
  * the PDF. An ACCEPT whose counting key figure is 0 bits says that the criteria hold but no key can
- * be extracted at this size; INVALID says that no verdict was possible.
+ * be extracted at this size; INVALID says that no verdict was possible, and for two station logs
+ * whether their records were shifted against each other.
  */
-export function verdictSentence(result: KeyOfResult & { verdict: Verdict }): string {
+export function verdictSentence(result: KeyOfResult & { verdict: Verdict; errorCount?: number; stations?: { alignment: { shifted: boolean } | null } }): string {
   switch (result.verdict) {
     case 'ACCEPT':
       return keyBitsThatCount(result) === 0
@@ -28,6 +29,11 @@ export function verdictSentence(result: KeyOfResult & { verdict: Verdict }): str
     case 'ABORT':
       return 'The run failed its tests: no key may be kept from it.';
     case 'INVALID':
+      if (result.stations?.alignment?.shifted) {
+        return "No verdict was possible: the two stations' records are shifted against each other, so no round was tested; a shift lead may re-run the night at a stated offset.";
+      }
+      if (result.stations && result.errorCount === 0)
+        return 'No verdict was possible: the two station logs could not be judged as they stand (see why below), so no round was tested.';
       return 'No verdict was possible: the log could not be read as a round log, so no round was tested.';
   }
 }

@@ -23,7 +23,8 @@ export interface CheckResult {
 /** A check before its status is set by the profile's blocking families. */
 export interface CheckFinding {
   id: string;
-  family: CheckFamily;
+  /** The family the profile's blocking list names; null for a check whose own profile field decides its blocking (`alwaysBlocks`). */
+  family: CheckFamily | null;
   /** Whether the check holds. */
   holds: boolean;
   /** Whether a failure always blocks ACCEPT, whatever the profile's blocking families (soundness checks). */
@@ -36,7 +37,7 @@ export interface CheckFinding {
 
 /** Sets the status of a finding: a check that does not hold fails when it blocks the verdict, else warns. */
 export function checkStatus(finding: CheckFinding, blocking: readonly CheckFamily[]): CheckResult {
-  const blocks = finding.alwaysBlocks === true || blocking.includes(finding.family);
+  const blocks = finding.alwaysBlocks === true || (finding.family !== null && blocking.includes(finding.family));
   const status: CheckStatus = finding.holds ? 'pass' : blocks ? 'fail' : 'warn';
   return { id: finding.id, status, observed: finding.observed, log10PValue: finding.log10PValue ?? null, threshold: finding.threshold, message: finding.message };
 }

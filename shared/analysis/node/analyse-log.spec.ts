@@ -115,4 +115,15 @@ describe('analyseLog', () => {
     expect(certified.verdict).toBe('ABORT');
     expect(certified.reasons[0]).toContain('lower bound of the CHSH win fraction');
   });
+
+  it('calls a joined log INVALID under a profile that requires space-like separation, still naming the file; reporting it changes nothing', async () => {
+    const reported = await analyseLog({ path: ACCEPTED }, { seed: SEED, profile: { criterion: 'observed' } });
+    const required = await analyseLog({ path: ACCEPTED }, { seed: SEED, profile: { criterion: 'observed', spaceLikeSeparation: 'required' } });
+    expect(reported.verdict).toBe('ACCEPT');
+    expect(reported.checks.map((check) => check.id)).not.toContain('space-like-separation');
+    expect(required).toMatchObject({ verdict: 'INVALID', chsh: null, checks: [], errors: [], errorCount: 0, input: reported.input });
+    expect(required.reasons).toEqual([
+      "The profile requires space-like separation, which only two station logs with their time columns (t_setting, t_outcome) and the setup's distance between the stations can show: one joined log cannot be judged under it.",
+    ]);
+  });
 });

@@ -1,7 +1,8 @@
 import { open } from 'node:fs/promises';
 import { HEAD_BYTES } from '../log/log-head';
-import { assembleResult, invalidResult, RunContext } from '../report/assemble-result';
+import { assembleResult, invalidResult, refusedResult, RunContext } from '../report/assemble-result';
 import { AnalysisResult } from '../result';
+import { joinedLogTimingRefusal } from '../stations/space-like-rule';
 import { AnalysisCancelledError, AnalysisRequestError } from './analysis-errors';
 import { ProgressListener } from './analysis-progress';
 import { resolveRequest } from './analysis-request';
@@ -47,6 +48,8 @@ const GZIP_MAGIC = [0x1f, 0x8b];
  * Analyses a round log: a counting pass, then one analysis pass, memory independent of the number
  * of rounds. Resolves to the sealed result (ACCEPT, ABORT or INVALID); rejects only with
  * `AnalysisRequestError` (bad profile, mapping or seed; unreadable file) or `AnalysisCancelledError`.
+ * Under a profile that requires space-like separation a readable log is INVALID, with the sentence
+ * why: one joined log holds no times to show it.
  */
 export async function analyseLog(source: LogSource, options: AnalyseOptions = {}): Promise<AnalysisResult> {
   const request = resolveRequest(options.profile, options.mapping, options.seed, options.reader !== 'scanner');
@@ -71,7 +74,11 @@ export async function analyseLog(source: LogSource, options: AnalyseOptions = {}
     return sealResult(invalidResult(outcome.problems, outcome.problemCount, context));
   }
   const { summary } = outcome;
-  return sealResult(summary.problemCount > 0 ? invalidResult(summary.problems, summary.problemCount, context) : assembleResult(summary, context));
+  if (summary.problemCount > 0) {
+    return sealResult(invalidResult(summary.problems, summary.problemCount, context));
+  }
+  const timingRefusal = joinedLogTimingRefusal(request.profile);
+  return sealResult(timingRefusal === null ? assembleResult(summary, context) : refusedResult([timingRefusal], [], 0, context));
 }
 
 /** The first bytes of a file. */

@@ -9,3 +9,5 @@ export { ENGINE_MALLOC_TUNABLES, withEngineMemory } from './engine-memory';
 export { expandsLikeABomb } from './decoded-log';
 export { createLineCounter } from './wasm-line-counter';
 export { startTypeScriptWorker } from './typescript-worker';
+export { analyseStationPair, stationPairDigest } from '../stations/node';
+export type { StationPairAnalysisOptions } from '../stations/node';

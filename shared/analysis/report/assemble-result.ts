@@ -1,4 +1,4 @@
-import { checkStatus } from '../checks/check-result';
+import { CheckFinding, checkStatus } from '../checks/check-result';
 import { logIntegrityCheck } from '../checks/log-integrity';
 import { minimumTestRoundsCheck } from '../checks/minimum-test-rounds';
 import { NO_SIGNALLING_CHECKS, noSignallingChecks } from '../checks/no-signalling';
@@ -40,15 +40,25 @@ export function blockingFamilies(profile: AnalysisProfile): CheckFamily[] {
   return profile.securityModel === 'collective' ? [...new Set<CheckFamily>([...profile.blockingChecks, 'stationarity'])] : profile.blockingChecks;
 }
 
+/** What a joined stream of two station records adds to the result of its rounds. */
+export interface PairEvidence {
+  /** The trigger span of both records. */
+  span: TriggerSpan;
+  /** Checks only a pair can make (its timing), judged with the others. */
+  findings: readonly CheckFinding[];
+}
+
 /**
- * The result of a readable log, from the merged summary of all its stretches. `span` is the trigger
- * span the records stand for: by default from the first to the last record, whose missing rounds
- * are the gaps between records; a joined stream of two station records passes the span of both
- * records, and the triggers it holds beyond the first and last joined round are missing rounds too
- * (their test decisions are in `log.missingTestRounds`: `RangeAnalysis.drawTriggersToSpanEnd`).
+ * The result of a readable log, from the merged summary of all its stretches. The trigger span the
+ * records stand for is by default from the first to the last record, whose missing rounds are the
+ * gaps between records; a joined stream of two station records passes the span of both records
+ * (`pair`), and the triggers it holds beyond the first and last joined round are missing rounds too
+ * (their test decisions are in `log.missingTestRounds`: `RangeAnalysis.drawTriggersToSpanEnd`), with
+ * the pair's own checks.
  */
-export function assembleResult(log: RangeSummary, context: RunContext, span: TriggerSpan = recordSpan(log)): UnsealedResult {
+export function assembleResult(log: RangeSummary, context: RunContext, pair?: PairEvidence): UnsealedResult {
   const { profile } = context;
+  const span = pair?.span ?? recordSpan(log);
   const { test, generation } = log.counts;
   const all = test.map((count, cell) => count + generation[cell]);
   const beyondRecords = span.triggers - recordSpan(log).triggers;
@@ -66,6 +76,7 @@ export function assembleResult(log: RangeSummary, context: RunContext, span: Tri
     ...noSignallingChecks(all, perCheck),
     ...stationarityChecks(blocks, perCheck),
     ...testMarkChecks(test, generation, profile, perCheck),
+    ...(pair?.findings ?? []),
   ];
   const blocking = blockingFamilies(profile);
   const checks = findings.map((finding) => checkStatus(finding, blocking));

@@ -33,6 +33,11 @@ export function missingRoundsState(summary: MissingRoundsSummary): MissingRounds
  * handful of missing rounds among millions of triggers must not read "0.00 %".
  */
 export function missingShareText(summary: Pick<MissingRoundsSummary, 'missing' | 'triggers'>): string {
-  const share = summary.missing === 0 || summary.triggers === 0 ? '0' : ((100 * summary.missing) / summary.triggers).toPrecision(2);
+  return shareText(summary.missing, summary.triggers);
+}
+
+/** `part` of `whole` in per cent, two significant digits ("0.17 %"); "0 %" when either is 0. */
+export function shareText(part: number, whole: number): string {
+  const share = part === 0 || whole === 0 ? '0' : ((100 * part) / whole).toPrecision(2);
   return `${share}\u2009%`;
 }

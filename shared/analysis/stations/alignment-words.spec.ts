@@ -27,13 +27,13 @@ describe('alignmentSentence', () => {
 
   it('names the stated offset as the comparison when there is one', () => {
     expect(alignmentSentence(decision(5, evidence(5, 0.1), evidence(7, -2.6), true))).toBe(
-      "Station B's record runs 7 rounds ahead of station A's: at that offset S = -2.60, at the stated offset (+5) 0.10.",
+      "Station B's record runs 7 rounds ahead of station A's: at that offset S = −2.60, at the stated offset (+5) 0.10.",
     );
   });
 
   it('says no offset fits clearly better, with the range scanned and the best other', () => {
     expect(alignmentSentence(decision(0, evidence(0, 2.74), evidence(4, -0.3), false))).toBe(
-      'No offset from −16 to +16 fits clearly better than zero: S = 2.74 at zero, -0.30 at the best other offset (+4).',
+      'No offset from −16 to +16 fits clearly better than zero: S = 2.74 at zero, −0.30 at the best other offset (+4).',
     );
     expect(alignmentSentence(decision(-20, evidence(-20, null), evidence(-30, 1), false))).toBe(
       'No offset from −36 to −4 fits clearly better than the stated offset (−20): S = – at the stated offset (−20), 1.00 at the best other offset (−30).',

@@ -7,9 +7,9 @@ export function signedRounds(offset: number): string {
   return offset > 0 ? `+${formatCount(offset)}` : offset < 0 ? `−${formatCount(-offset)}` : '0';
 }
 
-/** A CHSH value with two decimals, never "-0.00"; an en dash when there is none. */
+/** A CHSH value with two decimals and a true minus sign ("−0.31"), never "-0.00"; an en dash when there is none. */
 function shownS(value: number | null): string {
-  return formatFixed(value === null ? null : Math.round(value * 100) / 100 || 0, 2);
+  return formatFixed(value === null ? null : Math.round(value * 100) / 100 || 0, 2).replace('-', '−');
 }
 
 /**

@@ -30,3 +30,5 @@ export { LISTED_NOT_SPACE_LIKE, TimingCheck } from './timing-check';
 export type { SmallestMargin, TimingSummary } from './timing-check';
 export { roundMargins } from './timing-margins';
 export type { RoundMargins } from './timing-margins';
+export { joinedLogTimingRefusal, marginText, pairTimingRefusal, SPACE_LIKE_CHECK_ID, spaceLikeFinding } from './space-like-rule';
+export type { TimingGaps } from './space-like-rule';

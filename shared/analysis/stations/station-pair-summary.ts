@@ -63,7 +63,8 @@ export interface StationPairSummary {
   alignment: AlignmentSummary | null;
   /**
    * The timing check, when both logs have times and the stations' geometry was given; else null.
-   * Reported only: it does not change the verdict (the profile has no setting for it yet).
+   * Its outcome is also the run's `space-like-separation` check, which blocks ACCEPT only under a
+   * profile that requires space-like separation (`spaceLikeSeparation`).
    */
   timing: TimingSummary | null;
 }

@@ -32,6 +32,14 @@ describe('profileDifferences', () => {
     ]);
     expect(profileDifferences(v2.parameters as never, v3.parameters as never)).toEqual([]);
   });
+
+  it('reads a version saved before space-like separation could be required as reporting it', () => {
+    const { spaceLikeSeparation: _added, ...older } = base;
+    expect(profileDifferences(older as never, base as never)).toEqual([]);
+    expect(profileDifferences(older as never, { ...base, spaceLikeSeparation: 'required' } as never)).toEqual([
+      { label: 'Space-like separation', from: 'Reported, not judged', to: 'Required of every round' },
+    ]);
+  });
 });
 
 describe('ProfileComparison', () => {

@@ -1,6 +1,8 @@
 import type { HttpTestingController } from '@angular/common/http/testing';
 import { ApplicationRef } from '@angular/core';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 
 import type { ProfileDto } from '@shared/api';
 import { parseProfile } from '@shared/analysis';
@@ -131,6 +133,24 @@ describe('ProfileDialog', () => {
     const sent = (request.request.body as { parameters: Record<string, unknown> }).parameters;
     expect(sent['generalAttack']).toEqual({ soundness: 1e-9, design: { chshValue: 2.7, qber: 0.02 } });
     expect(sent['securityModel']).toBe('general');
+  });
+
+  it('offers space-like separation reported or required: a version saved before the field reads as reported, and the choice is saved', async () => {
+    const { spaceLikeSeparation: _added, ...older } = nightly.versions[0].parameters;
+    http = configureDialogTestBed({ profile: { ...nightly, versions: [{ ...nightly.versions[0], parameters: older }] } }, close);
+    const fixture = TestBed.createComponent(ProfileDialog);
+    fixture.detectChanges();
+    const host = fixture.nativeElement as HTMLElement;
+    const select = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatSelectHarness.with({ selector: '[data-testid="profile-spaceLikeSeparation"]' }));
+    expect(await select.getValueText()).toBe('Reported, not judged');
+    expect(host.textContent).toContain('Required: a run that cannot show it is INVALID, and any round without it aborts the run.');
+    await select.open();
+    expect(await Promise.all((await select.getOptions()).map((option) => option.getText()))).toEqual(['Reported, not judged', 'Required of every round']);
+    await select.clickOptions({ text: 'Required of every round' });
+    await submit(host);
+
+    const request = http.expectOne('/api/profiles/1/versions');
+    expect((request.request.body as { parameters: Record<string, unknown> }).parameters['spaceLikeSeparation']).toBe('required');
   });
 
   it('needs a name for a new profile', async () => {

@@ -11,7 +11,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { ProfileDto } from '@shared/api';
 import { type AnalysisProfile, parseProfile } from '@shared/analysis';
 import { apiErrorMessage } from '../api/api-error-message';
-import { CHECK_FAMILY_OPTIONS, FIELD_MEANINGS, NUMBER_FIELDS } from './profile-fields';
+import { CHECK_FAMILY_OPTIONS, FIELD_MEANINGS, NUMBER_FIELDS, SPACE_LIKE_SEPARATION_WORDS } from './profile-fields';
 import { GENERAL_FIELDS } from './general-attack-form';
 import { profileForm, profileParameters } from './profile-form';
 import { ProfilesApi } from './profiles-api';
@@ -44,6 +44,7 @@ export class ProfileDialog {
   protected readonly meanings = FIELD_MEANINGS;
   protected readonly textFields = [...GENERAL_FIELDS, ...NUMBER_FIELDS];
   protected readonly checkFamilies = CHECK_FAMILY_OPTIONS;
+  protected readonly spaceLikeWords = SPACE_LIKE_SEPARATION_WORDS;
   protected readonly form = profileForm((this.profile?.versions[0]?.parameters as AnalysisProfile | undefined) ?? defaultProfile());
   protected readonly name = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] });
   protected readonly description = new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] });

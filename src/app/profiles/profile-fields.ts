@@ -37,7 +37,7 @@ export const NUMBER_FIELDS: readonly NumberField[] = [
 
 /** Label and meaning of every profile field. */
 export const FIELD_MEANINGS: Record<
-  NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks' | keyof GeneralAttackControls,
+  NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks' | 'spaceLikeSeparation' | keyof GeneralAttackControls,
   FieldMeaning
 > = {
   mode: { label: 'Test rounds chosen', hint: 'By a fixed share drawn from the seed, by each round independently, or by the log’s own test column.' },
@@ -82,6 +82,16 @@ export const FIELD_MEANINGS: Record<
     label: 'Tests that abort a run',
     hint: 'Checks whose failure aborts the run; the others only warn. Missing rounds past the tolerance and the log’s test marks always block, and stationarity blocks under collective attacks.',
   },
+  spaceLikeSeparation: {
+    label: 'Space-like separation',
+    hint: 'Two station logs with times and the setup’s distance show whether each round’s outcomes came before light from the other station’s setting could arrive. Reported: shown, the verdict left to the other rules. Required: a run that cannot show it is INVALID, and any round without it aborts the run.',
+  },
+};
+
+/** Words for the two rules of space-like separation, as the dialog offers them and the view shows them. */
+export const SPACE_LIKE_SEPARATION_WORDS: Record<AnalysisProfile['spaceLikeSeparation'], string> = {
+  reported: 'Reported, not judged',
+  required: 'Required of every round',
 };
 
 /** Words for the check families. */
@@ -125,6 +135,8 @@ export function describeProfile(profile: AnalysisProfile): { label: string; valu
     : 'General attacks (settings missing)';
   lines.push({ ...FIELD_MEANINGS.securityModel, value: (profile.securityModel ?? 'collective') === 'general' ? generalWords : 'Collective attacks (finite key estimate)' });
   lines.push({ ...FIELD_MEANINGS.requirePositiveKey, value: profile.requirePositiveKey ? 'Yes' : 'No' });
+  // Versions saved before engine 2.3 lack the field; the engine reads them as reported.
+  lines.push({ ...FIELD_MEANINGS.spaceLikeSeparation, value: SPACE_LIKE_SEPARATION_WORDS[profile.spaceLikeSeparation ?? 'reported'] });
   lines.push({
     ...FIELD_MEANINGS.blockingChecks,
     value: profile.blockingChecks.map((family) => CHECK_FAMILY_LABELS[family]).join(', ') || 'None',

@@ -13,6 +13,7 @@ export type ProfileControls = Record<NumberField, FormControl<string>> &
     criterion: FormControl<AnalysisProfile['criterion']>;
     securityModel: FormControl<AnalysisProfile['securityModel']>;
     requirePositiveKey: FormControl<boolean>;
+    spaceLikeSeparation: FormControl<AnalysisProfile['spaceLikeSeparation']>;
     blockingChecks: FormControl<CheckFamily[]>;
     note: FormControl<string>;
   };
@@ -45,6 +46,7 @@ export function profileForm(profile: AnalysisProfile): FormGroup<ProfileControls
     ...generalAttackControls(profile),
     requirePositiveKey: new FormControl(profile.requirePositiveKey, { nonNullable: true }),
     blockingChecks: new FormControl([...profile.blockingChecks], { nonNullable: true }),
+    spaceLikeSeparation: new FormControl(profile.spaceLikeSeparation ?? 'reported', { nonNullable: true }),
     note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
   });
   // Only the share of the chosen selection mode, and the general settings of the chosen basis, are part of the profile.
@@ -76,6 +78,7 @@ export function profileParameters(form: FormGroup<ProfileControls>): Record<stri
     ...Object.fromEntries(NUMBER_FIELDS.map((field) => [field, numberOf(value[field])])),
     requirePositiveKey: value.requirePositiveKey,
     blockingChecks: value.blockingChecks,
+    spaceLikeSeparation: value.spaceLikeSeparation,
     securityModel: value.securityModel,
     ...generalAttackParameters(value, value.mode),
   };

@@ -18,6 +18,7 @@ import { Station } from '../station-columns';
 import { StationGeometry } from '../station-geometry';
 import { StationJoin, StationJoinSummary } from '../station-join';
 import { alignmentSummary, StationFileSummary, stationFileSummary, StationPairSummary } from '../station-pair-summary';
+import { pairTimingRefusal, spaceLikeFinding } from '../space-like-rule';
 import { TimingCheck } from '../timing-check';
 import { DigestingSource, FileDigest } from './file-digest';
 import { readStationLog } from './station-log-file';
@@ -48,8 +49,11 @@ const STATIONS: readonly Station[] = ['A', 'B'];
  * timing check; (2) the alignment check over station A's first 10^6 records; (3) the join again,
  * into the engine's record path; each file's SHA-256 is taken again and must not have changed.
  * A shift found by the alignment check makes the pair INVALID, with its sentence in `reasons`: the
- * records are never realigned silently; a stated offset is applied as given and shown. A stream
- * source must be openable four times. Rejects only with `AnalysisRequestError`.
+ * records are never realigned silently; a stated offset is applied as given and shown. The timing
+ * check, when the geometry and both logs' times allow it, is one of the run's checks; under a
+ * profile that requires space-like separation it blocks, and a pair whose timing cannot be checked
+ * is INVALID with a sentence naming what is missing. A stream source must be openable four times.
+ * Rejects only with `AnalysisRequestError`.
  */
 export async function analyseStationPair(a: LogSource, b: LogSource, options: StationPairAnalysisOptions = {}): Promise<AnalysisResult> {
   const outcomes = options.outcomes ?? '0/1';
@@ -72,6 +76,8 @@ export async function analyseStationPair(a: LogSource, b: LogSource, options: St
     return withStations(invalidResult(problems.slice(0, LISTED_PROBLEMS), count, context), { files, join: null, alignment: null, timing: null });
   }
   const timingShown = timing !== null && files.every((file) => file.hasTimes) ? timing.summary() : null;
+  const untimedStations = files.filter((file) => !file.hasTimes).map((file) => file.station);
+  const timingRefusal = pairTimingRefusal(request.profile, { geometry: timing !== null, untimedStations });
 
   const scan = await scanOffsets(readStationLog(a, 'A', outcomes).rows, readStationLog(b, 'B', outcomes).rows, {
     centre: statedOffset?.rounds ?? 0,
@@ -79,8 +85,9 @@ export async function analyseStationPair(a: LogSource, b: LogSource, options: St
   });
   const alignment = alignmentSummary(decideAlignment(scan), scan.roundsRead);
   const stations: StationPairSummary = { files, join: first.join, alignment, timing: timingShown };
-  if (alignment.shifted) {
-    return withStations(refusedResult([alignment.sentence], [], 0, context), stations);
+  const refusals = [...(timingRefusal === null ? [] : [timingRefusal]), ...(alignment.shifted ? [alignment.sentence] : [])];
+  if (refusals.length > 0) {
+    return withStations(refusedResult(refusals, [], 0, context), stations);
   }
 
   // Every record holds a row, so the span exists.
@@ -95,7 +102,8 @@ export async function analyseStationPair(a: LogSource, b: LogSource, options: St
     throw new AnalysisRequestError('a station log changed while it was being analysed', 'io');
   }
   const summary = analysis.summary();
-  const result = summary.problemCount > 0 ? invalidResult(summary.problems, summary.problemCount, context) : assembleResult(summary, context, span);
+  const findings = timingShown === null ? [] : [spaceLikeFinding(timingShown, request.profile)];
+  const result = summary.problemCount > 0 ? invalidResult(summary.problems, summary.problemCount, context) : assembleResult(summary, context, { span, findings });
   return withStations(result, stations);
 }
 
@@ -121,12 +129,15 @@ async function joinPass(
  * joined rounds; gzip when either file is. Each file's own figures are in `stations.files`.
  */
 function pairInput(files: readonly StationFileSummary[], joinedRounds: number, mapping: InputSummary['mapping']): InputSummary {
-  const sha256 = createHash('sha256')
-    .update(files.map((file) => `${file.sha256}\n`).join(''))
-    .digest('hex');
+  const sha256 = stationPairDigest(files[0].sha256, files[1].sha256);
   const bytes = files.reduce((total, file) => total + file.bytes, 0);
   const compression = files.some((file) => file.compression === 'gzip') ? 'gzip' : 'none';
   return { sha256, bytes, rounds: joinedRounds, compression, mapping };
+}
+
+/** The one SHA-256 that names two station logs: of station A's digest then B's, hex, each ending in a line feed. */
+export function stationPairDigest(stationASha256: string, stationBSha256: string): string {
+  return createHash('sha256').update(`${stationASha256}\n${stationBSha256}\n`).digest('hex');
 }
 
 /** Runs a check of the caller's stated offset or geometry, its RangeError becoming a request error. */

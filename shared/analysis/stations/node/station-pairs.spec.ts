@@ -57,7 +57,7 @@ describe('two station logs from the generator', () => {
     expect(Math.abs(decision.atCentre.chshValue ?? NaN)).toBeLessThan(0.3);
     const rounds = Math.abs(shift);
     expect(alignmentSentence(decision)).toMatch(
-      new RegExp(`^Station B's record runs ${rounds} rounds? ${shift > 0 ? 'ahead of' : 'behind'} station A's: at that offset S = 2\\.\\d\\d, at zero -?0\\.\\d\\d\\.$`),
+      new RegExp(`^Station B's record runs ${rounds} rounds? ${shift > 0 ? 'ahead of' : 'behind'} station A's: at that offset S = 2\\.\\d\\d, at zero −?0\\.\\d\\d\\.$`),
     );
   });
 
