@@ -22,9 +22,11 @@ export async function up({ queryInterface, transaction }: MigrationContext): Pro
   }
   for (const setup of DEMO_SETUPS) {
     const { id } = await one<{ id: number }>(
-      `INSERT INTO setups (name, description, station_a_label, station_b_label, default_profile_id, extra_recipients)
+      `INSERT INTO setups (name, description, station_a_label, station_b_label, default_profile_id, extra_recipients,
+                           station_distance_m, clock_offset_ns, clock_uncertainty_ns)
        VALUES (:name, :description, :stationA, :stationB, (SELECT id FROM profiles WHERE name = :profile),
-               ARRAY(SELECT jsonb_array_elements_text(CAST(:extra AS jsonb)))::varchar[])
+               ARRAY(SELECT jsonb_array_elements_text(CAST(:extra AS jsonb)))::varchar[],
+               :distance, :clockOffset, :clockUncertainty)
        RETURNING id`,
       {
         name: setup.name,
@@ -33,6 +35,9 @@ export async function up({ queryInterface, transaction }: MigrationContext): Pro
         stationB: setup.stationBLabel,
         profile: setup.profile,
         extra: JSON.stringify(setup.extraRecipients),
+        distance: setup.geometry?.stationDistanceM ?? null,
+        clockOffset: setup.geometry?.clockOffsetNs ?? null,
+        clockUncertainty: setup.geometry?.clockUncertaintyNs ?? null,
       },
     );
     await queryInterface.sequelize.query('INSERT INTO setup_shift_leads (setup_id, user_id) SELECT :id, id FROM users WHERE email IN (:leads)', {

@@ -1,3 +1,4 @@
+import { KESTREL_FEN_TIMING } from '@fixtures/stations/station-pair';
 import type { AnalysisProfileInput } from '@shared/analysis';
 
 /** The demo lab's two acceptance profiles (values within the trade's usual ranges; common practice, no source). */
@@ -31,6 +32,8 @@ export const DEMO_SETUPS = [
     profile: 'Nightly standard',
     shiftLeads: ['lucia.brandt@kestrelfen.example', 'ada.reyes@kestrelfen.example'],
     extraRecipients: ['night-desk@kestrelfen.example'],
+    // 1.3 km in a straight line, and the stations' clock comparison (the two-station fixtures' timing).
+    geometry: KESTREL_FEN_TIMING.geometry,
   },
   {
     name: 'Mill Lane bench',
@@ -40,5 +43,6 @@ export const DEMO_SETUPS = [
     profile: 'Certified key',
     shiftLeads: ['ada.reyes@kestrelfen.example'],
     extraRecipients: [],
+    geometry: null,
   },
 ] as const;

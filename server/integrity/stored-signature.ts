@@ -1,5 +1,6 @@
 import type { ResultSignatureDto } from '@shared/api';
 import type { RunRecord } from '../runs/run.model';
+import { signedInputSha256 } from '../runs/station-pair-record';
 
 /** The signature stored with a run's result, with the statement it covers rebuilt from the run. */
 export function storedSignature(run: RunRecord): ResultSignatureDto | null {
@@ -7,7 +8,7 @@ export function storedSignature(run: RunRecord): ResultSignatureDto | null {
   return {
     algorithm: 'Ed25519',
     keyId: run.signingKeyId.trim(),
-    statement: { runId: run.id, fileSha256: run.fileSha256, fingerprint: run.result.fingerprint, signedAt: run.signedAt.toISOString() },
+    statement: { runId: run.id, fileSha256: signedInputSha256(run), fingerprint: run.result.fingerprint, signedAt: run.signedAt.toISOString() },
     signature: run.signature,
   };
 }

@@ -91,7 +91,9 @@ export function createVerificationService(models: Models, logStore: LogStore, si
       if (!VERDICT_STATES.includes(run.state) || !run.result) {
         throw HttpError.conflict(`Run ${runId} is ${run.state}: only a run with a stored result can be verified.`);
       }
-      const checks = [fingerprintCheck(run.result), await signatureCheck(run), await archiveCheck(run.fileSha256), await trailCheck()];
+      const files = run.stationBSha256 ? [run.fileSha256, run.stationBSha256] : [run.fileSha256];
+      const archive = await Promise.all(files.map((sha256) => archiveCheck(sha256)));
+      const checks = [fingerprintCheck(run.result), await signatureCheck(run), ...archive, await trailCheck()];
       return { runId, checkedAt: new Date().toISOString(), intact: checks.every((check) => check.passed), checks };
     },
   };

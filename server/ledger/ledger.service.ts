@@ -2,12 +2,14 @@ import { QueryTypes, type Sequelize } from 'sequelize';
 import {
   LEDGER_DEFAULT_NIGHTS,
   LEDGER_MAX_NIGHTS,
+  otherStation,
   type LedgerCellDto,
   type LedgerDto,
   type LedgerQuery,
   type Role,
   type RunState,
   type SignOffDecision,
+  type StationName,
   type Verdict,
   type WorkItemDto,
   type WorklistDto,
@@ -87,14 +89,22 @@ export function createLedgerService(sequelize: Sequelize): LedgerService {
           ORDER BY r.setup_id, r.acquired_on, r.id DESC`,
         { from, to },
       );
+      // A station's log waiting for the other station's: its night waits for that station.
+      const waiting = await select<{ setup_id: number; night: string; station: StationName }>(
+        `SELECT l.setup_id, to_char(coalesce(b.night, l.acquired_on), 'YYYY-MM-DD') AS night, l.station
+           FROM station_logs l LEFT JOIN bookings b ON b.id = l.booking_id
+          WHERE l.run_id IS NULL AND l.superseded_by IS NULL AND coalesce(b.night, l.acquired_on) BETWEEN :from AND :to`,
+        { from, to },
+      );
       const cells = new Map<string, LedgerCellDto>();
       const cellOf = (setupId: number, night: string) => {
         const key = `${setupId} ${night}`;
         let cell = cells.get(key);
-        if (!cell) cells.set(key, (cell = { night, bookingId: null, attempts: 0, run: null }));
+        if (!cell) cells.set(key, (cell = { night, bookingId: null, attempts: 0, run: null, waitingFor: null }));
         return cell;
       };
       for (const booking of bookings) cellOf(booking.setup_id, booking.night).bookingId = booking.id;
+      for (const log of waiting) cellOf(log.setup_id, log.night).waitingFor = otherStation(log.station);
       for (const run of runs) {
         const cell = cellOf(run.setup_id, run.night);
         cell.attempts++;

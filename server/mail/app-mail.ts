@@ -3,6 +3,7 @@ import type { Mailer, OutgoingMail } from './mailer';
 import { faultLines, oneLine } from '../system/fault-lines';
 import { log } from '../system/log';
 import { HttpError } from '../http/http-error';
+import { stationFilesText } from '../reports/station-words';
 
 /** The mails the API sends itself (the verdict mail is the worker's). */
 export interface AppMail {
@@ -74,11 +75,12 @@ export function createAppMail(mailer: Mailer, publicUrl: string): AppMail {
     withdrawn(run, withdrawal, recipients) {
       if (recipients.length === 0) return;
       const outcome = run.verdict === null ? `before its analysis ended (${run.state})` : `after its verdict (${run.verdict})`;
+      const files = run.stations ? stationFilesText(run.file.originalName, run.stations.stationB.originalName) : run.file.originalName;
       send({
         to: recipients.join(', '),
         subject: `Run ${run.id} of ${run.setupName} was withdrawn as a mistaken upload; it needs no sign-off`,
         text: [
-          `${withdrawal.userName} withdrew run ${run.id} of ${run.setupName} (${run.file.originalName}, acquired ${run.acquiredOn ?? 'on an unrecorded date'}) ${outcome}.`,
+          `${withdrawal.userName} withdrew run ${run.id} of ${run.setupName} (${files}, acquired ${run.acquiredOn ?? 'on an unrecorded date'}) ${outcome}.`,
           '',
           `Why: ${withdrawal.reason}`,
           '',

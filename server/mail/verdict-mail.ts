@@ -4,6 +4,7 @@ import { bookingWords } from '@shared/format/booking-words';
 import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '@shared/format/numbers';
 import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words';
 import { missingRoundsWords } from '../reports/missing-rounds-words';
+import { SHIFT_REMEDY, stationFilesText, statedOffsetSentence, TIMING_CAUTION, timingNotCheckedSentence, timingSentence } from '../reports/station-words';
 import { mailHtml, mailText, type MailBlock } from './mail-blocks';
 import type { OutgoingMail } from './mailer';
 import { verdictSentence } from '@shared/format/verdict-sentence';
@@ -13,9 +14,11 @@ const SUBJECT_VERDICT = { ACCEPT: 'ACCEPT', ABORT: 'ABORT', INVALID: 'no verdict
 
 /**
  * The verdict mail of a finished run: a subject that says, in a sentence, which run of which setup
- * was analysed (its attempt, or that it was unbooked), the verdict, and that it awaits sign-off; booked or unbooked with the attempts; the uploader's notes; the reasons for an abort; the key figures with their bounds, the missing rounds when any, the key figure's total
- * ε and attack model, and the caution of each model shown; the checks that failed or warned; a
- * link straight to the run's sign-off.
+ * was analysed (its attempt, or that it was unbooked), the verdict, and that it awaits sign-off;
+ * booked or unbooked with the attempts; the uploader's notes; for two station logs, both files, the
+ * stated offset, a shift found and the timing; the reasons for an abort; the key figures with their
+ * bounds, the missing rounds when any, the key figure's total ε and attack model, and the caution of
+ * each model shown; the checks that failed or warned; a link straight to the run's sign-off.
  */
 export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: string[]): OutgoingMail & { html: string } {
   const result = run.result;
@@ -32,11 +35,12 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
     },
     ...listUnlessEmpty(`${booking.state}:`, [booking.headline, ...booking.details]),
     ...(run.notes.trim() ? [{ kind: 'paragraph', text: `Uploader’s notes: ${run.notes.trim()}` } as const] : []),
+    ...stationBlocks(run, result),
     ...listUnlessEmpty('Reasons:', result.reasons),
     ...listUnlessEmpty('Figures:', figureLines(result), result.key ? keyCautions(result.key) : []),
     ...listUnlessEmpty('Checks that failed:', messagesOf('fail')),
     ...listUnlessEmpty('Checks that warned:', messagesOf('warn')),
-    ...(verdict === 'INVALID'
+    ...(verdict === 'INVALID' && result.errorCount > 0
       ? [{ kind: 'paragraph', text: `The log has ${formatCount(result.errorCount)} problem(s); the first: ${result.errors[0]?.message ?? 'see the run page'}` } as const]
       : []),
     { kind: 'link', text: 'Sign it off', label: `Sign off run ${run.id}`, url: `${publicUrl}/runs/${run.id}#sign-off` },
@@ -52,6 +56,25 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
 /** A list block, or none when it has no items. */
 function listUnlessEmpty(heading: string, items: readonly string[], notes: readonly string[] = []): MailBlock[] {
   return items.length > 0 ? [{ kind: 'list', heading, items, notes }] : [];
+}
+
+/**
+ * A run of two station logs: both files, the offset a shift lead stated with the reason, the
+ * alignment check's sentence when it refused the run, and the timing figures (with their caution)
+ * or why the timing was not checked. None for a joined log.
+ */
+function stationBlocks(run: RunDto, result: AnalysisResult): MailBlock[] {
+  const pair = result.stations;
+  if (run.stations === null || pair === undefined) return [];
+  const offset = statedOffsetSentence(pair, run.stations);
+  const shifted = pair.alignment?.shifted === true ? [`Alignment check: ${pair.alignment.sentence} ${SHIFT_REMEDY}`] : [];
+  const items = [
+    `Files: ${stationFilesText(run.file.originalName, run.stations.stationB.originalName)}.`,
+    ...(offset === null ? [] : [offset]),
+    ...shifted,
+    pair.timing === null ? timingNotCheckedSentence(pair, run.stations) : timingSentence(pair.timing),
+  ];
+  return listUnlessEmpty('Two station logs:', items, pair.timing === null ? [] : [TIMING_CAUTION]);
 }
 
 /**

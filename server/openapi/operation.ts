@@ -26,8 +26,8 @@ export interface Operation {
   status?: number;
   response?: z.ZodType;
   media?: { type: string; description: string };
-  /** Another success answer, e.g. the last PATCH of a resumable upload. */
-  alsoAnswers?: { status: number; description: string; response?: z.ZodType };
+  /** Other success answers, e.g. the last PATCH of a resumable upload. */
+  alsoAnswers?: { status: number; description: string; response?: z.ZodType }[];
   /** The error statuses the operation answers besides the access refusals, each with its reason. */
   errors?: Record<number, string>;
 }
@@ -90,7 +90,7 @@ export function registerOperation(registry: OpenAPIRegistry, operation: Operatio
     },
     responses: {
       [status]: success,
-      ...(operation.alsoAnswers && { [operation.alsoAnswers.status]: jsonAnswer(operation.alsoAnswers.description, operation.alsoAnswers.response) }),
+      ...Object.fromEntries((operation.alsoAnswers ?? []).map((answer) => [answer.status, jsonAnswer(answer.description, answer.response)])),
       ...Object.fromEntries(Object.entries(errors).map(([code, reason]) => [code, errorResponse(reason)])),
     },
   });

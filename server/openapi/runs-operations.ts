@@ -6,8 +6,11 @@ import {
   runListQuerySchema,
   runPageSchema,
   runSchema,
+  realignRequestSchema,
   signOffRequestSchema,
   signOffSchema,
+  stationLogQuerySchema,
+  stationLogSchema,
   verificationSchema,
   withdrawalSchema,
   withdrawRequestSchema,
@@ -26,10 +29,15 @@ const ACQUISITION_RECIPE = `**Acquisition recipe** (an acquisition computer with
 1. Before the night, someone who may book (experimentalist, shift lead, admin) books it with \`POST /api/bookings\`: the seed is drawn then and only its commitment is shown.
 2. An admin or a shift lead of the setup makes an upload token with \`POST /api/setups/{id}/upload-tokens\` and puts it on the acquisition computer; it is shown once.
 3. After the night the computer sends the log with \`Authorization: Bearer bkup_…\` as \`multipart/form-data\` (the file in field \`log\`, then \`setupId\` and, for a replacement, \`replacementReason\`), with an \`Idempotency-Key\` so a retry never makes a second run; or as a resumable tus 1.0 upload at \`/api/uploads\` with the same fields as metadata.
-4. The upload joins the booking it names, else the setup's booking of its \`acquiredOn\` night, else the booking whose window is open or closed less than 24 h ago, and is analysed under the booking's seed and profile. The run's state goes \`queued\` → \`analysing\` → \`accepted\`, \`aborted\`, \`invalid\` (or \`failed\`); poll \`GET /api/runs/{id}\`. The verdict mail goes to the setup's shift leads.`;
+4. The upload joins the booking it names, else the setup's booking of its \`acquiredOn\` night, else the booking whose window is open or closed less than 24 h ago, and is analysed under the booking's seed and profile. The run's state goes \`queued\` → \`analysing\` → \`accepted\`, \`aborted\`, \`invalid\` (or \`failed\`); poll \`GET /api/runs/{id}\`. The verdict mail goes to the setup's shift leads.
+5. Two stations, two logs: each station's computer (a token made with \`station\` A or B) sends its own log with the field \`station\`; the first gets 202 and waits, the second makes the run (201). Unbooked station logs need \`acquiredOn\`: the night pairs them.`;
 
 // The form's fields as documented; `seed` is left out, and refused when sent.
 const multipartUpload = uploadFieldsSchema.omit({ seed: true }).extend({ log: z.string().meta({ format: 'binary', description: 'The round log (CSV, or gzip of it).' }) });
+
+/** What a station's log gets while the other station's log of its night is still to come. */
+const STATION_WAITS =
+  "A station's log (field `station`) whose night still waits for the other station's log: the log, kept and waiting. The other station's log then makes the run (201).";
 
 /** The tus servers' refusal of a request without its protocol version. */
 const TUS_VERSION = 'No `Tus-Resumable: 1.0.0` header: the request is not of tus 1.0.';
@@ -48,7 +56,10 @@ export const RUNS_OPERATIONS: Operation[] = [
     bodyType: 'multipart/form-data',
     status: 201,
     response: runSchema,
-    alsoAnswers: { status: 200, description: 'A repeat with the Idempotency-Key of a run already made: that run.', response: runSchema },
+    alsoAnswers: [
+      { status: 200, description: 'A repeat with the Idempotency-Key of a run already made: that run.', response: runSchema },
+      { status: 202, description: STATION_WAITS, response: stationLogSchema },
+    ],
     errors: {
       403: 'The uploader may not upload here: another setup’s token, or a profile chosen against the booking.',
       409: 'A replay of an earlier run’s bytes, a window not yet open, or the same Idempotency-Key still being received.',
@@ -88,6 +99,29 @@ export const RUNS_OPERATIONS: Operation[] = [
     status: 201,
     response: signOffSchema,
     errors: { ...NO_RUN, 409: 'The run has no verdict yet, or is signed off already.' },
+  },
+  {
+    method: 'get',
+    path: '/api/runs/station-logs',
+    summary: 'Station logs, newest first (200 at most)',
+    description: "Each station's own log of a night; `waiting=true`: only those still waiting for the other station's log.",
+    tags: ['Runs'],
+    access: 'signed-in',
+    query: stationLogQuerySchema,
+    response: z.array(stationLogSchema),
+  },
+  {
+    method: 'post',
+    path: '/api/runs/{id}/realign',
+    summary: 'Re-run a pair of station logs at a stated offset',
+    description:
+      "By a shift lead of the run's setup, with a written reason: station A's round r is paired with station B's round r + offset. A new run of the same two logs under the same seed and profile, the next attempt of its booking; the result, mail and PDF show the offset. Bellkeep never realigns by itself.",
+    tags: ['Runs'],
+    access: ['shift-lead'],
+    body: realignRequestSchema,
+    status: 201,
+    response: runSchema,
+    errors: { ...NO_RUN, 403: 'Not a shift lead of the run’s setup.', 409: 'The run is one joined log.' },
   },
   {
     method: 'post',
@@ -177,7 +211,10 @@ export const RUNS_OPERATIONS: Operation[] = [
     tags: ['Runs'],
     access: 'uploader',
     status: 204,
-    alsoAnswers: { status: 201, description: 'The last bytes are in: the run they made.', response: runSchema },
+    alsoAnswers: [
+      { status: 201, description: 'The last bytes are in: the run they made.', response: runSchema },
+      { status: 202, description: `The last bytes of a station's log are in: ${STATION_WAITS}`, response: stationLogSchema },
+    ],
     errors: {
       404: 'No upload of this uploader has this id.',
       409: 'The offset is not where the upload stands.',

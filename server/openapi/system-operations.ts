@@ -50,7 +50,7 @@ export const SYSTEM_OPERATIONS: Operation[] = [
     tags: ['Operations'],
     access: 'public',
     response: readinessSchema,
-    alsoAnswers: { status: 503, description: 'Not ready: the body names the part that does not answer, or that the API is stopping.', response: readinessSchema },
+    alsoAnswers: [{ status: 503, description: 'Not ready: the body names the part that does not answer, or that the API is stopping.', response: readinessSchema }],
   },
   {
     method: 'get',

@@ -44,6 +44,15 @@ export function heading(doc: PDFKit.PDFDocument, title: string, keepWith = 48): 
   doc.y = rule + 5;
 }
 
+/** A title within a section, kept on a page with at least `keepWith` points of what follows. */
+export function subheading(doc: PDFKit.PDFDocument, title: string, keepWith = 40): void {
+  const { left, width } = textColumn(doc);
+  doc.y += 5;
+  ensureSpace(doc, TYPE.body + 4 + keepWith);
+  useType(doc, 'bold', TYPE.body, TONE.primary).text(title, left, doc.y, { width });
+  doc.y += 2;
+}
+
 /** Running text across the column. */
 export function paragraph(doc: PDFKit.PDFDocument, text: string, options: { font?: PdfFont; size?: number; colour?: string } = {}): void {
   const { left, width } = textColumn(doc);
@@ -139,25 +148,26 @@ export interface GridColumn {
 /** A cell of a `grid`: text, or text in a face and colour of its own. */
 export type GridCell = string | { text: string; font?: PdfFont; colour?: string };
 
+/** Space around the text of a `grid` cell. */
+const CELL_PADDING = 3;
+
 /** A table with a header row and hairlines between rows; rows that do not fit go on to the next page. */
 export function grid(doc: PDFKit.PDFDocument, columns: readonly GridColumn[], rows: readonly (readonly GridCell[])[]): void {
   const { left, width } = textColumn(doc);
-  const total = columns.reduce((sum, column) => sum + column.width, 0);
-  const widths = columns.map((column) => (column.width / total) * width);
-  const padding = 3;
+  const widths = columnWidths(doc, columns);
   const line = (cells: readonly GridCell[], header: boolean) => {
-    const parts = cells.map((cell) => (typeof cell === 'string' ? { text: cell } : cell));
-    const fontOf = (index: number) => (header ? 'bold' : (parts[index].font ?? 'body'));
-    const sizeOf = (index: number) => (fontOf(index) === 'mono' ? TYPE.mono : TYPE.body);
-    const height =
-      Math.max(...parts.map((part, index) => useType(doc, fontOf(index), sizeOf(index)).heightOfString(part.text, { width: widths[index] - 2 * padding }))) + 2 * padding;
+    const parts = cellParts(cells, header);
+    const height = rowHeight(doc, widths, cells, header);
     ensureSpace(doc, height);
     const top = doc.y;
     if (header) doc.rect(left, top, width, height).fill(TONE.fill);
     let x = left;
     parts.forEach((part, index) => {
       const colour = header ? TONE.muted : (part.colour ?? TONE.text);
-      useType(doc, fontOf(index), sizeOf(index), colour).text(part.text, x + padding, top + padding, { width: widths[index] - 2 * padding, align: columns[index].align ?? 'left' });
+      useType(doc, part.font, sizeOf(part.font), colour).text(part.text, x + CELL_PADDING, top + CELL_PADDING, {
+        width: widths[index] - 2 * CELL_PADDING,
+        align: columns[index].align ?? 'left',
+      });
       x += widths[index];
     });
     doc
@@ -174,4 +184,33 @@ export function grid(doc: PDFKit.PDFDocument, columns: readonly GridColumn[], ro
   );
   for (const row of rows) line(row, false);
   doc.y += 4;
+}
+
+/** The height `grid` takes for these rows, so a caller can keep a table on one page with what goes with it. */
+export function gridHeight(doc: PDFKit.PDFDocument, columns: readonly GridColumn[], rows: readonly (readonly GridCell[])[]): number {
+  const widths = columnWidths(doc, columns);
+  const header = columns.map((column) => column.header);
+  return rows.reduce((total, row) => total + rowHeight(doc, widths, row, false), rowHeight(doc, widths, header, true)) + 4;
+}
+
+function columnWidths(doc: PDFKit.PDFDocument, columns: readonly GridColumn[]): number[] {
+  const { width } = textColumn(doc);
+  const total = columns.reduce((sum, column) => sum + column.width, 0);
+  return columns.map((column) => (column.width / total) * width);
+}
+
+function cellParts(cells: readonly GridCell[], header: boolean): { text: string; font: PdfFont; colour?: string }[] {
+  return cells.map((cell) => {
+    const part = typeof cell === 'string' ? { text: cell } : cell;
+    return { ...part, font: header ? 'bold' : (part.font ?? 'body') };
+  });
+}
+
+function sizeOf(font: PdfFont): number {
+  return font === 'mono' ? TYPE.mono : TYPE.body;
+}
+
+function rowHeight(doc: PDFKit.PDFDocument, widths: readonly number[], cells: readonly GridCell[], header: boolean): number {
+  const heights = cellParts(cells, header).map((part, index) => useType(doc, part.font, sizeOf(part.font)).heightOfString(part.text, { width: widths[index] - 2 * CELL_PADDING }));
+  return Math.max(...heights) + 2 * CELL_PADDING;
 }

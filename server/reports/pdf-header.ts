@@ -19,7 +19,7 @@ export function writeHeader(doc: PDFKit.PDFDocument, report: RunReportDto): void
     { label: 'Stations', value: `A: ${run.stationA} · B: ${run.stationB}` },
     { label: 'Acquired', value: run.acquiredOn ?? 'not recorded' },
     { label: 'Uploaded by', value: `${run.uploadedBy}, ${formatInstant(run.createdAt)}` },
-    { label: 'File name', value: run.originalName },
+    report.stations ? { label: 'Station logs', value: `A: ${run.originalName} · B: ${report.stations.stationB.originalName}` } : { label: 'File name', value: run.originalName },
     { label: booking.state, value: [booking.headline, ...booking.details].join(' ') },
     ...(run.notes.trim() === '' ? [] : [{ label: 'Notes', value: run.notes.trim() }]),
   ]);

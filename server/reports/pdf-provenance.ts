@@ -11,12 +11,9 @@ import { formatInstant } from './pdf-dates';
  */
 export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): void {
   const { result, run, profile } = report;
-  const { input, selection } = result;
+  const { selection } = result;
   fields(doc, [
-    { label: 'File', value: run.originalName },
-    { label: 'File SHA-256', value: input.sha256, mono: true },
-    { label: 'Size', value: `${formatCount(input.bytes)} bytes, ${input.compression === 'gzip' ? 'gzip-compressed' : 'not compressed'}` },
-    { label: 'Rounds read', value: formatCount(input.rounds) },
+    ...(result.stations ? pairInputRows(report) : fileRows(report)),
     { label: 'Column mapping', value: mappingLine(result) },
     { label: 'Selection seed', value: report.seed, mono: true },
     { label: 'Test-round selection', value: selectionLine(result) },
@@ -31,6 +28,27 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
     { label: 'Analysis finished', value: formatInstant(run.finishedAt) },
     ...(run.duplicateOf === null ? [] : [{ label: 'Same bytes as', value: `run ${run.duplicateOf}` }]),
   ]);
+}
+
+/** The one log the run read. */
+function fileRows({ run, result: { input } }: RunReportDto): Field[] {
+  return [
+    { label: 'File', value: run.originalName },
+    { label: 'File SHA-256', value: input.sha256, mono: true },
+    { label: 'Size', value: `${formatCount(input.bytes)} bytes, ${input.compression === 'gzip' ? 'gzip-compressed' : 'not compressed'}` },
+    { label: 'Rounds read', value: formatCount(input.rounds) },
+  ];
+}
+
+/** The two station logs the run read, named by one digest of both (each file's own is under Two station logs). */
+function pairInputRows({ run, stations, result: { input } }: RunReportDto): Field[] {
+  return [
+    { label: 'Station logs', value: `A: ${run.originalName} · B: ${stations?.stationB.originalName ?? 'name not recorded'}` },
+    { label: 'SHA-256 of the pair', value: input.sha256, mono: true },
+    { label: '', value: "the SHA-256 of station A's SHA-256 then station B's, hex, each followed by a line feed" },
+    { label: 'Size', value: `${formatCount(input.bytes)} bytes in both files${input.compression === 'gzip' ? ', gzip-compressed in part or whole' : ', not compressed'}` },
+    { label: 'Rounds joined', value: formatCount(input.rounds) },
+  ];
 }
 
 /**

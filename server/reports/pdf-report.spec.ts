@@ -13,6 +13,8 @@ import { pdfFonts, pdfFontsEmbedded, pdfText } from '@tests/support/pdf-text';
 import { COLLECTIVE_ATTACK_CAUTION, KEY_CAUTION } from './attack-model-words';
 import { missingRoundsWords } from './missing-rounds-words';
 import { createPdfReport } from './pdf-report';
+import { TIMING_CAUTION } from './station-words';
+import { OFFSET_REASON, REALIGNED_FROM, STATION_FILE_NAMES, stationPairRun, type StationPairNight } from './testing/station-pair-runs';
 
 jest.setTimeout(60_000);
 
@@ -56,6 +58,14 @@ function signedReport(result: AnalysisResult): RunReportDto {
     signOff: { userId: 3, userName: 'Lucia Brandt', decision: 'key-kept', comment: SIGN_OFF_COMMENT, createdAt: SIGNED_OFF_AT },
     reverifications: [],
   };
+}
+
+/** The signed report of run 418 made of two station logs, station A's file the run's. */
+async function pairReport(night: StationPairNight): Promise<{ report: RunReportDto; text: string }> {
+  const { result, stations } = await stationPairRun(night);
+  const signed = signedReport(result);
+  const report: RunReportDto = { ...signed, run: { ...signed.run, originalName: STATION_FILE_NAMES.A }, stations };
+  return { report, text: await flatText(await pdfBytes(report)) };
 }
 
 async function pdfBytes(report: RunReportDto): Promise<Buffer> {
@@ -106,6 +116,7 @@ describe('the PDF report of a run', () => {
     });
 
     it('names the run, its setup, stations and file', () => {
+      expect(text).not.toContain('Two station logs');
       expect(text).toContain('Bellkeep run report');
       expect(text).toContain(`Run ${RUN_ID}`);
       expect(text).toContain(FEN_LINK.name);
@@ -343,6 +354,100 @@ describe('the PDF report of a run', () => {
     expect(text).toContain(flatten(invalid.reasons[0]));
     expect(text).toContain(`Line ${invalid.errors[0].line}`);
     expect(text).toContain(invalid.input.sha256);
+  });
+});
+
+describe('the PDF report of a run of two station logs', () => {
+  describe('with both logs timed and the setup’s geometry, station B’s clock slipping', () => {
+    let report: RunReportDto;
+    let text: string;
+
+    beforeAll(async () => {
+      ({ report, text } = await pairReport('clock-slips'));
+    });
+
+    it('names both logs in the header and the provenance, the pair by its one digest', () => {
+      expect(text).toContain(`Station logs A: ${STATION_FILE_NAMES.A} · B: ${STATION_FILE_NAMES.B}`);
+      expect(text).toContain(`SHA-256 of the pair ${report.result.input.sha256}`);
+      expect(text).not.toContain('File SHA-256');
+    });
+
+    it('gives each station’s file under its label: name, SHA-256, size, records and rounds, and what its record lacks', () => {
+      const [a, b] = report.result.stations!.files;
+      expect(text).toContain(`Two station logs Station A, ${FEN_LINK.stationALabel} ${STATION_FILE_NAMES.A} SHA-256 ${a.sha256}`);
+      expect(text).toContain(`Station B, ${FEN_LINK.stationBLabel} ${STATION_FILE_NAMES.B} SHA-256 ${b.sha256}`);
+      for (const file of [a, b]) {
+        expect(text).toContain(flatten(`${formatCount(file.bytes)} bytes, not compressed; 16 000 records, round indices 0–15 999 as written; with the time columns`));
+      }
+      expect(text).toContain('Lacks None of the rounds station B recorded.');
+      expect(text).toContain('Lacks None of the rounds station A recorded.');
+      expect(text).toContain(flatten('Joined 16 000 rounds both records hold, in round indices 0–15 999 (16 000 triggers), numbered as station A numbers them; 0 missing'));
+      expect(text).toContain('Stated offset None: the records are joined as written.');
+    });
+
+    it('tabulates S and the interval of |S| at each offset, the centre and the best other marked', () => {
+      const alignment = report.result.stations!.alignment!;
+      expect(alignment.shifted).toBe(false);
+      expect(text).toContain(flatten(`Alignment check No shift found ${alignment.sentence}`));
+      expect(text).toContain('Offset S |S| lies in Offset S |S| lies in Offset S |S| lies in');
+      const centre = alignment.series.find((point) => point.offset === 0)!;
+      expect(text).toMatch(new RegExp(`0 \\(centre\\) 2\\.\\d\\d ${centre.lower.toFixed(2)}–${centre.upper.toFixed(2)}`));
+      const best = alignment.series.find((point) => point.offset === alignment.bestOffset)!;
+      expect(text).toContain(`${alignment.bestOffset > 0 ? '+' : '−'}${Math.abs(alignment.bestOffset)} (best other)`);
+      expect(text).toContain(`${best.lower.toFixed(2)}–${best.upper.toFixed(2)}`);
+      for (const offset of [-16, 16]) expect(text).toMatch(new RegExp(`${offset < 0 ? '−' : '\\+'}16 −?\\d\\.\\d\\d 0\\.00–0\\.\\d\\d`));
+    });
+
+    it('gives the geometry, the smallest margin and the rounds that are not space-like, with the caution', () => {
+      const timing = report.result.stations!.timing!;
+      // d/c = 1 300 m / 299 792 458 m/s = 4 336.333… ns (hand-computed); the setup's clock figures as typed.
+      expect(text).toContain('Distance 1 300 m: light takes 4 336.333 ns');
+      expect(text).toContain("Clock offset station B's clock minus station A's, −123 456.789 ns ± 1.500 ns");
+      // About 2.73 µs less the 5 µs slip: −2.27 µs, at station B's outcome.
+      expect(text).toMatch(new RegExp(`Smallest margin −2 2\\d\\d\\.\\d{3} ns \\(round ${flatten(formatCount(timing.smallestMargin!.round))}, at station B's outcome\\)`));
+      expect(timing.notSpaceLike).toBeGreaterThan(0.007 * 16_000);
+      expect(timing.notSpaceLike).toBeLessThan(0.013 * 16_000);
+      expect(text).toMatch(
+        new RegExp(
+          `Not space-like ${flatten(formatCount(timing.notSpaceLike))} of 16 000 timed rounds \\((0\\.9\\d|1\\.\\d) %\\); the first: ${flatten(timing.firstNotSpaceLike.slice(0, 3).map(formatCount).join(', '))}`,
+        ),
+      );
+      expect(text).toContain(flatten(TIMING_CAUTION));
+      expect(text.indexOf(flatten(TIMING_CAUTION))).toBeGreaterThan(text.indexOf('Not space-like'));
+    });
+
+    it('tabulates the margins: the slipped rounds near −0.52 light times, the others near +0.63', () => {
+      const timing = report.result.stations!.timing!;
+      expect(text).toContain('Margin ÷ light time Not space-like Margin ÷ light time Space-like (−∞, −1] 0 (0, 0.1] 0');
+      expect(text).toContain(flatten(`(−0.6, −0.5] ${formatCount(timing.notSpaceLike)} (0.5, 0.6] 0`));
+      expect(text).toContain(flatten(`(−0.5, −0.4] 0 (0.6, 0.7] ${formatCount(16_000 - timing.notSpaceLike)}`));
+      expect(text).toContain('(−0.1, 0] 0 (1, ∞) 0');
+    });
+  });
+
+  it('gives the shift found with its table, and says the timing was not checked without the setup’s geometry', async () => {
+    const { report, text } = await pairReport('shifted');
+    expect(report.result.verdict).toBe('INVALID');
+    const alignment = report.result.stations!.alignment!;
+    expect(text).toMatch(/Alignment check Shift found Station B's record runs 3 rounds ahead of station A's: at that offset S = 2\.\d\d, at zero/);
+    expect(text).toMatch(/\+3 \(best other\) 2\.\d\d 2\.\d\d–2\.\d\d/);
+    const centre = alignment.series.find((point) => point.offset === 0)!;
+    expect(text).toMatch(new RegExp(`0 \\(centre\\) −?0\\.\\d\\d 0\\.00–${centre.upper.toFixed(2)}`));
+    // B's record runs 3 ahead: A lacks B's last three rounds, B lacks A's first three.
+    expect(text).toContain(flatten('Lacks 3 rounds station B recorded (the first: 16 000, 16 001, 16 002). Its longest gap: 3 rounds from round 16 000.'));
+    expect(text).toContain('Lacks 3 rounds station A recorded (the first: 0, 1, 2). Its longest gap: 3 rounds from round 0.');
+    expect(text).toContain('Timing check The timing was not checked: the setup had no distance between the stations or no clock offset when the run was made.');
+    expect(text).not.toContain(flatten(TIMING_CAUTION));
+  });
+
+  it('shows the offset a re-run stated, with its reason and the run it re-runs, and why a log without times left the timing unchecked', async () => {
+    const { report, text } = await pairReport('stated-offset');
+    expect(report.result.verdict).toBe('ACCEPT');
+    expect(text).toContain(flatten(`Stated offset Paired at offset −4, station A's round r with station B's round r − 4: ${OFFSET_REASON}. A re-run of run ${REALIGNED_FROM}.`));
+    expect(text).toMatch(/No shift found No offset from −20 to \+12 fits clearly better than the stated offset \(−4\)/);
+    expect(text).toMatch(/−4 \(centre\) 2\.\d\d/);
+    expect(text).toContain('without time columns');
+    expect(text).toContain("Timing check The timing was not checked: station B's log has no time columns (t_setting, t_outcome).");
   });
 });
 

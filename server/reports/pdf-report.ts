@@ -15,14 +15,24 @@ import { writeSettingPairs } from './pdf-setting-pairs';
 import { writeSettingsTable } from './pdf-settings-table';
 import { writeSignOff } from './pdf-sign-off';
 import { writeSignature } from './pdf-signature';
+import { isStationPair, writeStations } from './pdf-stations';
 import { PAGE } from './pdf-style';
 import { writeVerdict, writeWithdrawn } from './pdf-verdict';
 
-/** The sections after the verdict, in order; `keepWith` keeps a title on the page of its first lines. */
-const SECTIONS: ReadonlyArray<{ title: string; keepWith?: number; write: (doc: PDFKit.PDFDocument, report: RunReportDto) => void }> = [
+/**
+ * The sections after the verdict, in order; `keepWith` keeps a title on the page of its first lines;
+ * `shown`, when given, says whether the report has the section at all.
+ */
+const SECTIONS: ReadonlyArray<{
+  title: string;
+  keepWith?: number;
+  shown?: (report: RunReportDto) => boolean;
+  write: (doc: PDFKit.PDFDocument, report: RunReportDto) => void;
+}> = [
   { title: 'Acceptance criteria', write: (doc, report) => writeCriteria(doc, report.result) },
   { title: 'CHSH by setting pair', keepWith: 110, write: (doc, report) => writeSettingPairs(doc, report.result) },
   { title: 'Missing rounds', write: (doc, report) => writeMissingRounds(doc, report.result) },
+  { title: 'Two station logs', keepWith: 90, shown: isStationPair, write: writeStations },
   { title: 'Bell-test statistics and key estimates', write: (doc, report) => writeFigures(doc, report.result) },
   { title: 'Security parameters', keepWith: 110, write: (doc, report) => writeSecurity(doc, report.result) },
   { title: 'Drift across the run', keepWith: 170, write: (doc, report) => writeDriftChart(doc, report.result) },
@@ -59,6 +69,7 @@ export function createPdfReport(report: RunReportDto): PDFKit.PDFDocument {
   writeVerdict(doc, report.result);
   if (report.withdrawal) writeWithdrawn(doc, report.withdrawal);
   for (const section of SECTIONS) {
+    if (section.shown && !section.shown(report)) continue;
     heading(doc, section.title, section.keepWith);
     section.write(doc, report);
   }

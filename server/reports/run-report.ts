@@ -52,6 +52,7 @@ export async function buildRunReport(runId: number, exportedBy: string, deps: Ru
     publicKey: run.signature ? await deps.signingKeys.find(run.signature.keyId) : null,
     signOff: run.signOff,
     withdrawal: run.withdrawal,
+    stations: run.stations,
     reverifications: await deps.reverifications.list(runId),
   };
 }

@@ -108,12 +108,18 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
       let received: ReceivedRunLog | undefined;
       try {
         received = await receiveUpload(logStore, fs.createReadStream(path.join(directory, upload.id)));
-        const run = await runs.create({ ...fieldsOf(upload), originalName: upload.metadata?.filename ?? '', log: received }, who);
-        await sequelize.query('INSERT INTO upload_keys (uploader, idempotency_key, run_id) VALUES (:uploader, :key, :runId)', {
-          replacements: { uploader: uploaderKey(who), key: finishedKey(upload.id), runId: run.id },
-        });
+        const { station, ...fields } = fieldsOf(upload);
+        const named = { ...fields, originalName: upload.metadata?.filename ?? '', log: received };
+        const arrival = station === undefined ? { run: await runs.create(named, who), stationLog: null } : await runs.receiveStationLog({ ...named, station }, who);
+        if (arrival.run !== null) {
+          await sequelize.query('INSERT INTO upload_keys (uploader, idempotency_key, run_id) VALUES (:uploader, :key, :runId)', {
+            replacements: { uploader: uploaderKey(who), key: finishedKey(upload.id), runId: arrival.run.id },
+          });
+        }
         await forget(upload.id);
-        return { res: response, status_code: 201, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(run) };
+        // A station's log that waits for the other station's is accepted (202), not yet a run.
+        const [status, body] = arrival.run === null ? [202, arrival.stationLog] : [201, arrival.run];
+        return { res: response, status_code: status, headers: { 'Content-Type': 'application/json' }, body: JSON.stringify(body) };
       } catch (error) {
         if (!(error instanceof HttpError)) throw error;
         // Refused for good: the same bytes and fields would be refused again. Or the disk is full:

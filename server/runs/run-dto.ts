@@ -28,6 +28,7 @@ export interface RunRow {
   attempt: number | null;
   replay_of: number | null;
   signed_off: boolean;
+  station_pair: boolean;
   withdrawn: boolean;
   file_sha256: string;
   fingerprint: string | null;
@@ -59,6 +60,7 @@ export function toRunSummary(row: RunRow): RunSummaryDto {
     attempt: row.attempt,
     replayOf: row.replay_of,
     signedOff: row.signed_off,
+    stationPair: row.station_pair,
     withdrawn: row.withdrawn,
     fileSha256: row.file_sha256,
     fingerprint: row.fingerprint,
@@ -83,6 +85,7 @@ export interface RunDetails {
   fourEyes: boolean;
   deliveries: MailDeliveryDto[];
   booking: RunDto['booking'];
+  stations: RunDto['stations'];
 }
 
 export function toRunDto(row: RunRow, details: RunDetails): RunDto {

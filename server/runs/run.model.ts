@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
 import type { AnalysisResult, LogCensus } from '@shared/analysis';
-import type { RunState, SignOffDecision, Verdict } from '@shared/api';
+import type { RunState, SignOffDecision, StationGeometryDto, StationName, Verdict } from '@shared/api';
 
 export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAttributes<RunRecord>> {
   declare id: CreationOptional<number>;
@@ -38,6 +38,34 @@ export class RunRecord extends Model<InferAttributes<RunRecord>, InferCreationAt
   /** Written every WORKER_HEARTBEAT_SECONDS by the worker analysing the run. */
   declare heartbeatAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
+  /** A run of two station logs: station B's file (`fileSha256` is station A's) and its name. */
+  declare stationBSha256: CreationOptional<string | null>;
+  declare stationBName: CreationOptional<string | null>;
+  /** A shift lead's stated offset k (A's round r with B's round r + k) and why; null: as recorded. */
+  declare stationOffset: CreationOptional<number | null>;
+  declare offsetReason: CreationOptional<string | null>;
+  /** The setup's distance and clock offset when the run was made; null: the timing is not checked. */
+  declare stationGeometry: CreationOptional<StationGeometryDto | null>;
+  /** The run this one re-runs at a stated offset. */
+  declare realignedFrom: CreationOptional<number | null>;
+}
+
+/** One station's uploaded log: waiting for the other station's of the night, then joined into a run. */
+export class StationLogRecord extends Model<InferAttributes<StationLogRecord>, InferCreationAttributes<StationLogRecord>> {
+  declare id: CreationOptional<number>;
+  declare setupId: number;
+  declare station: StationName;
+  declare bookingId: number | null;
+  declare acquiredOn: string | null;
+  declare fileSha256: string;
+  declare originalName: string;
+  declare uploadedBy: number | null;
+  declare uploadTokenId: number | null;
+  declare notes: CreationOptional<string>;
+  declare mapping: Record<string, unknown> | null;
+  declare runId: CreationOptional<number | null>;
+  declare supersededBy: CreationOptional<number | null>;
+  declare createdAt: CreationOptional<Date>;
 }
 
 export class ArchiveFileRecord extends Model<InferAttributes<ArchiveFileRecord>, InferCreationAttributes<ArchiveFileRecord>> {
@@ -79,9 +107,10 @@ export interface RunModels {
   SignOff: ModelStatic<SignOffRecord>;
   Withdrawal: ModelStatic<WithdrawalRecord>;
   MailDelivery: ModelStatic<MailDeliveryRecord>;
+  StationLog: ModelStatic<StationLogRecord>;
 }
 
-/** `runs`, the `archive_files` they read, their sign-offs, withdrawals and verdict-mail deliveries. */
+/** `runs`, the `archive_files` they read, their sign-offs, withdrawals and verdict-mail deliveries, and the `station_logs` waiting to become runs. */
 export function defineRunModels(sequelize: Sequelize): RunModels {
   class Run extends RunRecord {}
   Run.init(
@@ -116,6 +145,12 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
       startedAt: { type: DataTypes.DATE, field: 'started_at' },
       heartbeatAt: { type: DataTypes.DATE, field: 'heartbeat_at' },
       finishedAt: { type: DataTypes.DATE, field: 'finished_at' },
+      stationBSha256: { type: DataTypes.CHAR(64), field: 'station_b_sha256' },
+      stationBName: { type: DataTypes.STRING(255), field: 'station_b_name' },
+      stationOffset: { type: DataTypes.INTEGER, field: 'station_offset' },
+      offsetReason: { type: DataTypes.TEXT, field: 'offset_reason' },
+      stationGeometry: { type: DataTypes.JSONB, field: 'station_geometry' },
+      realignedFrom: { type: DataTypes.INTEGER, field: 'realigned_from' },
     },
     { sequelize, tableName: 'runs', modelName: 'Run', updatedAt: false },
   );
@@ -169,5 +204,25 @@ export function defineRunModels(sequelize: Sequelize): RunModels {
     },
     { sequelize, tableName: 'mail_deliveries', modelName: 'MailDelivery', createdAt: 'attemptedAt', updatedAt: false },
   );
-  return { Run, ArchiveFile, SignOff, Withdrawal, MailDelivery };
+  class StationLog extends StationLogRecord {}
+  StationLog.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      setupId: { type: DataTypes.INTEGER, allowNull: false, field: 'setup_id' },
+      station: { type: DataTypes.CHAR(1), allowNull: false },
+      bookingId: { type: DataTypes.INTEGER, field: 'booking_id' },
+      acquiredOn: { type: DataTypes.DATEONLY, field: 'acquired_on' },
+      fileSha256: { type: DataTypes.CHAR(64), allowNull: false, field: 'file_sha256' },
+      originalName: { type: DataTypes.STRING(255), allowNull: false, field: 'original_name' },
+      uploadedBy: { type: DataTypes.INTEGER, field: 'uploaded_by' },
+      uploadTokenId: { type: DataTypes.INTEGER, field: 'upload_token_id' },
+      notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      mapping: { type: DataTypes.JSONB },
+      runId: { type: DataTypes.INTEGER, field: 'run_id' },
+      supersededBy: { type: DataTypes.INTEGER, field: 'superseded_by' },
+      createdAt: { type: DataTypes.DATE, field: 'created_at' },
+    },
+    { sequelize, tableName: 'station_logs', modelName: 'StationLog', updatedAt: false },
+  );
+  return { Run, ArchiveFile, SignOff, Withdrawal, MailDelivery, StationLog };
 }

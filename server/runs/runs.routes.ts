@@ -1,5 +1,5 @@
 import { Router, type RequestHandler } from 'express';
-import { runListQuerySchema, signOffRequestSchema, withdrawRequestSchema } from '@shared/api';
+import { realignRequestSchema, runListQuerySchema, stationLogQuerySchema, signOffRequestSchema, withdrawRequestSchema } from '@shared/api';
 import type { Guards } from '../auth/passport';
 import type { Config } from '../config/config';
 import type { Models } from '../database/models';
@@ -16,7 +16,8 @@ import { uploadKeys } from './upload-keys';
 
 /**
  * `/api/runs`: experimentalists and upload tokens upload; everyone signed in reads; shift leads sign
- * off; an uploader or admin withdraws a mistaken upload (the service checks who).
+ * off or re-run a pair of station logs at a stated offset; an uploader or admin withdraws a mistaken
+ * upload (the service checks who). An upload with `station` is one station's own log.
  */
 export function runsRoutes(deps: {
   config: Config;
@@ -40,15 +41,31 @@ export function runsRoutes(deps: {
     }
     const file = uploadedLog(request);
     try {
-      const run = await runs.create({ ...fields.data, originalName: file.originalname, log: file.received }, request.uploader!);
-      await idempotency.recordRun(response, run.id);
-      response.status(201).json(run);
+      const { station, ...rest } = fields.data;
+      const upload = { ...rest, originalName: file.originalname, log: file.received };
+      if (station === undefined) {
+        const run = await runs.create(upload, request.uploader!);
+        await idempotency.recordRun(response, run.id);
+        return void response.status(201).json(run);
+      }
+      // A station's log: the run when it completes the night's pair (201), else the log waiting for the other station's (202).
+      const arrival = await runs.receiveStationLog({ ...upload, station }, request.uploader!);
+      if (arrival.run === null) {
+        await idempotency.release(response);
+        return void response.status(202).json(arrival.stationLog);
+      }
+      await idempotency.recordRun(response, arrival.run.id);
+      response.status(201).json(arrival.run);
     } catch (error) {
       await idempotency.release(response);
       throw error;
     } finally {
       await discardUpload(request);
     }
+  });
+
+  router.get('/station-logs', guards.requireSignIn, async (request, response) => {
+    response.json(await runs.stationLogs(validQuery(stationLogQuerySchema, request)));
   });
 
   router.get('/', guards.requireSignIn, async (request, response) => {
@@ -74,6 +91,10 @@ export function runsRoutes(deps: {
   router.post('/:id/sign-off', guards.requireRole('shift-lead'), validateBody(signOffRequestSchema), async (request, response) => {
     const signOff = await runs.signOff(idParameter(request, 'run'), request.body, request.user!);
     response.status(201).json(signOff);
+  });
+
+  router.post('/:id/realign', guards.requireRole('shift-lead'), validateBody(realignRequestSchema), async (request, response) => {
+    response.status(201).json(await runs.realign(idParameter(request, 'run'), request.body, request.user!));
   });
 
   router.post('/:id/withdraw', guards.requireSignIn, validateBody(withdrawRequestSchema), async (request, response) => {

@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import {
   FINISHED_STATES,
   VERDICT_STATES,
@@ -7,11 +7,17 @@ import {
   type RunPageDto,
   type RunSortKey,
   type SetupDto,
+  type RealignRequest,
+  type RunStationsDto,
   type SignOffDto,
   type SignOffRequest,
+  type StationLogDto,
+  type StationLogQuery,
+  type StationName,
   type WithdrawalDto,
   type WithdrawRequest,
 } from '@shared/api';
+import type { ColumnMapping } from '@shared/analysis';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { BookingRecord } from '../bookings/booking.model';
 import type { BookingsService } from '../bookings/bookings.service';
@@ -30,6 +36,7 @@ import type { RunRecord } from './run.model';
 import { toRunDto, toRunSummary, type RunRow } from './run-dto';
 import { AWAITING_SIGN_OFF } from './awaiting-sign-off';
 import { withdrawalOf, withdrawRun, type Withdrawer } from './run-withdrawals';
+import { createStationLogs, pairMapping, setupGeometry, stationMapping, stationOfUpload } from './station-logs';
 
 export interface NewRun {
   setupId: number;
@@ -47,14 +54,34 @@ export interface NewRun {
   log: ReceivedRunLog;
 }
 
+/** What became of a station's log: the run of the night's pair, or the log waiting for the other station's. */
+export type StationArrival = { run: RunDto; stationLog: StationLogDto } | { run: null; stationLog: StationLogDto };
+
+/** The files a run reads: one joined log, or station A's (`fileSha256`) and station B's with the setup's geometry. */
+type RunFiles = Pick<RunRecord, 'setupId' | 'fileSha256' | 'originalName' | 'mapping'> & Partial<Pick<RunRecord, 'stationBSha256' | 'stationBName' | 'stationGeometry'>>;
+
+/** At most `limit` characters as PostgreSQL counts them, code points: a cut between UTF-16 units could split a pair. */
+function codePoints(text: string, limit: number): string {
+  return [...text].slice(0, limit).join('');
+}
+
 export interface RunsService {
   create(run: NewRun, uploader: Uploader): Promise<RunDto>;
+  /**
+   * One station's own log of a night: kept until the other station's log of the same night (its
+   * booking, or unbooked its setup and date) is in, and then joined with it into one run.
+   */
+  receiveStationLog(run: NewRun & { station: StationName }, uploader: Uploader): Promise<StationArrival>;
+  /** Station logs, newest first: all, or those still waiting for the other station's. */
+  stationLogs(filter: StationLogQuery): Promise<StationLogDto[]>;
+  /** Re-runs a pair's two logs at a stated offset, on a shift lead's word and reason: a new attempt of the night. */
+  realign(id: number, request: RealignRequest, actor: { id: number; name: string }): Promise<RunDto>;
   /**
    * Refuses, before any byte is sent, what `create` would refuse for these fields whatever the
    * bytes: another setup's token, a chosen profile, a booking's window not yet open, a replacement
    * without a reason. A resumable upload asks this when it is created.
    */
-  refuseEarly(run: Omit<NewRun, 'log' | 'originalName'>, uploader: Uploader): Promise<void>;
+  refuseEarly(run: Omit<NewRun, 'log' | 'originalName'> & { station?: StationName }, uploader: Uploader): Promise<void>;
   list(filter: RunListQuery): Promise<RunPageDto>;
   get(id: number, transaction?: Transaction): Promise<RunDto>;
   /**
@@ -87,7 +114,7 @@ const RUN_SELECT = `
          (r.result #>> '{key,finiteKeyBits}')::float8 AS finite_key_bits,
          coalesce(u.name, 'upload token “' || t.name || '”') AS uploaded_by_name, r.booking_id, r.attempt, r.replay_of, to_char(r.acquired_on, 'YYYY-MM-DD') AS acquired_on,
          r.created_at, r.finished_at, r.duplicate_of, r.file_sha256, r.result ->> 'fingerprint' AS fingerprint,
-         EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off,
+         EXISTS (SELECT 1 FROM run_sign_offs o WHERE o.run_id = r.id) AS signed_off, r.station_b_sha256 IS NOT NULL AS station_pair,
          EXISTS (SELECT 1 FROM run_withdrawals w WHERE w.run_id = r.id) AS withdrawn
     FROM runs r
     JOIN setups s ON s.id = r.setup_id
@@ -108,6 +135,7 @@ export function createRunsService(deps: {
   audit: AuditTrail;
 }): RunsService {
   const { sequelize, models, logStore, queue, profiles, setups, bookings, audit } = deps;
+  const stationLogs = createStationLogs(models, audit);
 
   /** The setup an upload is for, which an upload token must be of. */
   async function uploadSetup(newRun: Pick<NewRun, 'setupId'>, uploader: Uploader): Promise<SetupDto> {
@@ -142,12 +170,7 @@ export function createRunsService(deps: {
         `These bytes are already run ${earlier.id}${earlier.bookingId === booking.id ? ` (attempt ${earlier.attempt} of this booking)` : ''}: a log is judged once, under one seed. Upload the night’s own log.`,
       );
     }
-    if (newRun.acquiredOn !== undefined && newRun.acquiredOn !== booking.night) {
-      throw HttpError.badRequest(`acquiredOn: booking ${booking.id} is the night of ${booking.night}, not ${newRun.acquiredOn}`, 'acquiredOn');
-    }
-    if (Date.now() < booking.windowStart.getTime()) {
-      throw HttpError.conflict(`Booking ${booking.id}’s acquisition window opens at ${booking.windowStart.toISOString()}; its log comes after.`);
-    }
+    refuseOutsideBooking(booking, newRun);
     const previous = await models.Run.findAll({ where: { bookingId: booking.id }, order: [['attempt', 'ASC']], transaction });
     const reason = newRun.replacementReason?.trim() ?? '';
     if (previous.length > 0 && reason === '') {
@@ -172,10 +195,99 @@ export function createRunsService(deps: {
    * before (they keep that run's seed, so uploading again draws nothing new). Bytes seen before
    * under a booking or another night are a replay, flagged.
    */
-  function unbookedPlace(newRun: NewRun, earlier: RunRecord | null) {
+  function unbookedPlace(newRun: Pick<NewRun, 'acquiredOn'>, earlier: RunRecord | null) {
     const acquiredOn = newRun.acquiredOn ?? null;
     const replay = earlier !== null && (earlier.bookingId !== null || earlier.acquiredOn !== acquiredOn);
     return { bookingId: null, attempt: null, replacementReason: null, acquiredOn, seed: earlier?.seed ?? drawSeed(), replayOf: replay ? earlier.id : null };
+  }
+
+  /**
+   * Keeps the uploaded logs in the archive and runs `work` in one transaction; when it fails, the
+   * bytes it archived for nothing are thrown away again (nothing may point at bytes of a run that
+   * was never made), and the error goes on.
+   */
+  async function keepingUpload<T>(logs: ReceivedRunLog[], work: (transaction: Transaction) => Promise<T>): Promise<T> {
+    const kept = await Promise.all(logs.map((log) => log.keep()));
+    try {
+      return await sequelize.transaction(work);
+    } catch (error) {
+      for (const [index, { isNew }] of kept.entries()) {
+        const { sha256 } = logs[index];
+        if (isNew && !(await models.ArchiveFile.findByPk(sha256))) await logStore.discard(sha256);
+      }
+      throw error;
+    }
+  }
+
+  /** The archive's row of a kept log, with the census taken at upload. */
+  async function archiveFile({ sha256, bytes, census }: ReceivedRunLog, transaction: Transaction): Promise<void> {
+    const [file] = await models.ArchiveFile.findOrCreate({ where: { sha256 }, defaults: { sha256, bytes, census }, transaction });
+    if (file.census === null && census !== null) await file.update({ census }, { transaction });
+  }
+
+  /** The earliest run that read any of these files, as a joined log or a station's. */
+  function earlierRunOf(sha256s: string[], transaction: Transaction): Promise<RunRecord | null> {
+    return models.Run.findOne({ where: { [Op.or]: [{ fileSha256: sha256s }, { stationBSha256: sha256s }] }, order: [['id', 'ASC']], transaction });
+  }
+
+  /** A new run of an upload (a joined log, or a night's two station logs): its place in its booking or night, its trail line, its analysis job. */
+  async function insertRun(
+    upload: { newRun: Omit<NewRun, 'log' | 'originalName'>; uploader: Uploader; booking: BookingRecord | null; profileVersion: ProfileVersionRecord },
+    files: RunFiles,
+    transaction: Transaction,
+  ): Promise<number> {
+    const { newRun, uploader, booking, profileVersion } = upload;
+    const sha256s = files.stationBSha256 ? [files.fileSha256, files.stationBSha256] : [files.fileSha256];
+    const earlier = await earlierRunOf(sha256s, transaction);
+    const place = booking ? await bookedPlace(booking, newRun, earlier, transaction) : unbookedPlace(newRun, earlier);
+    const trail = uploaderInTrail(uploader);
+    const run = await models.Run.create(
+      {
+        ...files,
+        profileVersionId: profileVersion.id,
+        originalName: codePoints(files.originalName, 255),
+        stationBName: files.stationBSha256 ? codePoints(files.stationBName ?? '', 255) : null,
+        duplicateOf: earlier?.id ?? null,
+        uploadedBy: uploader.kind === 'person' ? uploader.user.id : null,
+        uploadTokenId: uploader.kind === 'token' ? uploader.token.id : null,
+        notes: newRun.notes ?? '',
+        ...place,
+      },
+      { transaction },
+    );
+    await audit.record(
+      {
+        actorId: trail.actorId,
+        action: 'run.uploaded',
+        targetType: 'run',
+        targetId: run.id,
+        details: {
+          ...trail.details,
+          sha256: files.fileSha256,
+          ...(files.stationBSha256 ? { stationBSha256: files.stationBSha256 } : {}),
+          duplicateOf: run.duplicateOf,
+          bookingId: run.bookingId,
+          attempt: run.attempt,
+          replacementReason: run.replacementReason,
+          replayOf: run.replayOf,
+        },
+      },
+      transaction,
+    );
+    await queue.enqueueAnalysis(run.id, transaction);
+    return run.id;
+  }
+
+  /** A pair's station B file, stated offset and geometry. */
+  async function runStations(run: RunRecord, transaction?: Transaction): Promise<RunStationsDto> {
+    const fileB = (await models.ArchiveFile.findByPk(run.stationBSha256!, { transaction }))!;
+    return {
+      stationB: { sha256: fileB.sha256, bytes: fileB.bytes, originalName: run.stationBName ?? '' },
+      offset: run.stationOffset ?? null,
+      offsetReason: run.offsetReason ?? null,
+      realignedFrom: run.realignedFrom ?? null,
+      geometry: run.stationGeometry ?? null,
+    };
   }
 
   async function get(id: number, transaction?: Transaction): Promise<RunDto> {
@@ -205,6 +317,7 @@ export function createRunsService(deps: {
       withdrawal: await withdrawalOf(models, id, transaction),
       uploadedById: run.uploadedBy,
       fourEyes: setup.fourEyes,
+      stations: run.stationBSha256 ? await runStations(run, transaction) : null,
       booking: booking && {
         bookingId: booking.id,
         night: booking.night,
@@ -226,72 +339,129 @@ export function createRunsService(deps: {
   return {
     get,
     withdraw: withdrawRun({ sequelize, models, audit }),
+    stationLogs: (filter) => stationLogs.list(filter),
 
     async refuseEarly(newRun, uploader) {
       const setup = await uploadSetup(newRun, uploader);
+      if (newRun.station === undefined) refuseJoinedFromStationToken(uploader);
+      else {
+        stationOfUpload(newRun.station, uploader);
+        stationMapping(newRun.mapping as ColumnMapping | undefined);
+      }
       await sequelize.transaction(async (transaction) => {
         const { booking } = await bookingAndProfile(newRun, setup, transaction);
-        if (booking) await bookedPlace(booking, newRun, null, transaction);
+        if (newRun.station === undefined) {
+          if (booking) await bookedPlace(booking, newRun, null, transaction);
+        } else if (booking) refuseOutsideBooking(booking, newRun);
+        else unbookedNight(newRun);
       });
     },
 
     async create(newRun, uploader) {
       const setup = await uploadSetup(newRun, uploader);
-      const { sha256, bytes, census } = newRun.log;
-      const { isNew: fileWasNew } = await newRun.log.keep();
-      try {
-        const id = await sequelize.transaction(async (transaction) => {
-          const { booking, profileVersion } = await bookingAndProfile(newRun, setup, transaction);
-          const [file] = await models.ArchiveFile.findOrCreate({ where: { sha256 }, defaults: { sha256, bytes, census }, transaction });
-          if (file.census === null && census !== null) await file.update({ census }, { transaction });
-          const earlier = await models.Run.findOne({ where: { fileSha256: sha256 }, order: [['id', 'ASC']], transaction });
-          const place = booking ? await bookedPlace(booking, newRun, earlier, transaction) : unbookedPlace(newRun, earlier);
-          const trail = uploaderInTrail(uploader);
-          const run = await models.Run.create(
-            {
-              setupId: setup.id,
-              profileVersionId: profileVersion.id,
-              fileSha256: sha256,
-              // 255 characters as the column counts them, code points: a cut between UTF-16 units could split a pair.
-              originalName: [...newRun.originalName].slice(0, 255).join(''),
-              duplicateOf: earlier?.id ?? null,
-              uploadedBy: uploader.kind === 'person' ? uploader.user.id : null,
-              uploadTokenId: uploader.kind === 'token' ? uploader.token.id : null,
-              notes: newRun.notes ?? '',
-              // An upload naming no mapping is read with its setup's saved one; the run keeps the one it used.
-              mapping: newRun.mapping ?? setup.columnMapping ?? null,
-              ...place,
-            },
-            { transaction },
+      refuseJoinedFromStationToken(uploader);
+      const id = await keepingUpload([newRun.log], async (transaction) => {
+        const { booking, profileVersion } = await bookingAndProfile(newRun, setup, transaction);
+        await archiveFile(newRun.log, transaction);
+        return insertRun(
+          { newRun, uploader, booking, profileVersion },
+          // An upload naming no mapping is read with its setup's saved one; the run keeps the one it used.
+          { setupId: setup.id, fileSha256: newRun.log.sha256, originalName: newRun.originalName, mapping: newRun.mapping ?? setup.columnMapping ?? null },
+          transaction,
+        );
+      });
+      return get(id);
+    },
+
+    async receiveStationLog(newRun, uploader) {
+      const setup = await uploadSetup(newRun, uploader);
+      const station = stationOfUpload(newRun.station, uploader);
+      const mapping = stationMapping(newRun.mapping as ColumnMapping | undefined);
+      const outcome = await keepingUpload([newRun.log], async (transaction) => {
+        const { booking, profileVersion } = await bookingAndProfile(newRun, setup, transaction);
+        if (booking) refuseOutsideBooking(booking, newRun);
+        // Two uploads of one night pair one at a time: the booking's row is locked, else the setup's.
+        else await models.Setup.findByPk(setup.id, { transaction, lock: transaction.LOCK.UPDATE });
+        await archiveFile(newRun.log, transaction);
+        const night = { setupId: setup.id, bookingId: booking?.id ?? null, acquiredOn: booking ? null : unbookedNight(newRun) };
+        const arrived = await stationLogs.arrive({ ...night, station, newRun, mapping, uploader }, transaction);
+        const partner = await stationLogs.waitingPartner(arrived, transaction);
+        if (!partner) return { runId: null, stationLogId: arrived.id };
+        const [a, b] = station === 'A' ? [arrived, partner] : [partner, arrived];
+        if (a.fileSha256 === b.fileSha256) {
+          throw HttpError.badRequest(
+            `station: this file is already station ${partner.station}'s log of the night (log ${partner.id}); each station uploads its own record`,
+            'station',
           );
-          await audit.record(
-            {
-              actorId: trail.actorId,
-              action: 'run.uploaded',
-              targetType: 'run',
-              targetId: run.id,
-              details: {
-                ...trail.details,
-                sha256,
-                bytes,
-                duplicateOf: run.duplicateOf,
-                bookingId: run.bookingId,
-                attempt: run.attempt,
-                replacementReason: run.replacementReason,
-                replayOf: run.replayOf,
-              },
-            },
-            transaction,
-          );
-          await queue.enqueueAnalysis(run.id, transaction);
-          return run.id;
-        });
-        return get(id);
-      } catch (error) {
-        // Nothing may point at bytes archived for a run that was never made.
-        if (fileWasNew && !(await models.ArchiveFile.findByPk(sha256))) await logStore.discard(sha256);
-        throw error;
-      }
+        }
+        const runId = await insertRun(
+          { newRun, uploader, booking, profileVersion },
+          {
+            setupId: setup.id,
+            fileSha256: a.fileSha256,
+            originalName: a.originalName,
+            mapping: pairMapping(a, b),
+            stationBSha256: b.fileSha256,
+            stationBName: b.originalName,
+            stationGeometry: setupGeometry(setup),
+          },
+          transaction,
+        );
+        await models.StationLog.update({ runId }, { where: { id: [a.id, b.id] }, transaction });
+        return { runId, stationLogId: arrived.id };
+      });
+      const stationLog = await stationLogs.get(outcome.stationLogId);
+      return outcome.runId === null ? { run: null, stationLog } : { run: await get(outcome.runId), stationLog };
+    },
+
+    async realign(id, { offset, reason }, actor) {
+      const runId = await sequelize.transaction(async (transaction) => {
+        const run = await models.Run.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+        if (!run) throw HttpError.notFound(`There is no run with id ${id}.`);
+        if (!(await setups.isShiftLeadOf(run.setupId, actor.id))) {
+          throw HttpError.forbidden('Only a shift lead assigned to this run’s setup can re-run its station logs at a stated offset.');
+        }
+        if (!run.stationBSha256) throw HttpError.conflict(`Run ${id} is one joined log: there are no two station records to pair at another offset.`);
+        if ((run.stationOffset ?? 0) === offset) {
+          throw HttpError.badRequest(`offset: run ${id} already pairs the records at offset ${offset}; state another offset`, 'offset');
+        }
+        const booking = run.bookingId === null ? null : await models.Booking.findByPk(run.bookingId, { transaction, lock: transaction.LOCK.UPDATE });
+        const attempt = booking ? (await models.Run.count({ where: { bookingId: booking.id }, transaction })) + 1 : null;
+        const realigned = await models.Run.create(
+          {
+            setupId: run.setupId,
+            profileVersionId: run.profileVersionId,
+            fileSha256: run.fileSha256,
+            originalName: run.originalName,
+            duplicateOf: run.id,
+            uploadedBy: run.uploadedBy,
+            uploadTokenId: run.uploadTokenId,
+            notes: run.notes,
+            mapping: run.mapping,
+            bookingId: run.bookingId,
+            attempt,
+            replacementReason: booking ? `Re-run of run ${run.id} at offset ${offset}: ${reason}` : null,
+            replayOf: null,
+            acquiredOn: run.acquiredOn,
+            // The same seed: the same rounds are tested, paired as stated; nobody draws again.
+            seed: run.seed,
+            stationBSha256: run.stationBSha256,
+            stationBName: run.stationBName,
+            stationOffset: offset,
+            offsetReason: reason,
+            stationGeometry: run.stationGeometry,
+            realignedFrom: run.id,
+          },
+          { transaction },
+        );
+        await audit.record(
+          { actorId: actor.id, action: 'run.realigned', targetType: 'run', targetId: realigned.id, details: { realignedFrom: run.id, offset, reason, attempt } },
+          transaction,
+        );
+        await queue.enqueueAnalysis(realigned.id, transaction);
+        return realigned.id;
+      });
+      return get(runId);
     },
 
     async list(filter) {
@@ -354,6 +524,31 @@ export function createRunsService(deps: {
       });
     },
   };
+}
+
+/** A log for a booking is of its night, and comes once its acquisition window has opened. */
+function refuseOutsideBooking(booking: BookingRecord, newRun: Pick<NewRun, 'acquiredOn'>): void {
+  if (newRun.acquiredOn !== undefined && newRun.acquiredOn !== booking.night) {
+    throw HttpError.badRequest(`acquiredOn: booking ${booking.id} is the night of ${booking.night}, not ${newRun.acquiredOn}`, 'acquiredOn');
+  }
+  if (Date.now() < booking.windowStart.getTime()) {
+    throw HttpError.conflict(`Booking ${booking.id}’s acquisition window opens at ${booking.windowStart.toISOString()}; its log comes after.`);
+  }
+}
+
+/** A station's upload token uploads its station's own log only, never a joined log. */
+function refuseJoinedFromStationToken(uploader: Uploader): void {
+  if (uploader.kind === 'token' && uploader.token.station !== null) {
+    throw HttpError.forbidden(`Upload token “${uploader.token.name}” is station ${uploader.token.station}'s: it uploads that station's own log (field station), not a joined log.`);
+  }
+}
+
+/** The date that pairs an unbooked night's two station logs, which the upload must give. */
+function unbookedNight(newRun: Pick<NewRun, 'acquiredOn'>): string {
+  if (newRun.acquiredOn === undefined) {
+    throw HttpError.badRequest('acquiredOn: the two station logs of an unbooked night are paired by their date; give the night the log was acquired', 'acquiredOn');
+  }
+  return newRun.acquiredOn;
 }
 
 /**

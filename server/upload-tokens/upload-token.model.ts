@@ -1,3 +1,4 @@
+import type { StationName } from '@shared/api';
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type ModelStatic, type Sequelize } from 'sequelize';
 
 export class UploadTokenRecord extends Model<InferAttributes<UploadTokenRecord>, InferCreationAttributes<UploadTokenRecord>> {
@@ -11,6 +12,8 @@ export class UploadTokenRecord extends Model<InferAttributes<UploadTokenRecord>,
   declare revokedAt: CreationOptional<Date | null>;
   declare revokedBy: CreationOptional<number | null>;
   declare lastUsedAt: CreationOptional<Date | null>;
+  /** The station whose computer holds the token: it uploads that station's log only; null: joined logs. */
+  declare station: CreationOptional<StationName | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -28,6 +31,7 @@ export function defineUploadTokenModel(sequelize: Sequelize): ModelStatic<Upload
       revokedAt: { type: DataTypes.DATE, field: 'revoked_at' },
       revokedBy: { type: DataTypes.INTEGER, field: 'revoked_by' },
       lastUsedAt: { type: DataTypes.DATE, field: 'last_used_at' },
+      station: { type: DataTypes.CHAR(1) },
       createdAt: { type: DataTypes.DATE, field: 'created_at' },
     },
     { sequelize, tableName: 'upload_tokens', modelName: 'UploadToken', updatedAt: false },

@@ -47,6 +47,7 @@ export function createUploadTokensService(models: Models, setups: SetupsService,
       expiresAt: record.expiresAt.toISOString(),
       revokedAt: record.revokedAt?.toISOString() ?? null,
       lastUsedAt: record.lastUsedAt?.toISOString() ?? null,
+      station: record.station ?? null,
     }));
   }
 
@@ -61,7 +62,14 @@ export function createUploadTokensService(models: Models, setups: SetupsService,
       const token = `${UPLOAD_TOKEN_PREFIX}${crypto.randomBytes(32).toString('base64url')}`;
       const record = await sequelize.transaction(async (transaction) => {
         const created = await UploadToken.create(
-          { setupId, name: request.name.trim(), tokenHash: hashOf(token), createdBy: actor.id, expiresAt: new Date(Date.now() + request.validDays * DAY_MS) },
+          {
+            setupId,
+            name: request.name.trim(),
+            tokenHash: hashOf(token),
+            createdBy: actor.id,
+            expiresAt: new Date(Date.now() + request.validDays * DAY_MS),
+            station: request.station ?? null,
+          },
           { transaction },
         );
         await audit.record(
@@ -70,7 +78,7 @@ export function createUploadTokensService(models: Models, setups: SetupsService,
             action: 'upload-token.created',
             targetType: 'upload-token',
             targetId: created.id,
-            details: { setupId, name: created.name, expiresAt: created.expiresAt.toISOString() },
+            details: { setupId, name: created.name, expiresAt: created.expiresAt.toISOString(), station: created.station },
           },
           transaction,
         );

@@ -27,7 +27,7 @@ export function uploaderGuard(guards: Guards, tokens: UploadTokensService): Requ
     if (bearer?.startsWith(UPLOAD_TOKEN_PREFIX)) {
       tokens.authenticate(bearer).then((token) => {
         if (!token) return next(HttpError.unauthorized('This upload token is unknown, expired or revoked.'));
-        request.uploader = { kind: 'token', token: { id: token.id, name: token.name, setupId: token.setupId } };
+        request.uploader = { kind: 'token', token: { id: token.id, name: token.name, setupId: token.setupId, station: token.station ?? null } };
         next();
       }, next);
       return;

@@ -1,7 +1,8 @@
+import type { StationName } from '@shared/api';
 import type { UserRecord } from '../users/user.model';
 
 /** Who sends a log: a signed-in person, or the acquisition computer with a setup's upload token. */
-export type Uploader = { kind: 'person'; user: UserRecord } | { kind: 'token'; token: { id: number; name: string; setupId: number } };
+export type Uploader = { kind: 'person'; user: UserRecord } | { kind: 'token'; token: { id: number; name: string; setupId: number; station: StationName | null } };
 
 /** The uploader's key in `upload_keys`: idempotency keys are per uploader. */
 export function uploaderKey(uploader: Uploader): string {

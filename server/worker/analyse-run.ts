@@ -10,6 +10,7 @@ import type { SigningKey } from '../integrity/signing-key';
 import type { AnalysisQueue } from '../queue/analysis-queue';
 import type { LogStore } from '../storage/log-store';
 import { log } from '../system/log';
+import { signedInputSha256 } from '../runs/station-pair-record';
 import { analyseArchivedRun } from './analyse-archived-run';
 
 /** Progress is written to the run when it has moved by this much (a fraction of the whole). */
@@ -75,14 +76,16 @@ export async function analyseRun(runId: number, deps: AnalyseRunDeps, signal: Ab
     return;
   }
   await pendingWrite;
-  if (result.input.sha256 !== run.fileSha256) {
-    await finishAsFailed(runId, new Error(`The archived file's SHA-256 is ${result.input.sha256}, not the ${run.fileSha256} recorded at upload: the archive was changed.`), deps);
+  const input = signedInputSha256(run);
+  if (result.input.sha256 !== input) {
+    const what = run.stationBSha256 ? 'The archived station logs’ joint digest' : 'The archived file’s SHA-256';
+    await finishAsFailed(runId, new Error(`${what} is ${result.input.sha256}, not the ${input} recorded at upload: the archive was changed.`), deps);
     return;
   }
 
   const state = STATE_OF_VERDICT[result.verdict];
   const signedAt = new Date();
-  const { keyId, signature } = signStatement({ runId, fileSha256: run.fileSha256, fingerprint: result.fingerprint, signedAt: signedAt.toISOString() }, signingKey);
+  const { keyId, signature } = signStatement({ runId, fileSha256: input, fingerprint: result.fingerprint, signedAt: signedAt.toISOString() }, signingKey);
   await sequelize.transaction(async (transaction) => {
     const [stored] = await models.Run.update(
       { state, verdict: result.verdict, result, progress: 1, finishedAt: signedAt, signingKeyId: keyId, signedAt, signature },

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { bodyId, isoDate, isoDateTime, queryId } from './query-fields';
 import { runStateSchema, verdictSchema } from './run-states';
+import { STATIONS } from './stations';
 
 /** One upload of a booked night: attempt 1 is the first log, later attempts are replacements. */
 export const bookingAttemptSchema = /* @__PURE__ */ z
@@ -83,6 +84,7 @@ export const uploadTokenSchema = /* @__PURE__ */ z
     expiresAt: z.string(),
     revokedAt: z.string().nullable(),
     lastUsedAt: z.string().nullable(),
+    station: z.enum(STATIONS).nullable().meta({ description: "The station whose computer holds it: it uploads that station's log only; null: joined logs." }),
   })
   .meta({ id: 'UploadTokenDto' });
 export type UploadTokenDto = z.infer<typeof uploadTokenSchema>;
@@ -96,6 +98,7 @@ export const createUploadTokenRequestSchema = /* @__PURE__ */ z
   .strictObject({
     name: z.string().trim().min(1, 'is required: name the computer that will use it').max(120),
     validDays: z.number({ error: 'must be a number of days' }).int().min(1, 'must be at least 1 day').max(366, 'must be at most 366 days'),
+    station: z.enum(STATIONS, { error: 'must be A or B' }).optional().meta({ description: "For a station's own computer: the token uploads that station's log only." }),
   })
   .meta({ id: 'CreateUploadTokenRequest' });
 export type CreateUploadTokenRequest = z.infer<typeof createUploadTokenRequestSchema>;
@@ -105,4 +108,4 @@ export const UPLOAD_TOKEN_PREFIX = 'bkup_';
 
 /** The resumable-upload (tus 1.0) endpoint: metadata keys an upload may carry. */
 export const RESUMABLE_UPLOAD_PATH = '/api/uploads';
-export const RESUMABLE_METADATA_KEYS = ['filename', 'setupId', 'bookingId', 'acquiredOn', 'notes', 'mapping', 'replacementReason'] as const;
+export const RESUMABLE_METADATA_KEYS = ['filename', 'setupId', 'bookingId', 'acquiredOn', 'notes', 'mapping', 'replacementReason', 'station'] as const;

@@ -14,5 +14,6 @@ export * from './query-fields';
 export * from './roles';
 export * from './runs';
 export * from './setups';
+export * from './stations';
 export * from './users';
 export * from './workers';

@@ -3,6 +3,7 @@ import type { RunBookingDto } from './bookings';
 import type { AnalysisResult } from '../analysis/result';
 import type { ResultSignatureDto, SigningKeyDto } from './integrity-signature';
 import type { SignOffDto, WithdrawalDto } from './runs';
+import type { RunStationsDto } from './stations';
 
 export * from './integrity-signature';
 
@@ -112,5 +113,7 @@ export interface RunReportDto {
   signOff: SignOffDto | null;
   /** Set when the upload was withdrawn as a mistake (absent in reports made before withdrawals). */
   withdrawal?: WithdrawalDto | null;
+  /** A run of two station logs: station B's file, the stated offset, the geometry (absent in reports made before station logs). */
+  stations?: RunStationsDto | null;
   reverifications: ReverificationDto[];
 }

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { SIGN_OFF_DECISIONS } from './runs';
 import { runStateSchema, verdictSchema } from './run-states';
 import { isoDate } from './query-fields';
+import { STATIONS } from './stations';
 
 /** Nights the ledger shows at most in one answer. */
 export const LEDGER_MAX_NIGHTS = 92;
@@ -31,6 +32,7 @@ export const ledgerCellSchema = /* @__PURE__ */ z
       })
       .nullable()
       .meta({ description: 'The latest log of the night; null for a booked night with none yet.' }),
+    waitingFor: z.enum(STATIONS).nullable().meta({ description: "The station whose log the night still waits for: the other station's log is in, and the pair is not yet a run." }),
   })
   .meta({ id: 'LedgerCellDto' });
 export type LedgerCellDto = z.infer<typeof ledgerCellSchema>;

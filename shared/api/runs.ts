@@ -5,6 +5,7 @@ import { resultSignatureSchema } from './integrity-signature';
 import { isoDate, paging, queryId } from './query-fields';
 import { RUN_STATES, VERDICTS, runStateSchema, verdictSchema } from './run-states';
 import type { Role } from './roles';
+import { runStationsSchema } from './stations';
 
 export * from './run-states';
 
@@ -83,6 +84,7 @@ export const runSummarySchema = /* @__PURE__ */ z
     attempt: nullableNumber('Attempt k of its booking (k > 1: a replacement); null when unbooked.'),
     replayOf: nullableNumber('Set when these bytes were uploaded before under another booking or night: that run.'),
     signedOff: z.boolean(),
+    stationPair: z.boolean().meta({ description: 'The run joins two station logs (else one joined log).' }),
     withdrawn: z.boolean().meta({ description: 'The upload was withdrawn as a mistake: kept in the archive and the trail, awaiting no sign-off.' }),
     fileSha256: z.string().meta({ description: 'SHA-256 of the archived log, hex.' }),
     fingerprint: z.string().nullable().meta({ description: "The result's fingerprint, when analysed." }),
@@ -117,6 +119,9 @@ export const runSchema = /* @__PURE__ */ runSummarySchema
     fourEyes: z.boolean().meta({ description: "The setup's four-eyes rule: whoever uploaded a run may not sign it off." }),
     deliveries: z.array(mailDeliverySchema),
     booking: runBookingSchema.nullable().meta({ description: 'The booking, its commitment and every attempt; null when unbooked.' }),
+    stations: z
+      .union([runStationsSchema, z.null()])
+      .meta({ description: "A run of two station logs: station B's file (`file` is station A's), the stated offset and the geometry; null for a joined log." }),
   })
   .meta({ id: 'RunDto' });
 export type RunDto = z.infer<typeof runSchema>;

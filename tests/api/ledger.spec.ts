@@ -44,8 +44,20 @@ describe('the ledger of nights and the worklists', () => {
     expect(shown.setups.map((setup) => setup.name)).toEqual(['Fen link', 'Mill Lane bench']);
     const fen = shown.setups.find((setup) => setup.setupId === fenLink)!;
     expect(fen.cells).toEqual([
-      { night: '2026-12-01', bookingId: null, attempts: 2, run: { id: accepted.id, state: 'accepted', verdict: 'ACCEPT', signedOff: false, decision: null, withdrawn: false } },
-      { night: '2026-12-02', bookingId: null, attempts: 1, run: { id: invalid.id, state: 'invalid', verdict: 'INVALID', signedOff: false, decision: null, withdrawn: false } },
+      {
+        night: '2026-12-01',
+        bookingId: null,
+        attempts: 2,
+        run: { id: accepted.id, state: 'accepted', verdict: 'ACCEPT', signedOff: false, decision: null, withdrawn: false },
+        waitingFor: null,
+      },
+      {
+        night: '2026-12-02',
+        bookingId: null,
+        attempts: 1,
+        run: { id: invalid.id, state: 'invalid', verdict: 'INVALID', signedOff: false, decision: null, withdrawn: false },
+        waitingFor: null,
+      },
     ]);
 
     await request(testApp.app).post(`/api/runs/${accepted.id}/sign-off`).set(bearer('lucia')).send({ decision: 'key-discarded', comment: 'Too short for a key.' }).expect(201);

@@ -148,6 +148,8 @@ describe('every operation answers as the OpenAPI document says', () => {
     await api.get(`/api/runs/${uploaded.id}/trail`).set(auditor()).expect(200);
     await api.post(`/api/runs/${uploaded.id}/sign-off`).set(shiftLead()).send({ decision: 'key-discarded', comment: 'Checked against the contract.' }).expect(201);
     await api.post(`/api/runs/${uploaded.id}/withdraw`).set(experimentalist()).send({ reason: 'Too late: it is signed off.' }).expect(409);
+    await api.post(`/api/runs/${uploaded.id}/realign`).set(shiftLead()).send({ offset: 2, reason: 'A joined log has no records to pair.' }).expect(409);
+    await api.get('/api/runs/station-logs?waiting=true').set(auditor()).expect(200);
     await api.get(`/api/runs/${uploaded.id}/verification`).set(auditor()).expect(200);
     await api.post(`/api/runs/${uploaded.id}/reverifications`).set(auditor()).send({}).expect(201);
     await api.get(`/api/runs/${uploaded.id}/reverifications`).set(auditor()).expect(200);

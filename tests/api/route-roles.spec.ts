@@ -33,6 +33,8 @@ const PROTECTED_ROUTES: Array<{ method: 'get' | 'post' | 'patch' | 'put'; path: 
   { method: 'post', path: '/api/runs/1/sign-off', roles: ['shift-lead'] },
   // Every role gets past the guard; the uploader-or-admin rule is the service's (tests/api/withdrawals.spec.ts).
   { method: 'post', path: '/api/runs/1/withdraw', roles: 'any' },
+  { method: 'get', path: '/api/runs/station-logs', roles: 'any' },
+  { method: 'post', path: '/api/runs/1/realign', roles: ['shift-lead'] },
   { method: 'get', path: '/api/runs/1/verification', roles: 'any' },
   { method: 'get', path: '/api/runs/1/reverifications', roles: 'any' },
   { method: 'post', path: '/api/runs/1/reverifications', roles: ['auditor', 'admin'] },

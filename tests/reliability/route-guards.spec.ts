@@ -8,6 +8,7 @@ import {
   planQuerySchema,
   ROLES,
   runListQuerySchema,
+  stationLogQuerySchema,
   type ApiErrorBody,
   type BookingDto,
   type CreatedUploadTokenDto,
@@ -108,6 +109,9 @@ const GUARDED_ROUTES: Record<string, Guard> = {
   'POST /api/runs/:id/sign-off': { roles: ['shift-lead'] },
   // Who may withdraw (the uploader, an admin) is the service's check: tests/api/withdrawals.spec.ts.
   'POST /api/runs/:id/withdraw': SIGNED_IN,
+  'GET /api/runs/station-logs': SIGNED_IN,
+  // Which shift lead (one of the run's setup) is the service's check: tests/api/station-uploads.spec.ts.
+  'POST /api/runs/:id/realign': { roles: ['shift-lead'] },
   'ALL /api/uploads': UPLOADERS,
   'GET /api/uploads/:id': UPLOADERS,
 };
@@ -300,6 +304,7 @@ const PLAN_QUERY = {
 /** The query parameters of each route that reads its query string, from its contract in shared/api; `base` makes the rest valid. */
 const QUERY_PARAMETERS: Record<string, { parameters: readonly string[]; base?: Record<string, string> }> = {
   'GET /api/runs': { parameters: Object.keys(runListQuerySchema.shape) },
+  'GET /api/runs/station-logs': { parameters: Object.keys(stationLogQuerySchema.shape) },
   'GET /api/audit': { parameters: Object.keys(auditQuerySchema.shape) },
   'GET /api/audit/export.csv': { parameters: Object.keys(auditFilterSchema.shape) },
   'GET /api/bookings': { parameters: Object.keys(bookingListQuerySchema.shape) },

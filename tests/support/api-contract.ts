@@ -32,11 +32,15 @@ export function endpointAnswers(endpoint: Endpoint, operation: string): boolean 
   return endpoint.method === method && endpointPath === path;
 }
 
-/** The template of a request path: `/api/runs/7/export/json` → `/api/runs/{id}/export/{format}`, or undefined. */
+/**
+ * The template of a request path: `/api/runs/7/export/json` → `/api/runs/{id}/export/{format}`, or
+ * undefined. A literal path wins over a template it also fits (`/api/runs/station-logs` over `/api/runs/{id}`), as Express routes it.
+ */
 function templateOf(method: string, url: string): string | undefined {
   const path = new URL(url, 'http://bellkeep.test').pathname;
   const paths = Object.entries(API_DOCUMENT.paths ?? {}).filter(([, item]) => method.toLowerCase() in (item as object));
-  return paths.map(([template]) => template).find((template) => new RegExp(`^${template.replace(/\{\w+\}/g, '[^/]+')}$`).test(path));
+  const fitting = paths.map(([template]) => template).filter((template) => new RegExp(`^${template.replace(/\{\w+\}/g, '[^/]+')}$`).test(path));
+  return fitting.find((template) => template === path) ?? fitting[0];
 }
 
 /**

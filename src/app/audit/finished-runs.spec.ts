@@ -31,6 +31,7 @@ const night: RunSummaryDto = {
   attempt: 1,
   replayOf: null,
   signedOff: true,
+  stationPair: false,
   withdrawn: false,
   fileSha256: '9f3ac07e1b22d4f9a0e6'.padEnd(64, '0'),
   fingerprint: '41d2be7765aa90f3be21'.padEnd(64, '5'),

@@ -22,6 +22,11 @@ export const AWAITING_NOTE = 'to sign';
 export function lookOfCell(cell: LedgerCellDto, setupName: string): CellLook {
   const night = `${setupName}, night of ${cell.night}`;
   const run = cell.run;
+  if (run === null && cell.waitingFor !== null) {
+    const note = `waits for ${cell.waitingFor}`;
+    const inFull = `station ${cell.waitingFor === 'A' ? 'B' : 'A'}'s log is in; the night waits for station ${cell.waitingFor}'s`;
+    return { icon: 'hourglass_top', word: 'One log', tone: 'booked', note, label: spoken(night, 'One log', [note], inFull), runId: null };
+  }
   if (run === null) {
     return { icon: 'event_available', word: 'Booked', tone: 'booked', note: 'no log yet', label: spoken(night, 'Booked', ['no log yet'], ''), runId: null };
   }

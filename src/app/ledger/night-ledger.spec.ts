@@ -17,14 +17,28 @@ const LEDGER: LedgerDto = {
       setupId: 1,
       name: 'Fen link',
       cells: [
-        { night: '2026-12-01', bookingId: 7, attempts: 2, run: { id: 31, state: 'accepted', verdict: 'ACCEPT', signedOff: true, decision: 'key-kept', withdrawn: false } },
-        { night: '2026-12-05', bookingId: 9, attempts: 0, run: null },
+        {
+          night: '2026-12-01',
+          bookingId: 7,
+          attempts: 2,
+          run: { id: 31, state: 'accepted', verdict: 'ACCEPT', signedOff: true, decision: 'key-kept', withdrawn: false },
+          waitingFor: null,
+        },
+        { night: '2026-12-05', bookingId: 9, attempts: 0, run: null, waitingFor: null },
       ],
     },
     {
       setupId: 2,
       name: 'Mill Lane bench',
-      cells: [{ night: '2026-12-02', bookingId: null, attempts: 1, run: { id: 33, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null, withdrawn: false } }],
+      cells: [
+        {
+          night: '2026-12-02',
+          bookingId: null,
+          attempts: 1,
+          run: { id: 33, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null, withdrawn: false },
+          waitingFor: null,
+        },
+      ],
     },
   ],
 };
@@ -93,7 +107,13 @@ describe('NightLedger', () => {
 describe('lookOfCell', () => {
   it('shows a withdrawn log as withdrawn, with the verdict it had, and says so in full', () => {
     const look = lookOfCell(
-      { night: '2026-12-03', bookingId: null, attempts: 2, run: { id: 40, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null, withdrawn: true } },
+      {
+        night: '2026-12-03',
+        bookingId: null,
+        attempts: 2,
+        run: { id: 40, state: 'aborted', verdict: 'ABORT', signedOff: false, decision: null, withdrawn: true },
+        waitingFor: null,
+      },
       'Fen link',
     );
     expect(look).toEqual({
@@ -103,6 +123,18 @@ describe('lookOfCell', () => {
       note: '2 logs · ABORT',
       label: 'Fen link, night of 2026-12-03: Withdrawn, 2 logs, ABORT (the log was withdrawn as a mistaken upload)',
       runId: 40,
+    });
+  });
+
+  it('shows a night with one station log in as waiting for the other station', () => {
+    const look = lookOfCell({ night: '2026-12-04', bookingId: 9, attempts: 0, run: null, waitingFor: 'B' }, 'Fen link');
+    expect(look).toEqual({
+      icon: 'hourglass_top',
+      word: 'One log',
+      tone: 'booked',
+      note: 'waits for B',
+      label: "Fen link, night of 2026-12-04: One log, waits for B (station A's log is in; the night waits for station B's)",
+      runId: null,
     });
   });
 });

@@ -34,6 +34,7 @@ const night: RunSummaryDto = {
   attempt: null,
   replayOf: null,
   signedOff: false,
+  stationPair: false,
   withdrawn: false,
   fileSha256: '5be0c1'.padEnd(64, '0'),
   fingerprint: '77aa01'.padEnd(64, '1'),

@@ -18,7 +18,9 @@ const ACTION_WORDS: Record<AuditAction, string> = {
   'booking.created': 'Night booked',
   'upload-token.created': 'Upload token made',
   'upload-token.revoked': 'Upload token revoked',
+  'station-log.uploaded': 'Station log uploaded',
   'run.uploaded': 'Uploaded the log',
+  'run.realigned': 'Re-run at a stated offset',
   'run.analysis-started': 'Analysis started',
   'run.finished': 'Analysis finished',
   'run.failed': 'Analysis failed',
@@ -80,6 +82,10 @@ const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string
   'run.signed-off': ({ decision, comment }) =>
     [isSignOffDecision(decision) ? SIGN_OFF_DECISION_WORDS[decision] : '', typeof comment === 'string' && comment !== '' ? `“${comment}”` : ''].filter(Boolean).join(': '),
   'run.withdrawn': ({ reason }) => (typeof reason === 'string' ? `“${reason}”` : ''),
+  'station-log.uploaded': ({ station, supersedes }) =>
+    typeof station === 'string' ? `Station ${station}'s log${typeof supersedes === 'number' ? `, in place of log ${supersedes}` : ''}` : '',
+  'run.realigned': ({ realignedFrom, offset, reason }) =>
+    typeof offset === 'number' && typeof realignedFrom === 'number' ? `Run ${realignedFrom} at offset ${offset}${typeof reason === 'string' ? `: “${reason}”` : ''}` : '',
   'signing-key.retired': ({ replacedBy }) => (typeof replacedBy === 'string' ? `Replaced by key ${replacedBy}` : ''),
   'audit.exported': ({ rows }) => (typeof rows === 'number' ? countOf(rows, 'line') : ''),
 };
