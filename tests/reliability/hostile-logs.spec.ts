@@ -92,6 +92,7 @@ describe('hostile logs through the API', () => {
   /** Where a hostile name would land if joined to a folder the server writes in, as it was before. */
   const targetsBefore = new Map<string, string | null>();
 
+  // About two minutes on a quiet machine; more while other suites run beside it.
   beforeAll(async () => {
     // The data folder inside a folder of its own: anything written beside it would show there.
     sandbox = fs.mkdtempSync(path.join(os.tmpdir(), 'bellkeep-hostile-'));
@@ -122,7 +123,7 @@ describe('hostile logs through the API', () => {
         outcome.run = await waitForFinishedRun(testApp.app, token, (outcome.body as RunDto).id, 150_000);
       },
     );
-  }, 240_000);
+  }, 480_000);
 
   afterAll(async () => {
     await testApp?.close();
