@@ -36,8 +36,9 @@ export function missingShareText(summary: Pick<MissingRoundsSummary, 'missing' |
   return shareText(summary.missing, summary.triggers);
 }
 
-/** `part` of `whole` in per cent, two significant digits ("0.17 %"); "0 %" when either is 0. */
+/** `part` of `whole` in per cent, two significant digits ("0.17 %"), whole per cents from 99.5 up ("100 %"); "0 %" when either is 0. */
 export function shareText(part: number, whole: number): string {
-  const share = part === 0 || whole === 0 ? '0' : ((100 * part) / whole).toPrecision(2);
+  const percent = (100 * part) / whole;
+  const share = part === 0 || whole === 0 ? '0' : percent >= 99.5 ? percent.toFixed(0) : percent.toPrecision(2);
   return `${share}\u2009%`;
 }

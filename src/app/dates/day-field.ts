@@ -16,7 +16,8 @@ import { provideLocalDates, shortDateExample, type PickedDay } from './local-dat
   imports: [MatDatepickerModule, MatFormFieldModule, MatInputModule, ReactiveFormsModule],
   providers: [provideLocalDates()],
   template: `
-    <mat-form-field appearance="outline">
+    <!-- The hint with its example takes two lines in a narrow field: the field grows rather than the hint running over the next one. -->
+    <mat-form-field appearance="outline" subscriptSizing="dynamic">
       <mat-label>{{ label() }}</mat-label>
       <input matInput [matDatepicker]="picker" [formControl]="control()" [attr.data-testid]="testId()" autocomplete="off" />
       <mat-datepicker-toggle matIconSuffix [for]="picker" />

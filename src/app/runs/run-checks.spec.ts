@@ -55,6 +55,8 @@ describe('RunChecks', () => {
 
   it('says why there are no checks', async () => {
     const host = await show([]);
-    expect(words(host)).toBe('No checks ran: the log could not be read.');
+    expect(words(host)).toBe(
+      'No checks ran: the run was INVALID before them, for the reasons under its verdict (a log that could not be read, or two station records out of step).',
+    );
   });
 });

@@ -56,12 +56,12 @@ describe('RunPage', () => {
 
   afterEach(() => http.verify());
 
-  async function open(url: string): Promise<RouterTestingHarness> {
+  async function open(url: string, shown: RunDto = run): Promise<RouterTestingHarness> {
     const harness = await RouterTestingHarness.create();
     await harness.navigateByUrl(url);
     // The run is asked for after a timer (it is polled until finished).
     await new Promise((resolve) => setTimeout(resolve, 0));
-    http.expectOne('/api/runs/42').flush(run);
+    http.expectOne('/api/runs/42').flush(shown);
     await harness.fixture.whenStable();
     http.expectOne('/api/setups/2').flush(setup);
     http.expectOne('/api/runs/42/trail').flush([]);
@@ -79,5 +79,28 @@ describe('RunPage', () => {
     const harness = await open('/runs/42');
     expect(scrolledTo).toEqual([]);
     expect(harness.routeNativeElement?.querySelector('[data-testid="run-booking"]')?.textContent).toContain(UNBOOKED_CAUTION);
+  });
+
+  it('names both station logs of a pair in its header, and shows the pair’s panel', async () => {
+    const pair = {
+      ...run,
+      stations: {
+        stationB: { sha256: 'cd'.repeat(32), bytes: 2048, originalName: 'mill-lane-14.csv' },
+        offset: null,
+        offsetReason: null,
+        realignedFrom: null,
+        geometry: null,
+      },
+    } as RunDto;
+    const harness = await open('/runs/42', pair);
+    const page = harness.routeNativeElement!;
+    expect(page.querySelector('.bk-page-header p')?.textContent.replace(/\s+/g, ' ')).toContain('night-14.csv and mill-lane-14.csv (two station logs),');
+    expect(page.querySelector('[data-testid="station-pair"] h2')?.textContent).toBe('Two station logs');
+    expect(page.querySelector('[data-testid="provenance"]')?.textContent).toContain('Station B’s SHA-256');
+  });
+
+  it('shows no station panel for one joined log', async () => {
+    const harness = await open('/runs/42', { ...run, stations: null });
+    expect(harness.routeNativeElement!.querySelector('[data-testid="station-pair"]')).toBeNull();
   });
 });

@@ -27,13 +27,18 @@ import { SecurityParameters } from './security-parameters';
 import { SettingPairsTable } from './setting-pairs-table';
 import { SettingsTable } from './settings-table';
 import { SignOffPanel } from './sign-off-panel';
+import { StationPairPanel } from './station-pair-panel';
 import { trailDetail, trailWords } from './trail-words';
 import { VerdictBanner } from './verdict-banner';
 
 /** The id of the sign-off panel, and the fragment the verdict mail's link ends in. */
 const SIGN_OFF_ANCHOR = 'sign-off';
 
-/** One run: verdict and why, criteria, setting pairs, figures, charts, security parameters, checks, provenance, integrity, re-verifications, sign-off and trail. */
+/**
+ * One run: verdict and why, booking, (for two station logs) the pair's files, alignment and timing,
+ * criteria, setting pairs, figures, charts, security parameters, checks, provenance, integrity,
+ * re-verifications, sign-off and trail.
+ */
 @Component({
   selector: 'bk-run-page',
   imports: [
@@ -55,6 +60,7 @@ const SIGN_OFF_ANCHOR = 'sign-off';
     SettingPairsTable,
     SettingsTable,
     SignOffPanel,
+    StationPairPanel,
     VerdictBanner,
   ],
   templateUrl: './run-page.html',

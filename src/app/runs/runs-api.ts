@@ -5,6 +5,7 @@ import { Observable, switchMap, takeWhile, timer } from 'rxjs';
 import {
   FINISHED_STATES,
   type AuditEventDto,
+  type RealignRequest,
   type ExportFormat,
   type ReverificationDto,
   type ReverificationRequest,
@@ -67,6 +68,11 @@ export class RunsApi {
   /** A shift lead's sign-off of a finished run. */
   signOff(id: number, request: SignOffRequest): Observable<SignOffDto> {
     return this.http.post<SignOffDto>(`/api/runs/${id}/sign-off`, request);
+  }
+
+  /** Runs a pair's two station logs again at a stated offset, with the reason (a shift lead of its setup); answers the new run. */
+  realign(id: number, request: RealignRequest): Observable<RunDto> {
+    return this.http.post<RunDto>(`/api/runs/${id}/realign`, request);
   }
 
   /** Withdraws a mistaken upload before its sign-off (its uploader or an admin). */

@@ -14,7 +14,8 @@ import { acquisitionRecipe, UPLOAD_TOKEN_PLACEHOLDER } from './acquisition-recip
       goes on from there. Put an upload token of this setup in place of <code>{{ placeholder }}</code>. The log goes to the booking
       whose window is open or closed less than a day ago; with none, the run is unbooked.
     </p>
-    <pre class="bk-recipe" data-testid="acquisition-recipe">{{ recipe() }}</pre>
+    <!-- On a phone the recipe scrolls sideways: it takes the keyboard's focus so the keys can scroll it. -->
+    <pre class="bk-recipe" tabindex="0" data-testid="acquisition-recipe">{{ recipe() }}</pre>
     <bk-copy-button [text]="recipe()" what="the acquisition recipe" label="Copy the recipe" />
   `,
   styles: `

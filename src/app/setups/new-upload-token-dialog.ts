@@ -1,14 +1,15 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatRadioModule } from '@angular/material/radio';
 
-import type { CreatedUploadTokenDto, SetupDto } from '@shared/api';
+import { STATIONS, type CreatedUploadTokenDto, type SetupDto, type StationName } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CopyButton } from '../clipboard/copy-button';
 import { SetupsApi } from './setups-api';
@@ -16,13 +17,17 @@ import { SetupsApi } from './setups-api';
 /** The longest validity the server takes, in days. */
 const LONGEST_VALIDITY_DAYS = 366;
 
+/** What the computer holding a token uploads: joined logs, or one station's own log. */
+export type TokenUploads = 'joined' | StationName;
+
 /**
- * Makes an upload token for a setup's acquisition computer, then shows it this once with a copy
- * button: the server keeps only its hash. Closes with the token's listing once it is made.
+ * Makes an upload token for a setup's acquisition computer (one that joins both stations' records,
+ * or one station's own computer), then shows it this once with a copy button: the server keeps only
+ * its hash. Closes with the token's listing once it is made.
  */
 @Component({
   selector: 'bk-new-upload-token-dialog',
-  imports: [CopyButton, DatePipe, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
+  imports: [CopyButton, DatePipe, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
   templateUrl: './new-upload-token-dialog.html',
   styleUrl: './new-upload-token-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,7 +42,13 @@ export class NewUploadTokenDialog {
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: ['', [Validators.required, Validators.maxLength(120)]],
     validDays: [90, [Validators.required, Validators.min(1), Validators.max(LONGEST_VALIDITY_DAYS)]],
+    uploads: new FormControl<TokenUploads>('joined', { nonNullable: true }),
   });
+  /** The choices of what the computer uploads, with the setup's names for the stations. */
+  protected readonly uploadChoices: { value: TokenUploads; words: string }[] = [
+    { value: 'joined', words: 'Joined logs' },
+    ...STATIONS.map((station) => ({ value: station, words: `Station ${station}’s computer (${station === 'A' ? this.setup.stationALabel : this.setup.stationBLabel})` })),
+  ];
   protected readonly saving = signal(false);
   protected readonly failure = signal('');
   /** The token once made: shown here and nowhere else, ever. */
@@ -48,11 +59,11 @@ export class NewUploadTokenDialog {
       this.form.markAllAsTouched();
       return;
     }
-    const { name, validDays } = this.form.getRawValue();
+    const { name, validDays, uploads } = this.form.getRawValue();
     this.saving.set(true);
     this.failure.set('');
     this.setupsApi
-      .createUploadToken(this.setup.id, { name: name.trim(), validDays })
+      .createUploadToken(this.setup.id, { name: name.trim(), validDays, ...(uploads === 'joined' ? {} : { station: uploads }) })
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
         next: (created) => {

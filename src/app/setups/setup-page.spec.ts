@@ -7,6 +7,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
+import { MatRadioGroupHarness } from '@angular/material/radio/testing';
 import { provideRouter } from '@angular/router';
 
 import type { BookingDto, CreatedUploadTokenDto, Role, UploadTokenDto } from '@shared/api';
@@ -73,6 +74,7 @@ const token: UploadTokenDto = {
   expiresAt: '2099-01-10T09:00:00Z',
   revokedAt: null,
   lastUsedAt: '2027-03-15T06:10:00Z',
+  station: null,
 };
 
 describe('SetupPage', () => {
@@ -159,7 +161,9 @@ describe('SetupPage', () => {
       await openAsLead();
       const [live, revoked] = rowText('[data-testid="upload-tokens"]');
       // The state cell starts with its icon's ligature name, then the word.
-      expect(live).toMatch(/^North Hall acquisition PC made by Lucia Brandt, 10 Jan 2027 \| keyIn use \| 15 Mar 2027, \d\d:\d0 GMT[+-]\d+(:\d\d)? \| 10 Jan 2099 \| Revoke$/);
+      expect(live).toMatch(
+        /^North Hall acquisition PC made by Lucia Brandt, 10 Jan 2027 \| Joined logs \| keyIn use \| 15 Mar 2027, \d\d:\d0 GMT[+-]\d+(:\d\d)? \| 10 Jan 2099 \| Revoke$/,
+      );
       expect(revoked).toMatch(/^Old laptop .* \| key_offRevoked 1 Feb 2027, \d\d:00 GMT[+-]\d+(:\d\d)? \| Never \| 10 Jan 2099 \| $/);
     });
 
@@ -186,6 +190,33 @@ describe('SetupPage', () => {
       await fixture.whenStable();
       expect(rowText('[data-testid="upload-tokens"]')[0]).toContain('Mill Lane acquisition PC');
       expect(host.textContent).not.toContain('bkup_Zq3vJm0x');
+    });
+
+    it('makes a token for one station’s computer, which the list names', async () => {
+      await openAsLead();
+      await (await loader.getHarness(MatButtonHarness.with({ text: /New token/ }))).click();
+      const dialog = await documentLoader.getHarness(MatDialogHarness);
+      await (await dialog.getHarness(MatInputHarness.with({ selector: '[data-testid="token-name"]' }))).setValue('Mill Lane station PC');
+      const uploads = await dialog.getHarness(MatRadioGroupHarness);
+      expect(await Promise.all((await uploads.getRadioButtons()).map((choice) => choice.getLabelText()))).toEqual([
+        'Joined logs',
+        'Station A’s computer (North Hall)',
+        'Station B’s computer (Mill Lane)',
+      ]);
+      await uploads.checkRadioButton({ label: 'Station B’s computer (Mill Lane)' });
+      await (await dialog.getHarness(MatButtonHarness.with({ text: 'Make the token' }))).click();
+
+      const request = http.expectOne({ method: 'POST', url: '/api/setups/2/upload-tokens' });
+      expect(request.request.body).toEqual({ name: 'Mill Lane station PC', validDays: 90, station: 'B' });
+      const created: CreatedUploadTokenDto = { ...token, id: 5, name: 'Mill Lane station PC', station: 'B', lastUsedAt: null, token: 'bkup_Pw8tLr2c' };
+      request.flush(created, { status: 201, statusText: 'Created' });
+      await fixture.whenStable();
+      expect(await dialog.getText()).toContain('lets station B’s own logs of Fen link in');
+
+      await (await dialog.getHarness(MatButtonHarness.with({ text: 'I have copied it' }))).click();
+      http.expectOne('/api/setups/2/upload-tokens').flush([created, token]);
+      await fixture.whenStable();
+      expect(rowText('[data-testid="upload-tokens"]')[0]).toMatch(/^Mill Lane station PC .* \| Station B’s log \(Mill Lane\) \| keyIn use/);
     });
 
     it('revokes a token only after asking', async () => {

@@ -5,6 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTableModule } from '@angular/material/table';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { filter, switchMap } from 'rxjs';
 
@@ -12,6 +13,7 @@ import type { CreatedUploadTokenDto, SetupDto, UploadTokenDto } from '@shared/ap
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog, type ConfirmQuestion } from '../confirm/confirm-dialog';
+import { CardTable } from '../lists/card-table';
 import { NewUploadTokenDialog } from './new-upload-token-dialog';
 import { SetupsApi } from './setups-api';
 import { uploadTokenState } from './upload-token-state';
@@ -19,7 +21,7 @@ import { uploadTokenState } from './upload-token-state';
 /** A setup's upload tokens for its acquisition computers: when each was last used, when it expires; new ones and revoking. */
 @Component({
   selector: 'bk-upload-tokens',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [CardTable, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
   templateUrl: './upload-tokens.html',
   styleUrl: './upload-tokens.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -33,6 +35,7 @@ export class UploadTokens {
   /** The setup whose tokens these are; only its admins and shift leads see this panel. */
   readonly setup = input.required<SetupDto>();
 
+  protected readonly columns = ['name', 'uploads', 'state', 'lastUsed', 'expires', 'actions'];
   private readonly reload = signal(0);
   protected readonly tokens = toSignal(
     toObservable(computed(() => ({ setupId: this.setup().id, attempt: this.reload() }))).pipe(switchMap(({ setupId }) => loaded(this.setupsApi.uploadTokens(setupId)))),
@@ -44,6 +47,13 @@ export class UploadTokens {
     const now = new Date();
     return tokens.status === 'ready' ? tokens.value.map((token) => ({ token, state: uploadTokenState(token, now) })) : [];
   });
+
+  /** What the token uploads: "Joined logs", or "Station A’s log (North Hall)". */
+  protected uploadsWords(token: UploadTokenDto): string {
+    if (token.station === null) return 'Joined logs';
+    const setup = this.setup();
+    return `Station ${token.station}’s log (${token.station === 'A' ? setup.stationALabel : setup.stationBLabel})`;
+  }
 
   protected retry(): void {
     this.reload.update((attempt) => attempt + 1);

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import type { HttpRequest, HttpResponse, HttpStack } from 'tus-js-client';
 
-import type { RunDto } from '@shared/api';
+import type { RunDto, StationLogDto } from '@shared/api';
 import { apiErrorMessage } from '../api/api-error-message';
 import { RESUMABLE_HTTP_STACK, ResumableUploads, type UploadProgress } from './resumable-uploads';
 import type { LogUpload } from './upload-metadata';
@@ -17,6 +17,8 @@ const realSetTimeout = setTimeout;
 
 const LOG = 'round,x,y,a,b\n1,0,1,0,0\n2,1,1,1,0\n3,0,0,1,1\n';
 const RUN = { id: 41, state: 'queued' } as RunDto;
+/** Station A's log of a night whose station B log has not come yet. */
+const WAITING_LOG = { id: 5, setupId: 2, station: 'A', bookingId: 7, runId: null, supersededBy: null } as StationLogDto;
 const UPLOAD_URL = 'http://localhost/api/uploads/u1';
 
 /** One request as the fake server saw it. */
@@ -31,7 +33,8 @@ interface Seen {
  * Just enough of the server's tus endpoint, behind tus-js-client's HTTP stack interface. `cutAfter`
  * breaks the next PATCH off once the server holds that many bytes, and with `downAfterCut` the link
  * stays down; `down` makes every request fail without an answer; `loseLastAnswer` drops the answer of the PATCH that completes the upload;
- * `refuseAtFinish` refuses the complete log in the API's words.
+ * `refuseAtFinish` refuses the complete log in the API's words; `waitsForPartner` answers the
+ * complete log as a station's log waiting for the other station's (202).
  */
 class FakeTus implements HttpStack {
   readonly seen: Seen[] = [];
@@ -40,6 +43,7 @@ class FakeTus implements HttpStack {
   down = false;
   loseLastAnswer = false;
   refuseAtFinish: string | null = null;
+  waitsForPartner = false;
   offset = 0;
   length = 0;
   finished = false;
@@ -85,6 +89,7 @@ class FakeTus implements HttpStack {
     this.finished = true;
     if (this.refuseAtFinish) return reply(409, {}, JSON.stringify({ error: { code: 'conflict', message: this.refuseAtFinish } }));
     if (this.loseLastAnswer) throw new Error('connection reset');
+    if (this.waitsForPartner) return reply(202, { 'Upload-Offset': String(this.offset) }, JSON.stringify(WAITING_LOG));
     return reply(201, { 'Upload-Offset': String(this.offset) }, JSON.stringify(RUN));
   }
 }
@@ -158,6 +163,21 @@ describe('ResumableUploads', () => {
     );
     expect(metadata).toEqual({ filename: 'night-14.csv', setupId: '2', bookingId: '7', notes: 'Detector B realigned at 23:10.', mapping: '{"columns":{},"outcomes":"0/1"}' });
     expect(events.at(-1)).toEqual({ kind: 'done', run: RUN });
+  });
+
+  it('sends a station’s own log with its station, and gives the station log when the night waits for the other station’s', async () => {
+    server.waitsForPartner = true;
+    const { events, ended } = send({ ...log, station: 'A' });
+    expect(await ended).toBe('complete');
+    expect(
+      atob(
+        server.seen[0].headers['Upload-Metadata']
+          .split(',')
+          .find((pair) => pair.startsWith('station '))!
+          .split(' ')[1],
+      ),
+    ).toBe('A');
+    expect(events.at(-1)).toEqual({ kind: 'waiting', stationLog: WAITING_LOG });
   });
 
   it('goes on from the server’s offset when the link breaks off', async () => {

@@ -4,13 +4,19 @@ import { inject, Injectable, InjectionToken } from '@angular/core';
 import { catchError, firstValueFrom, Observable, of } from 'rxjs';
 import { Upload, type DetailedError, type HttpRequest, type HttpResponse, type HttpStack } from 'tus-js-client';
 
-import { RESUMABLE_UPLOAD_PATH, type RunDto } from '@shared/api';
+import { RESUMABLE_UPLOAD_PATH, type RunDto, type StationLogDto } from '@shared/api';
 import { Session } from '../auth/session';
 import { shouldRetryUpload, uploadFailure } from './upload-failure';
 import { uploadMetadata, type LogUpload } from './upload-metadata';
 
-/** How far a resumable upload is: the share of the log the server holds, then the run it made. */
-export type UploadProgress = { kind: 'sending'; fraction: number } | { kind: 'done'; run: RunDto };
+/**
+ * How far a resumable upload is: the share of the log the server holds, then the run it made, or
+ * (a station's own log whose partner has not come yet) the station log waiting for the other station's.
+ */
+export type UploadProgress = { kind: 'sending'; fraction: number } | UploadArrival;
+
+/** What a finished upload made: a run, or a station's log waiting for the other station's. */
+export type UploadArrival = { kind: 'done'; run: RunDto } | { kind: 'waiting'; stationLog: StationLogDto };
 
 /** The HTTP stack tus-js-client sends through: its own (the browser's XMLHttpRequest) unless a test gives one. */
 export const RESUMABLE_HTTP_STACK = new InjectionToken<HttpStack | null>('RESUMABLE_HTTP_STACK', { providedIn: 'root', factory: () => null });
@@ -40,12 +46,12 @@ export class ResumableUploads {
   private readonly document = inject(DOCUMENT);
   private readonly httpStack = inject(RESUMABLE_HTTP_STACK);
 
-  /** Sends the log; emits its progress, then the run it made, and completes. Unsubscribing pauses it. */
+  /** Sends the log; emits its progress, then what it made (a run, or a waiting station log), and completes. Unsubscribing pauses it. */
   send(log: LogUpload): Observable<UploadProgress> {
     return new Observable<UploadProgress>((subscriber) => {
       const metadata = uploadMetadata(log);
-      const finish = (run: RunDto) => {
-        subscriber.next({ kind: 'done', run });
+      const finish = (arrival: UploadArrival) => {
+        subscriber.next(arrival);
         subscriber.complete();
       };
       const upload = new Upload(log.log, {
@@ -62,10 +68,12 @@ export class ResumableUploads {
         onAfterResponse: (request, response) => this.noticeFinished(request, response),
         onShouldRetry: (error) => !(error.causingError instanceof FinishedUpload) && navigator.onLine && shouldRetryUpload(statusOf(error), bodyOf(error)),
         onSuccess: ({ lastResponse }) =>
-          void this.runAfter(lastResponse, upload.url).then((run) => (run ? finish(run) : subscriber.error(new Error('The log arrived, but the server named no run for it.')))),
+          void this.arrivalAfter(lastResponse, upload.url).then((arrival) =>
+            arrival ? finish(arrival) : subscriber.error(new Error('The log arrived, but the server named no run for it.')),
+          ),
         onError: (error) => {
           const finished = 'causingError' in error ? error.causingError : null;
-          if (finished instanceof FinishedUpload) finish(finished.run);
+          if (finished instanceof FinishedUpload) finish({ kind: 'done', run: finished.run });
           else subscriber.error(uploadFailure(error));
         },
       });
@@ -79,11 +87,14 @@ export class ResumableUploads {
   }
 
   /**
-   * The run of a completed upload: in the last answer, or (when that answer carries none, as a HEAD
-   * finding every byte already there does) what the finished upload names.
+   * What a completed upload made: in the last answer, or (when that answer carries none, as a HEAD
+   * finding every byte already there does) the run the finished upload names.
    */
-  private async runAfter(lastResponse: HttpResponse, address: string | null): Promise<RunDto | null> {
-    return runIn(lastResponse) ?? (address === null ? null : this.finishedRun(address));
+  private async arrivalAfter(lastResponse: HttpResponse, address: string | null): Promise<UploadArrival | null> {
+    const arrival = arrivalIn(lastResponse);
+    if (arrival !== null) return arrival;
+    const run = address === null ? null : await this.finishedRun(address);
+    return run === null ? null : { kind: 'done', run };
   }
 
   /**
@@ -111,11 +122,15 @@ function bodyOf(error: DetailedError): string {
   return error.originalResponse?.getBody() ?? '';
 }
 
-/** The run in the last PATCH's answer, or null when the answer carries none. */
-function runIn(response: HttpResponse): RunDto | null {
+/**
+ * What the last PATCH's answer names: the run (201), or a station's log that waits for the other
+ * station's (202, the night not yet a run); null when the answer carries neither.
+ */
+function arrivalIn(response: HttpResponse): UploadArrival | null {
   try {
-    const body = JSON.parse(response.getBody()) as Partial<RunDto> | null;
-    return typeof body?.id === 'number' ? (body as RunDto) : null;
+    const body = JSON.parse(response.getBody()) as { id?: unknown } | null;
+    if (typeof body?.id !== 'number') return null;
+    return response.getStatus() === 202 ? { kind: 'waiting', stationLog: body as StationLogDto } : { kind: 'done', run: body as RunDto };
   } catch {
     return null;
   }

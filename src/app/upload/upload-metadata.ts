@@ -1,4 +1,4 @@
-import { RESUMABLE_METADATA_KEYS } from '@shared/api';
+import { RESUMABLE_METADATA_KEYS, type StationName } from '@shared/api';
 import type { ColumnMapping } from '@shared/analysis';
 
 /** What the browser sends with a log. */
@@ -13,6 +13,8 @@ export interface LogUpload {
   /** YYYY-MM-DD, or empty: the booking's night, or none. */
   acquiredOn: string;
   notes: string;
+  /** The station whose own log this is; absent for a joined log. */
+  station?: StationName;
 }
 
 /** A resumable upload's metadata: every value text, as tus carries it. */
@@ -28,6 +30,7 @@ export function uploadMetadata(upload: LogUpload): UploadMetadata {
     notes: upload.notes,
     mapping: JSON.stringify(upload.mapping),
     replacementReason: upload.replacementReason.trim(),
+    station: upload.station ?? '',
   };
   return Object.fromEntries(Object.entries(metadata).filter(([, value]) => value !== ''));
 }

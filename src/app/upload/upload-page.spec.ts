@@ -4,13 +4,16 @@ import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
+import { By } from '@angular/platform-browser';
 import { provideRouter, Router } from '@angular/router';
 import { Subject } from 'rxjs';
 
-import type { BookingDto, ProfileDto, RunDto, SetupDto } from '@shared/api';
+import type { BookingDto, ProfileDto, RunDto, SetupDto, StationLogDto } from '@shared/api';
 import { ResumableUploads, type UploadProgress } from './resumable-uploads';
 import type { LogUpload } from './upload-metadata';
+import { StationLogPicker } from './station-log-picker';
 import { UploadPage } from './upload-page';
 import { specSetup } from '../../testing/spec-setup';
 
@@ -74,10 +77,11 @@ describe('UploadPage', () => {
 
   beforeEach(async () => {
     sent = [];
-    progress = new Subject();
     const uploads: Pick<ResumableUploads, 'send'> = {
+      // Each upload reports through its own subject; `progress` is the latest one's.
       send: (log) => {
         sent.push(log);
+        progress = new Subject();
         return progress;
       },
     };
@@ -140,7 +144,10 @@ describe('UploadPage', () => {
     progress.next({ kind: 'sending', fraction: 0.5 });
     await fixture.whenStable();
     expect(host.querySelector('[data-testid="upload-progress"]')?.getAttribute('aria-valuenow')).toBe('50');
-    progress.next({ kind: 'done', run: { id: 42, state: 'queued', progress: 0, result: null, error: null } as unknown as RunDto });
+    progress.next({
+      kind: 'done',
+      run: { id: 42, state: 'queued', progress: 0, result: null, error: null, file: { originalName: 'night-14.csv' }, stations: null } as unknown as RunDto,
+    });
     progress.complete();
     await fixture.whenStable();
     // The run exists: it can be opened at once, and the address names it, so a reload comes back to it.
@@ -148,7 +155,7 @@ describe('UploadPage', () => {
     expect(TestBed.inject(Router).url).toBe('/?run=42');
     // The analysis is followed by polling, whose first request waits for a timer.
     await new Promise((resolve) => setTimeout(resolve, 0));
-    http.expectOne('/api/runs/42').flush({ id: 42, state: 'accepted', progress: 1, result: null, error: null });
+    http.expectOne('/api/runs/42').flush({ id: 42, state: 'accepted', progress: 1, result: null, error: null, file: { originalName: 'night-14.csv' }, stations: null });
     await fixture.whenStable();
     expect(text('open-run')).toContain('Open run 42');
     expect(host.querySelector('[data-testid="open-run"]')?.getAttribute('href')).toBe('/runs/42');
@@ -244,5 +251,115 @@ describe('UploadPage', () => {
     await fixture.whenStable();
     expect(text('upload-failure')).toBe(`The upload was refused. ${message}`);
     expect(host.querySelector('[data-testid="upload-button"]')).not.toBeNull();
+  });
+
+  describe('with two station logs', () => {
+    const STATION_A_LOG = 'round,x,a,t_setting,t_outcome\n1,0,1,1000,2000\n2,1,0,5000,6000\n';
+    const STATION_B_LOG = 'round,y,b\n1,1,+1\n2,0,-1\n';
+
+    /** Chooses Fen link with `bookings`, and "Two station logs". */
+    async function chooseStations(bookings: BookingDto[]): Promise<void> {
+      const setup = await select('setup-select');
+      await setup.open();
+      await setup.clickOptions({ text: 'Fen link' });
+      http.expectOne('/api/bookings?setupId=2').flush(bookings);
+      await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Two station logs' }))).check();
+      await fixture.whenStable();
+    }
+
+    /** Picks `text` as the log of the picker of `station`. */
+    async function pickStationLog(station: 'A' | 'B', text: string, name: string): Promise<void> {
+      const pickers = fixture.debugElement.queryAll(By.directive(StationLogPicker)).map((picker) => picker.componentInstance as StationLogPicker);
+      await pickers.find((picker) => picker.station() === station)!.chooseLog(new File([text], name));
+      await fixture.whenStable();
+    }
+
+    const waiting = (station: 'A' | 'B') => ({ id: 5, station, runId: null }) as StationLogDto;
+
+    it('names each picker by the setup’s station and checks each file against its station’s columns', async () => {
+      await chooseStations([lastNight()]);
+      expect(host.querySelector('#station-a-title')?.textContent).toBe('Station A · North Hall');
+      expect(host.querySelector('#station-b-title')?.textContent).toBe('Station B · Mill Lane');
+      expect(text('stations-refusal')).toBe('Choose station A’s log, station B’s, or both.');
+
+      await pickStationLog('A', STATION_B_LOG, 'mill-lane.csv');
+      expect(text('station-a-check')).toContain('This is not station A\'s log as Bellkeep reads it: the header has no column "x" for the station A setting');
+      expect(text('station-a-check')).toContain("Station A's log has the columns round, x, a (and t_setting, t_outcome, both or neither).");
+      expect(host.querySelector<HTMLButtonElement>('[data-testid="upload-button"]')!.disabled).toBe(true);
+      // No joined-log columns to map for station logs.
+      expect(host.querySelector('[data-testid="mapping"]')).toBeNull();
+    });
+
+    it('sends one station’s log alone with its station, needing the night when unbooked, and says the night waits for the other’s', async () => {
+      await chooseStations([]);
+      await pickStationLog('A', STATION_A_LOG, 'north-hall.csv');
+      expect(text('station-a-check')).toBe('check_circleThe header fits station A’s columns. All 2 rows read cleanly (rounds 1 to 2), with times; outcomes written 0/1.');
+      expect(text('waits-note')).toContain('Only station A’s log is given: it is kept, and the night waits for station B’s log (Mill Lane)');
+      expect(text('upload-button')).toContain('Upload station A’s log');
+
+      await clickUpload();
+      expect(sent).toHaveLength(0);
+      expect(host.textContent).toContain('Give the night: unbooked station logs pair by setup and night.');
+      const acquiredOn = host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')!;
+      acquiredOn.value = '3/14/2027';
+      acquiredOn.dispatchEvent(new Event('input'));
+      await clickUpload();
+      expect(sent).toHaveLength(1);
+      expect(sent[0]).toMatchObject({ station: 'A', setupId: 2, bookingId: null, acquiredOn: '2027-03-14', mapping: { columns: {}, outcomes: '0/1' } });
+      expect(sent[0].log.name).toBe('north-hall.csv');
+
+      progress.next({ kind: 'waiting', stationLog: waiting('A') });
+      progress.complete();
+      await fixture.whenStable();
+      expect(text('arrival')).toBe('hourglass_topStation A’s log is in; the night waits for station B’s.');
+      expect(text('night-waits')).toContain('The run is made when station B’s log (Mill Lane) of the same night comes');
+      expect(host.querySelector('[data-testid="open-run"]')).toBeNull();
+    });
+
+    it('sends station A’s log, then B’s (outcomes ±1 for both), and opens the run the pair made', async () => {
+      await chooseStations([lastNight()]);
+      const signedA = 'round,x,a\n1,0,+1\n2,1,-1\n';
+      await pickStationLog('A', signedA, 'north-hall.csv');
+      await pickStationLog('B', STATION_B_LOG, 'mill-lane.csv');
+      expect(host.querySelector('[data-testid="waits-note"]')).toBeNull();
+      await clickUpload();
+      expect(sent.map((log) => log.station)).toEqual(['A']);
+      expect(sent[0]).toMatchObject({ bookingId: 7, acquiredOn: '', mapping: { columns: {}, outcomes: '±1' } });
+
+      progress.next({ kind: 'waiting', stationLog: waiting('A') });
+      progress.complete();
+      await fixture.whenStable();
+      expect(sent.map((log) => log.station)).toEqual(['A', 'B']);
+      const run = {
+        id: 43,
+        state: 'queued',
+        progress: 0,
+        result: null,
+        error: null,
+        file: { originalName: 'north-hall.csv' },
+        stations: { stationB: { originalName: 'mill-lane.csv' } },
+      };
+      progress.next({ kind: 'done', run: run as unknown as RunDto });
+      progress.complete();
+      await fixture.whenStable();
+      expect(Array.from(host.querySelectorAll('[data-testid="arrival"]'), (line) => line.textContent.replace(/\s+/g, ' ').trim())).toEqual([
+        'hourglass_topStation A’s log is in; the night waits for station B’s.',
+        'mergeStation B’s log is in and joins station A’s: the night is run 43.',
+      ]);
+      expect(host.querySelector('#bk-upload-progress-title')!.textContent).toBe('north-hall.csv and mill-lane.csv');
+      expect(text('open-run')).toContain('Open run 43');
+      await new Promise((resolve) => setTimeout(resolve, 0));
+      http.expectOne('/api/runs/43').flush({ ...run, state: 'invalid', verdict: 'INVALID' });
+      await fixture.whenStable();
+    });
+
+    it('refuses logs whose outcomes are written two ways', async () => {
+      await chooseStations([lastNight()]);
+      await pickStationLog('A', STATION_A_LOG, 'north-hall.csv');
+      await pickStationLog('B', STATION_B_LOG, 'mill-lane.csv');
+      expect(text('stations-refusal')).toContain('a night’s two logs are read one way');
+      await clickUpload();
+      expect(sent).toHaveLength(0);
+    });
   });
 });

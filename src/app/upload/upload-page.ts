@@ -1,8 +1,9 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked, type WritableSignal } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -10,9 +11,9 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { DateTime } from 'luxon';
-import { catchError, map, type Observable, of, switchMap, tap } from 'rxjs';
+import { catchError, last, map, type Observable, of, switchMap, tap } from 'rxjs';
 
-import { FINISHED_STATES, type BookingDto, type RunDto } from '@shared/api';
+import { FINISHED_STATES, otherStation, STATIONS, type BookingDto, type RunDto, type StationName } from '@shared/api';
 import { type ColumnMapping, FIELD_MEANING, OUTCOME_ENCODINGS, type OutcomeEncoding, ROUND_FIELDS, type RoundField } from '@shared/analysis';
 import { formatCount } from '@shared/format/numbers';
 import { apiErrorMessage } from '../api/api-error-message';
@@ -26,11 +27,19 @@ import { RunsApi } from '../runs/runs-api';
 import { VerdictBanner } from '../runs/verdict-banner';
 import { SetupsApi } from '../setups/setups-api';
 import { openBookings, replacementIn } from './booking-choice';
+import { LogDrop } from './log-drop';
 import { headerNames, previewLog, readLogSample, sameMapping, startingMapping, type LogSample } from './log-preview';
-import { ResumableUploads } from './resumable-uploads';
+import { ResumableUploads, type UploadArrival } from './resumable-uploads';
+import { stationLogsRefusal } from './station-log-check';
+import { StationLogPicker, type PickedStationLog } from './station-log-picker';
+import { arrivalSentence, sendStationLogs, type StationLogUpload } from './station-uploads';
+import type { LogUpload } from './upload-metadata';
 
 /** Where the upload is. */
 type UploadPhase = 'choosing' | 'uploading' | 'analysing' | 'finished';
+
+/** How the night's data comes: one joined log, or each station's own log. */
+type LogSource = 'joined' | 'stations';
 
 /** The mapping's controls: a header name per round field (null: not in the log), and the outcome encoding. */
 type MappingControls = Record<RoundField, FormControl<string | null>> & { outcomes: FormControl<OutcomeEncoding> };
@@ -39,13 +48,17 @@ type MappingControls = Record<RoundField, FormControl<string | null>> & { outcom
  * Uploading a night's log: setup, the booking it joins (and why it replaces the night's earlier log),
  * the file (dropped or picked, plain or gzip), its first rows read in the browser under an editable
  * column mapping, then the resumable upload's progress and the analysis's progress up to the verdict.
+ * Or the two stations' own logs, either alone: each checked against its station's columns, sent with
+ * its station, and the night a run once both are in.
  */
 @Component({
   selector: 'bk-upload-page',
   imports: [
     DatePipe,
     DayField,
+    LogDrop,
     MatButtonModule,
+    MatButtonToggleModule,
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
@@ -53,6 +66,7 @@ type MappingControls = Record<RoundField, FormControl<string | null>> & { outcom
     MatSelectModule,
     ReactiveFormsModule,
     RouterLink,
+    StationLogPicker,
     VerdictBanner,
   ],
   templateUrl: './upload-page.html',
@@ -119,10 +133,34 @@ export class UploadPage {
   /** Whether that version takes its test rounds from the log's own `test` column. */
   protected readonly needsTestColumn = computed(() => takesTestRoundsFromLog(this.versions().find((version) => version.id === this.judgingVersionId())));
 
+  protected readonly source = signal<LogSource>('joined');
   protected readonly file = signal<File | null>(null);
   protected readonly sample = signal<LogSample | null>(null);
   protected readonly sampleFailure = signal('');
-  protected readonly dragging = signal(false);
+
+  /** Each station's log picked for upload. */
+  protected readonly stationLogs: Record<StationName, WritableSignal<PickedStationLog | null>> = { A: signal(null), B: signal(null) };
+  /** The stations whose logs are picked, A first. */
+  protected readonly pickedStations = computed(() => STATIONS.filter((station) => this.stationLogs[station]() !== null));
+  /** Why the station logs cannot be sent as they are, or empty when they can. */
+  protected readonly stationsRefusal = computed(() => {
+    const picked = this.pickedStations().map((station) => ({ station, check: this.stationLogs[station]()!.check }));
+    return stationLogsRefusal(picked, this.needsTestColumn());
+  });
+  /** The station whose log is given alone (the night then waits for the other's), or null. */
+  protected readonly loneStation = computed(() => {
+    const picked = this.pickedStations();
+    return picked.length === 1 ? picked[0] : null;
+  });
+  protected readonly otherStation = otherStation;
+  /** What each station's log made, once sent. */
+  protected readonly arrivals = signal<{ station: StationName; arrival: UploadArrival }[]>([]);
+  protected readonly arrivalSentence = arrivalSentence;
+  /** The station whose log the night waits for after the last upload, or null. */
+  protected readonly nightWaitsFor = computed(() => {
+    const latest = this.arrivals().at(-1);
+    return latest?.arrival.kind === 'waiting' ? otherStation(latest.station) : null;
+  });
   protected readonly headers = computed(() => (this.sample() === null ? [] : headerNames(this.sample()!)));
 
   private readonly mappingValue = toSignal(this.mapping.valueChanges.pipe(map(() => this.mapping.getRawValue())), {
@@ -164,13 +202,29 @@ export class UploadPage {
 
   /** Whether the preview already shows the run would be INVALID: no header fit, no rounds, or rows breaking the rules. */
   protected readonly previewRefuses = computed(() => !this.preview()?.ok || this.badRows() > 0);
+  /** Whether what is chosen cannot be sent. */
+  protected readonly uploadRefused = computed(() => (this.source() === 'joined' ? this.previewRefuses() : this.stationsRefusal() !== ''));
 
   protected readonly phase = signal<UploadPhase>('choosing');
   protected readonly uploaded = signal(0);
   protected readonly run = signal<RunDto | null>(null);
   protected readonly failure = signal('');
   protected readonly uploadPercent = computed(() => Math.round(this.uploaded() * 100));
+  /** The files being sent or analysed, by name. */
+  protected readonly uploadTitle = computed(() => {
+    const run = this.run();
+    if (run !== null) return run.stations ? `${run.file.originalName} and ${run.stations.stationB.originalName}` : run.file.originalName;
+    if (this.source() === 'joined') return this.file()?.name ?? '';
+    return this.pickedStations()
+      .map((station) => this.stationLogs[station]()!.file.name)
+      .join(' and ');
+  });
   protected readonly count = formatCount;
+  /** What the acquisition date is for: the booking's night, or (unbooked) what pairs station logs. */
+  protected readonly acquiredOnHint = computed(() => {
+    if (this.chosenBooking()) return 'The booking’s night.';
+    return this.source() === 'stations' ? 'The night the rounds were taken: station logs pair by it.' : 'The night the rounds were taken (optional).';
+  });
 
   constructor() {
     const shownRun = Number(inject(ActivatedRoute).snapshot.queryParamMap.get('run'));
@@ -178,11 +232,7 @@ export class UploadPage {
       this.uploaded.set(1);
       this.watchRun(shownRun)
         .pipe(
-          catchError((error: unknown) => {
-            this.failure.set(apiErrorMessage(error));
-            this.phase.set('choosing');
-            return of(null);
-          }),
+          catchError((error: unknown) => this.refused(error)),
           takeUntilDestroyed(this.destroyRef),
         )
         .subscribe();
@@ -212,7 +262,11 @@ export class UploadPage {
       const booking = this.chosenBooking();
       const replacing = this.replacement() !== null;
       const versionId = this.judgingVersionId();
+      // Unbooked station logs pair by setup and night: the night must be named.
+      const nightNeeded = booking === null && this.source() === 'stations';
       untracked(() => {
+        acquiredOn.setValidators(nightNeeded ? Validators.required : null);
+        acquiredOn.updateValueAndValidity();
         profileVersionId.setValue(versionId);
         replacementReason.setValidators(replacing ? [Validators.required, Validators.maxLength(2000)] : Validators.maxLength(2000));
         replacementReason.updateValueAndValidity();
@@ -226,18 +280,6 @@ export class UploadPage {
         }
       });
     });
-  }
-
-  protected dropLog(event: DragEvent): void {
-    event.preventDefault();
-    this.dragging.set(false);
-    const file = event.dataTransfer?.files.item(0);
-    if (file) void this.chooseLog(file);
-  }
-
-  protected pickLog(input: HTMLInputElement): void {
-    const file = input.files?.item(0);
-    if (file) void this.chooseLog(file);
   }
 
   /** Reads the start of the file; the mapping is then filled in (see the constructor). */
@@ -275,44 +317,89 @@ export class UploadPage {
     const file = this.file();
     // A second click before the page shows the upload must not send the log again.
     if (this.phase() !== 'choosing') return;
-    const { setupId, bookingId, replacementReason, acquiredOn, notes } = this.form.getRawValue();
-    if (this.form.invalid || file === null || setupId === null || this.previewRefuses() || this.bookingsLoading()) {
+    const { setupId } = this.form.getRawValue();
+    const nothingChosen = this.source() === 'joined' ? file === null : this.pickedStations().length === 0;
+    if (this.form.invalid || nothingChosen || setupId === null || this.uploadRefused() || this.bookingsLoading()) {
       this.form.markAllAsTouched();
       return;
     }
     this.phase.set('uploading');
     this.uploaded.set(0);
     this.failure.set('');
+    this.arrivals.set([]);
+    if (this.source() === 'stations') this.sendStationLogs(setupId);
+    else this.sendJoinedLog(file!, setupId);
+  }
+
+  /** The fields every log of this upload carries, besides the file and its mapping. */
+  private uploadFields(setupId: number): Omit<LogUpload, 'log' | 'mapping'> {
+    const { bookingId, replacementReason, acquiredOn, notes } = this.form.getRawValue();
+    return { setupId, bookingId, replacementReason, acquiredOn: bookingId === null ? (isoDay(acquiredOn) ?? '') : '', notes };
+  }
+
+  private sendJoinedLog(file: File, setupId: number): void {
     this.uploads
-      .send({
-        log: file,
-        setupId,
-        mapping: this.columnMapping(),
-        bookingId,
-        replacementReason,
-        acquiredOn: bookingId === null ? (isoDay(acquiredOn) ?? '') : '',
-        notes,
-      })
+      .send({ ...this.uploadFields(setupId), log: file, mapping: this.columnMapping() })
       .pipe(
         switchMap((progress) => {
           if (progress.kind === 'sending') {
             this.uploaded.set(progress.fraction);
             return of(null);
           }
+          // A joined log always makes a run: only a station's own log waits.
+          if (progress.kind !== 'done') return of(null);
           this.uploaded.set(1);
-          this.run.set(progress.run);
-          // The address names the run: a reload while it is analysed comes back to it.
-          void this.router.navigate([], { queryParams: { run: progress.run.id }, replaceUrl: true });
-          return this.watchRun(progress.run.id);
+          return this.followRun(progress.run);
         }),
-        catchError((error: unknown) => {
-          this.failure.set(apiErrorMessage(error));
-          this.phase.set('choosing');
-          return of(null);
-        }),
+        catchError((error: unknown) => this.refused(error)),
         takeUntilDestroyed(this.destroyRef),
       )
       .subscribe();
+  }
+
+  /** Sends the picked station logs one after the other; follows the run when the pair is one, else says what the night waits for. */
+  private sendStationLogs(setupId: number): void {
+    const fields = this.uploadFields(setupId);
+    const logs = this.pickedStations().map((station): StationLogUpload => {
+      const { file, check } = this.stationLogs[station]()!;
+      return { ...fields, station, log: file, mapping: { columns: {}, outcomes: check?.ok ? check.outcomes : '0/1' } };
+    });
+    let madeRun: RunDto | null = null;
+    sendStationLogs((log) => this.uploads.send(log), logs)
+      .pipe(
+        tap((progress) => {
+          if (progress.kind === 'sending') {
+            this.uploaded.set(progress.fraction);
+            return;
+          }
+          this.arrivals.update((arrivals) => [...arrivals, { station: progress.station, arrival: progress.arrival }]);
+          if (progress.arrival.kind === 'done') madeRun = progress.arrival.run;
+        }),
+        last(),
+        switchMap(() => {
+          this.uploaded.set(1);
+          if (madeRun !== null) return this.followRun(madeRun);
+          this.phase.set('finished');
+          return of(null);
+        }),
+        catchError((error: unknown) => this.refused(error)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe();
+  }
+
+  /** Shows the run made by an upload and follows its analysis; the address names it, so a reload while it is analysed comes back to it. */
+  private followRun(run: RunDto): Observable<RunDto> {
+    this.run.set(run);
+    void this.router.navigate([], { queryParams: { run: run.id }, replaceUrl: true });
+    return this.watchRun(run.id);
+  }
+
+  /** Back to the form with the server's refusal. */
+  private refused(error: unknown): Observable<null> {
+    this.failure.set(apiErrorMessage(error));
+    this.phase.set('choosing');
+    return of(null);
   }
 
   /** Follows the run until its analysis ends, keeping the page's run up to date. */
@@ -326,12 +413,21 @@ export class UploadPage {
     );
   }
 
+  /** "station B’s log (Mill Lane)", with the chosen setup's name for the station. */
+  protected stationLogNamed(station: StationName): string {
+    const setup = this.chosenSetup();
+    const label = setup === null ? '' : station === 'A' ? setup.stationALabel : setup.stationBLabel;
+    return `station ${station}’s log${label ? ` (${label})` : ''}`;
+  }
+
   protected startAgain(): void {
     void this.router.navigate([], { queryParams: { run: null }, replaceUrl: true });
     this.phase.set('choosing');
     this.run.set(null);
+    this.arrivals.set([]);
     this.file.set(null);
     this.sample.set(null);
+    for (const station of STATIONS) this.stationLogs[station].set(null);
     this.form.controls.notes.reset('');
     this.form.controls.replacementReason.reset('');
     if (this.form.controls.acquiredOn.enabled) this.form.controls.acquiredOn.reset(null);
