@@ -7,7 +7,7 @@ import request from 'supertest';
 import { canonicalJson } from '@shared/analysis/canonical-json';
 import { resultFingerprint } from '@shared/analysis/node';
 import type { AnalysisResult } from '@shared/analysis/result';
-import type { AuditPageDto, BookingDto, FieldDifference, ReverificationDto, RunDto, RunReportDto, SigningKeyDto, VerificationDto } from '@shared/api';
+import type { AuditPageDto, FieldDifference, ReverificationDto, RunDto, RunReportDto, SigningKeyDto, VerificationDto } from '@shared/api';
 import { FIXTURE_SEED, steadyPair } from '@fixtures/fixture-set';
 import { writeModelLog } from '@fixtures/model-log-file';
 import { DEMO_PASSWORD } from '@seeders/data/demo-people';
@@ -16,7 +16,7 @@ import { signingKeyFromPem } from '@server/integrity/signing-key';
 import { createSigningKeysService } from '@server/integrity/signing-keys.service';
 import { createLocalLogStore } from '@server/storage/local-log-store';
 import { createTestApp, type TestApp } from '../support/test-app';
-import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
+import { bookOpenNight, fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 
 /** Runs `npm run --silent verify -- ...` as a user would. */
 function runVerify(...args: string[]) {
@@ -309,20 +309,7 @@ describe('signed results, integrity checks, re-verification and exports', () => 
   it('a booked run’s report checks the revealed seed against the commitment published at booking', async () => {
     const log = path.join(scratch, 'booked-night.csv');
     await writeModelLog(log, { ...steadyPair, rounds: 20_000 }, FIXTURE_SEED.slice(0, 60) + 'b00c');
-    const now = Date.now();
-    const booking = (
-      await request(testApp.app)
-        .post('/api/bookings')
-        .set(bearer('dev'))
-        .send({
-          setupId: fenLink,
-          night: '2026-12-04',
-          windowStart: new Date(now - 60_000).toISOString(),
-          windowEnd: new Date(now + 3_600_000).toISOString(),
-          plannedRounds: 20_000,
-        })
-        .expect(201)
-    ).body as BookingDto;
+    const booking = await bookOpenNight(testApp.app, tokens['dev'], { setupId: fenLink, night: '2026-12-04', plannedRounds: 20_000 });
     const created = (await uploadLog(testApp.app, tokens['dev'], log, { setupId: fenLink, bookingId: booking.id }).expect(201)).body as RunDto;
     await waitForFinishedRun(testApp.app, tokens['sami'], created.id);
     const exported = await request(testApp.app).get(`/api/runs/${created.id}/export/json`).set(bearer('sami')).expect(200);

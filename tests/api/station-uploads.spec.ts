@@ -1,14 +1,14 @@
 import { Readable } from 'node:stream';
 import request from 'supertest';
 import { analyseStationPair } from '@shared/analysis/node';
-import type { ApiErrorBody, AuditEventDto, BookingDto, CreatedUploadTokenDto, LedgerDto, RunDto, SetupDto, StationLogDto } from '@shared/api';
+import type { ApiErrorBody, AuditEventDto, CreatedUploadTokenDto, LedgerDto, RunDto, SetupDto, StationLogDto } from '@shared/api';
 import type { Station } from '@shared/analysis/stations/station-columns';
 import { stationCsvBytes } from '@fixtures/stations/station-csv';
 import { KESTREL_FEN_TIMING, STATION_PAIR_SEED, stationRecord, type StationPairOptions } from '@fixtures/stations/station-pair';
 import { stationPairOptions } from '@server/runs/station-pair-record';
 import { demoTokens } from '../support/demo-tokens';
 import { createResumableUpload, patchUpload } from '../support/resumable-api';
-import { setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
+import { bookOpenNight, setupId, uploadLog, waitForFinishedRun } from '../support/runs-api';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /** Rounds of each generated night: enough for the alignment check to see a shift clearly. */
@@ -180,20 +180,7 @@ describe('two station logs of a night, uploaded one at a time and joined into on
   }, 60_000);
 
   it('a booked night waits for both stations’ logs, sent as resumable uploads, and is judged under the booking’s seed', async () => {
-    const now = Date.now();
-    const booking = (
-      await request(testApp.app)
-        .post('/api/bookings')
-        .set(bearer('dev'))
-        .send({
-          setupId: fenLink,
-          night: '2026-12-05',
-          windowStart: new Date(now - 60_000).toISOString(),
-          windowEnd: new Date(now + 3_600_000).toISOString(),
-          plannedRounds: ROUNDS,
-        })
-        .expect(201)
-    ).body as BookingDto;
+    const booking = await bookOpenNight(testApp.app, tokens['dev'], { setupId: fenLink, night: '2026-12-05', plannedRounds: ROUNDS });
     const pair = stationPair('booked', {}, '55'.repeat(32));
     const resumable = async (station: Station) => {
       const location = await createResumableUpload(testApp.app, tokens['dev'], pair[station].bytes.length, {

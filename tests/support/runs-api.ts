@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
-import type { RunDto, SetupDto } from '@shared/api';
+import type { BookingDto, RunDto, SetupDto } from '@shared/api';
 import { FINISHED_STATES } from '@shared/api';
 import { PROJECT_ROOT } from '@server/config/config';
 
@@ -22,6 +22,17 @@ export async function setupId(app: Express, token: string, name: string): Promis
 export interface LogBytes {
   bytes: Buffer;
   name: string;
+}
+
+/** Books `night` of a setup with its acquisition window open now (from a minute ago, for an hour). */
+export async function bookOpenNight(app: Express, token: string, fields: { setupId: number; night: string; plannedRounds: number }): Promise<BookingDto> {
+  const now = Date.now();
+  const answer = await request(app)
+    .post('/api/bookings')
+    .set('Authorization', `Bearer ${token}`)
+    .send({ ...fields, windowStart: new Date(now - 60_000).toISOString(), windowEnd: new Date(now + 3_600_000).toISOString() })
+    .expect(201);
+  return answer.body as BookingDto;
 }
 
 /** Uploads a log through the API, from a file or from memory; `fields` are the form's other fields. */
