@@ -27,6 +27,9 @@ export interface AxeViolation {
 /** What the page's animations tell (typed here: this file is also type-checked without the DOM's types). */
 type PageAnimations = { document: { getAnimations(): { playState: string; effect: { getComputedTiming(): { iterations?: number } } | null }[] } };
 
+/** What the page's fonts tell (typed here for the same reason). */
+type PageFonts = { document: { fonts: { ready: Promise<unknown>; status: string } } };
+
 /** Every rule axe-core (its default rules: WCAG 2 A and AA and its best practices) finds broken on the page once its animations are at rest. */
 export async function axeViolations(page: Page): Promise<AxeViolation[]> {
   // Colours are read at rest: a dialog opening or a menu closing has ended. Endless animations (an indeterminate progress bar) go on.
@@ -35,6 +38,10 @@ export async function axeViolations(page: Page): Promise<AxeViolation[]> {
       .getAnimations()
       .every((animation) => animation.playState !== 'running' || animation.effect?.getComputedTiming().iterations === Infinity),
   );
+  // Icon names are read as icons only once the icon font has loaded: before that axe-core takes a ligature such as
+  // "more_vert" for visible text and finds it missing from the button's accessible name.
+  await page.evaluate(() => (globalThis as unknown as PageFonts).document.fonts.ready.then(() => undefined));
+  await page.waitForFunction(() => (globalThis as unknown as PageFonts).document.fonts.status === 'loaded');
   // Inside the page its global object is written `globalThis`: this file is also type-checked without the DOM's types.
   if (!(await page.evaluate(() => 'axe' in globalThis))) await page.evaluate(axeScript());
   return page.evaluate(async () => {
