@@ -6,7 +6,7 @@ import { FIRST_DATA_LINE, planRanges, spanProblem, TriggerSpan } from '../log/ra
 import { FIELD, ROUND_FIELDS } from '../log/round-fields';
 import { AnalysisProfile } from '../profile';
 import { KeystreamSource } from '../selection/keystream';
-import { JoinedRound } from './joined-round';
+import { JoinedBatch } from './joined-round';
 
 /** The joined stream as the engine's record path reads it: a joined log's columns, outcomes already 0/1 (the station readers decode ±1). */
 const JOINED_COLUMNS = ['round', 'x', 'y', 'a', 'b'];
@@ -47,14 +47,14 @@ export class JoinedStreamAnalysis {
   }
 
   /** A batch of joined rounds, in round order. */
-  add(rounds: readonly JoinedRound[]): void {
+  add(rounds: JoinedBatch): void {
     const values = this.values;
-    for (const round of rounds) {
-      values[FIELD.round] = round.round;
-      values[FIELD.x] = round.x;
-      values[FIELD.y] = round.y;
-      values[FIELD.a] = round.a;
-      values[FIELD.b] = round.b;
+    for (let k = 0; k < rounds.length; k++) {
+      values[FIELD.round] = rounds.round[k];
+      values[FIELD.x] = rounds.x[k];
+      values[FIELD.y] = rounds.y[k];
+      values[FIELD.a] = rounds.a[k];
+      values[FIELD.b] = rounds.b[k];
       this.analysis.accept(this.line++, values, JOINED_COLUMNS.length, noFieldsNeeded);
     }
   }

@@ -32,6 +32,22 @@ export function marginBin(marginPs: bigint, lightTimePs: bigint): number {
   return Number(tenths) + BINS_PER_LIGHT_TIME;
 }
 
+/**
+ * `marginBin` in doubles, for a margin and light time that are safe integers with the light time
+ * above 0 (the timing check's common case): the end bins by comparison, otherwise k = ⌈10·margin /
+ * light time⌉ with the quotient's rounding corrected by exact products (|10·margin| ≤ 10·light time
+ * < 2^53 there).
+ */
+export function marginBinOfSafe(marginPs: number, lightTimePs: number): number {
+  if (marginPs <= -lightTimePs) return 0;
+  if (marginPs > lightTimePs) return MARGIN_BIN_COUNT - 1;
+  const scaled = BINS_PER_LIGHT_TIME * marginPs;
+  let tenths = Math.ceil(scaled / lightTimePs);
+  while ((tenths - 1) * lightTimePs >= scaled) tenths--;
+  while (tenths * lightTimePs < scaled) tenths++;
+  return tenths + BINS_PER_LIGHT_TIME;
+}
+
 /** The bins with their counts (`counts` indexed as `marginBin` numbers them). */
 export function marginBins(counts: ArrayLike<number>): MarginBin[] {
   return Array.from({ length: MARGIN_BIN_COUNT }, (_, bin) => ({

@@ -1,13 +1,16 @@
 import { OFFSET_REACH, OffsetScanOptions, scanOffsets } from './offset-scan';
 import { StationRow } from './station-row';
-import { asyncSlices } from './testing/async-slices';
+import { stationBatches } from './testing/station-batches';
 
 const row = (round: number, setting: number, outcome: number): StationRow => ({ round, setting, outcome, settingTime: null, outcomeTime: null });
 
+/** n mod 2, 0 or 1 for negative n too (B's rounds before A's first pair with A's rounds below 0). */
+const parity = (n: number) => n & 1;
+
 /** A's round r: x = r mod 2, a = ⌊r/4⌋ mod 2. */
-const rowA = (r: number) => row(r, r % 2, (r >> 2) % 2);
+const rowA = (r: number) => row(r, parity(r), parity(r >> 2));
 /** B's setting at its round s: y = ⌊s/2⌋ mod 2, so (x_r, y_r+2) runs through all four pairs every four rounds. */
-const settingB = (s: number) => (s >> 1) % 2;
+const settingB = (s: number) => parity(s >> 1);
 
 /**
  * B's record made to win every CHSH game with A's round r at its own round r + shift:
@@ -21,7 +24,7 @@ function recordB(rounds: readonly number[], shift: number): StationRow[] {
   });
 }
 
-const batches = (rows: readonly StationRow[], size = 5) => asyncSlices([...rows], size);
+const batches = (rows: readonly StationRow[], size = 5) => stationBatches(rows, size);
 
 const range = (from: number, to: number) => Array.from({ length: to - from + 1 }, (_, i) => from + i);
 

@@ -1,17 +1,22 @@
-import { StationRow } from './station-row';
+import { StationBatch } from './station-batch';
+
+/** The batch a cursor holds before its first refill. */
+const NO_ROWS = new StationBatch(0, false);
 
 /**
  * Walks a stream of row batches one row at a time, holding one batch: the merge of two stations'
- * rows reads both in step without keeping more than a batch of either. `row` is the current row;
- * `refill` is awaited only when a batch runs out, so the per-row path stays synchronous.
+ * rows reads both in step without keeping more than a batch of either. Row `at` of `batch` is the
+ * current row; `refill` is awaited only when a batch runs out, so the per-row path stays synchronous
+ * (and a reader may refill the batch it handed out: it is asked for the next only once this one is
+ * read).
  */
 export class RowCursor {
-  private batch: readonly StationRow[] = [];
-  private at = 0;
+  batch: StationBatch = NO_ROWS;
+  at = 0;
   private ended = false;
-  private readonly iterator: AsyncIterator<readonly StationRow[]>;
+  private readonly iterator: AsyncIterator<StationBatch>;
 
-  constructor(rows: AsyncIterable<readonly StationRow[]>) {
+  constructor(rows: AsyncIterable<StationBatch>) {
     this.iterator = rows[Symbol.asyncIterator]();
   }
 
@@ -20,14 +25,9 @@ export class RowCursor {
     return this.at < this.batch.length;
   }
 
-  /** The current row (only while `hasRow`). */
-  get row(): StationRow {
-    return this.batch[this.at];
-  }
-
-  /** Moves past the current row. */
-  advance(): void {
-    this.at++;
+  /** The current row's round index (only while `hasRow`). */
+  get round(): number {
+    return this.batch.round[this.at];
   }
 
   /** Fetches batches until a row is at hand or the stream ends; resolves to whether a row is at hand. */

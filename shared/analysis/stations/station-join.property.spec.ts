@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { JoinedRound } from './joined-round';
 import { RecordGaps } from './record-gaps';
 import { Station } from './station-columns';
+import { StationBatch } from './station-batch';
 import { StationJoin } from './station-join';
 import { StationLogReader } from './station-log-reader';
 import { asyncSlices } from './testing/async-slices';
@@ -60,8 +61,9 @@ function stationLog(station: Station, triggers: readonly (Trigger & { round: num
 
 /** A reader's rows, the bytes cut into pieces, the rows regrouped into batches of `batch`. */
 async function* stationRows(reader: StationLogReader, bytes: Uint8Array, how: Writing) {
-  for await (const rows of reader.rows(asyncSlices(bytes, how.piece))) {
-    for (let at = 0; at < rows.length; at += how.batch) yield rows.slice(at, at + how.batch);
+  for await (const batch of reader.rows(asyncSlices(bytes, how.piece))) {
+    const rows = batch.rows();
+    for (let at = 0; at < rows.length; at += how.batch) yield StationBatch.of(rows.slice(at, at + how.batch), batch.timed);
   }
 }
 
@@ -101,7 +103,7 @@ describe('the join of two station logs', () => {
             batchRounds: 5,
           });
           const joined: JoinedRound[] = [];
-          for await (const batch of join.rounds()) joined.push(...batch);
+          for await (const batch of join.rounds()) joined.push(...batch.rounds());
           const heldA = new Set(triggers.filter((t) => t.keptBy !== 'B').map((t) => t.round));
           const heldB = new Set(triggers.filter((t) => t.keptBy !== 'A').map((t) => t.round));
           // A record without rows is refused ("a header but no rounds"), and that is all that is wrong.

@@ -1,7 +1,7 @@
 import { JoinedRound } from './joined-round';
 import { StationJoin, StationJoinOptions } from './station-join';
 import { StationRow } from './station-row';
-import { asyncSlices } from './testing/async-slices';
+import { stationBatches } from './testing/station-batches';
 
 /** Rows of one station at the given round indices; setting and outcome follow the index, times when asked. */
 function rows(rounds: readonly number[], timed = false): StationRow[] {
@@ -15,7 +15,7 @@ function rows(rounds: readonly number[], timed = false): StationRow[] {
 }
 
 /** The rows in batches of `size`. */
-const batches = (all: readonly StationRow[], size: number) => asyncSlices([...all], size);
+const batches = (all: readonly StationRow[], size: number) => stationBatches(all, size);
 
 async function join(a: readonly StationRow[], b: readonly StationRow[], options: StationJoinOptions = {}, size = 3) {
   const joinOf = new StationJoin(batches(a, size), batches(b, size), options);
@@ -23,7 +23,7 @@ async function join(a: readonly StationRow[], b: readonly StationRow[], options:
   const batchLengths: number[] = [];
   for await (const batch of joinOf.rounds()) {
     batchLengths.push(batch.length);
-    joined.push(...batch);
+    joined.push(...batch.rounds());
   }
   return { joined, summary: joinOf.summary(), batchLengths };
 }

@@ -1,9 +1,9 @@
 import { TriggerSpan } from '../log/range-plans';
-import { JoinedRound } from './joined-round';
+import { JoinedBatch } from './joined-round';
 import { RecordGaps, RecordGapTracker } from './record-gaps';
 import { RowCursor } from './row-cursor';
 import { checkedStatedOffset, StatedOffset } from './stated-offset';
-import { StationRow } from './station-row';
+import { StationBatch } from './station-batch';
 
 /** Joined rounds handed on at a time, at most. */
 export const JOINED_BATCH_ROUNDS = 4096;
@@ -62,8 +62,8 @@ export class StationJoin {
   private lastJoined: number | null = null;
 
   constructor(
-    private readonly recordA: AsyncIterable<readonly StationRow[]>,
-    private readonly recordB: AsyncIterable<readonly StationRow[]>,
+    private readonly recordA: AsyncIterable<StationBatch>,
+    private readonly recordB: AsyncIterable<StationBatch>,
     options: StationJoinOptions = {},
   ) {
     this.statedOffset = options.statedOffset === undefined ? null : checkedStatedOffset(options.statedOffset);
@@ -71,27 +71,31 @@ export class StationJoin {
     this.batchRounds = options.batchRounds ?? JOINED_BATCH_ROUNDS;
   }
 
-  /** The joined rounds in increasing round order, in batches of at most `batchRounds` (never empty). Read once. */
-  async *rounds(): AsyncGenerator<JoinedRound[]> {
+  /**
+   * The joined rounds in increasing round order, in batches of at most `batchRounds` (never empty).
+   * The same batch is refilled: its rounds are valid until the next is asked for. Read once.
+   */
+  async *rounds(): AsyncGenerator<JoinedBatch> {
     const a = new RowCursor(this.recordA);
     const b = new RowCursor(this.recordB);
-    let out: JoinedRound[] = [];
+    const out = new JoinedBatch(this.batchRounds);
     try {
       for (;;) {
         const aReady = a.hasRow || (await a.refill());
         const bReady = b.hasRow || (await b.refill());
         if (aReady && bReady) {
+          out.timed = a.batch.timed && b.batch.timed;
           this.mergeWhileBoth(a, b, out);
         } else if (aReady) {
-          for (; a.hasRow; a.advance()) this.onlyA(a.row.round);
+          for (; a.hasRow; a.at++) this.onlyA(a.round);
         } else if (bReady) {
-          for (; b.hasRow; b.advance()) this.onlyB(b.row.round - this.offset);
+          for (; b.hasRow; b.at++) this.onlyB(b.round - this.offset);
         } else {
           break;
         }
-        if (out.length >= this.batchRounds) {
+        if (out.full) {
           yield out;
-          out = [];
+          out.length = 0;
         }
       }
     } finally {
@@ -101,29 +105,34 @@ export class StationJoin {
   }
 
   /** Joins while both cursors have rows at hand and the batch has room. */
-  private mergeWhileBoth(a: RowCursor, b: RowCursor, out: JoinedRound[]): void {
+  private mergeWhileBoth(a: RowCursor, b: RowCursor, out: JoinedBatch): void {
     const offset = this.offset;
-    while (a.hasRow && b.hasRow && out.length < this.batchRounds) {
-      const rowA = a.row;
-      const rowB = b.row;
-      const roundB = rowB.round - offset;
-      if (rowA.round === roundB) {
-        out.push(joinedRound(rowA, rowB));
+    const rowsA = a.batch;
+    const rowsB = b.batch;
+    let i = a.at;
+    let j = b.at;
+    while (i < rowsA.length && j < rowsB.length && !out.full) {
+      const roundA = rowsA.round[i];
+      const roundB = rowsB.round[j] - offset;
+      if (roundA === roundB) {
+        out.add(rowsA, i, rowsB, j);
         this.gapsA.holds(roundB);
         this.gapsB.holds(roundB);
         this.joined++;
         this.firstJoined ??= roundB;
         this.lastJoined = roundB;
-        a.advance();
-        b.advance();
-      } else if (rowA.round < roundB) {
-        this.onlyA(rowA.round);
-        a.advance();
+        i++;
+        j++;
+      } else if (roundA < roundB) {
+        this.onlyA(roundA);
+        i++;
       } else {
         this.onlyB(roundB);
-        b.advance();
+        j++;
       }
     }
+    a.at = i;
+    b.at = j;
   }
 
   private onlyA(round: number): void {
@@ -154,14 +163,6 @@ export class StationJoin {
       stationB,
     };
   }
-}
-
-/** One round of both records: A's settings and outcome, B's, and the four times when both logs have them. */
-function joinedRound(rowA: StationRow, rowB: StationRow): JoinedRound {
-  const { settingTime: aSetting, outcomeTime: aOutcome } = rowA;
-  const { settingTime: bSetting, outcomeTime: bOutcome } = rowB;
-  const times = aSetting !== null && aOutcome !== null && bSetting !== null && bOutcome !== null ? { aSetting, aOutcome, bSetting, bOutcome } : null;
-  return { round: rowA.round, x: rowA.setting, y: rowB.setting, a: rowA.outcome, b: rowB.outcome, times };
 }
 
 /** The span from the first to the last round either record holds. */

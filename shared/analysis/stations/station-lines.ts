@@ -34,6 +34,16 @@ export class LineSplitter {
     return this.line;
   }
 
+  /** Whether an unfinished line is carried (its rest comes with the next bytes). */
+  get carrying(): boolean {
+    return this.carry.length > 0 || this.skippingLongLine;
+  }
+
+  /** Counts a line read elsewhere (only between lines: nothing carried); returns its number. */
+  countLine(): number {
+    return this.line++;
+  }
+
   /** Reads the complete lines of `chunk` (after any line carried from the chunk before). */
   push(chunk: Uint8Array): void {
     const firstNewline = chunk.indexOf(LF);

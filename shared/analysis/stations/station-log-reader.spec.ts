@@ -15,7 +15,7 @@ async function read(
   const rows: StationRow[] = [];
   for await (const batch of reader.rows(asyncSlices(bytes, options.size ?? 1 << 20))) {
     expect(batch.length).toBeGreaterThan(0);
-    rows.push(...batch);
+    rows.push(...batch.rows());
   }
   return { rows, summary: reader.summary() };
 }

@@ -8,7 +8,8 @@ import { readStationHead } from './station-head';
 import { StationLayout } from './station-header';
 import { LineSplitter } from './station-lines';
 import { StationRecordChecker } from './station-record-checker';
-import { StationRow } from './station-row';
+import { StationBatch } from './station-batch';
+import { StationRowScanner } from './station-row-scanner';
 
 /** What reading one station log found. */
 export interface StationLogSummary {
@@ -31,15 +32,15 @@ export interface StationLogSummary {
   problemCount: number;
 }
 
-/** Bytes read per batch at most: a chunk of a file is split so that no batch holds many rows. */
-const BATCH_BYTES = 64 * 1024;
+/** Rows per batch handed on at most. */
+export const STATION_BATCH_ROWS = 8192;
 
 /**
  * Reads one station's log, `round,x,a[,t_setting,t_outcome]` at station A or `round,y,b[,…]` at
  * station B (any column order, other columns ignored, LF or CRLF, a UTF-8 BOM, quoting as RFC 4180
  * on one line), from decoded bytes cut anywhere, with the joined log's strictness: each bad row is a
- * problem naming line, column and value, and is not handed on. Holds one chunk of bytes and the
- * rows of at most `BATCH_BYTES` of it at a time.
+ * problem naming line, column and value, and is not handed on. Holds one chunk of bytes and one
+ * batch of rows at a time.
  */
 export class StationLogReader {
   private readonly problems = new ProblemList();
@@ -54,8 +55,11 @@ export class StationLogReader {
     private readonly outcomes: OutcomeEncoding = '0/1',
   ) {}
 
-  /** The valid rows, a batch per `BATCH_BYTES` of bytes at most (never an empty batch). Reads the chunks once. */
-  async *rows(chunks: AsyncIterable<Uint8Array>): AsyncGenerator<StationRow[]> {
+  /**
+   * The valid rows, in batches of at most `STATION_BATCH_ROWS` (never an empty one). The same batch
+   * is refilled: its rows are valid until the next is asked for. Reads the chunks once.
+   */
+  async *rows(chunks: AsyncIterable<Uint8Array>): AsyncGenerator<StationBatch> {
     const iterator = chunks[Symbol.asyncIterator]();
     const head: Uint8Array[] = [];
     let headLength = 0;
@@ -80,33 +84,32 @@ export class StationLogReader {
     const checker = new StationRecordChecker(layout, this.problems);
     this.layout = layout;
     this.checker = checker;
-    let batch: StationRow[] = [];
+    const batch = new StationBatch(STATION_BATCH_ROWS, layout.hasTimes);
     const splitter = new LineSplitter(
       FIRST_DATA_LINE,
       (line, text) => {
         this.records++;
         const row = checker.acceptText(line, text);
-        if (row !== null) {
-          batch.push(row);
-        }
+        if (row !== null) batch.push(row);
       },
       (line, start) => {
         this.records++;
         this.problems.add(line, null, `${start}…`, `the line is longer than ${MAX_LINE_BYTES} bytes: not a round record`);
       },
     );
-    const take = (bytes: Uint8Array): StationRow[] => {
-      splitter.push(bytes);
-      const taken = batch;
-      batch = [];
-      this.rowCount += taken.length;
-      return taken;
+    const scanner = new StationRowScanner(layout, checker, splitter, () => this.records++);
+    const handOn = () => {
+      this.rowCount += batch.length;
+      return batch;
     };
     try {
       for (let chunk = headBytes.subarray(read.dataOffset); ;) {
-        for (let at = 0; at < chunk.length; at += BATCH_BYTES) {
-          const rows = take(chunk.subarray(at, at + BATCH_BYTES));
-          if (rows.length > 0) yield rows;
+        for (let at = 0; at < chunk.length;) {
+          at = scanner.scan(chunk, at, chunk.length, batch);
+          if (batch.full) {
+            yield handOn();
+            batch.length = 0;
+          }
         }
         if (ended) break;
         const next = await iterator.next();
@@ -123,8 +126,7 @@ export class StationLogReader {
     }
     splitter.finish();
     this.nextLine = splitter.nextLine;
-    this.rowCount += batch.length;
-    if (batch.length > 0) yield batch;
+    if (batch.length > 0) yield handOn();
     if (this.records === 0) {
       this.problems.add(FIRST_DATA_LINE, null, null, 'the log has a header but no rounds');
     }

@@ -28,7 +28,9 @@ export class StationRecordChecker {
   gaps = 0;
   /** The first readable round index and its line. */
   first: RoundMark | null = null;
-  private previous: RoundMark | null = null;
+  /** The last readable round index and its line (NaN and 0 before the first). */
+  private previousRound = NaN;
+  private previousLine = 0;
   private readonly roundColumn: string;
   private readonly plusMinus: boolean;
   private readonly allowedSettings: readonly number[];
@@ -56,7 +58,7 @@ export class StationRecordChecker {
       const { round, setting, outcome: written, settingTime, outcomeTime } = plain;
       const outcome = this.plusMinus ? (written === 1 ? 0 : written === -1 ? 1 : NaN) : written;
       if (round >= 0 && round <= LARGEST_ROUND && this.allowedSettings.includes(setting) && (outcome === 0 || outcome === 1)) {
-        return this.checkOrder({ round, line }) ? { round, setting, outcome, settingTime, outcomeTime } : null;
+        return this.checkOrder(round, line) ? { round, setting, outcome, settingTime, outcomeTime } : null;
       }
     }
     const split = splitCsvLine(text);
@@ -69,7 +71,21 @@ export class StationRecordChecker {
 
   /** The last readable round index and its line. */
   get last(): RoundMark | null {
-    return this.previous;
+    return this.first === null ? null : { round: this.previousRound, line: this.previousLine };
+  }
+
+  /** Whether setting `setting` is one this station chooses. */
+  allowsSetting(setting: number): boolean {
+    return this.allowedSettings.includes(setting);
+  }
+
+  /**
+   * Takes a row a fast path has read and found in range (round index 0 … 2^53 − 1, setting allowed,
+   * outcome 0 or 1): checks its order, as `acceptText` would. Returns whether the row is taken; a
+   * repeat or a step back is recorded as a problem.
+   */
+  acceptInRange(line: number, round: number): boolean {
+    return this.checkOrder(round, line);
   }
 
   /** Checks one record given as its fields; returns the decoded row, or null when it has a problem. */
@@ -92,7 +108,7 @@ export class StationRecordChecker {
     if (!valid) {
       this.describeProblems(line, fields, { round, setting, written, settingTime, outcomeTime });
     }
-    const ordered = roundReadable && this.checkOrder({ round, line });
+    const ordered = roundReadable && this.checkOrder(round, line);
     return valid && ordered ? { round, setting, outcome, settingTime, outcomeTime } : null;
   }
 
@@ -134,14 +150,20 @@ export class StationRecordChecker {
   }
 
   /** Checks a readable round index against the one before; a repeat or a step back is a problem. */
-  private checkOrder(mark: RoundMark): boolean {
-    const previous = this.previous;
-    this.previous = mark;
-    if (previous === null) {
-      this.first = mark;
+  private checkOrder(round: number, line: number): boolean {
+    const previousRound = this.previousRound;
+    const previousLine = this.previousLine;
+    this.previousRound = round;
+    this.previousLine = line;
+    if (this.first === null) {
+      this.first = { round, line };
       return true;
     }
-    return recordOrder(previous, mark, this.problems, this.roundColumn, (gap) => (this.gaps += gap));
+    if (round > previousRound) {
+      this.gaps += round - previousRound - 1;
+      return true;
+    }
+    return recordOrder({ round: previousRound, line: previousLine }, { round, line }, this.problems, this.roundColumn, (gap) => (this.gaps += gap));
   }
 }
 

@@ -1,4 +1,4 @@
-import { JoinedRound } from './joined-round';
+import { JoinedBatch, JoinedRound } from './joined-round';
 import { TimingCheck } from './timing-check';
 
 /** A round whose outcomes are recorded `aLate` and `bLate` ps after both settings (true times; B's clock reads 1 000 000 ps more). */
@@ -13,8 +13,9 @@ describe('TimingCheck', () => {
 
   it('counts the rounds without space-like separation, finds the smallest margin and bins every round', () => {
     const check = new TimingCheck(geometry);
-    check.add([round(0, 1_600_000n, 1_700_000n), round(1, 4_335_833n, 1_000n), { ...round(2, 0n, 0n), times: null }]);
-    check.add([round(3, 1_000n, 9_000_000n)]);
+    check.add(JoinedBatch.of([round(0, 1_600_000n, 1_700_000n), round(1, 4_335_833n, 1_000n)]));
+    check.add(JoinedBatch.of([{ ...round(2, 0n, 0n), times: null }]));
+    check.add(JoinedBatch.of([round(3, 1_000n, 9_000_000n)]));
     const summary = check.summary();
     // Round 1: A's margin 4 336 333 − 4 335 833 − 500 = 0 (not space-like). Round 3: B's 4 336 333 − 9 000 000 − 500 = −4 664 167.
     expect(summary).toMatchObject({
@@ -38,7 +39,7 @@ describe('TimingCheck', () => {
 
   it('has no share and no smallest margin without timed rounds', () => {
     const check = new TimingCheck(geometry);
-    check.add([{ ...round(0, 0n, 0n), times: null }]);
+    check.add(JoinedBatch.of([{ ...round(0, 0n, 0n), times: null }]));
     expect(check.summary()).toMatchObject({ timedRounds: 0, untimedRounds: 1, notSpaceLikeShare: null, smallestMargin: null });
   });
 });

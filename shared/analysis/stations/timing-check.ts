@@ -1,8 +1,16 @@
-import { JoinedRound } from './joined-round';
-import { MARGIN_BIN_COUNT, MarginBin, marginBin, marginBins } from './margin-histogram';
+import { JoinedBatch } from './joined-round';
+import { MARGIN_BIN_COUNT, MarginBin, marginBin, marginBinOfSafe, marginBins } from './margin-histogram';
+import { PART_SCALE } from './picosecond-parts';
 import { Station } from './station-columns';
 import { StationGeometry, TimingFrame, timingFrame } from './station-geometry';
-import { roundMargins } from './timing-margins';
+import { RoundMargins, roundMargins } from './timing-margins';
+
+/**
+ * The largest difference of two times' high parts the margin arithmetic in doubles takes: with it
+ * and the frame's figures (each below 2.01·10^15 ps once combined), every partial sum of a margin is
+ * an integer below 6.3·10^15 < 2^53, so exact. Larger differences (clocks hours apart) take bigints.
+ */
+const SAFE_HIGH_DIFFERENCE = 2 ** 22;
 
 /** How many rounds without space-like separation are listed by round index. */
 export const LISTED_NOT_SPACE_LIKE = 10;
@@ -45,38 +53,78 @@ export interface TimingSummary {
  */
 export class TimingCheck {
   private readonly frame: TimingFrame;
+  /** The frame's constant terms of each margin in doubles (see `roundMargins`): d/c − o − u at A, d/c + o − u at B. */
+  private readonly constantAtA: number;
+  private readonly constantAtB: number;
+  private readonly lightTime: number;
+  /** Whether the frame's figures allow the arithmetic in doubles at all. */
+  private readonly safeFrame: boolean;
   private readonly counts = new Float64Array(MARGIN_BIN_COUNT);
   private timed = 0;
   private untimed = 0;
   private notSpaceLike = 0;
   private readonly firstNotSpaceLike: number[] = [];
   private smallest: { round: number; station: Station; margin: bigint } | null = null;
+  /** The smallest margin as a double (exact when within 2^53; beyond, it still orders against any safe margin correctly). */
+  private smallestAsNumber = Infinity;
 
   constructor(geometry: StationGeometry) {
     this.frame = timingFrame(geometry);
+    const { lightTimePs, clockOffsetPs, clockUncertaintyPs } = this.frame;
+    this.constantAtA = Number(lightTimePs - clockOffsetPs - clockUncertaintyPs);
+    this.constantAtB = Number(lightTimePs + clockOffsetPs - clockUncertaintyPs);
+    this.lightTime = Number(lightTimePs);
+    this.safeFrame = this.lightTime > 0 && [this.constantAtA, this.constantAtB].every((value) => Math.abs(value) <= 2.01e15);
   }
 
   /** Checks a batch of joined rounds. */
-  add(rounds: readonly JoinedRound[]): void {
-    const lightTime = this.frame.lightTimePs;
-    for (const round of rounds) {
-      if (round.times === null) {
-        this.untimed++;
-        continue;
-      }
-      const { atA, atB } = roundMargins(round.times, this.frame);
-      const station: Station = atA <= atB ? 'A' : 'B';
-      const margin = station === 'A' ? atA : atB;
-      this.timed++;
-      this.counts[marginBin(margin, lightTime)]++;
-      if (margin <= 0n) {
-        this.notSpaceLike++;
-        if (this.firstNotSpaceLike.length < LISTED_NOT_SPACE_LIKE) this.firstNotSpaceLike.push(round.round);
-      }
-      if (this.smallest === null || margin < this.smallest.margin) {
-        this.smallest = { round: round.round, station, margin };
+  add(rounds: JoinedBatch): void {
+    if (!rounds.timed) {
+      this.untimed += rounds.length;
+      return;
+    }
+    for (let k = 0; k < rounds.length; k++) {
+      const highAtA = rounds.bSettingHigh[k] - rounds.aOutcomeHigh[k];
+      const highAtB = rounds.aSettingHigh[k] - rounds.bOutcomeHigh[k];
+      if (this.safeFrame && Math.abs(highAtA) <= SAFE_HIGH_DIFFERENCE && Math.abs(highAtB) <= SAFE_HIGH_DIFFERENCE) {
+        const atA = highAtA * PART_SCALE + (rounds.bSettingLow[k] - rounds.aOutcomeLow[k]) + this.constantAtA;
+        const atB = highAtB * PART_SCALE + (rounds.aSettingLow[k] - rounds.bOutcomeLow[k]) + this.constantAtB;
+        this.addSafeMargins(rounds.round[k], atA, atB);
+      } else {
+        this.addMargins(rounds.round[k], roundMargins(rounds.times(k)!, this.frame));
       }
     }
+  }
+
+  /** One round's margins as safe integers in doubles: the same counts as `addMargins` would make of them. */
+  private addSafeMargins(round: number, atA: number, atB: number): void {
+    const station: Station = atA <= atB ? 'A' : 'B';
+    const margin = station === 'A' ? atA : atB;
+    this.timed++;
+    this.counts[marginBinOfSafe(margin, this.lightTime)]++;
+    if (margin <= 0) this.noteNotSpaceLike(round);
+    if (this.smallest === null || margin < this.smallestAsNumber) {
+      this.smallest = { round, station, margin: BigInt(margin) };
+      this.smallestAsNumber = margin;
+    }
+  }
+
+  /** One round's margins, exact at any size. */
+  private addMargins(round: number, { atA, atB }: RoundMargins): void {
+    const station: Station = atA <= atB ? 'A' : 'B';
+    const margin = station === 'A' ? atA : atB;
+    this.timed++;
+    this.counts[marginBin(margin, this.frame.lightTimePs)]++;
+    if (margin <= 0n) this.noteNotSpaceLike(round);
+    if (this.smallest === null || margin < this.smallest.margin) {
+      this.smallest = { round, station, margin };
+      this.smallestAsNumber = Number(margin);
+    }
+  }
+
+  private noteNotSpaceLike(round: number): void {
+    this.notSpaceLike++;
+    if (this.firstNotSpaceLike.length < LISTED_NOT_SPACE_LIKE) this.firstNotSpaceLike.push(round);
   }
 
   /** What the check found so far. */

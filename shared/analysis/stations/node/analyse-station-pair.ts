@@ -10,7 +10,7 @@ import { resolveRequest } from '../../node/analysis-request';
 import { sealResult } from '../../node/fingerprint';
 import { LogSource, sourceBytes } from '../../node/log-source';
 import { decideAlignment } from '../alignment-decision';
-import { JoinedRound } from '../joined-round';
+import { JoinedBatch } from '../joined-round';
 import { JoinedStreamAnalysis } from '../joined-stream-analysis';
 import { scanOffsets } from '../offset-scan';
 import { checkedStatedOffset, StatedOffset } from '../stated-offset';
@@ -112,7 +112,7 @@ async function joinPass(
   sources: Record<Station, LogSource>,
   outcomes: OutcomeEncoding,
   statedOffset: StatedOffset | undefined,
-  consumer: { add(rounds: readonly JoinedRound[]): void } | null,
+  consumer: { add(rounds: JoinedBatch): void } | null,
 ): Promise<{ files: StationFileSummary[]; join: StationJoinSummary; problems: Record<Station, LogProblem[]> }> {
   const digesting = { A: new DigestingSource(sources.A), B: new DigestingSource(sources.B) };
   const readings = { A: readStationLog(digesting.A.tapped, 'A', outcomes), B: readStationLog(digesting.B.tapped, 'B', outcomes) };

@@ -28,7 +28,7 @@ describe('the joined stream and the engine', () => {
     const log = (station: 'A' | 'B') => memorySource(stationCsvBytes(station, stationRecord(station, options, STATION_PAIR_SEED)));
     const join = new StationJoin(readStationLog(log('A'), 'A').rows, readStationLog(log('B'), 'B').rows);
     const joined: ModelRound[] = [];
-    for await (const batch of join.rounds()) joined.push(...batch.map((r) => ({ round: r.round, x: r.x, y: r.y, a: r.a, b: r.b, test: 0 })));
+    for await (const batch of join.rounds()) joined.push(...batch.rounds().map((r) => ({ round: r.round, x: r.x, y: r.y, a: r.a, b: r.b, test: 0 })));
 
     const burst = options.burst;
     const kept = [...acquireRun({ ...steadyPair, ...options.model, rounds: options.rounds }, STATION_PAIR_SEED)].filter(

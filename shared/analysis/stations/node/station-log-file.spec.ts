@@ -10,7 +10,7 @@ const TEXT = 'round,x,a,t_setting,t_outcome\n' + Array.from({ length: 3000 }, (_
 
 async function rowsOf(reading: StationLogReading): Promise<StationRow[]> {
   const rows: StationRow[] = [];
-  for await (const batch of reading.rows) rows.push(...batch);
+  for await (const batch of reading.rows) rows.push(...batch.rows());
   return rows;
 }
 

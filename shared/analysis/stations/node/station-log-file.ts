@@ -3,12 +3,12 @@ import { DamagedGzipError, decodeLog } from '../../node/decoded-log';
 import { LogSource, openSource } from '../../node/log-source';
 import { Station } from '../station-columns';
 import { StationLogReader, StationLogSummary } from '../station-log-reader';
-import { StationRow } from '../station-row';
+import { StationBatch } from '../station-batch';
 
 /** One reading of a station log file: its rows, then what the reading found. */
 export interface StationLogReading {
-  /** The valid rows, in batches; read once. */
-  rows: AsyncIterable<StationRow[]>;
+  /** The valid rows, in batches (each valid until the next is asked for); read once. */
+  rows: AsyncIterable<StationBatch>;
   /** What the reading found (complete once `rows` has been read to its end). */
   summary(): StationLogSummary;
   /** Whether the file is gzip, known once its first bytes are read; null before. */
@@ -24,7 +24,7 @@ export interface StationLogReading {
 export function readStationLog(source: LogSource, station: Station, outcomes: OutcomeEncoding = '0/1'): StationLogReading {
   const reader = new StationLogReader(station, outcomes);
   let compression: 'gzip' | 'none' | null = null;
-  async function* rows(): AsyncGenerator<StationRow[]> {
+  async function* rows(): AsyncGenerator<StationBatch> {
     const decoded = await decodeLog(openSource(source), () => undefined);
     compression = decoded.gzip ? 'gzip' : 'none';
     try {

@@ -37,7 +37,7 @@ async function analysePair(logs: Record<Station, LogSource>) {
   const joined: JoinedRound[] = [];
   for await (const batch of join.rounds()) {
     timing.add(batch);
-    joined.push(...batch);
+    joined.push(...batch.rounds());
   }
   const decision = decideAlignment(await scanOffsets(readStationLog(logs.A, 'A').rows, readStationLog(logs.B, 'B').rows));
   expect(a.summary().problems.concat(b.summary().problems)).toEqual([]);
