@@ -51,14 +51,25 @@ export const RUNS_OPERATIONS: Operation[] = [
     description: `The log is hashed into the archive as it streams in, and queued for analysis. A \`seed\` field is refused: the server draws it.\n\n${ACQUISITION_RECIPE}`,
     tags: ['Runs'],
     access: 'uploader',
-    headers: z.object({ 'Idempotency-Key': z.string().min(1).max(200).optional().meta({ description: 'Makes a repeated request one run: a repeat gets that run (200).' }) }),
+    headers: z.object({
+      'Idempotency-Key': z
+        .string()
+        .min(1)
+        .max(200)
+        .optional()
+        .meta({ description: 'Makes a repeated request one upload: a repeat gets the run it made (200) or the station’s log it made (202).' }),
+    }),
     body: multipartUpload,
     bodyType: 'multipart/form-data',
     status: 201,
     response: runSchema,
     alsoAnswers: [
       { status: 200, description: 'A repeat with the Idempotency-Key of a run already made: that run.', response: runSchema },
-      { status: 202, description: STATION_WAITS, response: stationLogSchema },
+      {
+        status: 202,
+        description: `${STATION_WAITS} A repeat with the Idempotency-Key of such a log gets it again, with its run once the other station’s log came.`,
+        response: stationLogSchema,
+      },
     ],
     errors: {
       403: 'The uploader may not upload here: another setup’s token, or a profile chosen against the booking.',
@@ -225,11 +236,12 @@ export const RUNS_OPERATIONS: Operation[] = [
   {
     method: 'get',
     path: '/api/uploads/{id}',
-    summary: 'The run a finished resumable upload made',
-    description: 'For a client whose last answer was lost.',
+    summary: 'What a finished resumable upload made',
+    description: 'For a client whose last answer was lost: the run (200), or the station’s log that waits for the other station’s (202; its `runId` once that came).',
     tags: ['Runs'],
     access: 'uploader',
     response: runSchema,
+    alsoAnswers: [{ status: 202, description: `A station’s log: ${STATION_WAITS}`, response: stationLogSchema }],
     errors: { 404: 'No finished upload of this uploader has this id.' },
   },
 ];

@@ -15,7 +15,7 @@ import { uploaderKey } from '../upload-tokens/uploader';
 import { diskFullAnswer, receiveUpload, type ReceivedRunLog } from './log-storage-engine';
 import type { RunsService } from './runs.service';
 import { uploadFieldsSchema, type UploadFields } from './upload-fields';
-import { runOfUploadKey } from './upload-keys';
+import { outcomeOfUploadKey, recordUploadOutcome, repeatAnswer } from './upload-keys';
 import { bufferedFileStream } from '../storage/buffered-file-stream';
 
 /** A resumable upload nobody finished is thrown away after a week. */
@@ -67,7 +67,7 @@ function fieldsOf(upload: Upload): UploadFields {
  * is created, so a refusal comes before the bytes; when the last byte is in, the file is streamed
  * into the archive (hashed on the way, as a multipart upload is) and becomes a run, whose JSON is
  * the answer to the last PATCH. A finished upload's id is kept, so asking again (GET) gives the
- * same run and never a second one. Partial uploads wait under the data folder, also with S3.
+ * same run (or the station's log waiting for the other station's) and never a second one. Partial uploads wait under the data folder, also with S3.
  */
 export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService; logStore: LogStore; uploader: RequestHandler; dataDir: string; limitBytes: number }): Router {
   const { sequelize, runs, logStore, uploader, limitBytes } = deps;
@@ -111,11 +111,8 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
         const { station, ...fields } = fieldsOf(upload);
         const named = { ...fields, originalName: upload.metadata?.filename ?? '', log: received };
         const arrival = station === undefined ? { run: await runs.create(named, who), stationLog: null } : await runs.receiveStationLog({ ...named, station }, who);
-        if (arrival.run !== null) {
-          await sequelize.query('INSERT INTO upload_keys (uploader, idempotency_key, run_id) VALUES (:uploader, :key, :runId)', {
-            replacements: { uploader: uploaderKey(who), key: finishedKey(upload.id), runId: arrival.run.id },
-          });
-        }
+        const outcome = arrival.run === null ? { stationLogId: arrival.stationLog.id } : { runId: arrival.run.id };
+        await recordUploadOutcome(sequelize, uploaderKey(who), finishedKey(upload.id), outcome);
         await forget(upload.id);
         // A station's log that waits for the other station's is accepted (202), not yet a run.
         const [status, body] = arrival.run === null ? [202, arrival.stationLog] : [201, arrival.run];
@@ -144,9 +141,10 @@ export function resumableUploads(deps: { sequelize: Sequelize; runs: RunsService
   // GET is not tus: it tells a client whose last answer was lost which run its finished upload made.
   router.get('/:id', async (request, response, next) => {
     if (request.method === 'HEAD') return next(); // Express routes HEAD to GET handlers; HEAD is tus's
-    const runId = await runOfUploadKey(sequelize, uploaderKey(request.uploader!), finishedKey(String(request.params.id)));
-    if (runId === null) throw HttpError.notFound(`There is no finished upload ${request.params.id} of yours; ask its offset with HEAD and go on.`);
-    response.json(await runs.get(runId));
+    const outcome = await outcomeOfUploadKey(sequelize, uploaderKey(request.uploader!), finishedKey(String(request.params.id)));
+    if (outcome === null) throw HttpError.notFound(`There is no finished upload ${request.params.id} of yours; ask its offset with HEAD and go on.`);
+    const [status, body] = await repeatAnswer(runs, outcome);
+    response.status(status).json(body);
   });
   router.use((request, response) => {
     request.url = request.originalUrl; // tus reads the upload id from the full path

@@ -45,16 +45,16 @@ export function runsRoutes(deps: {
       const upload = { ...rest, originalName: file.originalname, log: file.received };
       if (station === undefined) {
         const run = await runs.create(upload, request.uploader!);
-        await idempotency.recordRun(response, run.id);
+        await idempotency.record(response, { runId: run.id });
         return void response.status(201).json(run);
       }
       // A station's log: the run when it completes the night's pair (201), else the log waiting for the other station's (202).
       const arrival = await runs.receiveStationLog({ ...upload, station }, request.uploader!);
       if (arrival.run === null) {
-        await idempotency.release(response);
+        await idempotency.record(response, { stationLogId: arrival.stationLog.id });
         return void response.status(202).json(arrival.stationLog);
       }
-      await idempotency.recordRun(response, arrival.run.id);
+      await idempotency.record(response, { runId: arrival.run.id });
       response.status(201).json(arrival.run);
     } catch (error) {
       await idempotency.release(response);

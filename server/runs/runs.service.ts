@@ -74,6 +74,8 @@ export interface RunsService {
   receiveStationLog(run: NewRun & { station: StationName }, uploader: Uploader): Promise<StationArrival>;
   /** Station logs, newest first: all, or those still waiting for the other station's. */
   stationLogs(filter: StationLogQuery): Promise<StationLogDto[]>;
+  /** One station's log, waiting or joined into a run. */
+  stationLog(id: number): Promise<StationLogDto>;
   /** Re-runs a pair's two logs at a stated offset, on a shift lead's word and reason: a new attempt of the night. */
   realign(id: number, request: RealignRequest, actor: { id: number; name: string }): Promise<RunDto>;
   /**
@@ -340,6 +342,7 @@ export function createRunsService(deps: {
     get,
     withdraw: withdrawRun({ sequelize, models, audit }),
     stationLogs: (filter) => stationLogs.list(filter),
+    stationLog: (id) => stationLogs.get(id),
 
     async refuseEarly(newRun, uploader) {
       const setup = await uploadSetup(newRun, uploader);

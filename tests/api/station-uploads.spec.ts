@@ -60,8 +60,11 @@ describe('two station logs of a night, uploaded one at a time and joined into on
 
   it('waits for the other station, then analyses the pair exactly as the engine does on the same two files', async () => {
     const pair = stationPair('aligned');
-    const first = await upload('dev', pair.B, { station: 'B', acquiredOn: '2026-11-20' }).expect(202);
+    const sendB = () => upload('dev', pair.B, { station: 'B', acquiredOn: '2026-11-20' }).set('Idempotency-Key', 'fen-b-2026-11-20');
+    const first = await sendB().expect(202);
     const waiting = first.body as StationLogDto;
+    // A repeat of the upload (its answer lost) is told of the same waiting log, not a second one.
+    expect((await sendB().expect(202)).body).toEqual(waiting);
     expect(waiting).toMatchObject({
       station: 'B',
       setupId: fenLink,
@@ -99,6 +102,8 @@ describe('two station logs of a night, uploaded one at a time and joined into on
     expect(run.result!.stations!.alignment).toMatchObject({ shifted: false, centre: 0 });
     expect(run.result!.stations!.timing).not.toBeNull();
     expect(run.verdict).not.toBe('INVALID');
+    // The repeat now tells that the log is joined into the run.
+    expect((await sendB().expect(202)).body).toMatchObject({ id: waiting.id, runId: run.id });
 
     const logs = (await request(testApp.app).get(`/api/runs/station-logs?setupId=${fenLink}`).set(bearer('sami')).expect(200)).body as StationLogDto[];
     expect(
@@ -190,12 +195,14 @@ describe('two station logs of a night, uploaded one at a time and joined into on
         filename: pair[station].name,
       });
       const answer = await patchUpload(testApp.app, tokens['dev'], location, 0, pair[station].bytes);
-      return { status: answer.status, body: JSON.parse(answer.text) as unknown };
+      return { location, status: answer.status, body: JSON.parse(answer.text) as unknown };
     };
     const first = await resumable('A');
     expect(first.status).toBe(202);
     const waiting = first.body as StationLogDto;
     expect(waiting).toMatchObject({ station: 'A', bookingId: booking.id, acquiredOn: null, runId: null });
+    // A client whose last answer was lost asks what its finished upload made: the waiting log.
+    expect((await request(testApp.app).get(first.location).set(bearer('dev')).expect(202)).body).toEqual(waiting);
     const second = await resumable('B');
     expect(second.status).toBe(201);
     const made = second.body as RunDto;
