@@ -30,6 +30,7 @@ const ENTRIES = {
   'server/cli/plan.ts': 'plan',
   'server/cli/keylength.ts': 'keylength',
   'shared/analysis/node/range-worker.ts': 'range-worker',
+  'shared/analysis/stations/node/station-reader-thread.ts': 'station-reader-thread',
   'bench/engine.ts': 'bench-engine',
   'bench/measure-engine.ts': 'measure-engine',
   'bench/measure-gunzip.ts': 'measure-gunzip',

@@ -1,6 +1,30 @@
 import { highPart, lowPart, timeOfParts } from './picosecond-parts';
 import { StationRow } from './station-row';
 
+/** The typed arrays of a batch. */
+export interface StationColumns {
+  round: Float64Array;
+  setting: Uint8Array;
+  outcome: Uint8Array;
+  settingTimeHigh: Float64Array | null;
+  settingTimeLow: Float64Array | null;
+  outcomeTimeHigh: Float64Array | null;
+  outcomeTimeLow: Float64Array | null;
+}
+
+function emptyColumns(capacity: number, timed: boolean): StationColumns {
+  const times = () => (timed ? new Float64Array(capacity) : null);
+  return {
+    round: new Float64Array(capacity),
+    setting: new Uint8Array(capacity),
+    outcome: new Uint8Array(capacity),
+    settingTimeHigh: times(),
+    settingTimeLow: times(),
+    outcomeTimeHigh: times(),
+    outcomeTimeLow: times(),
+  };
+}
+
 /**
  * A batch of one station log's valid rows, column by column in typed arrays (no object per row):
  * the form in which the reader hands rows to the join and the alignment scan. Times, when the log
@@ -22,15 +46,39 @@ export class StationBatch {
   constructor(
     readonly capacity: number,
     readonly timed: boolean,
+    columns: StationColumns = emptyColumns(capacity, timed),
   ) {
-    this.round = new Float64Array(capacity);
-    this.setting = new Uint8Array(capacity);
-    this.outcome = new Uint8Array(capacity);
-    const times = () => (timed ? new Float64Array(capacity) : null);
-    this.settingTimeHigh = times();
-    this.settingTimeLow = times();
-    this.outcomeTimeHigh = times();
-    this.outcomeTimeLow = times();
+    ({
+      round: this.round,
+      setting: this.setting,
+      outcome: this.outcome,
+      settingTimeHigh: this.settingTimeHigh,
+      settingTimeLow: this.settingTimeLow,
+      outcomeTimeHigh: this.outcomeTimeHigh,
+      outcomeTimeLow: this.outcomeTimeLow,
+    } = columns);
+  }
+
+  /** A batch of the first `length` rows of columns made elsewhere (another thread's), without copying them. */
+  static ofColumns(length: number, columns: StationColumns): StationBatch {
+    const batch = new StationBatch(columns.round.length, columns.settingTimeHigh !== null, columns);
+    batch.length = length;
+    return batch;
+  }
+
+  /** The batch's typed arrays (to hand back to the thread they came from). */
+  get columns(): StationColumns {
+    const { round, setting, outcome, settingTimeHigh, settingTimeLow, outcomeTimeHigh, outcomeTimeLow } = this;
+    return { round, setting, outcome, settingTimeHigh, settingTimeLow, outcomeTimeHigh, outcomeTimeLow };
+  }
+
+  /** Copies the rows held into `target` (columns of this batch's capacity and timing, or null for new ones); returns it. */
+  copyInto(target: StationColumns | null): StationColumns {
+    const columns = target ?? emptyColumns(this.capacity, this.timed);
+    for (const [name, column] of Object.entries(this.columns) as [keyof StationColumns, Float64Array | Uint8Array | null][]) {
+      if (column !== null) columns[name]!.set(column.subarray(0, this.length));
+    }
+    return columns;
   }
 
   /** The rows in a batch of their own (for specs and stand-ins). */

@@ -21,7 +21,8 @@ import { alignmentSummary, StationFileSummary, stationFileSummary, StationPairSu
 import { pairTimingRefusal, spaceLikeFinding } from '../space-like-rule';
 import { TimingCheck } from '../timing-check';
 import { DigestingSource, FileDigest } from './file-digest';
-import { readStationLog } from './station-log-file';
+import { readStationLog, StationLogReading } from './station-log-file';
+import { readStationLogInThread } from './threaded-station-log';
 
 /** Options of the analysis of two station logs; everything may be left out. */
 export interface StationPairAnalysisOptions {
@@ -44,10 +45,11 @@ const STATIONS: readonly Station[] = ['A', 'B'];
 /**
  * Analyses the two station logs of one night: the joined log the engine judges is the rounds both
  * stations recorded, over the trigger span of both records, so a round only one station recorded is
- * a missing round wherever it lies, the two ends included. Four passes over the logs, memory
+ * a missing round wherever it lies, the two ends included. Three passes over the logs, memory
  * independent of their length: (1) the join, with each file's SHA-256, what each side lacks and the
  * timing check; (2) the alignment check over station A's first 10^6 records; (3) the join again,
  * into the engine's record path; each file's SHA-256 is taken again and must not have changed.
+ * Two files are read on two cores (`hashedReadings`).
  * A shift found by the alignment check makes the pair INVALID, with its sentence in `reasons`: the
  * records are never realigned silently; a stated offset is applied as given and shown. The timing
  * check, when the geometry and both logs' times allow it, is one of the run's checks; under a
@@ -114,13 +116,28 @@ async function joinPass(
   statedOffset: StatedOffset | undefined,
   consumer: { add(rounds: JoinedBatch): void } | null,
 ): Promise<{ files: StationFileSummary[]; join: StationJoinSummary; problems: Record<Station, LogProblem[]> }> {
-  const digesting = { A: new DigestingSource(sources.A), B: new DigestingSource(sources.B) };
-  const readings = { A: readStationLog(digesting.A.tapped, 'A', outcomes), B: readStationLog(digesting.B.tapped, 'B', outcomes) };
+  const readings = hashedReadings(sources, outcomes);
   const join = new StationJoin(readings.A.rows, readings.B.rows, { statedOffset });
   for await (const batch of join.rounds()) consumer?.add(batch);
-  const digests: FileDigest[] = await Promise.all(STATIONS.map((station) => digesting[station].digest()));
+  const digests: FileDigest[] = await Promise.all(STATIONS.map((station) => readings[station].digest()));
   const files = STATIONS.map((station, i) => stationFileSummary(readings[station].summary(), { ...digests[i], compression: readings[station].compression() ?? 'none' }));
   return { files, join: join.summary(), problems: { A: readings.A.summary().problems, B: readings.B.summary().problems } };
+}
+
+/** A station log's reading with its file's digest (once the rows are read). */
+type HashedReading = StationLogReading & { digest(): Promise<FileDigest> };
+
+/**
+ * Both logs read and hashed in one reading each. Two files: station B's is read and hashed in a
+ * thread of its own, so the join reads both on two cores. A stream is read and hashed here.
+ */
+function hashedReadings(sources: Record<Station, LogSource>, outcomes: OutcomeEncoding): Record<Station, HashedReading> {
+  const here = (source: LogSource, station: Station): HashedReading => {
+    const digesting = new DigestingSource(source);
+    return { ...readStationLog(digesting.tapped, station, outcomes), digest: () => digesting.digest() };
+  };
+  const { A: a, B: b } = sources;
+  return { A: here(a, 'A'), B: 'path' in a && 'path' in b ? readStationLogInThread(b.path, 'B', outcomes) : here(b, 'B') };
 }
 
 /**
