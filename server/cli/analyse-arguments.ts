@@ -23,7 +23,7 @@ export class UsageError extends Error {}
 
 export const USAGE = [
   'usage: analyse <log> [--profile <file.json>] [--seed <64 hex>] [--mapping <file.json>] [--threads <n>]',
-  '       analyse <station A log> <station B log> [--profile <file.json>] [--seed <64 hex>] [--offset <k> --offset-reason <text>]',
+  '       analyse <station A log> <station B log> [--profile <file.json>] [--seed <64 hex>] [--mapping <file.json>] [--offset <k> --offset-reason <text>]',
   '               [--distance-m <m> --clock-offset-ns <ns> --clock-uncertainty-ns <ns>]',
 ].join('\n');
 
@@ -31,8 +31,8 @@ const VALUE_OPTIONS = ['--profile', '--mapping', '--seed', '--threads', '--offse
 
 /** Options that only a pair of station logs takes. */
 const PAIR_OPTIONS = ['--offset', '--offset-reason', '--distance-m', '--clock-offset-ns', '--clock-uncertainty-ns'];
-/** Options that only a single round log takes: station logs have fixed columns, and a pair is read by one thread. */
-const SINGLE_LOG_OPTIONS = ['--mapping', '--threads'];
+/** Options that only a single round log takes: a pair is read by a thread a station. */
+const SINGLE_LOG_OPTIONS = ['--threads'];
 const GEOMETRY_OPTIONS = ['--distance-m', '--clock-offset-ns', '--clock-uncertainty-ns'];
 
 /** Parses the arguments after the script name. */

@@ -1,5 +1,5 @@
 import { readFile } from 'node:fs/promises';
-import { AnalysisResult } from '@shared/analysis';
+import { AnalysisResult, type OutcomeEncoding, parseColumnMapping, STATION_MAPPING_RULE, stationLogOutcomes } from '@shared/analysis';
 import { analyseLog, AnalysisProgress, AnalysisRequestError } from '@shared/analysis/node';
 import { analyseStationPair } from '@shared/analysis/stations/node';
 import { AnalyseArguments, parseAnalyseArguments, USAGE, UsageError } from './analyse-arguments';
@@ -35,17 +35,29 @@ function progressPrinter(): (progress: AnalysisProgress) => void {
   };
 }
 
+/** How two station logs write their outcomes: the only part of a mapping they take. */
+function stationPairOutcomes(mapping: unknown): OutcomeEncoding | undefined {
+  if (mapping === undefined) return undefined;
+  const parsed = parseColumnMapping(mapping);
+  if (!parsed.ok) throw new AnalysisRequestError(parsed.message, 'mapping');
+  const outcomes = stationLogOutcomes(parsed.mapping);
+  if (outcomes === null) throw new AnalysisRequestError(`mapping: ${STATION_MAPPING_RULE}`, 'mapping');
+  return outcomes;
+}
+
 /** The analysis the command line asks for: one round log, or two station logs as a pair. */
 async function analyse(args: AnalyseArguments): Promise<AnalysisResult> {
   const profile = args.profile === undefined ? undefined : await readJson(args.profile, 'profile');
+  const mapping = args.mapping === undefined ? undefined : await readJson(args.mapping, 'mapping');
   if (args.stationB !== undefined) {
-    return analyseStationPair({ path: args.log }, { path: args.stationB }, { profile, seed: args.seed, statedOffset: args.statedOffset, geometry: args.geometry });
+    const outcomes = stationPairOutcomes(mapping);
+    return analyseStationPair({ path: args.log }, { path: args.stationB }, { profile, outcomes, seed: args.seed, statedOffset: args.statedOffset, geometry: args.geometry });
   }
   return analyseLog(
     { path: args.log },
     {
       profile,
-      mapping: args.mapping === undefined ? undefined : await readJson(args.mapping, 'mapping'),
+      mapping,
       seed: args.seed,
       threads: args.threads,
       onProgress: progressPrinter(),

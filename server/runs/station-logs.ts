@@ -1,5 +1,5 @@
 import type { Transaction, WhereOptions } from 'sequelize';
-import type { ColumnMapping } from '@shared/analysis';
+import { type ColumnMapping, STATION_MAPPING_RULE, stationLogOutcomes } from '@shared/analysis';
 import { otherStation, type SetupDto, type StationGeometryDto, type StationLogDto, type StationName } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
@@ -148,13 +148,9 @@ export function stationOfUpload(station: StationName, uploader: Uploader): Stati
  */
 export function stationMapping(mapping: ColumnMapping | undefined): Record<string, unknown> | null {
   if (mapping === undefined) return null;
-  if (Object.keys(mapping.columns).length > 0) {
-    throw HttpError.badRequest(
-      'mapping: a station log is read by its own column names (station A: round, x, a; station B: round, y, b; both optionally t_setting, t_outcome); only "outcomes" can be given',
-      'mapping',
-    );
-  }
-  return { outcomes: mapping.outcomes };
+  const outcomes = stationLogOutcomes(mapping);
+  if (outcomes === null) throw HttpError.badRequest(`mapping: ${STATION_MAPPING_RULE}`, 'mapping');
+  return { outcomes };
 }
 
 /** The pair's mapping: the outcome encoding both stations' uploads named (one named alone counts for both). */

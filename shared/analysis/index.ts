@@ -37,7 +37,17 @@ export { chshValueFromWinFraction, winFractionFromChshValue } from './statistics
 export { hoeffdingDeviation } from './statistics/hoeffding';
 export { COUNT_CELLS, countCell } from './tally/count-table';
 export type { CountTable } from './tally/count-table';
-export { alignmentSentence, lightTime, marginText, signedRounds, SPEED_OF_LIGHT_M_PER_S, STATION_COLUMNS, StationLogReader } from './stations';
+export {
+  alignmentSentence,
+  lightTime,
+  marginText,
+  signedRounds,
+  SPEED_OF_LIGHT_M_PER_S,
+  STATION_COLUMNS,
+  STATION_MAPPING_RULE,
+  stationLogOutcomes,
+  StationLogReader,
+} from './stations';
 export type {
   AlignmentPoint,
   AlignmentSummary,

@@ -1,4 +1,4 @@
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import * as path from 'node:path';
 import { writeStationCsv } from '@fixtures/stations/station-csv';
@@ -51,6 +51,37 @@ describe('analyse command on two station logs', () => {
     const stated = runAnalyse(a, b, '--seed', SEED, '--profile', fixture('observed-profile.json'), '--offset', '2', '--offset-reason', reason);
     expect(stated.status).toBe(0);
     expect(printed(stated.stdout).stations?.join?.statedOffset).toEqual({ rounds: 2, reason });
+  });
+
+  it('reads a pair written with ±1 outcomes under a mapping that says so, as the same pair written 0/1; a mapping of columns is refused', async () => {
+    const write = async (name: string, outcomes: '0/1' | '±1') => {
+      const paths = ['a', 'b'].map((station) => path.join(scratch, `${name}-${station}.csv`));
+      for (const [i, station] of (['A', 'B'] as const).entries())
+        await writeStationCsv(paths[i], station, stationRecord(station, { rounds: 6_000 }, STATION_PAIR_SEED), { outcomes });
+      return paths;
+    };
+    const plusMinus = await write('plus-minus', '±1');
+    const zeroOne = await write('zero-one', '0/1');
+    const mappingFile = path.join(scratch, 'plus-minus.json');
+    writeFileSync(mappingFile, JSON.stringify({ outcomes: '±1' }));
+    const options = ['--seed', SEED, '--profile', fixture('observed-profile.json')];
+    const mapped = runAnalyse(...plusMinus, ...options, '--mapping', mappingFile);
+    const unmapped = runAnalyse(...zeroOne, ...options);
+    expect(mapped.status).toBe(unmapped.status);
+    const [asPlusMinus, asZeroOne] = [printed(mapped.stdout), printed(unmapped.stdout)];
+    expect(asPlusMinus.verdict).not.toBe('INVALID');
+    expect(asPlusMinus.reasons).toEqual(asZeroOne.reasons);
+    expect(asPlusMinus.chsh).toEqual(asZeroOne.chsh);
+    expect(asPlusMinus.qber).toEqual(asZeroOne.qber);
+    expect(asPlusMinus.input.mapping).toEqual({ columns: {}, outcomes: '±1' });
+    // Without the mapping the ±1 logs are refused row by row, naming the outcome column.
+    expect(printed(runAnalyse(...plusMinus, ...options).stdout).errors[0]).toMatchObject({ column: 'a', value: '-1' });
+
+    const columnsFile = path.join(scratch, 'columns.json');
+    writeFileSync(columnsFile, JSON.stringify({ columns: { round: 'trigger' } }));
+    const refused = runAnalyse(...plusMinus, ...options, '--mapping', columnsFile);
+    expect(refused.status).toBe(2);
+    expect(refused.stderr).toContain('analyse: mapping: a station log is read by its own column names');
   });
 
   it.each([

@@ -17,6 +17,7 @@ export { LISTED_LACKING } from './record-gaps';
 export type { RecordGaps, RoundRun } from './record-gaps';
 export type { StatedOffset } from './stated-offset';
 export { STATION_COLUMNS } from './station-columns';
+export { STATION_MAPPING_RULE, stationLogOutcomes } from './station-mapping';
 export type { AlignmentPoint, AlignmentSummary, StationFileSummary, StationPairSummary } from './station-pair-summary';
 export type { Station } from './station-columns';
 export { timingFrame } from './station-geometry';
