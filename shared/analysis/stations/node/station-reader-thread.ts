@@ -20,6 +20,9 @@ export type StationReadReply =
   | { type: 'end'; summary: StationLogSummary; compression: 'gzip' | 'none' | null; digest: FileDigest }
   | { type: 'failed'; message: string; requestKind: AnalysisRequestError['kind'] | null };
 
+/** Read size of the thread's file. */
+const THREAD_READ_BYTES = 1024 * 1024;
+
 /** Batches sent ahead of the reading side: enough to keep both threads busy, few enough to keep memory flat. */
 export const BATCHES_AHEAD = 2;
 
@@ -51,7 +54,8 @@ let wake: (() => void) | null = null;
 async function read(job: StationReadJob): Promise<void> {
   const port = parentPort!;
   try {
-    const digesting = new DigestingSource({ path: job.path });
+    // Smaller reads than the engine's own: this thread only parses, and memory is shared with the main thread's reading.
+    const digesting = new DigestingSource({ path: job.path, readBytes: THREAD_READ_BYTES });
     const reading = readStationLog(digesting.tapped, job.station, job.outcomes);
     for await (const batch of reading.rows) {
       while (sent >= BATCHES_AHEAD && returned.length === 0) await new Promise<void>((resolve) => (wake = resolve));
