@@ -3,17 +3,14 @@ import { resolveHeader } from '../log/header-layout';
 import { LogProblem } from '../log/log-problem';
 import { RangeAnalysis, RangeSummary } from '../log/range-analysis';
 import { FIRST_DATA_LINE, planRanges, spanProblem, TriggerSpan } from '../log/range-plans';
-import { FIELD, ROUND_FIELDS } from '../log/round-fields';
 import { AnalysisProfile } from '../profile';
 import { KeystreamSource } from '../selection/keystream';
+import { countCell } from '../tally/count-table';
 import { JoinedBatch } from './joined-round';
 
 /** The joined stream as the engine's record path reads it: a joined log's columns, outcomes already 0/1 (the station readers decode ±1). */
 const JOINED_COLUMNS = ['round', 'x', 'y', 'a', 'b'];
 const JOINED_MAPPING: ColumnMapping = { columns: {}, outcomes: '0/1' };
-
-/** A joined round has no field to describe as written: the station readers have checked every one. */
-const noFieldsNeeded = (): string[] => [];
 
 /**
  * Feeds the joined rounds of two station records to the engine's own record path (`RangeAnalysis`:
@@ -23,7 +20,8 @@ const noFieldsNeeded = (): string[] => [];
  */
 export class JoinedStreamAnalysis {
   private readonly analysis: RangeAnalysis;
-  private readonly values = new Float64Array(ROUND_FIELDS.length);
+  /** Each round's count cell, for a batch. */
+  private cells = new Uint8Array(0);
   private line = FIRST_DATA_LINE;
 
   private constructor(analysis: RangeAnalysis) {
@@ -46,17 +44,17 @@ export class JoinedStreamAnalysis {
     return new JoinedStreamAnalysis(new RangeAnalysis(plan, keystream));
   }
 
-  /** A batch of joined rounds, in round order. */
+  /**
+   * A batch of joined rounds, in round order: handed to the engine as the row kernel hands it rows
+   * (`RangeAnalysis.acceptRows`: each round index and its count cell, no test mark), since the
+   * station readers have checked every field; the order and the gaps are checked there.
+   */
   add(rounds: JoinedBatch): void {
-    const values = this.values;
-    for (let k = 0; k < rounds.length; k++) {
-      values[FIELD.round] = rounds.round[k];
-      values[FIELD.x] = rounds.x[k];
-      values[FIELD.y] = rounds.y[k];
-      values[FIELD.a] = rounds.a[k];
-      values[FIELD.b] = rounds.b[k];
-      this.analysis.accept(this.line++, values, JOINED_COLUMNS.length, noFieldsNeeded);
-    }
+    if (this.cells.length < rounds.length) this.cells = new Uint8Array(rounds.capacity);
+    const cells = this.cells;
+    for (let k = 0; k < rounds.length; k++) cells[k] = countCell(rounds.x[k], rounds.y[k], rounds.a[k], rounds.b[k]);
+    this.analysis.acceptRows(this.line, rounds.length, rounds.round, cells);
+    this.line += rounds.length;
   }
 
   /** The stream's summary once its last round is in: the triggers after the last joined round take their decisions first. */
