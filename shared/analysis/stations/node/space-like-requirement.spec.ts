@@ -47,7 +47,7 @@ describe('space-like separation as a profile asks for it', () => {
     expect(slipped / ROUNDS).toBeLessThan(0.013);
     const share = ((100 * slipped) / ROUNDS).toPrecision(2);
     expect(required.reasons).toEqual([
-      `Check space-like-separation failed: ${slipped} of the 12\u2009000 timed rounds (${share}\u2009%) lack space-like separation: ` +
+      `The test “Space-like separation” failed: ${slipped} of the 12\u2009000 timed rounds (${share}\u2009%) lack space-like separation: ` +
         `a station recorded its outcome before light from the other station's setting choice could have reached it. ` +
         `The smallest margin is ${marginText(smallest.picoseconds)} (round ${formatCount(smallest.round)}, at station B's outcome; light takes 4\u2009336.333\u2009ns between the stations).`,
     ]);
