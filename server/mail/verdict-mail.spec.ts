@@ -208,7 +208,9 @@ describe('the verdict mail', () => {
           `^Timing check: smallest margin −2\u20092\\d\\d\\.\\d{3}\u2009ns \\(round [\\d\u2009]+, at station B's outcome\\); ${formatCount(timing.notSpaceLike)} of 16\u2009000 timed rounds \\((0\\.9\\d|1\\.\\d)\u2009%\\) without space-like separation\\.$`,
         ),
       );
-      expect(listItems(mail.text, 'Checks that warned:')).toContainEqual(expect.stringContaining('lack space-like separation'));
+      // Each test by its label, not its id.
+      expect(listItems(mail.text, 'Tests of the log that warned:')).toContainEqual(expect.stringMatching(/^Space-like separation: .*lack space-like separation/));
+      expect(mail.text).not.toContain('space-like-separation');
     });
 
     it('gives the sentence of a shift found, what a shift lead may do, and why the timing was not checked; no problem count', async () => {
@@ -264,6 +266,15 @@ describe('the verdict mail', () => {
     expect(mail.text).toContain('Uploader’s notes: Detector B re-cooled at 23:10.');
     expect(mail.text).toContain('Sign it off: https://bellkeep.example/runs/418#sign-off');
     expect(decoded(mail.html)).toContain('<li>Booked night 2025-03-13 (booking 31): attempt 2 of 2.</li>');
+  });
+
+  it('offers the uploader, whom the four-eyes rule keeps from signing, the run instead of the sign-off', () => {
+    const mail = composeVerdictMail(finishedRun(accepted), 'https://bellkeep.example', ['ada.reyes@kestrelfen.example'], 'uploader');
+    expect(mail.subject).toBe('Run 418 of Fen link (unbooked) is analysed: ACCEPT; it awaits sign-off by another shift lead');
+    expect(mail.text).toContain('You uploaded this run: under the setup’s four-eyes rule another shift lead signs it off.');
+    expect(mail.text).toMatch(/Open the run: https:\/\/bellkeep\.example\/runs\/418$/);
+    expect(mail.text).not.toContain('#sign-off');
+    expect(mail.html).not.toContain('#sign-off');
   });
 });
 

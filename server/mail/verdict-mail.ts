@@ -1,6 +1,7 @@
 import { type AnalysisResult, type CheckResult, generalKeySentence, winThresholdOf } from '@shared/analysis';
 import type { RunDto } from '@shared/api';
 import { bookingWords } from '@shared/format/booking-words';
+import { checkLabel } from '@shared/format/check-labels';
 import { formatCount, formatFixed, formatPercent, formatPValue, formatScientific } from '@shared/format/numbers';
 import { KEY_FIGURE_OF_MODEL, keyCautions } from '../reports/attack-model-words';
 import { missingRoundsWords } from '../reports/missing-rounds-words';
@@ -13,18 +14,25 @@ import { verdictSentence } from '@shared/format/verdict-sentence';
 const SUBJECT_VERDICT = { ACCEPT: 'ACCEPT', ABORT: 'ABORT', INVALID: 'no verdict was possible' } as const;
 
 /**
+ * Whom a verdict mail goes to: `signers` may sign the run off and get the link to do it; the
+ * `uploader`'s own mail (the setup's four-eyes rule forbids them to sign it) offers the run instead.
+ */
+export type VerdictAudience = 'signers' | 'uploader';
+
+/**
  * The verdict mail of a finished run: a subject that says, in a sentence, which run of which setup
  * was analysed (its attempt, or that it was unbooked), the verdict, and that it awaits sign-off;
  * booked or unbooked with the attempts; the uploader's notes; for two station logs, both files, the
  * stated offset, a shift found and the timing; the reasons for an abort; the key figures with their
  * bounds, the missing rounds when any, the key figure's total ε and attack model, and the caution of
- * each model shown; the checks that failed or warned; a link straight to the run's sign-off.
+ * each model shown; the tests of the log that failed or warned, each by its label; a link straight to
+ * the run's sign-off, or for its uploader under the four-eyes rule, to the run and who signs it.
  */
-export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: string[]): OutgoingMail & { html: string } {
+export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: string[], audience: VerdictAudience = 'signers'): OutgoingMail & { html: string } {
   const result = run.result;
   if (!result) throw new Error(`Run ${run.id} has no result to mail.`);
   const verdict = result.verdict;
-  const messagesOf = (status: CheckResult['status']) => result.checks.filter((check) => check.status === status).map((check) => check.message);
+  const messagesOf = (status: CheckResult['status']) => result.checks.filter((check) => check.status === status).map((check) => `${checkLabel(check.id)}: ${check.message}`);
   const booking = bookingWords(run);
   const attempt = run.booking && run.booking.attempt > 1 ? ` (attempt ${run.booking.attempt})` : run.booking ? '' : ' (unbooked)';
   const blocks: MailBlock[] = [
@@ -38,16 +46,22 @@ export function composeVerdictMail(run: RunDto, publicUrl: string, recipients: s
     ...stationBlocks(run, result),
     ...listUnlessEmpty('Reasons:', result.reasons),
     ...listUnlessEmpty('Figures:', figureLines(result), result.key ? keyCautions(result.key) : []),
-    ...listUnlessEmpty('Checks that failed:', messagesOf('fail')),
-    ...listUnlessEmpty('Checks that warned:', messagesOf('warn')),
+    ...listUnlessEmpty('Tests of the log that failed:', messagesOf('fail')),
+    ...listUnlessEmpty('Tests of the log that warned:', messagesOf('warn')),
     ...(verdict === 'INVALID' && result.errorCount > 0
       ? [{ kind: 'paragraph', text: `The log has ${formatCount(result.errorCount)} problem(s); the first: ${result.errors[0]?.message ?? 'see the run page'}` } as const]
       : []),
-    { kind: 'link', text: 'Sign it off', label: `Sign off run ${run.id}`, url: `${publicUrl}/runs/${run.id}#sign-off` },
+    ...(audience === 'signers'
+      ? [{ kind: 'link', text: 'Sign it off', label: `Sign off run ${run.id}`, url: `${publicUrl}/runs/${run.id}#sign-off` } as const]
+      : [
+          { kind: 'paragraph', text: 'You uploaded this run: under the setup’s four-eyes rule another shift lead signs it off.' } as const,
+          { kind: 'link', text: 'Open the run', label: `Open run ${run.id}`, url: `${publicUrl}/runs/${run.id}` } as const,
+        ]),
   ];
+  const awaits = audience === 'signers' ? 'it awaits sign-off' : 'it awaits sign-off by another shift lead';
   return {
     to: recipients.join(', '),
-    subject: `Run ${run.id} of ${run.setupName}${attempt} is analysed: ${SUBJECT_VERDICT[verdict]}; it awaits sign-off`,
+    subject: `Run ${run.id} of ${run.setupName}${attempt} is analysed: ${SUBJECT_VERDICT[verdict]}; ${awaits}`,
     text: mailText(blocks),
     html: mailHtml(blocks),
   };

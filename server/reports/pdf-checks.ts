@@ -1,6 +1,7 @@
 import type { AnalysisResult, CheckResult, CheckStatus } from '@shared/analysis';
 import { formatPValue } from '@shared/format/numbers';
 import { formatScientific } from '@shared/format/numbers';
+import { checkLabel } from '@shared/format/check-labels';
 import { grid, paragraph, type GridCell } from './pdf-blocks';
 import { TONE, TYPE } from './pdf-style';
 
@@ -11,7 +12,7 @@ const OUTCOME: Record<CheckStatus, GridCell> = {
   fail: { text: 'FAIL', font: 'bold', colour: TONE.abort },
 };
 
-/** Every check of the run: its name, its outcome, its p-value against its threshold, and the sentence saying what was found. */
+/** Every statistical test of the log: its label, its outcome, its p-value against its threshold, and the sentence saying what was found. */
 export function writeChecks(doc: PDFKit.PDFDocument, result: AnalysisResult): void {
   if (result.checks.length === 0) {
     paragraph(doc, 'No checks were run: the log could not be analysed.', { colour: TONE.muted });
@@ -20,13 +21,13 @@ export function writeChecks(doc: PDFKit.PDFDocument, result: AnalysisResult): vo
   grid(
     doc,
     [
-      // Widths in points of the A4 column: the longest check name, "warning" and "3.2e-1235" each on one line.
-      { header: 'Check', width: 108 },
+      // Widths in points of the A4 column: the longest test's label, "warning" and "3.2e-1235" each on one line.
+      { header: 'Test', width: 138 },
       { header: 'Outcome', width: 52 },
       { header: 'p-value', width: 54, align: 'right' },
-      { header: 'What was found', width: 285 },
+      { header: 'What was found', width: 255 },
     ],
-    result.checks.map((check) => [{ text: check.id, font: 'mono' }, OUTCOME[check.status], pValueCell(check), check.message]),
+    result.checks.map((check) => [checkLabel(check.id), OUTCOME[check.status], pValueCell(check), check.message]),
   );
   paragraph(doc, thresholdSentence(result), { size: TYPE.small, colour: TONE.muted });
 }
@@ -37,8 +38,8 @@ function thresholdSentence(result: AnalysisResult): string {
   const sharing = result.security?.checks;
   if (!sharing) return 'This result was stored before engine 2.0, which kept no p-values apart: each check’s sentence gives its own.';
   return (
-    `Each statistical check passes at p\u00a0≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)} (see Security parameters). ` +
-    'p-values are computed in log space, so a tail below the smallest double still reads as a number; a dash marks a check that counts rather than tests.'
+    `Each statistical test passes at p\u00a0≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)} (see Security parameters). ` +
+    'p-values are computed in log space, so a tail below the smallest double still reads as a number; a dash marks a test that counts rather than weighs a p-value.'
   );
 }
 

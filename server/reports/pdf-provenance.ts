@@ -1,13 +1,15 @@
 import { type AnalysisResult, ROUND_FIELDS } from '@shared/analysis';
 import type { RunReportDto } from '@shared/api';
 import { mappingWords } from '@shared/format/mapping-words';
+import { describeProfile } from '@shared/format/profile-field-labels';
 import { formatCount } from '@shared/format/numbers';
 import { fields, type Field } from './pdf-blocks';
 import { formatInstant } from './pdf-dates';
 
 /**
  * Everything needed to re-derive the result from the archived log: the file, how it was read, the
- * seed and selection, the complete profile as applied, the engine and the result's digest.
+ * seed and selection, the complete profile as applied (each field by the label and words the app
+ * shows it with), the engine and the result's digest.
  */
 export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): void {
   const { result, run, profile } = report;
@@ -21,7 +23,7 @@ export function writeProvenance(doc: PDFKit.PDFDocument, report: RunReportDto): 
       ? []
       : [{ label: 'Test and generation rounds', value: `${formatCount(selection.testRounds)} test, ${formatCount(selection.generationRounds)} generation` }]),
     { label: 'Acceptance profile', value: `${profile.name}, version ${profile.version} (profile ${profile.profileId}, version record ${profile.versionId})` },
-    ...Object.entries(result.profile).map(([name, value]): Field => ({ label: `  ${name}`, value: describeValue(value) })),
+    ...describeProfile(result.profile).map(({ label, value }): Field => ({ label: `  ${label}`, value })),
     { label: 'Engine version', value: result.engineVersion },
     { label: 'Result digest', value: result.fingerprint, mono: true },
     { label: 'Uploaded', value: formatInstant(run.createdAt) },
@@ -67,14 +69,4 @@ function selectionLine(result: AnalysisResult): string {
   if (selection.mode === 'from-log') return "from-log: the log's own test column marked the test rounds (the seed is not used)";
   if (selection.mode === 'fixed-fraction') return `fixed-fraction: exactly ⌊${selection.fraction}·N⌋ rounds, drawn from the seed`;
   return `bernoulli: each round tested with probability ${selection.probability}, drawn from the seed`;
-}
-
-/** A profile parameter as written in JSON, without the punctuation: 1e-9, true, a, b; mode: bernoulli. */
-function describeValue(value: unknown): string {
-  if (Array.isArray(value)) return value.length === 0 ? '(none)' : value.map(describeValue).join(', ');
-  if (value !== null && typeof value === 'object')
-    return Object.entries(value)
-      .map(([key, inner]) => `${key}: ${describeValue(inner)}`)
-      .join('; ');
-  return String(value);
 }

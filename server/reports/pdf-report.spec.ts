@@ -5,6 +5,8 @@ import { formatPValue } from '@shared/format/numbers';
 import { type AnalysisResult, QUANTUM_WIN_FRACTION } from '@shared/analysis';
 import { RUN_REPORT_FORMAT, type RunReportDto } from '@shared/api';
 import { formatCount, formatScientific } from '@shared/format/numbers';
+import { CHECK_FAMILY_LABELS, checkLabel } from '@shared/format/check-labels';
+import { FIELD_MEANINGS } from '@shared/format/profile-field-labels';
 import { SEED } from '@tests/cli/run-analyse';
 import { analysedFixture, GENERAL_PROFILE, NIGHTLY } from '@tests/support/fixture-results';
 import { signStatement } from '../integrity/signed-statement';
@@ -171,12 +173,22 @@ describe('the PDF report of a run', () => {
       expect(caution - text.lastIndexOf('Finite key estimate', caution)).toBeLessThan(400);
     });
 
-    it('lists every check by name with its sentence', () => {
+    it('lists every statistical test of the log by its label, never its id, with its sentence', () => {
       expect(accepted.checks.length).toBeGreaterThan(0);
+      expect(text).toContain('Statistical tests of the log Test Outcome p-value What was found');
       for (const check of accepted.checks) {
-        expect(text).toContain(check.id);
+        expect(text).toContain(checkLabel(check.id));
+        expect(text).not.toContain(check.id);
         expect(text).toContain(flatten(check.message));
       }
+    });
+
+    it('lists the profile as applied by the app’s labels, and the tests that abort a run in words', () => {
+      const { profile } = accepted;
+      expect(text).toContain(`${FIELD_MEANINGS.epsilonEC.label} ${formatScientific(profile.epsilonEC)}`);
+      expect(text).toContain(`${FIELD_MEANINGS.chshTolerance.label} ${profile.chshTolerance}`);
+      expect(text).toContain(`${FIELD_MEANINGS.blockingChecks.label} ${profile.blockingChecks.map((family) => CHECK_FAMILY_LABELS[family]).join(', ')}`);
+      for (const key of ['epsilonEC', 'chshTolerance', 'blockingChecks', 'reconciliationEfficiency']) expect(text).not.toContain(key);
     });
 
     it('tabulates CHSH by setting pair, then gives the balanced win fraction and the pooled one for reference', () => {
@@ -224,11 +236,11 @@ describe('the PDF report of a run', () => {
       expect(statistical.length).toBe(accepted.security!.checks.count);
       for (const check of accepted.checks) {
         const pValue = check.log10PValue === null ? '–' : formatPValue(check.log10PValue);
-        expect(text).toContain(`${check.id} ${word[check.status]} ${pValue}`);
+        expect(text).toContain(`${checkLabel(check.id)} ${word[check.status]} ${pValue}`);
       }
       const sharing = accepted.security!.checks;
       expect(text).toContain(
-        flatten(`Each statistical check passes at p ≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)}`),
+        flatten(`Each statistical test passes at p ≥ α/k = ${formatScientific(sharing.significance)}/${sharing.count} = ${formatScientific(sharing.perCheck)}`),
       );
     });
 
@@ -290,7 +302,7 @@ describe('the PDF report of a run', () => {
     expect(text).toContain('No figures per setting pair: not recorded by the engine that stored this result (version 1.4.0).');
     expect(text).toContain('No missing-rounds count: not recorded by the engine that stored this result (version 1.4.0).');
     expect(text).toContain('No security parameters: not recorded by the engine that stored this result (version 1.4.0).');
-    expect(text).toContain(`${accepted.checks[0].id} pass –`);
+    expect(text).toContain(`${checkLabel(accepted.checks[0].id)} pass –`);
     expect(text).toContain('This result was stored before engine 2.0, which kept no p-values apart');
   });
 

@@ -35,7 +35,7 @@ export function writeSecurity(doc: PDFKit.PDFDocument, result: AnalysisResult): 
   fields(doc, [
     { label: 'How they add up', value: security.rule },
     {
-      label: 'How the checks share α',
+      label: 'How the tests share α',
       value: `α/k = ${formatScientific(checks.significance)}/${formatCount(checks.count)} = ${formatScientific(checks.perCheck)} per check. ${checks.correction}`,
     },
   ]);

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { parseColumnMapping } from '@shared/analysis';
-import { isoDate, queryId as positiveId, STATIONS } from '@shared/api';
+import { acquisitionDate, queryId as positiveId, STATIONS } from '@shared/api';
 
 /** The fields of an upload besides the log: the multipart form's, or a resumable upload's metadata. */
 export const uploadFieldsSchema = z.strictObject({
@@ -31,7 +31,7 @@ export const uploadFieldsSchema = z.strictObject({
   // Refused with its own message, not as an unknown field: whoever could choose the seed could draw
   // seeds until one passes.
   seed: z.never({ error: 'is drawn by the server, never by the uploader: whoever chooses the seed chooses the test rounds' }).optional(),
-  acquiredOn: isoDate.optional(),
+  acquiredOn: acquisitionDate.optional(),
   notes: z.string().max(4000, 'must be at most 4000 characters').optional(),
   // A station's own log (A: round, x, a; B: round, y, b), joined with the other station's once both are in.
   station: z.enum(STATIONS, { error: 'must be A or B: the station whose own log this is' }).optional(),

@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize';
+import type { RunDto } from '@shared/api';
 import type { AuditTrail } from '../audit/audit-trail';
 import type { Models } from '../database/models';
 import type { Mailer } from '../mail/mailer';
@@ -18,17 +19,19 @@ export interface VerdictMailDeps {
 }
 
 /**
- * One verdict-mail job: mails the shift leads of the run's setup and records the delivery (none for
+ * One verdict-mail job: mails the shift leads of the run's setup (the uploader among them under the
+ * four-eyes rule gets a mail of their own, without the sign-off link) and records the delivery (none for
  * an upload withdrawn while it was analysed: its withdrawal mail said so). A
  * failure is recorded and rethrown, so the queue retries later; a run whose mail went out is never
  * mailed again (the run row is locked while sending, and at most one `sent` delivery may exist).
  */
 export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Promise<void> {
-  const { sequelize, models, runs, setups, mailer, audit, publicUrl } = deps;
+  const { sequelize, models, runs, setups, audit } = deps;
   // Read before the transaction takes its pooled connection: a lookup inside it on another
   // connection would wait for the pool, and ten mail jobs at once would hold all ten and wait forever.
-  const setupId = (await models.Run.findByPk(runId, { attributes: ['setupId'], rejectOnEmpty: true })).setupId;
+  const { setupId, uploadedBy } = await models.Run.findByPk(runId, { attributes: ['setupId', 'uploadedBy'], rejectOnEmpty: true });
   const recipients = await setups.verdictRecipients(setupId);
+  const uploaderEmail = uploadedBy === null ? null : ((await models.User.findByPk(uploadedBy, { attributes: ['email'] }))?.email ?? null);
   const failure = await sequelize.transaction(async (transaction) => {
     await models.Run.findByPk(runId, { transaction, lock: transaction.LOCK.UPDATE });
     if (await models.MailDelivery.findOne({ where: { runId, status: 'sent' }, transaction })) return null;
@@ -39,7 +42,7 @@ export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Pro
       return null;
     }
     try {
-      const messageId = await mailer.send({ ...composeVerdictMail(run, publicUrl, recipients), messageId: `<run-${runId}-verdict@bellkeep>` });
+      const messageId = await sendToEach(run, recipients, uploaderAmong(run, recipients, uploaderEmail), deps);
       await models.MailDelivery.create({ runId, recipients, status: 'sent', messageId, error: null }, { transaction });
       await audit.record({ actorId: null, action: 'run.mail-sent', targetType: 'run', targetId: runId, details: { recipients, messageId } }, transaction);
       log.info({ runId, recipients: recipients.length, messageId }, 'verdict mail sent');
@@ -52,4 +55,25 @@ export async function sendVerdictMail(runId: number, deps: VerdictMailDeps): Pro
     }
   });
   if (failure) throw failure instanceof Error ? failure : new Error('the verdict mail failed');
+}
+
+/**
+ * The uploader's address when they are among the recipients and the setup's four-eyes rule forbids
+ * them to sign the run off; else null.
+ */
+function uploaderAmong(run: RunDto, recipients: readonly string[], uploaderEmail: string | null): string | null {
+  return run.fourEyes && uploaderEmail !== null && recipients.includes(uploaderEmail) ? uploaderEmail : null;
+}
+
+/**
+ * Sends the signers' mail, and the uploader's own when `uploader` is set; returns the Message-ID of
+ * the first sent. Each mail has a Message-ID of its own that a retry repeats, so a mail client
+ * shows a mail sent again by a retry once.
+ */
+async function sendToEach(run: RunDto, recipients: readonly string[], uploader: string | null, { mailer, publicUrl }: VerdictMailDeps): Promise<string> {
+  const signers = recipients.filter((address) => address !== uploader);
+  const ids: string[] = [];
+  if (signers.length > 0) ids.push(await mailer.send({ ...composeVerdictMail(run, publicUrl, signers), messageId: `<run-${run.id}-verdict@bellkeep>` }));
+  if (uploader !== null) ids.push(await mailer.send({ ...composeVerdictMail(run, publicUrl, [uploader], 'uploader'), messageId: `<run-${run.id}-verdict-uploader@bellkeep>` }));
+  return ids[0];
 }

@@ -11,6 +11,7 @@ export * from './ledger';
 export * from './planner';
 export * from './profiles';
 export * from './query-fields';
+export * from './acquisition-date';
 export * from './roles';
 export * from './runs';
 export * from './setups';

@@ -6,12 +6,12 @@ const general = { model: 'general' as const };
 describe('the sentence under a verdict', () => {
   it('lets the raw key be kept when the key that counts has bits', () => {
     expect(verdictSentence({ verdict: 'ACCEPT', key: { finiteKeyBits: 41_250, generalAttackBits: null }, security: collective })).toBe(
-      'Every acceptance criterion and blocking check holds: the raw key of this run may be kept.',
+      'Every acceptance criterion holds and no test that aborts a run failed: the raw key of this run may be kept.',
     );
   });
 
   it('says that no key can be extracted at this size when the key that counts is 0 bits, by the profile’s attack model', () => {
-    const noKey = 'Every acceptance criterion and blocking check holds, but no key can be extracted from a run of this size: none is kept.';
+    const noKey = 'Every acceptance criterion holds and no test that aborts a run failed, but no key can be extracted from a run of this size: none is kept.';
     expect(verdictSentence({ verdict: 'ACCEPT', key: { finiteKeyBits: 0, generalAttackBits: null }, security: collective })).toBe(noKey);
     // Under the general model its own figure counts, however many bits the collective estimate gives.
     expect(verdictSentence({ verdict: 'ACCEPT', key: { finiteKeyBits: 9_000, generalAttackBits: 0 }, security: general })).toBe(noKey);

@@ -24,8 +24,8 @@ export function verdictSentence(result: KeyOfResult & { verdict: Verdict; errorC
   switch (result.verdict) {
     case 'ACCEPT':
       return keyBitsThatCount(result) === 0
-        ? 'Every acceptance criterion and blocking check holds, but no key can be extracted from a run of this size: none is kept.'
-        : 'Every acceptance criterion and blocking check holds: the raw key of this run may be kept.';
+        ? 'Every acceptance criterion holds and no test that aborts a run failed, but no key can be extracted from a run of this size: none is kept.'
+        : 'Every acceptance criterion holds and no test that aborts a run failed: the raw key of this run may be kept.';
     case 'ABORT':
       return 'The run failed its tests: no key may be kept from it.';
     case 'INVALID':

@@ -88,6 +88,16 @@ describe('the runs pipeline through the API', () => {
     expect(run).toMatchObject({ uploadedById: ada.id, fourEyes: true });
     const refused = await request(testApp.app).post(`/api/runs/${run.id}/sign-off`).set(bearer('ada')).send({ decision: 'key-discarded', comment: 'mine' }).expect(403);
     expect((refused.body as ApiErrorBody).error.message).toBe(`You uploaded run ${run.id}; under the four-eyes rule of Fen link another shift lead signs it off.`);
+    // The mail does not offer her the sign-off either: she gets her own, the others the link.
+    const hers = await waitForMail(testApp.mailCatcher.inboxUrl, `Run ${run.id} of Fen link (unbooked) is analysed: ACCEPT; it awaits sign-off by another shift lead`);
+    expect(hers.to.map((to) => to.address)).toEqual(['ada.reyes@kestrelfen.example']);
+    expect(hers.text).toContain('You uploaded this run: under the setup’s four-eyes rule another shift lead signs it off.');
+    expect(hers.text).not.toContain('#sign-off');
+    expect(hers.text).not.toContain('Sign it off');
+    const theirs = await waitForMail(testApp.mailCatcher.inboxUrl, `Run ${run.id} of Fen link (unbooked) is analysed: ACCEPT; it awaits sign-off`);
+    expect(theirs.to.map((to) => to.address).sort()).toEqual(['lucia.brandt@kestrelfen.example', 'night-desk@kestrelfen.example']);
+    expect(theirs.text).toContain(`Sign it off: `);
+    expect(theirs.text).toContain(`/runs/${run.id}#sign-off`);
 
     const setup = (await request(testApp.app).get(`/api/setups/${fenLink}`).set(bearer('maren')).expect(200)).body as SetupDto;
     const { id: _id, defaultProfileName: _profile, shiftLeads, createdAt: _created, columnMapping: _mapping, ...fields } = setup;
@@ -188,6 +198,7 @@ describe('the runs pipeline through the API', () => {
     [{ mapping: '{"columns": {"x": ""}}' }, 'mapping'],
     [{ mapping: '{not json' }, 'mapping'],
     [{ acquiredOn: '2026-13-40' }, 'acquiredOn'],
+    [{ acquiredOn: '2999-03-14' }, 'acquiredOn'],
     [{ colour: 'teal' }, ''],
   ])('refuses the fields %j with 400 naming the field, keeping nothing', async (fields, field) => {
     const body = { setupId: fenLink, ...fields } as Record<string, string | number>;

@@ -7,6 +7,10 @@ import { fixtureLog, setupId, uploadLog, waitForFinishedRun } from '../support/r
 /** The YYYY-MM-DD of the night `nightsAgo` nights before today (the ledger's nights are UTC dates). */
 const night = (nightsAgo: number) => new Date(Date.now() - nightsAgo * 86_400_000).toISOString().slice(0, 10);
 
+/** That night as the ledger names it in the test browser's locale (en-US): "Dec 4, 2026". */
+const nightWords = (nightsAgo: number) =>
+  new Intl.DateTimeFormat('en-US', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${night(nightsAgo)}T00:00:00Z`));
+
 /**
  * The lab's desk in a real headless Chromium, over three nights of the Fen link: the ledger is the
  * first screen, each night by icon and word, a cell opens its run; the shift lead's worklist counts
@@ -47,11 +51,11 @@ describe("the lab's desk in a real browser", () => {
     const page = await session.signIn('lucia.brandt@kestrelfen.example');
     expect(page.url()).toBe(`${baseUrl}/`);
     await page.getByTestId('ledger').waitFor();
-    const aborted = page.getByRole('link', { name: `Fen link, night of ${night(1)}: ABORT, to sign (awaiting sign-off), unbooked` });
+    const aborted = page.getByRole('link', { name: `Fen link, night of ${nightWords(1)}: ABORT, to sign (awaiting sign-off), unbooked` });
     // The verdict by icon and word, never the colour alone.
     expect(await aborted.locator('mat-icon').innerText()).toBe('block');
     expect(await aborted.innerText()).toMatch(/^block\s+ABORT\s+to sign$/);
-    await page.getByRole('link', { name: `Fen link, night of ${night(3)}: ACCEPT, to sign (awaiting sign-off), unbooked` }).waitFor();
+    await page.getByRole('link', { name: `Fen link, night of ${nightWords(3)}: ACCEPT, to sign (awaiting sign-off), unbooked` }).waitFor();
     expect(await awaitingSignOff(page, 3)).toEqual([runs.accepted, runs.adasOwn, runs.aborted].sort((a, b) => a - b));
     await session.expectNoAxeViolations(page, 'the overview: worklists and ledger');
     await session.screenshot(page, 'desk-ledger-shift-lead');
@@ -83,7 +87,7 @@ describe("the lab's desk in a real browser", () => {
 
     await page.getByTestId('nav-overview').click();
     expect(await awaitingSignOff(page, 2)).toEqual([runs.accepted, runs.adasOwn].sort((a, b) => a - b));
-    await page.getByRole('link', { name: `Fen link, night of ${night(1)}: ABORT, discarded (signed off: key discarded), unbooked` }).waitFor();
+    await page.getByRole('link', { name: `Fen link, night of ${nightWords(1)}: ABORT, discarded (signed off: key discarded), unbooked` }).waitFor();
     await session.screenshot(page, 'desk-ledger-after-sign-off');
     await page.close();
   }, 120_000);
@@ -94,7 +98,7 @@ describe("the lab's desk in a real browser", () => {
     expect(await awaitingSignOff(page, 1)).toEqual([runs.accepted]);
     await page.getByTestId('worklist-uploads').getByLabel('0 in all').waitFor();
 
-    await page.getByRole('link', { name: new RegExp(`^Fen link, night of ${night(2)}: `) }).click();
+    await page.getByRole('link', { name: new RegExp(`^Fen link, night of ${nightWords(2)}: `) }).click();
     await page.waitForURL(`${baseUrl}/runs/${runs.adasOwn}`);
     const note = page.getByTestId('four-eyes-note');
     await note.waitFor();
@@ -180,13 +184,11 @@ async function expectCards(table: Locator, labels: string[]): Promise<void> {
 /** An e-mail address broken, if at all, only between `parts` (after the @, before a dot): each part sits on one line. */
 async function expectUnbrokenWithin(address: Locator, parts: string[]): Promise<void> {
   const lines = await address.evaluate((element) =>
-    Array.from(element.childNodes)
-      .filter((node) => node.nodeType === Node.TEXT_NODE)
-      .map((node) => {
-        const range = document.createRange();
-        range.selectNodeContents(node);
-        return { text: node.textContent, lines: new Set(Array.from(range.getClientRects(), (rect) => Math.round(rect.top))).size };
-      }),
+    Array.from(element.querySelectorAll('.bk-email-part')).map((node) => {
+      const range = document.createRange();
+      range.selectNodeContents(node);
+      return { text: node.textContent, lines: new Set(Array.from(range.getClientRects(), (rect) => Math.round(rect.top))).size };
+    }),
   );
   expect(lines).toEqual(parts.map((text) => ({ text, lines: 1 })));
 }

@@ -1,3 +1,4 @@
+import { checkLabel } from '../../format/check-labels';
 import { CheckResult } from '../checks/check-result';
 import { AnalysisProfile } from '../profile';
 import { LOCAL_WIN_FRACTION, QUANTUM_WIN_FRACTION } from '../statistics/bell-bounds';
@@ -32,7 +33,7 @@ export interface GeneralAcceptance {
  * - a physical bound: that lower bound is not above ω_Q = (2 + √2)/4, i.e. S_low ≤ 2√2 (Tsirelson
  *   1980): above it the data or its analysis is broken, never the device better;
  * - the error-rate criterion (`qberCriterion`);
- * - no blocking check failed;
+ * - no test of the log that aborts a run (a blocking check) failed;
  * - if the profile asks, a positive key of its attack model.
  */
 export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySummary, checks: readonly CheckResult[], profile: AnalysisProfile): VerdictFinding {
@@ -44,7 +45,7 @@ export function decideVerdict(chsh: ChshSummary, qber: QberSummary, key: KeySumm
     reasons.push(`The ${rateCriterion.name} on the key setting ${rateCriterion.value.toFixed(6)} is above the tolerance ${profile.qberTolerance}.`);
   }
   for (const check of checks.filter((c) => c.status === 'fail')) {
-    reasons.push(`Check ${check.id} failed: ${check.message}`);
+    reasons.push(`The test “${checkLabel(check.id)}” failed: ${check.message}`);
   }
   if (profile.requirePositiveKey && profile.securityModel === 'general') {
     if (!key.generalAttackBits)

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -26,6 +25,7 @@ import { BookingNoteLine } from '../runs/booking-note-line';
 import { ShortHash } from '../runs/short-hash';
 import { VerdictChip } from '../runs/verdict-chip';
 import { hexPrefixQuery, hexPrefixValidator, WHILE_TYPING } from './hex-prefix';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** Finished runs only, the latest nights first. */
 const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'acquiredOn', direction: 'desc', finished: true };
@@ -37,7 +37,7 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'acquiredOn', direct
     BookingNoteLine,
     CardTable,
     ChoiceFilter,
-    DatePipe,
+    ShownDatePipe,
     DateRangeFilter,
     FilterBar,
     ListFrame,

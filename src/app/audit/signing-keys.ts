@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,11 +8,12 @@ import { switchMap } from 'rxjs';
 import { loaded } from '../api/loaded';
 import { CopyButton } from '../clipboard/copy-button';
 import { AuditApi } from './audit-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** The public keys results are signed with, each to copy for checking a report away from Bellkeep. */
 @Component({
   selector: 'bk-signing-keys',
-  imports: [CopyButton, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [CopyButton, ShownDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './signing-keys.html',
   styleUrl: './signing-keys.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

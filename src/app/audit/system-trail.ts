@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -22,9 +21,11 @@ import { FilterBar } from '../lists/filter-bar';
 import { ListFrame } from '../lists/list-frame';
 import { pagedList } from '../lists/paged-list';
 import { trailDetail, trailWords } from '../runs/trail-words';
+import { TextWithAddresses } from '../users/text-with-addresses';
 import { AuditApi } from './audit-api';
 import { ACTION_FAMILIES, TARGET_WORDS, targetWords } from './audit-words';
 import { TrailChainCheck } from './trail-chain-check';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 const FIRST_PAGE = { page: 0, pageSize: 50 };
 
@@ -34,7 +35,7 @@ const FIRST_PAGE = { page: 0, pageSize: 50 };
   imports: [
     CardTable,
     ChoiceFilter,
-    DatePipe,
+    ShownDatePipe,
     DateRangeFilter,
     FilterBar,
     ListFrame,
@@ -46,6 +47,7 @@ const FIRST_PAGE = { page: 0, pageSize: 50 };
     MatTableModule,
     ReactiveFormsModule,
     RouterLink,
+    TextWithAddresses,
     TrailChainCheck,
   ],
   templateUrl: './system-trail.html',

@@ -60,7 +60,7 @@ describe('TrailChainCheck', () => {
   it('says Intact with the count of events and the newest link', async () => {
     await checkAndAnswer(intact);
     expect(text('trail-chain-outcome')).toMatch(
-      /^verified ?Intact: all 1 204 events are linked in order up to link 1 204 \(3f2a9c0d1e7b…\) \(checked 2 Mar 2027, \d\d:15:00 GMT[+-]\d+(:\d\d)?\)\.$/,
+      /^verified ?Intact: all 1 204 events are linked in order up to link 1 204 \(3f2a9c0d1e7b…\) \(checked Mar 2, 2027, \d\d:15:00 [AP]M (UTC|GMT[+-]\d+(:\d\d)?)\)\.$/,
     );
     expect(host.querySelector('[data-testid="trail-chain-problems"]')).toBeNull();
   });

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -11,6 +10,7 @@ import { formatCount } from '@shared/format/numbers';
 import { failureMessage, loaded, readyValue, type Loaded } from '../api/loaded';
 import { ShortHash } from '../runs/short-hash';
 import { AuditApi } from './audit-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /**
  * The system trail checked against its hash chain on request: intact with its count of events and
@@ -18,7 +18,7 @@ import { AuditApi } from './audit-api';
  */
 @Component({
   selector: 'bk-trail-chain-check',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, ShortHash],
+  imports: [ShownDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, ShortHash],
   templateUrl: './trail-chain-check.html',
   styleUrl: './trail-chain-check.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

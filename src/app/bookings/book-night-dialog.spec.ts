@@ -117,7 +117,7 @@ describe('BookNightDialog', () => {
     await fixture.whenStable();
 
     const text = await dialog.getText();
-    expect(text).toContain('The night of 2027-03-14 on Fen link is booking 8');
+    expect(text).toContain('The night of Mar 14, 2027 on Fen link is booking 8');
     expect(text).toContain(booking.seedCommitment);
     expect(document.querySelector('[data-testid="booked-setup-link"]')?.getAttribute('href')).toBe('/setups/2');
   });

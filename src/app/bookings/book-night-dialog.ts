@@ -25,6 +25,7 @@ import { ProfilesApi } from '../profiles/profiles-api';
 import { leadsSetup } from '../setups/setup-lead';
 import { BookingsApi } from './bookings-api';
 import { isoFromLocal, moveToNight, tonightWindow, windowProblem } from './booking-window';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** What the dialog books: a night of `setup`, with the rounds the planner settled on (if any). */
 export interface BookNightData {
@@ -39,7 +40,19 @@ export interface BookNightData {
  */
 @Component({
   selector: 'bk-book-night-dialog',
-  imports: [CopyButton, DayField, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule, RouterLink],
+  imports: [
+    CopyButton,
+    DayField,
+    MatButtonModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    ReactiveFormsModule,
+    RouterLink,
+    ShownDatePipe,
+  ],
   templateUrl: './book-night-dialog.html',
   styleUrl: './book-night-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -19,11 +19,11 @@ import { provideLocalDates, shortDateExample, type PickedDay } from './local-dat
     <!-- The hint with its example takes two lines in a narrow field: the field grows rather than the hint running over the next one. -->
     <mat-form-field appearance="outline" subscriptSizing="dynamic">
       <mat-label>{{ label() }}</mat-label>
-      <input matInput [matDatepicker]="picker" [formControl]="control()" [attr.data-testid]="testId()" autocomplete="off" />
+      <input matInput [matDatepicker]="picker" [formControl]="control()" [max]="max()" [attr.data-testid]="testId()" autocomplete="off" />
       <mat-datepicker-toggle matIconSuffix [for]="picker" />
       <mat-datepicker #picker />
       <mat-hint>{{ hint() }} E.g. {{ example }}.</mat-hint>
-      <mat-error>{{ control().hasError('matDatepickerParse') ? 'Write the date as ' + example + '.' : required() }}</mat-error>
+      <mat-error>{{ error() }}</mat-error>
     </mat-form-field>
   `,
   styles: ':host { display: contents; }',
@@ -37,6 +37,17 @@ export class DayField {
   /** What to say when a required day is left empty. */
   readonly required = input('Give the date.');
   readonly testId = input<string | null>(null);
+  /** The latest day it may be, and what to say of a later one; none: any day. */
+  readonly max = input<PickedDay>(null);
+  readonly tooLate = input('The day is too late.');
 
   protected readonly example = shortDateExample(inject<string>(MAT_DATE_LOCALE));
+
+  /** The error under the field: a date that cannot be read, one after `max`, or none given. */
+  protected error(): string {
+    const control = this.control();
+    if (control.hasError('matDatepickerParse')) return `Write the date as ${this.example}.`;
+    if (control.hasError('matDatepickerMax')) return this.tooLate();
+    return this.required();
+  }
 }

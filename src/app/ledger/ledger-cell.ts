@@ -1,5 +1,6 @@
 import { SIGN_OFF_DECISION_WORDS, type LedgerCellDto } from '@shared/api';
 import { lookOfState, type VerdictTone } from '../runs/verdict-look';
+import { shownDate } from '../dates/shown-dates';
 
 /** What one cell of the ledger shows: a shape and a word (never the colour alone), and what it opens. */
 export interface CellLook {
@@ -20,7 +21,7 @@ export const AWAITING_NOTE = 'to sign';
 
 /** The look of a setup's night in the ledger. */
 export function lookOfCell(cell: LedgerCellDto, setupName: string): CellLook {
-  const night = `${setupName}, night of ${cell.night}`;
+  const night = `${setupName}, night of ${shownDate(cell.night, 'day')}`;
   const run = cell.run;
   if (run === null && cell.waitingFor !== null) {
     const note = `waits for ${cell.waitingFor}`;

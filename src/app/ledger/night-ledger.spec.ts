@@ -79,16 +79,16 @@ describe('NightLedger', () => {
     expect(fen).toHaveLength(21);
     // 1 December is the 17th night shown, 5 December the last.
     const replaced = fen[16].querySelector('a')!;
-    expect(replaced.getAttribute('aria-label')).toBe('Fen link, night of 2026-12-01: ACCEPT, 2 logs, kept (signed off: key kept)');
+    expect(replaced.getAttribute('aria-label')).toBe('Fen link, night of Dec 1, 2026: ACCEPT, 2 logs, kept (signed off: key kept)');
     expect(replaced.getAttribute('href')).toBe('/runs/31');
     expect(replaced.textContent).toContain('kept');
     const booked = fen[20].querySelector('a')!;
-    expect(booked.getAttribute('aria-label')).toBe('Fen link, night of 2026-12-05: Booked, no log yet');
+    expect(booked.getAttribute('aria-label')).toBe('Fen link, night of Dec 5, 2026: Booked, no log yet');
     expect(booked.getAttribute('href')).toBe('/setups/1');
     expect(fen[0].textContent.trim()).toBe('');
 
     const bench = row('Mill Lane bench')[17].querySelector('a')!;
-    expect(bench.getAttribute('aria-label')).toBe('Mill Lane bench, night of 2026-12-02: ABORT, to sign (awaiting sign-off), unbooked');
+    expect(bench.getAttribute('aria-label')).toBe('Mill Lane bench, night of Dec 2, 2026: ABORT, to sign (awaiting sign-off), unbooked');
     expect(bench.textContent).toContain('to sign');
   });
 
@@ -121,7 +121,7 @@ describe('lookOfCell', () => {
       word: 'Withdrawn',
       tone: 'pending',
       note: '2 logs · ABORT',
-      label: 'Fen link, night of 2026-12-03: Withdrawn, 2 logs, ABORT (the log was withdrawn as a mistaken upload)',
+      label: 'Fen link, night of Dec 3, 2026: Withdrawn, 2 logs, ABORT (the log was withdrawn as a mistaken upload)',
       runId: 40,
     });
   });
@@ -133,7 +133,7 @@ describe('lookOfCell', () => {
       word: 'One log',
       tone: 'booked',
       note: 'waits for B',
-      label: "Fen link, night of 2026-12-04: One log, waits for B (station A's log is in; the night waits for station B's)",
+      label: "Fen link, night of Dec 4, 2026: One log, waits for B (station A's log is in; the night waits for station B's)",
       runId: null,
     });
   });

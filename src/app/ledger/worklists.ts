@@ -8,6 +8,7 @@ import type { WorklistKind } from '@shared/api';
 import { failureMessage, loaded, readyValue } from '../api/loaded';
 import { VerdictChip } from '../runs/verdict-chip';
 import { LedgerApi } from './ledger-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** Each worklist's title, its words when empty, and where its whole list is. */
 const LIST_WORDS: Record<WorklistKind, { title: string; empty: string; all: { link: string; query: Record<string, string> } | null }> = {
@@ -19,7 +20,7 @@ const LIST_WORDS: Record<WorklistKind, { title: string; empty: string; all: { li
 /** The signed-in person's worklists, one per role that has one, each with its count and first entries. */
 @Component({
   selector: 'bk-worklists',
-  imports: [MatIconModule, MatProgressBarModule, RouterLink, VerdictChip],
+  imports: [MatIconModule, MatProgressBarModule, RouterLink, ShownDatePipe, VerdictChip],
   templateUrl: './worklists.html',
   styleUrl: './worklists.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -50,3 +50,48 @@ describe('CardTable', () => {
     ]);
   });
 });
+
+/** A plain table of figures: a row heading in each row, a footer row with a cell spanning two columns. */
+@Component({
+  imports: [CardTable],
+  template: `
+    <table bkCardTable>
+      <thead>
+        <tr>
+          <th>Pair</th>
+          <th>Rounds</th>
+          <th>Wins</th>
+          <th>Win fraction</th>
+        </tr>
+      </thead>
+      <tbody>
+        <tr>
+          <th scope="row">(0, 0)</th>
+          <td>4 008</td>
+          <td>1 653</td>
+          <td>0.8353</td>
+        </tr>
+      </tbody>
+      <tfoot>
+        <tr>
+          <th scope="row">Balanced</th>
+          <td colspan="2">pairs weighed equally</td>
+          <td>0.8385</td>
+        </tr>
+      </tfoot>
+    </table>
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+class FigureTable {}
+
+describe('CardTable on a plain table of figures', () => {
+  it('labels row headings and footer cells too, counting a spanning cell’s columns and giving it no label', async () => {
+    const fixture = TestBed.createComponent(FigureTable);
+    await fixture.whenStable();
+    const host = fixture.nativeElement as HTMLElement;
+    const labels = (section: string) => Array.from(host.querySelectorAll(`${section} tr > *`), (cell) => (cell as HTMLElement).dataset['label']);
+    expect(labels('tbody')).toEqual(['Pair', 'Rounds', 'Wins', 'Win fraction']);
+    expect(labels('tfoot')).toEqual(['Pair', '', 'Win fraction']);
+  });
+});

@@ -1,10 +1,11 @@
 import { afterEveryRender, Directive, ElementRef, inject } from '@angular/core';
 
 /**
- * A list's table that shows as cards on a phone (the look is `card-tables` in lists/_cards.scss):
- * after each render it labels every body cell with its column's heading (`data-label`), which the
- * card draws above the value. An empty cell, and a column whose heading is meant only for screen
- * readers (`.bk-visually-hidden`, as over a column of row actions), get no label.
+ * A table that shows as cards on a phone (the look is `card-tables` in lists/_cards.scss): a list's
+ * mat-table or a plain table of figures. After each render it labels every body and footer cell
+ * with its column's heading (`data-label`), which the card draws above the value. An empty cell, a
+ * cell spanning several columns (words that say what they are), and a column whose heading is
+ * meant only for screen readers (`.bk-visually-hidden`, as over a column of row actions), get no label.
  */
 @Directive({
   selector: 'table[bkCardTable]',
@@ -18,15 +19,18 @@ export class CardTable {
   }
 }
 
-/** Writes each body cell's column heading (none for an empty cell) into its `data-label`, touching only cells whose label changed. */
+/** Writes each body and footer cell's column heading (none for an empty or spanning cell) into its `data-label`, touching only cells whose label changed. */
 export function labelCells(table: HTMLTableElement): void {
   const headings = Array.from(table.tHead?.rows[0]?.cells ?? [], visibleHeading);
-  for (const body of Array.from(table.tBodies)) {
-    for (const row of Array.from(body.rows)) {
-      Array.from(row.cells).forEach((cell, column) => {
-        const label = cell.textContent.trim() === '' ? '' : (headings[column] ?? '');
+  const sections = [...Array.from(table.tBodies), ...(table.tFoot ? [table.tFoot] : [])];
+  for (const section of sections) {
+    for (const row of Array.from(section.rows)) {
+      let column = 0;
+      for (const cell of Array.from(row.cells)) {
+        const label = cell.textContent.trim() === '' || cell.colSpan > 1 ? '' : (headings[column] ?? '');
         if (cell.dataset['label'] !== label) cell.dataset['label'] = label;
-      });
+        column += cell.colSpan;
+      }
     }
   }
 }

@@ -1,5 +1,5 @@
 import type { AnalysisProfile } from '@shared/analysis';
-import { describeProfile } from './profile-fields';
+import { describeProfile } from '@shared/format/profile-field-labels';
 
 /** One field that reads differently in two versions of a profile; '–' where a version has no such field. */
 export interface ProfileDifference {

@@ -2,7 +2,7 @@ import { FormControl, FormGroup, Validators } from '@angular/forms';
 
 import type { AnalysisProfile, CheckFamily, TestSelection } from '@shared/analysis';
 import { engineRule, followGeneralBasis, generalAttackControls, generalAttackParameters, numberOf, type GeneralAttackControls } from './general-attack-form';
-import { NUMBER_FIELDS, profileNumberText, type NumberField } from './profile-fields';
+import { NUMBER_FIELDS, profileNumberText, type NumberField } from '@shared/format/profile-field-labels';
 
 /** The controls of a profile form: the profile's fields, numbers as text. */
 export type ProfileControls = Record<NumberField, FormControl<string>> &

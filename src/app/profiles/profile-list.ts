@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -13,13 +12,14 @@ import { ListFrame } from '../lists/list-frame';
 import { searchedList, WordSearch } from '../lists/word-search';
 import { ProfileComparison } from './profile-comparison';
 import { ProfileDialog, type ProfileDialogData } from './profile-dialog';
-import { describeProfile } from './profile-fields';
+import { describeProfile } from '@shared/format/profile-field-labels';
 import { ProfilesApi } from './profiles-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** The acceptance profiles with their versions; each version readable as it was; admins add versions. */
 @Component({
   selector: 'bk-profile-list',
-  imports: [DatePipe, ListFrame, MatButtonModule, MatIconModule, ProfileComparison, WordSearch],
+  imports: [ShownDatePipe, ListFrame, MatButtonModule, MatIconModule, ProfileComparison, WordSearch],
   templateUrl: './profile-list.html',
   styleUrl: './profile-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

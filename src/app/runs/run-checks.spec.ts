@@ -1,7 +1,11 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 
-import type { CheckResult, SecuritySummary } from '@shared/analysis';
+import { type CheckResult, parseProfile, type SecuritySummary } from '@shared/analysis';
 import { RunChecks } from './run-checks';
+
+const parsed = parseProfile({ blockingChecks: ['minimum-test-rounds', 'no-signalling'], securityModel: 'collective' });
+if (!parsed.ok) throw new Error(parsed.message);
+const profile = parsed.profile;
 
 const security = {
   checks: { significance: 0.001, count: 9, perCheck: 0.001 / 9, correction: 'Bonferroni: …' },
@@ -33,6 +37,7 @@ describe('RunChecks', () => {
     fixture = TestBed.createComponent(RunChecks);
     fixture.componentRef.setInput('checks', list);
     fixture.componentRef.setInput('security', security);
+    fixture.componentRef.setInput('profile', profile);
     await fixture.whenStable();
     return fixture.nativeElement as HTMLElement;
   }
@@ -44,6 +49,20 @@ describe('RunChecks', () => {
     const items = host.querySelectorAll('[data-testid="checks"] li');
     expect(words(items[0].querySelector('[data-testid="check-figures"]'))).toBe('p = 5.0e-413 · fails below α/k = 1e-3/9 = 1.1e-4');
     expect(words(items[0].querySelector('.bk-outcome'))).toBe('cancel Fail');
+  });
+
+  it('names each test by its label, its id only beside it, small', async () => {
+    const host = await show(checks);
+    const labels = Array.from(host.querySelectorAll('[data-testid="checks"] li .bk-check-label'));
+    expect(labels.map(words)).toEqual(['Steady CHSH win fraction stationarity-chsh', 'Minimum test rounds minimum-test-rounds']);
+    expect(labels[0].querySelector('code.bk-check-id')?.textContent).toBe('stationarity-chsh');
+  });
+
+  it('says which tests abort a run: the profile’s, stationarity under collective attacks, and the log’s integrity always', async () => {
+    const host = await show(checks);
+    expect(words(host.querySelector('[data-testid="aborting-tests"]'))).toBe(
+      'Tests that abort a run: Log integrity, Minimum test rounds, No-signalling, Stationarity. A failure of any other test only warns.',
+    );
   });
 
   it('gives a counting check its sentence alone', async () => {

@@ -77,7 +77,7 @@ describe('RunIntegrity', () => {
     const signatureCheck = host.querySelector('[data-testid="verification-check-signature"]')!;
     expect(signatureCheck.querySelector('.bk-integrity-word')?.textContent?.replace('check_circle', '').trim()).toBe('Intact');
     expect(host.querySelector('[data-testid="verification-check-system-trail"] strong')?.textContent).toBe('System trail');
-    expect(text(host, 'verification-outcome')).toMatch(/^gpp_bad ?Failed: 1 of 4 checks failed \(checked 2 Mar 2027, \d\d:15:00 GMT[+-]\d+(:\d\d)?\)\.$/);
+    expect(text(host, 'verification-outcome')).toMatch(/^gpp_bad ?Failed: 1 of 4 checks failed \(checked Mar 2, 2027, \d\d:15:00 [AP]M (UTC|GMT[+-]\d+(:\d\d)?)\)\.$/);
   });
 
   it('says Intact when every check passed', async () => {

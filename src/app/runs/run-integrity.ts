@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,6 +8,7 @@ import { startWith, Subject, switchMap } from 'rxjs';
 import type { ResultSignatureDto, VerificationCheck, VerificationDto } from '@shared/api';
 import { loaded, type Loaded } from '../api/loaded';
 import { RunsApi } from './runs-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** What each check of the verification compares, in words. */
 const CHECK_NAMES: Record<VerificationCheck, string> = {
@@ -25,7 +25,7 @@ const CHECK_NAMES: Record<VerificationCheck, string> = {
  */
 @Component({
   selector: 'bk-run-integrity',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [ShownDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './run-integrity.html',
   styleUrl: './run-integrity.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -29,6 +28,7 @@ import { RunsApi, type RunQuery } from './runs-api';
 import { VerdictChip } from './verdict-chip';
 import { lookOfState } from './verdict-look';
 import { WinFractionBar } from './win-fraction-bar';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** The list's first page: newest uploads first. */
 const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'createdAt', direction: 'desc' };
@@ -40,7 +40,7 @@ const FIRST_PAGE: RunQuery = { page: 0, pageSize: 25, sort: 'createdAt', directi
     BookingNoteLine,
     CardTable,
     ChoiceFilter,
-    DatePipe,
+    ShownDatePipe,
     DateRangeFilter,
     FilterBar,
     ListFrame,

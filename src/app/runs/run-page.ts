@@ -1,4 +1,4 @@
-import { DatePipe, DOCUMENT } from '@angular/common';
+import { DOCUMENT } from '@angular/common';
 import { afterNextRender, ChangeDetectionStrategy, Component, computed, effect, inject, Injector, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -28,8 +28,10 @@ import { SettingPairsTable } from './setting-pairs-table';
 import { SettingsTable } from './settings-table';
 import { SignOffPanel } from './sign-off-panel';
 import { StationPairPanel } from './station-pair-panel';
+import { TextWithAddresses } from '../users/text-with-addresses';
 import { trailDetail, trailWords } from './trail-words';
 import { VerdictBanner } from './verdict-banner';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** The id of the sign-off panel, and the fragment the verdict mail's link ends in. */
 const SIGN_OFF_ANCHOR = 'sign-off';
@@ -43,7 +45,7 @@ const SIGN_OFF_ANCHOR = 'sign-off';
   selector: 'bk-run-page',
   imports: [
     CorrelatorChart,
-    DatePipe,
+    ShownDatePipe,
     DriftChart,
     MatButtonModule,
     MatIconModule,
@@ -61,6 +63,7 @@ const SIGN_OFF_ANCHOR = 'sign-off';
     SettingsTable,
     SignOffPanel,
     StationPairPanel,
+    TextWithAddresses,
     VerdictBanner,
   ],
   templateUrl: './run-page.html',

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -17,6 +16,7 @@ import { randomSeed, seedValidator } from './another-seed';
 import { lookOfReverification } from './reverification-look';
 import { isReverificationRunning, RunsApi } from './runs-api';
 import { ShortHash } from './short-hash';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** Who may ask for a re-analysis: the roles `POST /api/runs/:id/reverifications` admits. */
 const MAY_REVERIFY: readonly Role[] = ['auditor', 'admin'];
@@ -28,7 +28,7 @@ const MAY_REVERIFY: readonly Role[] = ['auditor', 'admin'];
  */
 @Component({
   selector: 'bk-run-reverifications',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, ReactiveFormsModule, ShortHash],
+  imports: [ShownDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, ReactiveFormsModule, ShortHash],
   templateUrl: './run-reverifications.html',
   styleUrl: './run-reverifications.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

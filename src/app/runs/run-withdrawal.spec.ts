@@ -75,7 +75,7 @@ describe('RunWithdrawal', () => {
 
   it('shows who withdrew the upload, when and why, to everyone', async () => {
     await open(['auditor'], LUCIA, runOf({ withdrawal: WITHDRAWAL }));
-    expect(text()).toContain('Upload withdrawn by Dev Okafor on 3 Dec 2026');
+    expect(text()).toContain('Upload withdrawn by Dev Okafor on Dec 3, 2026');
     expect(text()).toContain('Wrong setup: the Reed bench log.');
     expect(button()).toBeNull();
   });

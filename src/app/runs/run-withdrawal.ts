@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -10,6 +9,7 @@ import { mayWithdrawUpload, type RunDto, type WithdrawalDto } from '@shared/api'
 import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
 import { RunsApi } from './runs-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /**
  * A mistaken upload, withdrawn: the notice of who withdrew it and why, for everyone; before any
@@ -17,7 +17,7 @@ import { RunsApi } from './runs-api';
  */
 @Component({
   selector: 'bk-run-withdrawal',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
+  imports: [ShownDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
   templateUrl: './run-withdrawal.html',
   styleUrl: './run-withdrawal.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

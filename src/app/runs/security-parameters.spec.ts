@@ -45,7 +45,7 @@ describe('SecurityParameters', () => {
   it('says how the statistical checks share the significance', async () => {
     const host = await show(collective);
     // 0.001 / 8 = 1.25e-4, to two digits.
-    expect(words(host.querySelector('[data-testid="check-sharing"]'))).toBe('α = 1e-3 shared by 8 statistical checks: each at α/k = 1.3e-4');
+    expect(words(host.querySelector('[data-testid="check-sharing"]'))).toBe('α = 1e-3 shared by 8 statistical tests of the log: each at α/k = 1.3e-4');
     expect(words(host.querySelector('[data-testid="check-correction"]'))).toContain('each of the 8 statistical checks fails below p = α/8');
   });
 

@@ -2,11 +2,13 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 
 import type { ChshSummary } from '@shared/analysis';
 import { formatScientific } from '@shared/format/numbers';
+import { CardTable } from '../lists/card-table';
 import { settingPairsTable } from './setting-pairs';
 
 /** The CHSH test by setting pair: each pair's rounds, wins and bound, then the balanced figure the verdict uses. */
 @Component({
   selector: 'bk-setting-pairs-table',
+  imports: [CardTable],
   templateUrl: './setting-pairs-table.html',
   styleUrl: './setting-pairs-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

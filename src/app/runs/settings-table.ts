@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 
 import type { ChshSummary, CountTable } from '@shared/analysis';
 import { formatCount, formatFixed } from '@shared/format/numbers';
+import { CardTable } from '../lists/card-table';
 
 /** One cell of the settings table: setting pair (x, y), its rounds and what it is for. */
 interface SettingCell {
@@ -15,8 +16,9 @@ interface SettingCell {
 /** The 2×3 table of settings: test and generation rounds per pair, with the correlators. */
 @Component({
   selector: 'bk-settings-table',
+  imports: [CardTable],
   template: `
-    <table class="bk-settings" aria-label="Rounds per setting pair">
+    <table class="bk-settings" bkCardTable aria-label="Rounds per setting pair">
       <thead>
         <tr>
           <th scope="col"><span class="bk-visually-hidden">Setting of station A</span></th>
@@ -28,7 +30,7 @@ interface SettingCell {
       <tbody>
         @for (row of rows(); track row.x) {
           <tr>
-            <th scope="row">x = {{ row.x }}</th>
+            <th scope="row" class="bk-card-wide">x = {{ row.x }}</th>
             @for (cell of row.cells; track cell.y) {
               <td>
                 <div><span class="bk-muted">test</span> {{ cell.test }}</div>
@@ -46,6 +48,8 @@ interface SettingCell {
     th, td { padding: 6px 8px; border: 1px solid var(--mat-sys-outline-variant); text-align: right; vertical-align: top; }
     th { font: var(--mat-sys-label-large); background: var(--mat-sys-surface-container-low); }
     .bk-settings-note { font: var(--mat-sys-label-medium); color: var(--mat-sys-primary); }
+    /* On a phone each row is a card (bkCardTable), its heading a title across it, not a shaded cell. */
+    @media (max-width: 599px) { th[scope='row'] { background: none; } }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

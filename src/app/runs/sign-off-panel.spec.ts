@@ -68,7 +68,9 @@ describe('SignOffPanel', () => {
     const submit = host.querySelector<HTMLButtonElement>('button[type="submit"]')!;
     submit.click();
     await settle(fixture);
-    expect(text()).toContain('Choose a decision before signing off.');
+    const missing = host.querySelector('[data-testid="decision-missing"]')!;
+    expect(missing.getAttribute('role')).toBe('alert');
+    expect(missing.textContent).toContain('Choose a decision before signing off.');
 
     Array.from(host.querySelectorAll<HTMLElement>('mat-radio-button input'))
       .find((input) => input.closest('mat-radio-button')!.textContent.includes('Hardware action needed'))!

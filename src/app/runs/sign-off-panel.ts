@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -12,6 +11,7 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { Session } from '../auth/session';
 import { leadsSetup } from '../setups/setup-lead';
 import { RunsApi } from './runs-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /**
  * The shift lead's sign-off of a run: a decision (key kept, key discarded, hardware action needed)
@@ -20,7 +20,7 @@ import { RunsApi } from './runs-api';
  */
 @Component({
   selector: 'bk-sign-off-panel',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
+  imports: [ShownDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
   templateUrl: './sign-off-panel.html',
   styleUrl: './sign-off-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

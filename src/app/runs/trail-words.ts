@@ -1,6 +1,7 @@
 import { isRole, ROLE_LABELS, SIGN_OFF_DECISION_WORDS, SIGN_OFF_DECISIONS, type AuditAction, type AuditEventDto, type SignOffDecision } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
 import { EXPORT_FORMAT_LABELS, isExportFormat } from './export-formats';
+import { shownDate } from '../dates/shown-dates';
 import { changeWords } from './trail-changes';
 import { isReverificationState, lookOfReverification } from './reverification-look';
 
@@ -46,7 +47,8 @@ type Details = Record<string, unknown>;
 /** The detail line of the actions whose details need reading by their action. */
 const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string>> = {
   'booking.created': ({ night, seedCommitment }) => (typeof night === 'string' && typeof seedCommitment === 'string' ? `Night ${night} · seed commitment ${seedCommitment}` : ''),
-  'upload-token.created': ({ name, expiresAt }) => (typeof name === 'string' ? `“${name}”${typeof expiresAt === 'string' ? `, valid until ${expiresAt.slice(0, 10)}` : ''}` : ''),
+  'upload-token.created': ({ name, expiresAt }) =>
+    typeof name === 'string' ? `“${name}”${typeof expiresAt === 'string' ? `, valid until ${shownDate(expiresAt, 'day')}` : ''}` : '',
   'upload-token.revoked': ({ name }) => (typeof name === 'string' ? `“${name}”` : ''),
   'run.uploaded': ({ attempt, replacementReason, replayOf, uploadToken }) =>
     [
@@ -78,7 +80,7 @@ const DETAIL_OF_ACTION: Partial<Record<AuditAction, (details: Details) => string
       ? changeWords(changes)
       : [typeof name === 'string' ? name : '', fourEyes === false ? 'four-eyes rule off' : fourEyes === true ? 'four-eyes rule on' : ''].filter(Boolean).join(' · '),
   'user.password-reset-link-sent': ({ email, expiresAt }) =>
-    typeof email === 'string' ? `To ${email}${typeof expiresAt === 'string' ? `, usable until ${expiresAt.slice(0, 16).replace('T', ' ')} UTC` : ''}` : '',
+    typeof email === 'string' ? `To ${email}${typeof expiresAt === 'string' ? `, usable until ${shownDate(expiresAt, 'minute')}` : ''}` : '',
   'run.signed-off': ({ decision, comment }) =>
     [isSignOffDecision(decision) ? SIGN_OFF_DECISION_WORDS[decision] : '', typeof comment === 'string' && comment !== '' ? `“${comment}”` : ''].filter(Boolean).join(': '),
   'run.withdrawn': ({ reason }) => (typeof reason === 'string' ? `“${reason}”` : ''),

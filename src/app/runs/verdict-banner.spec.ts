@@ -39,7 +39,9 @@ describe('VerdictBanner', () => {
   it('says ACCEPT with its icon and no reasons', async () => {
     const host = await show(acceptedWith(41_250));
     expect(text(host, 'verdict-word')).toBe('ACCEPT');
-    expect(host.querySelector('.bk-banner-headline')?.textContent).toBe('Every acceptance criterion and blocking check holds: the raw key of this run may be kept.');
+    expect(host.querySelector('.bk-banner-headline')?.textContent).toBe(
+      'Every acceptance criterion holds and no test that aborts a run failed: the raw key of this run may be kept.',
+    );
     expect(host.querySelector('.bk-banner-icon')?.textContent).toBe('verified');
     expect(host.querySelector('section')?.classList).toContain('bk-banner-accept');
     expect(host.querySelector('[data-testid="verdict-reasons"]')).toBeNull();

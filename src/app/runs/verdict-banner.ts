@@ -12,7 +12,7 @@ import { workerWait } from './worker-wait';
 const HEADLINES: Record<RunDto['state'], string> = {
   queued: 'The log is archived and waits for an analysis worker.',
   analysing: 'The log is being read and the test rounds audited.',
-  accepted: 'Every acceptance criterion and blocking check holds: the raw key may be kept.',
+  accepted: 'Every acceptance criterion holds and no test that aborts a run failed: the raw key may be kept.',
   aborted: 'The run failed its tests: no key is kept from it.',
   invalid: 'The log could not be read as a round log: nothing was tested.',
   failed: 'The analysis stopped before a verdict. The log is archived; the run can be analysed again.',

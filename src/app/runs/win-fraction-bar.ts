@@ -22,6 +22,8 @@ const AXIS = { min: LOCAL_WIN_FRACTION - 0.05, max: QUANTUM_WIN_FRACTION };
     <bk-chart-table #figures [table]="table()" hiddenTable />
   `,
   styles: `
+    /* A block: inline, its hidden table (a block) split the line and a clipped ellipsis drew a dot after the figure. */
+    :host { display: block; }
     .bk-win-bar { display: inline-flex; align-items: center; gap: 8px; }
     .bk-win-canvas { position: relative; display: inline-block; width: 96px; height: 18px; }
   `,

@@ -1,4 +1,5 @@
 import { WORKER_HEARTBEAT_SECONDS, WORKER_SILENT_AFTER_BEATS, type RunDto } from '@shared/api';
+import { shownDate } from '../dates/shown-dates';
 
 /** A queued run is overdue for a worker after this long. */
 const QUEUED_OVERDUE_MS = 20_000;
@@ -6,7 +7,7 @@ const QUEUED_OVERDUE_MS = 20_000;
 const SILENT_AFTER_MS = WORKER_SILENT_AFTER_BEATS * WORKER_HEARTBEAT_SECONDS * 1000;
 
 /** A time of day with its zone, as every time on screen. */
-const clock = (iso: string) => new Date(iso).toLocaleTimeString('en-GB', { timeZoneName: 'short' });
+const clock = (iso: string) => shownDate(iso, 'time');
 
 /**
  * Why a pending run is still waiting, when it waits for a worker rather than on one: nobody took

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -13,6 +12,7 @@ import { STATIONS, type CreatedUploadTokenDto, type SetupDto, type StationName }
 import { apiErrorMessage } from '../api/api-error-message';
 import { CopyButton } from '../clipboard/copy-button';
 import { SetupsApi } from './setups-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** The longest validity the server takes, in days. */
 const LONGEST_VALIDITY_DAYS = 366;
@@ -27,7 +27,7 @@ export type TokenUploads = 'joined' | StationName;
  */
 @Component({
   selector: 'bk-new-upload-token-dialog',
-  imports: [CopyButton, DatePipe, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
+  imports: [CopyButton, ShownDatePipe, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
   templateUrl: './new-upload-token-dialog.html',
   styleUrl: './new-upload-token-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

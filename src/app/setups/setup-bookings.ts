@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
@@ -7,11 +6,13 @@ import type { BookingDto } from '@shared/api';
 import { formatCount } from '@shared/format/numbers';
 import { ShortHash } from '../runs/short-hash';
 import { VerdictChip } from '../runs/verdict-chip';
+import { CardTable } from '../lists/card-table';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** A setup's booked nights: window, planned rounds, profile, the published seed commitment, and the logs that came. */
 @Component({
   selector: 'bk-setup-bookings',
-  imports: [DatePipe, MatIconModule, RouterLink, ShortHash, VerdictChip],
+  imports: [CardTable, ShownDatePipe, MatIconModule, RouterLink, ShortHash, VerdictChip],
   templateUrl: './setup-bookings.html',
   styleUrl: './setup-bookings.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

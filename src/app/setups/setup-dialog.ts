@@ -49,6 +49,8 @@ function clockPairValidator(form: AbstractControl<{ clockOffsetNs: number | null
       display: grid;
       grid-template-columns: repeat(auto-fill, minmax(240px, 1fr));
       gap: 12px 16px;
+      /* A field without a hint keeps its own height beside one with a hint, not the row's. */
+      align-items: start;
       padding-top: 8px;
     }
     .bk-wide {

@@ -125,7 +125,7 @@ describe('SetupPage', () => {
     await openAs(9, 'Dev Okafor', ['experimentalist']);
 
     const [withLogs, waiting] = rowText('[data-testid="bookings"]');
-    expect(withLogs).toContain('Sun 14 Mar 2027');
+    expect(withLogs).toContain('Sun, Mar 14, 2027');
     expect(withLogs).toContain('booked by Dev Okafor');
     expect(withLogs).toContain('2 000 000');
     expect(withLogs).toContain('777ddf8cec45…');
@@ -162,9 +162,9 @@ describe('SetupPage', () => {
       const [live, revoked] = rowText('[data-testid="upload-tokens"]');
       // The state cell starts with its icon's ligature name, then the word.
       expect(live).toMatch(
-        /^North Hall acquisition PC made by Lucia Brandt, 10 Jan 2027 \| Joined logs \| keyIn use \| 15 Mar 2027, \d\d:\d0 GMT[+-]\d+(:\d\d)? \| 10 Jan 2099 \| Revoke$/,
+        /^North Hall acquisition PC made by Lucia Brandt, Jan 10, 2027 \| Joined logs \| keyIn use \| Mar 15, 2027, \d\d:\d0 [AP]M (UTC|GMT[+-]\d+(:\d\d)?) \| Jan 10, 2099 \| Revoke$/,
       );
-      expect(revoked).toMatch(/^Old laptop .* \| key_offRevoked 1 Feb 2027, \d\d:00 GMT[+-]\d+(:\d\d)? \| Never \| 10 Jan 2099 \| $/);
+      expect(revoked).toMatch(/^Old laptop .* \| key_offRevoked Feb 1, 2027, \d\d:00 [AP]M (UTC|GMT[+-]\d+(:\d\d)?) \| Never \| Jan 10, 2099 \| $/);
     });
 
     it('shows a new token once, with a copy button and the warning, then lists it', async () => {

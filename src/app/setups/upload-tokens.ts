@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -17,11 +16,12 @@ import { CardTable } from '../lists/card-table';
 import { NewUploadTokenDialog } from './new-upload-token-dialog';
 import { SetupsApi } from './setups-api';
 import { uploadTokenState } from './upload-token-state';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** A setup's upload tokens for its acquisition computers: when each was last used, when it expires; new ones and revoking. */
 @Component({
   selector: 'bk-upload-tokens',
-  imports: [CardTable, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
+  imports: [CardTable, ShownDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
   templateUrl: './upload-tokens.html',
   styleUrl: './upload-tokens.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

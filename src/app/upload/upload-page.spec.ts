@@ -1,4 +1,5 @@
 import { HttpErrorResponse, provideHttpClient } from '@angular/common/http';
+import { DateTime } from 'luxon';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
@@ -128,7 +129,7 @@ describe('UploadPage', () => {
   it('joins the booking open now, judged under its profile on its night', async () => {
     await prepare([lastNight()]);
     const booking = await select('booking-select');
-    expect(await booking.getValueText()).toBe('Night of 14 Mar 2027 (booking 7)');
+    expect(await booking.getValueText()).toBe('Night of Mar 14, 2027 (booking 7)');
     expect(await (await select('profile-select')).getValueText()).toBe('Nightly standard v1');
     expect(host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')?.disabled).toBe(true);
     expect(host.querySelector('[data-testid="replacement"]')).toBeNull();
@@ -203,10 +204,21 @@ describe('UploadPage', () => {
     const acquiredOn = host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')!;
     expect(acquiredOn.disabled).toBe(false);
     // Typed in the browser's date order (jsdom's is en-US).
-    acquiredOn.value = '3/10/2027';
+    acquiredOn.value = '3/10/2026';
     acquiredOn.dispatchEvent(new Event('input'));
     await clickUpload();
-    expect(sent[0]).toMatchObject({ bookingId: null, acquiredOn: '2027-03-10' });
+    expect(sent[0]).toMatchObject({ bookingId: null, acquiredOn: '2026-03-10' });
+  });
+
+  it('refuses an acquisition date in the future, saying so under the field', async () => {
+    await prepare([]);
+    const acquiredOn = host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')!;
+    const tomorrow = DateTime.now().plus({ days: 1 });
+    acquiredOn.value = tomorrow.toFormat('M/d/yyyy');
+    acquiredOn.dispatchEvent(new Event('input'));
+    await clickUpload();
+    expect(sent).toEqual([]);
+    expect(host.querySelector('mat-error')?.textContent).toContain('A log is acquired on or before today: the date is in the future.');
   });
 
   it('refuses to send a log whose preview shows rows that break the log rules', async () => {
@@ -301,11 +313,11 @@ describe('UploadPage', () => {
       expect(sent).toHaveLength(0);
       expect(host.textContent).toContain('Give the night: unbooked station logs pair by setup and night.');
       const acquiredOn = host.querySelector<HTMLInputElement>('[data-testid="acquired-on"]')!;
-      acquiredOn.value = '3/14/2027';
+      acquiredOn.value = '3/14/2026';
       acquiredOn.dispatchEvent(new Event('input'));
       await clickUpload();
       expect(sent).toHaveLength(1);
-      expect(sent[0]).toMatchObject({ station: 'A', setupId: 2, bookingId: null, acquiredOn: '2027-03-14', mapping: { columns: {}, outcomes: '0/1' } });
+      expect(sent[0]).toMatchObject({ station: 'A', setupId: 2, bookingId: null, acquiredOn: '2026-03-14', mapping: { columns: {}, outcomes: '0/1' } });
       expect(sent[0].log.name).toBe('north-hall.csv');
 
       progress.next({ kind: 'waiting', stationLog: waiting('A') });

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, signal, untracked, type WritableSignal } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -34,6 +33,7 @@ import { stationLogsRefusal } from './station-log-check';
 import { StationLogPicker, type PickedStationLog } from './station-log-picker';
 import { arrivalSentence, sendStationLogs, type StationLogUpload } from './station-uploads';
 import type { LogUpload } from './upload-metadata';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** Where the upload is. */
 type UploadPhase = 'choosing' | 'uploading' | 'analysing' | 'finished';
@@ -54,7 +54,7 @@ type MappingControls = Record<RoundField, FormControl<string | null>> & { outcom
 @Component({
   selector: 'bk-upload-page',
   imports: [
-    DatePipe,
+    ShownDatePipe,
     DayField,
     LogDrop,
     MatButtonModule,
@@ -220,6 +220,8 @@ export class UploadPage {
       .join(' and ');
   });
   protected readonly count = formatCount;
+  /** The latest acquisition date: today, in the browser's zone (the server allows today anywhere on Earth). */
+  protected readonly today = DateTime.now().startOf('day');
   /** What the acquisition date is for: the booking's night, or (unbooked) what pairs station logs. */
   protected readonly acquiredOnHint = computed(() => {
     if (this.chosenBooking()) return 'The booking’s night.';
@@ -265,7 +267,9 @@ export class UploadPage {
       // Unbooked station logs pair by setup and night: the night must be named.
       const nightNeeded = booking === null && this.source() === 'stations';
       untracked(() => {
-        acquiredOn.setValidators(nightNeeded ? Validators.required : null);
+        // Added and removed, not set: setting would drop the date field's own validators (a date after today).
+        if (nightNeeded) acquiredOn.addValidators(Validators.required);
+        else acquiredOn.removeValidators(Validators.required);
         acquiredOn.updateValueAndValidity();
         profileVersionId.setValue(versionId);
         replacementReason.setValidators(replacing ? [Validators.required, Validators.maxLength(2000)] : Validators.maxLength(2000));

@@ -2,11 +2,13 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 
 /**
  * An e-mail address that a narrow column may break only where a reader expects it: after the @
- * and before each dot (`<wbr>`), never in the middle of a name.
+ * and before each dot (`<wbr>`), never in the middle of a name, nor at a hyphen ("night-desk"):
+ * each part is kept whole by CSS, so a copied address stays the address, with its own hyphens.
  */
 @Component({
   selector: 'bk-email-address',
-  template: `@for (part of parts(); track $index) {@if (!$first) {<wbr />}{{ part }}}`,
+  template: `@for (part of parts(); track $index) {@if (!$first) {<wbr />}<span class="bk-email-part">{{ part }}</span>}`,
+  styles: '.bk-email-part { white-space: nowrap; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EmailAddress {

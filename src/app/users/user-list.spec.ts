@@ -78,7 +78,7 @@ describe('UserList', () => {
     expect(rows['roles'].text).toEqual(['Auditor', 'Admin', 'ExperimentalistShift lead']);
     // The state cell starts with its icon's ligature name, then the word.
     expect(rows['active'].text).toEqual(['blockDeactivated', 'check_circleActive', 'check_circleActive']);
-    expect(rows['createdAt'].text).toEqual(['3 Oct 2026', '1 Sep 2026', '14 Sep 2026']);
+    expect(rows['createdAt'].text).toEqual(['Oct 3, 2026', 'Sep 1, 2026', 'Sep 14, 2026']);
   });
 
   it('says when the list could not be loaded and tries again on request', async () => {

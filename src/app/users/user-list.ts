@@ -1,6 +1,5 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { DatePipe } from '@angular/common';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
 import { MatDialog } from '@angular/material/dialog';
@@ -21,6 +20,7 @@ import { CardTable } from '../lists/card-table';
 import { EmailAddress } from './email-address';
 import { UserDialog } from './user-dialog';
 import { UsersApi } from './users-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** How far the list has got. */
 type LoadState = 'loading' | 'ready' | 'failed';
@@ -30,7 +30,7 @@ type LoadState = 'loading' | 'ready' | 'failed';
   selector: 'bk-user-list',
   imports: [
     CardTable,
-    DatePipe,
+    ShownDatePipe,
     EmailAddress,
     MatButtonModule,
     MatChipsModule,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
@@ -9,11 +8,12 @@ import type { WorkerDto } from '@shared/api';
 import { failureMessage, loaded, readyValue } from '../api/loaded';
 import { WORKER_CONDITION_WORDS } from './worker-words';
 import { WorkersApi } from './workers-api';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** The admins' page of analysis workers: who takes jobs, who went silent or ended unasked, what waits. */
 @Component({
   selector: 'bk-workers-page',
-  imports: [DatePipe, MatIconModule, MatProgressBarModule, MatTableModule],
+  imports: [ShownDatePipe, MatIconModule, MatProgressBarModule, MatTableModule],
   templateUrl: './workers-page.html',
   styleUrl: './workers-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,6 +1,6 @@
-import type { GeneralAttackControls } from './general-attack-form';
-import { type AnalysisProfile, CHECK_FAMILIES, type CheckFamily } from '@shared/analysis';
-import { formatCount, formatScientific } from '@shared/format/numbers';
+import type { AnalysisProfile } from '../analysis/profile';
+import { CHECK_FAMILY_LABELS } from './check-labels';
+import { formatCount, formatScientific } from './numbers';
 
 /** A number of the profile the form edits as text (ε's in scientific notation). */
 export type NumberField =
@@ -35,11 +35,15 @@ export const NUMBER_FIELDS: readonly NumberField[] = [
   'missingRoundsTolerance',
 ];
 
-/** Label and meaning of every profile field. */
-export const FIELD_MEANINGS: Record<
-  NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks' | 'spaceLikeSeparation' | keyof GeneralAttackControls,
-  FieldMeaning
-> = {
+/** The profile form's fields for the key length against general attacks. */
+export type GeneralField = 'generalBasis' | 'generalSoundness' | 'designChshValue' | 'designQber' | 'omegaThreshold' | 'syndromeBits' | 'generalTestProbability';
+
+/** Every field a profile is shown by: in the app's form and view, and in the PDF report. */
+export type ProfileField =
+  NumberField | 'mode' | 'fraction' | 'probability' | 'criterion' | 'securityModel' | 'requirePositiveKey' | 'blockingChecks' | 'spaceLikeSeparation' | GeneralField;
+
+/** Label and meaning of every profile field, the one name the app and the PDF give it. */
+export const FIELD_MEANINGS: Record<ProfileField, FieldMeaning> = {
   mode: { label: 'Test rounds chosen', hint: 'By a fixed share drawn from the seed, by each round independently, or by the log’s own test column.' },
   fraction: { label: 'Test fraction', hint: 'Exactly this share of all rounds is tested (between 0 and 1). Common: 0.01–0.5.' },
   probability: { label: 'Test probability γ', hint: 'Each round is tested with this probability, independently (between 0 and 1).' },
@@ -94,19 +98,6 @@ export const SPACE_LIKE_SEPARATION_WORDS: Record<AnalysisProfile['spaceLikeSepar
   required: 'Required of every round',
 };
 
-/** Words for the check families. */
-export const CHECK_FAMILY_LABELS: Record<CheckFamily, string> = {
-  'log-integrity': 'Log integrity',
-  'minimum-test-rounds': 'Minimum test rounds',
-  'setting-uniformity': 'Setting uniformity',
-  'no-signalling': 'No-signalling',
-  stationarity: 'Stationarity',
-  'test-marks': 'The log’s test marks',
-};
-
-/** The check families in order, with their words. */
-export const CHECK_FAMILY_OPTIONS = CHECK_FAMILIES.map((family) => ({ value: family, label: CHECK_FAMILY_LABELS[family] }));
-
 /** Fields shown in scientific notation. */
 const SCIENTIFIC: readonly NumberField[] = ['epsilon', 'epsilonEC', 'epsilonPA', 'significance'];
 
@@ -131,7 +122,7 @@ export function describeProfile(profile: AnalysisProfile): { label: string; valu
   for (const field of NUMBER_FIELDS) lines.push({ ...FIELD_MEANINGS[field], value: shownProfileNumber(field, profile[field]) });
   const general = profile.generalAttack;
   const generalWords = general
-    ? `General attacks (entropy accumulation), soundness ${general.soundness}, ${general.design ? `design S = ${general.design.chshValue}, QBER = ${general.design.qber}` : `ω_thr = ${general.omegaThreshold}, syndrome ${general.syndromeBits} bits`}`
+    ? `General attacks (entropy accumulation), soundness ${general.soundness}, ${general.design ? `design S = ${general.design.chshValue}, QBER = ${general.design.qber}` : `ω_thr = ${general.omegaThreshold}, syndrome ${general.syndromeBits} bits`}${general.testProbability === undefined ? '' : `, marking γ = ${general.testProbability}`}`
     : 'General attacks (settings missing)';
   lines.push({ ...FIELD_MEANINGS.securityModel, value: (profile.securityModel ?? 'collective') === 'general' ? generalWords : 'Collective attacks (finite key estimate)' });
   lines.push({ ...FIELD_MEANINGS.requirePositiveKey, value: profile.requirePositiveKey ? 'Yes' : 'No' });
