@@ -17,15 +17,18 @@ export const UNBOOKED_CAUTION = 'Unbooked: the seed that chose the test rounds w
 export const REVEALED_SEED_CAUTION =
   'This log came after the seed was revealed with the first attempt: whoever wrote it could know which rounds would be tested. Judge the replacement with that in mind.';
 
-/** The words of a run's booking for the run page, the mail and the PDF. */
-export function bookingWords(run: Pick<RunDto, 'id' | 'booking' | 'replayOf'>): BookingWords {
+/**
+ * The words of a run's booking for the run page, the mail and the PDF; `day` writes the night (the
+ * mail and the PDF keep YYYY-MM-DD, the app writes it in the reader's locale).
+ */
+export function bookingWords(run: Pick<RunDto, 'id' | 'booking' | 'replayOf'>, day: (isoDate: string) => string = (isoDate) => isoDate): BookingWords {
   const replay = run.replayOf === null ? [] : [`Replay: these bytes were uploaded before as run ${run.replayOf}, under another booking or night.`];
   const booking = run.booking;
   if (!booking) return { state: 'Unbooked', headline: UNBOOKED_CAUTION, details: replay };
   const earlier = booking.attempts.filter((attempt) => attempt.attempt !== booking.attempt);
   return {
     state: 'Booked',
-    headline: `Booked night ${booking.night} (booking ${booking.bookingId}): attempt ${booking.attempt} of ${booking.attempts.length}.`,
+    headline: `Booked night ${day(booking.night)} (booking ${booking.bookingId}): attempt ${booking.attempt} of ${booking.attempts.length}.`,
     details: [
       `Seed committed at booking, before acquisition: SHA-256 ${booking.seedCommitment}.`,
       ...(booking.attempt > 1

@@ -10,6 +10,7 @@ import { failureMessage, loaded, readyValue } from '../api/loaded';
 import { LedgerApi } from './ledger-api';
 import { lookOfCell, type CellLook } from './ledger-cell';
 import { isoNight, nightsBetween, rangeEnding } from './ledger-nights';
+import { ShownDatePipe } from '../dates/shown-dates';
 
 /** A setup's row: its name and, for each night shown, the cell's look (null: nothing that night). */
 interface LedgerRow {
@@ -25,7 +26,7 @@ interface LedgerRow {
  */
 @Component({
   selector: 'bk-night-ledger',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, ShownDatePipe],
   templateUrl: './night-ledger.html',
   styleUrl: './night-ledger.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

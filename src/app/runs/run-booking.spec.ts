@@ -3,6 +3,7 @@ import { provideRouter } from '@angular/router';
 
 import type { RunBookingDto, RunDto } from '@shared/api';
 import { REVEALED_SEED_CAUTION, UNBOOKED_CAUTION } from '@shared/format/booking-words';
+import { shownDate } from '../dates/shown-dates';
 import { RunBooking } from './run-booking';
 
 const SEED = '9f2c4e81a7d35b60c8e1f4a29b7d03e56a1c8f42e7b90d35c6a2f81e4b7d09c3';
@@ -59,7 +60,8 @@ describe('RunBooking', () => {
     const host = await show(runWith({ booking }));
     const headline = host.querySelector('[data-testid="booking-headline"]');
     expect(icon(headline)).toBe('event_available');
-    expect(text(headline)).toBe('Booked night 2027-03-14 (booking 7): attempt 2 of 2.');
+    // The night in the reader's own way of writing a day, as every date of the app.
+    expect(text(headline)).toBe(`Booked night ${shownDate('2027-03-14', 'day')} (booking 7): attempt 2 of 2.`);
     expect(details(host)).toEqual([
       { text: `Seed committed at booking, before acquisition: SHA-256 ${COMMITMENT}.`, flag: null },
       { text: 'Replaces the earlier log: Detector B was saturated; log re-read from the second disk.', flag: null },

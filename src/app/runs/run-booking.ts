@@ -6,6 +6,7 @@ import { catchError, distinctUntilChanged, from, map, of, startWith, switchMap }
 
 import type { RunDto } from '@shared/api';
 import { bookingWords, REVEALED_SEED_CAUTION } from '@shared/format/booking-words';
+import { shownDate } from '../dates/shown-dates';
 import { checkSeedCommitment, type CommitmentCheck } from '../bookings/seed-commitment';
 import { CopyButton } from '../clipboard/copy-button';
 import { runLinkParts } from './run-link-parts';
@@ -26,7 +27,7 @@ export class RunBooking {
   /** The run. */
   readonly run = input.required<RunDto>();
 
-  protected readonly words = computed(() => bookingWords(this.run()));
+  protected readonly words = computed(() => bookingWords(this.run(), (night) => shownDate(night, 'day')));
   /** The sentences under the headline, run numbers linked; cautions (a replay, a seed already revealed) marked. */
   protected readonly details = computed(() => {
     const run = this.run();
