@@ -51,12 +51,20 @@ export function shownDate(value: string | Date, shape: DateShape, options: { loc
   const format = formatOf(day ? (shape === 'weekday' ? 'weekday' : 'day') : shape, options.locale ?? browserLocale(), day ? 'UTC' : options.timeZone);
   return format
     .formatToParts(date)
-    .map((part) => (part.type === 'timeZoneName' && ZERO_OFFSET.test(part.value) ? 'UTC' : part.value))
+    .map((part) => (part.type === 'timeZoneName' ? zoneName(part.value) : part.value))
     .join('');
 }
 
 /** The zone name of offset zero ("GMT", "GMT+0"), which the app and the PDF call UTC. */
 const ZERO_OFFSET = /^GMT([+-]0(:00)?)?$/;
+
+/**
+ * A zone as shown: offset zero as UTC; a zone west of it with a minus sign (U+2212), as the app
+ * writes negative numbers, which a line never breaks after as it may after a hyphen ("GMT-" / "5").
+ */
+function zoneName(name: string): string {
+  return ZERO_OFFSET.test(name) ? 'UTC' : name.replace('-', '\u2212');
+}
 
 /** `shownDate` in a template: `{{ run.createdAt | shownDate: 'minute' }}`; empty for no date. */
 @Pipe({ name: 'shownDate' })
