@@ -72,7 +72,14 @@ describe("the lab's desk in a real browser", () => {
     const showTables = page.getByRole('button', { name: 'Show as table' });
     const charts = await showTables.count();
     expect(charts).toBeGreaterThanOrEqual(3);
-    for (let opened = 0; opened < charts; opened++) await showTables.first().click();
+    // One at a time: each click turns the first "Show as table" left into a "Hide the table".
+    for (let opened = 1; opened <= charts; opened++) {
+      await showTables.first().click();
+      await page
+        .getByRole('button', { name: 'Hide the table' })
+        .nth(opened - 1)
+        .waitFor();
+    }
     expect(await page.getByRole('button', { name: 'Hide the table' }).count()).toBe(charts);
     await page
       .getByRole('table', { name: /^The correlators, whose sum is S/ })

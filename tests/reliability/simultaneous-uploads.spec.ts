@@ -75,9 +75,15 @@ describe('fifty simultaneous uploads from two experimentalists', () => {
     for (const run of runs) expect(run.deliveries.map((delivery) => delivery.status)).toEqual(['sent']);
   });
 
-  it('leaves exactly one mail per run in the catcher, none twice', () => {
-    // Each run's mail carries a Message-ID of its own: a mail sent twice would show as a repeated line.
-    const expected = runs.map((run) => `<run-${run.id}-verdict@bellkeep> Run ${run.id} of Fen link (unbooked) is analysed: ${run.verdict}; it awaits sign-off`);
+  it('leaves exactly one mail per run in the catcher, and one more for a run its uploader may not sign, none twice', () => {
+    // Each mail carries a Message-ID of its own: a mail sent twice would show as a repeated line. Ada
+    // Reyes leads Fen link's shifts too: under the four-eyes rule her own runs' mail to her has no sign-off link.
+    const expected = runs.flatMap((run) => [
+      `<run-${run.id}-verdict@bellkeep> Run ${run.id} of Fen link (unbooked) is analysed: ${run.verdict}; it awaits sign-off`,
+      ...(run.uploadedBy === 'Ada Reyes'
+        ? [`<run-${run.id}-verdict-uploader@bellkeep> Run ${run.id} of Fen link (unbooked) is analysed: ${run.verdict}; it awaits sign-off by another shift lead`]
+        : []),
+    ]);
     const caught = mails.map((mail) => `${mail.headers['message-id']} ${mail.subject}`);
     expect(caught.sort()).toEqual(expected.sort());
   });
